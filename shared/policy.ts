@@ -1,0 +1,29 @@
+import type { Role } from './schemas/user';
+
+/**
+ * Who may do what — the single policy table the routes (and the UI, to hide what a role cannot
+ * do) consult. Project visibility for clients (membership) is checked where the project is loaded.
+ */
+export const POLICY = {
+  'project.read': ['admin', 'planner', 'reviewer', 'client'],
+  'project.readAll': ['admin', 'planner', 'reviewer'],
+  'project.write': ['admin', 'planner'],
+  'project.members': ['admin', 'planner'],
+  'user.list': ['admin', 'planner'],
+  'user.manage': ['admin'],
+  'audit.read': ['admin'],
+  'armModel.read': ['admin', 'planner', 'reviewer', 'client'],
+  'armModel.write': ['admin', 'planner'],
+  'floorPlan.read': ['admin', 'planner', 'reviewer', 'client'],
+  'floorPlan.write': ['admin', 'planner'],
+  'layout.read': ['admin', 'planner', 'reviewer'],
+  'layout.write': ['admin', 'planner'],
+  'kinematics.use': ['admin', 'planner', 'reviewer', 'client'],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Action = keyof typeof POLICY;
+
+/** True when the role may perform the action. */
+export function can(role: Role | undefined | null, action: Action): boolean {
+  return role != null && (POLICY[action] as readonly Role[]).includes(role);
+}

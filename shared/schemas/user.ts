@@ -1,0 +1,47 @@
+import { z } from 'zod';
+
+/** The four roles of PRODUCT.md; the order is not a hierarchy. */
+export const ROLES = ['admin', 'planner', 'reviewer', 'client'] as const;
+export const Role = z.enum(ROLES);
+export type Role = z.infer<typeof Role>;
+
+export const Email = z.string().trim().toLowerCase().email('Enter a valid e-mail address').max(254);
+export const Password = z
+  .string()
+  .min(10, 'Use at least 10 characters')
+  .max(200, 'Use at most 200 characters');
+
+export const LoginInput = z.object({
+  email: Email,
+  password: z.string().min(1, 'Enter your password').max(200),
+});
+export type LoginInput = z.infer<typeof LoginInput>;
+
+export const UserCreateInput = z.object({
+  email: Email,
+  name: z.string().trim().min(1, 'Enter a name').max(120),
+  role: Role,
+  password: Password,
+});
+export type UserCreateInput = z.infer<typeof UserCreateInput>;
+
+export const UserUpdateInput = z
+  .object({
+    name: z.string().trim().min(1, 'Enter a name').max(120),
+    role: Role,
+    active: z.boolean(),
+    password: Password,
+  })
+  .partial()
+  .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change' });
+export type UserUpdateInput = z.infer<typeof UserUpdateInput>;
+
+/** A user as the API presents it. */
+export interface UserDto {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  active: boolean;
+  createdAt: string;
+}

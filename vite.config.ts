@@ -1,0 +1,62 @@
+import { fileURLToPath } from 'node:url';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+import { defineConfig } from 'vitest/config';
+
+const sharedDir = fileURLToPath(new URL('./shared', import.meta.url));
+const alias = { '@shared': sharedDir };
+
+export default defineConfig({
+  root: 'frontend',
+  plugins: [react(), tailwindcss()],
+  resolve: { alias },
+  build: {
+    outDir: fileURLToPath(new URL('./dist/client', import.meta.url)),
+    emptyOutDir: true,
+    chunkSizeWarningLimit: 1500,
+  },
+  worker: { format: 'es' },
+  server: {
+    port: 5173,
+    proxy: { '/api': 'http://127.0.0.1:3000' },
+  },
+  test: {
+    root: '.',
+    projects: [
+      {
+        resolve: { alias },
+        test: {
+          name: 'unit',
+          root: '.',
+          include: ['tests/unit/**/*.test.ts', 'tests/reference/**/*.test.ts'],
+          environment: 'node',
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'api',
+          root: '.',
+          include: ['tests/api/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/support/globalSetup.ts'],
+          testTimeout: 30000,
+          hookTimeout: 60000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'e2e',
+          root: '.',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/support/globalSetup.ts'],
+          testTimeout: 90000,
+          hookTimeout: 120000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
