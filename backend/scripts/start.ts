@@ -1,0 +1,79 @@
+// `npm start`: local PostgreSQL (unless DATABASE_URL), migrate, seed the demo when empty, build the
+// client when it is missing or stale, then serve on http://127.0.0.1:3000 (PORT overrides).
+import { existsSync, readdirSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { loadConfig } from '../src/config';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../src/db/seed';
+import { startServer } from '../src/server';
+import { ensureDatabase, PgSetupError, resolveDataDir, startLocalPg, type LocalPg } from './pg';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
+const say = (m: string) => console.log(`[ringfence] ${m}`);
+
+function newestMtime(dir: string): number {
+  let newest = 0;
+  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+    const p = path.join(dir, entry.name);
+    newest = Math.max(newest, entry.isDirectory() ? newestMtime(p) : statSync(p).mtimeMs);
+  }
+  return newest;
+}
+
+async function buildClientIfNeeded(): Promise<void> {
+  const index = path.join(root, 'dist/client/index.html');
+  const sources = Math.max(newestMtime(path.join(root, 'frontend')), newestMtime(path.join(root, 'shared')));
+  if (existsSync(index) && statSync(index).mtimeMs >= sources) return;
+  say('Building the web client (first start or sources changed)…');
+  const { build } = await import('vite');
+  await build({ configFile: path.join(root, 'vite.config.ts'), logLevel: 'warn', mode: 'production' });
+}
+
+let local: LocalPg | null = null;
+
+async function main(): Promise<void> {
+  const config = loadConfig();
+  let databaseUrl = config.databaseUrl;
+  let stopping = false;
+  let closeServer: (() => Promise<void>) | null = null;
+
+  const shutdown = async (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    say(`${signal}: stopping…`);
+    try {
+      await closeServer?.();
+    } finally {
+      local?.stop();
+      say('Stopped.');
+      process.exit(0);
+    }
+  };
+  process.on('SIGINT', () => void shutdown('SIGINT'));
+  process.on('SIGTERM', () => void shutdown('SIGTERM'));
+  process.on('SIGHUP', () => void shutdown('SIGHUP'));
+
+  if (!databaseUrl) {
+    const dataDir = resolveDataDir(config.dataDir ?? path.join(root, '.data/pg'), say);
+    local = await startLocalPg({ dataDir, say });
+    await ensureDatabase(local.adminUrl, 'ringfence');
+    databaseUrl = local.urlFor('ringfence');
+    say(`PostgreSQL ${local.owned ? 'started' : 'reused'} on 127.0.0.1:${local.port} (data: ${dataDir})`);
+  } else {
+    say('Using the database at DATABASE_URL.');
+  }
+  if (stopping) return;
+  if (!process.argv.includes('--dev')) await buildClientIfNeeded();
+  const running = await startServer(config, databaseUrl, { say });
+  closeServer = running.close;
+  say(`Ringfence is ready on ${running.url}`);
+  say(`Demo accounts (password "${DEMO_PASSWORD}" — change them before real use):`);
+  for (const a of DEMO_ACCOUNTS) say(`  ${a.role.padEnd(9)} ${a.email}`);
+}
+
+main().catch((err: unknown) => {
+  if (err instanceof PgSetupError) console.error(`[ringfence] ${err.message}`);
+  else console.error('[ringfence] Could not start:', err instanceof Error ? err.message : err);
+  local?.stop();
+  process.exit(1);
+});

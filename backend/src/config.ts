@@ -1,0 +1,70 @@
+import { z } from 'zod';
+
+/** Environment parsed once at start; every setting has a default for local use. */
+const ConfigSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default('127.0.0.1'),
+  DATABASE_URL: z.string().optional(),
+  SMTP_URL: z.string().optional(),
+  MAIL_FROM: z.string().default('Ringfence <no-reply@ringfence.local>'),
+  RINGFENCE_DATA_DIR: z.string().optional(),
+  SESSION_SECRET: z.string().min(16).optional(),
+  /** Set when the site is served over HTTPS (behind a TLS-terminating proxy): Secure cookies. */
+  SECURE_COOKIES: z.enum(['0', '1', 'true', 'false']).default('0').transform((v) => v === '1' || v === 'true'),
+  TRUST_PROXY: z.coerce.number().int().min(0).default(0),
+  /** Extra allowed origins for state-changing requests (comma-separated), besides the request's own host. */
+  ALLOWED_ORIGINS: z.string().default(''),
+  BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(10),
+  LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(20),
+  LOGIN_RATE_WINDOW_MS: z.coerce.number().int().min(1000).default(10 * 60 * 1000),
+  UPLOAD_LIMIT_MB: z.coerce.number().positive().default(50),
+  PUBLIC_URL: z.string().optional(),
+});
+
+export type Config = {
+  env: 'development' | 'production' | 'test';
+  port: number;
+  host: string;
+  databaseUrl?: string;
+  smtpUrl?: string;
+  mailFrom: string;
+  dataDir?: string;
+  sessionSecret?: string;
+  secureCookies: boolean;
+  trustProxy: number;
+  allowedOrigins: string[];
+  bcryptCost: number;
+  loginRateLimit: number;
+  loginRateWindowMs: number;
+  uploadLimitBytes: number;
+  publicUrl?: string;
+};
+
+/** Reads the configuration from an environment (process.env by default); throws a readable message. */
+export function loadConfig(env: Record<string, string | undefined> = process.env): Config {
+  const parsed = ConfigSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const c = parsed.data;
+  return {
+    env: c.NODE_ENV,
+    port: c.PORT,
+    host: c.HOST,
+    databaseUrl: c.DATABASE_URL,
+    smtpUrl: c.SMTP_URL,
+    mailFrom: c.MAIL_FROM,
+    dataDir: c.RINGFENCE_DATA_DIR,
+    sessionSecret: c.SESSION_SECRET,
+    secureCookies: c.SECURE_COOKIES,
+    trustProxy: c.TRUST_PROXY,
+    allowedOrigins: c.ALLOWED_ORIGINS.split(',').map((s) => s.trim()).filter(Boolean),
+    bcryptCost: c.BCRYPT_COST,
+    loginRateLimit: c.LOGIN_RATE_LIMIT,
+    loginRateWindowMs: c.LOGIN_RATE_WINDOW_MS,
+    uploadLimitBytes: Math.round(c.UPLOAD_LIMIT_MB * 1024 * 1024),
+    publicUrl: c.PUBLIC_URL,
+  };
+}

@@ -1,0 +1,45 @@
+import type { Sequelize, Transaction } from 'sequelize';
+import type { Role } from '@shared/schemas/user';
+import { hashPassword } from '../auth/passport';
+import { Project, ProjectMember, User } from '../models';
+import { audit } from '../services/audit/audit';
+
+export const DEMO_PASSWORD = 'ringfence-demo';
+
+/** The demo accounts of the invented Fernhill scenario (README lists them). */
+export const DEMO_ACCOUNTS: ReadonlyArray<{ email: string; name: string; role: Role }> = [
+  { email: 'admin@fernhill.test', name: 'Morgan Hale', role: 'admin' },
+  { email: 'planner@fernhill.test', name: 'Priya Lindqvist', role: 'planner' },
+  { email: 'reviewer@fernhill.test', name: 'Tomasz Adeyemi', role: 'reviewer' },
+  { email: 'client@fernhill.test', name: 'Harriet Fenwick', role: 'client' },
+];
+
+export const DEMO_PROJECT = {
+  name: 'Line 3 end-of-line cell',
+  clientName: 'Fernhill Biscuit Works',
+  siteName: 'Fernhill bakery, packing hall',
+  description:
+    'End-of-line cell for biscuit line 3: two SCARA-type pickers over the wrapper infeed, an articulated arm packing cases, ' +
+    'a linkage-driven palletizer at the end of the line, one guard fence with an access opening and an operator area at the pallet exchange.',
+};
+
+/** Extra seeding steps later features register (catalogue, floor plan, layout); run in order inside the seed. */
+export type SeedStep = (ctx: { sequelize: Sequelize; transaction: Transaction; planner: User; project: Project }) => Promise<void>;
+
+/** Seeds the demo when the database has no users; returns true when it seeded. */
+export async function seedDemoIfEmpty(sequelize: Sequelize, opts: { bcryptCost: number; steps?: SeedStep[] }): Promise<boolean> {
+  if ((await User.count()) > 0) return false;
+  const hash = await hashPassword(DEMO_PASSWORD, opts.bcryptCost);
+  await sequelize.transaction(async (transaction) => {
+    const users = new Map<Role, User>();
+    for (const a of DEMO_ACCOUNTS) {
+      users.set(a.role, await User.create({ ...a, passwordHash: hash }, { transaction }));
+    }
+    const planner = users.get('planner')!;
+    const project = await Project.create({ ...DEMO_PROJECT, createdBy: planner.id }, { transaction });
+    await ProjectMember.create({ projectId: project.id, userId: users.get('client')!.id }, { transaction });
+    await audit(null, 'demo.seed', 'project', project.id, {}, transaction);
+    for (const step of opts.steps ?? []) await step({ sequelize, transaction, planner, project });
+  });
+  return true;
+}

@@ -1,0 +1,19 @@
+import type { Router } from 'express';
+import type { Sequelize } from 'sequelize';
+import type { Config } from './config';
+import type { SeedStep } from './db/seed';
+
+export interface FeatureContext {
+  config: Config;
+  sequelize: Sequelize;
+}
+
+/** API routers of the product's features, mounted under /api after the foundation routes. */
+export function featureRouters(_ctx: FeatureContext): Router[] {
+  return [];
+}
+
+/** Demo seeding steps of the features, run in order after the demo accounts and project. */
+export function featureSeedSteps(): SeedStep[] {
+  return [];
+}

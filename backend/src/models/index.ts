@@ -1,0 +1,27 @@
+import type { Sequelize } from 'sequelize';
+import { AuditEvent } from './AuditEvent';
+import { Project } from './Project';
+import { ProjectMember } from './ProjectMember';
+import { User } from './User';
+
+export { AuditEvent, Project, ProjectMember, User };
+export { presentProject } from './Project';
+export { presentUser } from './User';
+
+let initialisedOn: Sequelize | null = null;
+
+/** Initialises every model and association on one Sequelize instance (once per process). */
+export function initModels(sequelize: Sequelize): void {
+  if (initialisedOn === sequelize) return;
+  if (initialisedOn) throw new Error('initModels: models are already bound to another Sequelize instance');
+  initialisedOn = sequelize;
+  User.initModel(sequelize);
+  Project.initModel(sequelize);
+  ProjectMember.initModel(sequelize);
+  AuditEvent.initModel(sequelize);
+
+  Project.belongsTo(User, { as: 'creator', foreignKey: 'createdBy' });
+  Project.belongsToMany(User, { as: 'members', through: ProjectMember, foreignKey: 'projectId', otherKey: 'userId' });
+  User.belongsToMany(Project, { as: 'projects', through: ProjectMember, foreignKey: 'userId', otherKey: 'projectId' });
+  AuditEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
+}

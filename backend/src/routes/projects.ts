@@ -1,0 +1,130 @@
+import { Router } from 'express';
+import { fn, col, type Sequelize } from 'sequelize';
+import { can } from '@shared/policy';
+import { MemberInput, ProjectInput, ProjectUpdateInput, type MemberDto } from '@shared/schemas/project';
+import { allow, currentUser } from '../auth/guards';
+import { badRequest, conflict, notFound } from '../http/errors';
+import { idParam, parseOr400 } from '../http/validate';
+import { Project, ProjectMember, User, presentProject } from '../models';
+import { audit } from '../services/audit/audit';
+import { loadVisibleProject } from '../services/projectAccess';
+
+async function memberCounts(ids: number[]): Promise<Map<number, number>> {
+  if (ids.length === 0) return new Map();
+  const rows = (await ProjectMember.findAll({
+    attributes: ['projectId', [fn('COUNT', col('userId')), 'n']],
+    where: { projectId: ids },
+    group: ['projectId'],
+    raw: true,
+  })) as unknown as Array<{ projectId: number; n: number }>;
+  return new Map(rows.map((r) => [r.projectId, Number(r.n)]));
+}
+
+async function membersOf(projectId: number): Promise<MemberDto[]> {
+  const rows = await ProjectMember.findAll({ where: { projectId }, order: [['createdAt', 'ASC']] });
+  const users = await User.findAll({ where: { id: rows.map((r) => r.userId) } });
+  const byId = new Map(users.map((u) => [u.id, u]));
+  return rows.flatMap((r) => {
+    const u = byId.get(r.userId);
+    return u ? [{ userId: u.id, email: u.email, name: u.name, role: u.role, addedAt: r.createdAt.toISOString() }] : [];
+  });
+}
+
+async function detail(project: Project) {
+  await project.reload({ include: [{ model: User, as: 'creator' }] });
+  const members = await membersOf(project.id);
+  return { ...presentProject(project, members.length), members };
+}
+
+/** Projects and their members. Clients see member projects only; reviewers read all. */
+export function projectsRouter(sequelize: Sequelize): Router {
+  const r = Router();
+
+  r.get('/projects', allow('project.read'), async (req, res) => {
+    const user = currentUser(req);
+    const include = [{ model: User, as: 'creator' }];
+    let projects: Project[];
+    if (can(user.role, 'project.readAll')) {
+      projects = await Project.findAll({ include, order: [['updatedAt', 'DESC']] });
+    } else {
+      const memberOf = await ProjectMember.findAll({ where: { userId: user.id } });
+      projects = await Project.findAll({ where: { id: memberOf.map((m) => m.projectId) }, include, order: [['updatedAt', 'DESC']] });
+    }
+    const counts = await memberCounts(projects.map((p) => p.id));
+    res.json({ projects: projects.map((p) => presentProject(p, counts.get(p.id) ?? 0)) });
+  });
+
+  r.post('/projects', allow('project.write'), async (req, res) => {
+    const user = currentUser(req);
+    const input = parseOr400(ProjectInput, req.body, 'The project');
+    const project = await sequelize.transaction(async (transaction) => {
+      const p = await Project.create({ ...input, createdBy: user.id }, { transaction });
+      await audit(user.id, 'project.create', 'project', p.id, { name: p.name }, transaction);
+      return p;
+    });
+    res.status(201).json({ project: await detail(project) });
+  });
+
+  r.get('/projects/:id', allow('project.read'), async (req, res) => {
+    const project = await loadVisibleProject(currentUser(req), idParam(req.params.id, 'Project'));
+    res.json({ project: await detail(project) });
+  });
+
+  r.patch('/projects/:id', allow('project.write'), async (req, res) => {
+    const user = currentUser(req);
+    const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
+    const input = parseOr400(ProjectUpdateInput, req.body, 'The project');
+    await sequelize.transaction(async (transaction) => {
+      await project.update(input, { transaction });
+      await audit(user.id, 'project.update', 'project', project.id, { fields: Object.keys(input) }, transaction);
+    });
+    res.json({ project: await detail(project) });
+  });
+
+  r.delete('/projects/:id', allow('project.write'), async (req, res) => {
+    const user = currentUser(req);
+    const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
+    await sequelize.transaction(async (transaction) => {
+      await audit(user.id, 'project.delete', 'project', project.id, { name: project.name }, transaction);
+      await project.destroy({ transaction });
+    });
+    res.status(204).end();
+  });
+
+  r.get('/projects/:id/members', allow('project.read'), async (req, res) => {
+    const project = await loadVisibleProject(currentUser(req), idParam(req.params.id, 'Project'));
+    res.json({ members: await membersOf(project.id) });
+  });
+
+  r.post('/projects/:id/members', allow('project.members'), async (req, res) => {
+    const user = currentUser(req);
+    const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
+    const { userId } = parseOr400(MemberInput, req.body, 'The member');
+    const member = await User.findByPk(userId);
+    if (!member) throw badRequest('That user does not exist.', { userId: 'Choose an existing user' });
+    if (await ProjectMember.findOne({ where: { projectId: project.id, userId } })) {
+      throw conflict(`${member.name} is already a member of this project.`);
+    }
+    await sequelize.transaction(async (transaction) => {
+      await ProjectMember.create({ projectId: project.id, userId }, { transaction });
+      await audit(user.id, 'project.member.add', 'project', project.id, { userId }, transaction);
+    });
+    const dto = (await membersOf(project.id)).find((m) => m.userId === userId);
+    res.status(201).json({ member: dto });
+  });
+
+  r.delete('/projects/:id/members/:userId', allow('project.members'), async (req, res) => {
+    const user = currentUser(req);
+    const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
+    const userId = idParam(req.params.userId, 'Member');
+    const removed = await sequelize.transaction(async (transaction) => {
+      const n = await ProjectMember.destroy({ where: { projectId: project.id, userId }, transaction });
+      if (n) await audit(user.id, 'project.member.remove', 'project', project.id, { userId }, transaction);
+      return n;
+    });
+    if (!removed) throw notFound('Member');
+    res.status(204).end();
+  });
+
+  return r;
+}

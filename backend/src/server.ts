@@ -1,0 +1,62 @@
+import http from 'node:http';
+import pg from 'pg';
+import type { Sequelize } from 'sequelize';
+import { createApp, type AppDeps } from './app';
+import type { Config } from './config';
+import { migrateUp } from './db/migrate';
+import { createSequelize } from './db/sequelize';
+import { seedDemoIfEmpty } from './db/seed';
+import { ensureSessionSecret } from './db/settings';
+import { featureSeedSteps } from './features';
+
+export interface RunningServer {
+  url: string;
+  server: http.Server;
+  sequelize: Sequelize;
+  close(): Promise<void>;
+}
+
+/** Migrates, seeds the demo when empty, and listens. Used by `npm start` and the e2e tests. */
+export async function startServer(
+  config: Config,
+  databaseUrl: string,
+  opts: { clientDir?: string; seed?: boolean; say?: (m: string) => void; quiet?: boolean } = {},
+): Promise<RunningServer> {
+  const say = opts.say ?? (() => {});
+  const sequelize = createSequelize(databaseUrl);
+  const applied = await migrateUp(sequelize);
+  if (applied.length) say(`Applied ${applied.length} migration(s).`);
+  if (opts.seed !== false) {
+    const seeded = await seedDemoIfEmpty(sequelize, { bcryptCost: config.bcryptCost, steps: featureSeedSteps() });
+    if (seeded) say('Seeded the demo data (Fernhill Biscuit Works).');
+  }
+  const pool = new pg.Pool({ connectionString: databaseUrl, max: 5 });
+  const sessionSecret = await ensureSessionSecret(sequelize, config.sessionSecret);
+  const deps: AppDeps = {
+    config,
+    sequelize,
+    pool,
+    sessionSecret,
+    clientDir: opts.clientDir,
+    log: opts.quiet ? () => {} : undefined,
+  };
+  const app = createApp(deps);
+  const server = http.createServer(app);
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(config.port, config.host, () => resolve());
+  });
+  const addr = server.address();
+  const port = typeof addr === 'object' && addr ? addr.port : config.port;
+  return {
+    url: `http://${config.host}:${port}`,
+    server,
+    sequelize,
+    async close() {
+      server.closeAllConnections();
+      await new Promise<void>((r) => server.close(() => r()));
+      await pool.end().catch(() => {});
+      await sequelize.close().catch(() => {});
+    },
+  };
+}
