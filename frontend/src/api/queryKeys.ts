@@ -1,0 +1,23 @@
+/**
+ * Query keys, one factory per resource. Keys nest from general to specific so that
+ * `invalidateQueries({queryKey: projectKeys.all})` reaches every project query.
+ * Pages added later (arm models, floor plans, layouts) add their own factory here.
+ */
+export const authKeys = {
+  all: ['auth'] as const,
+  me: () => [...authKeys.all, 'me'] as const,
+};
+
+export const projectKeys = {
+  all: ['projects'] as const,
+  lists: () => [...projectKeys.all, 'list'] as const,
+  list: () => [...projectKeys.lists()] as const,
+  details: () => [...projectKeys.all, 'detail'] as const,
+  detail: (id: number) => [...projectKeys.details(), id] as const,
+};
+
+export const userKeys = {
+  all: ['users'] as const,
+  lists: () => [...userKeys.all, 'list'] as const,
+  list: () => [...userKeys.lists()] as const,
+};

@@ -1,0 +1,121 @@
+import { useState } from 'react';
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { can } from '@shared/policy';
+import { useSessionUser } from '../api/auth';
+import { isApiError } from '../api/client';
+import { useDeleteProject, useProject } from '../api/projects';
+import { Button } from '../components/Button';
+import { ConfirmDialog } from '../components/ConfirmDialog';
+import { ErrorNotice, LoadingNotice } from '../components/Notice';
+import { PageHeader } from '../components/PageHeader';
+import { PROJECT_SECTIONS } from './projectSections';
+import NotFoundPage from './NotFoundPage';
+
+function parseId(raw: string | undefined): number | null {
+  if (!raw || !/^[1-9]\d*$/.test(raw)) return null;
+  const id = Number(raw);
+  return Number.isSafeInteger(id) ? id : null;
+}
+
+/** One project: its sections (details, members, and what later pages add) and deletion. */
+export default function ProjectPage() {
+  const id = parseId(useParams().id);
+  if (id === null) return <NotFoundPage />;
+  return <ProjectView id={id} />;
+}
+
+function ProjectView({ id }: { id: number }) {
+  const user = useSessionUser();
+  const project = useProject(id);
+  const remove = useDeleteProject(id);
+  const navigate = useNavigate();
+  const [confirming, setConfirming] = useState(false);
+
+  if (project.isPending) return <LoadingNotice label="Loading project…" />;
+  if (project.isError) {
+    return (
+      <div className="flex max-w-xl flex-col gap-4 py-6">
+        <h1 className="text-2xl font-bold">{isApiError(project.error, 404) ? 'Project not found' : 'Project could not be loaded'}</h1>
+        <ErrorNotice error={project.error} />
+        <Link to="/projects" className="text-sm font-bold text-accent underline underline-offset-4">
+          Back to projects
+        </Link>
+      </div>
+    );
+  }
+
+  const p = project.data;
+  const sections = PROJECT_SECTIONS.filter((s) => !s.requires || can(user.role, s.requires));
+  const mayDelete = can(user.role, 'project.write');
+
+  return (
+    <>
+      <PageHeader
+        eyebrow={
+          <Link to="/projects" className="hover:text-ink">
+            Projects
+          </Link>
+        }
+        title={p.name}
+        lead={[p.clientName, p.siteName].filter(Boolean).join(' · ')}
+        actions={
+          mayDelete ? (
+            <Button variant="danger" onClick={() => setConfirming(true)}>
+              Delete project
+            </Button>
+          ) : null
+        }
+      />
+
+      <div className="grid grid-cols-[11rem_1fr] gap-10">
+        <nav aria-label="Project sections" className="sticky top-6 self-start">
+          <ul className="flex flex-col border-l border-rule text-sm">
+            {sections.map((s) => (
+              <li key={s.id}>
+                <a href={`#${s.id}`} className="-ml-px block border-l-2 border-transparent py-1.5 pl-3 text-ink-muted hover:border-accent hover:text-ink">
+                  {s.title}
+                </a>
+              </li>
+            ))}
+          </ul>
+        </nav>
+        <div className="flex min-w-0 flex-col gap-10">
+          {sections.map(({ id: sectionId, title, lead, Component }) => (
+            <section key={sectionId} id={sectionId} aria-labelledby={`${sectionId}-title`} className="scroll-mt-6">
+              <h2 id={`${sectionId}-title`} className="text-lg font-bold">
+                {title}
+              </h2>
+              {lead && <p className="mt-0.5 text-sm text-ink-muted">{lead}</p>}
+              <div className="mt-3">
+                <Component project={p} />
+              </div>
+            </section>
+          ))}
+        </div>
+      </div>
+
+      <ConfirmDialog
+        open={confirming}
+        title="Delete this project?"
+        confirmLabel="Delete project"
+        busy={remove.isPending}
+        error={remove.error}
+        onClose={() => {
+          setConfirming(false);
+          remove.reset();
+        }}
+        onConfirm={() =>
+          remove.mutate(undefined, {
+            onSuccess: () => void navigate('/projects', { replace: true }),
+          })
+        }
+      >
+        <p>
+          <strong>{p.name}</strong> for {p.clientName} will be deleted together with its members list
+          {/* Later sections (floor plans, layouts) are deleted with the project by the server. */}
+          {' '}and everything filed under it. This cannot be undone.
+        </p>
+      </ConfirmDialog>
+    </>
+  );
+}

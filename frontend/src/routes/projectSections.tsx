@@ -1,0 +1,35 @@
+import type { ComponentType } from 'react';
+import type { ProjectDetailDto } from '@shared/schemas/project';
+import type { Action } from '@shared/policy';
+import { ProjectDetails } from '../components/project/ProjectDetails';
+import { ProjectMembers } from '../components/project/ProjectMembers';
+
+/** One section of the project page: its anchor id, heading and content. */
+export interface ProjectSection {
+  id: string;
+  title: string;
+  /** A line under the heading saying what the section is for. */
+  lead?: string;
+  /** Shown only to roles that may do this (shared/policy.ts); everyone when omitted. */
+  requires?: Action;
+  Component: ComponentType<{ project: ProjectDetailDto }>;
+}
+
+/**
+ * The sections of the project page, in display order.
+ *
+ * EXTENSION POINT — "Floor plans" (requires 'floorPlan.read') and "Layouts" (requires
+ * 'layout.read') are added here, between "Details" and "Members", each as a component under
+ * `src/components/project/` that receives the loaded project.
+ */
+export const PROJECT_SECTIONS: ProjectSection[] = [
+  { id: 'details', title: 'Details', Component: ProjectDetails },
+  // ← "Floor plans" goes here.
+  // ← "Layouts" goes here.
+  {
+    id: 'members',
+    title: 'Members',
+    lead: 'People who work on this project. Clients see a project only when they are a member of it.',
+    Component: ProjectMembers,
+  },
+];

@@ -1,0 +1,50 @@
+import type { ComponentType } from 'react';
+import { Navigate, type RouteObject } from 'react-router-dom';
+import { AppFrame } from '../components/AppFrame';
+import { LoadingNotice } from '../components/Notice';
+import { RequireAuth } from '../components/RequireAuth';
+import { RouteError } from '../components/RouteError';
+
+type PageModule = { default: ComponentType };
+
+/** Turns a page module's default export into a lazily loaded route component. */
+function page(load: () => Promise<PageModule>): RouteObject['lazy'] {
+  return async () => ({ Component: (await load()).default });
+}
+
+/**
+ * The one route table of the client. Every page is its own module under `src/routes/`, loaded
+ * when first visited. A new page adds a child of the signed-in frame here and, if it belongs in
+ * the main navigation, an entry in `nav.ts`.
+ */
+export const routes: RouteObject[] = [
+  {
+    path: '/sign-in',
+    lazy: page(() => import('./SignInPage')),
+    errorElement: <RouteError />,
+    HydrateFallback: () => <LoadingNotice className="px-8" />,
+  },
+  {
+    path: '/',
+    element: (
+      <RequireAuth>
+        <AppFrame />
+      </RequireAuth>
+    ),
+    errorElement: <RouteError />,
+    HydrateFallback: () => <LoadingNotice className="px-8" />,
+    children: [
+      {
+        // Errors inside a page keep the frame (navigation, sign-out) around them.
+        errorElement: <RouteError />,
+        children: [
+          { index: true, element: <Navigate to="/projects" replace /> },
+          { path: 'projects', lazy: page(() => import('./ProjectsPage')) },
+          { path: 'projects/:id', lazy: page(() => import('./ProjectPage')) },
+          { path: 'admin/users', lazy: page(() => import('./AdminUsersPage')) },
+          { path: '*', lazy: page(() => import('./NotFoundPage')) },
+        ],
+      },
+    ],
+  },
+];
