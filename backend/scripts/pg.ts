@@ -119,7 +119,8 @@ export async function startLocalPg(opts: { dataDir: string; fast?: boolean; say?
     stop() {
       if (!owned) return;
       owned = false;
-      runPg(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-m', 'fast', '-w', '-t', '30', 'stop'], { allowFail: true });
+      const r = runPg(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-m', 'fast', '-w', '-t', '30', 'stop'], { allowFail: true });
+      if (r.status !== 0) say(`PostgreSQL did not stop cleanly: ${r.out.trim()}`);
     },
   };
   await waitForPg(local.adminUrl);

@@ -1,0 +1,39 @@
+/**
+ * The one place for the import engine's tolerances and size limits (plan millimetres unless a
+ * name says otherwise).
+ */
+
+/** Largest distance between a curve and the polyline that replaces it, mm. */
+export const DEFAULT_CHORD_TOLERANCE_MM = 1;
+/** Smallest and largest chord tolerance a caller may ask for, mm. */
+export const MIN_CHORD_TOLERANCE_MM = 0.01;
+export const MAX_CHORD_TOLERANCE_MM = 1000;
+
+/** Ends of lines and arcs closer than this are taken as one point when chains are joined, mm. */
+export const DEFAULT_JOIN_TOLERANCE_MM = 1;
+
+/** Coordinates are kept to this grid, mm (a nanometre: far below drawing accuracy). */
+export const COORDINATE_GRID_MM = 1e-6;
+
+/**
+ * No point of a floor plan lies farther than this from the drawing origin, mm (1000 km). A
+ * larger coordinate is a broken file, not a building.
+ */
+export const MAX_COORDINATE_MM = 1e9;
+
+/** Most segments one curve is cut into; a larger count means a coarser approximation. */
+export const MAX_SEGMENTS_PER_CURVE = 4096;
+
+/** Deepest block nesting followed (INSERT inside a block inside a block …). */
+export const MAX_BLOCK_DEPTH = 32;
+
+/** Most entity instances one import places (after block expansion). */
+export const MAX_ENTITY_INSTANCES = 2_000_000;
+
+/** Most plan points one import holds. */
+export const MAX_OUTPUT_POINTS = 5_000_000;
+
+/** Rounds a plan coordinate to COORDINATE_GRID_MM (and turns −0 into 0). */
+export function roundMm(v: number): number {
+  return Math.round(v * 1e6) / 1e6 || 0;
+}

@@ -1,0 +1,82 @@
+// Per-file test database (copied from the migrated template) and the app on it, for API tests.
+import { randomBytes } from 'node:crypto';
+import pg from 'pg';
+import request from 'supertest';
+import type { Express } from 'express';
+import type { Sequelize } from 'sequelize';
+import { inject } from 'vitest';
+import { createApp } from '../../backend/src/app';
+import { loadConfig, type Config } from '../../backend/src/config';
+import { createSequelize } from '../../backend/src/db/sequelize';
+import { TEMPLATE_DB } from './pgForTests';
+
+export interface TestDb {
+  name: string;
+  url: string;
+  drop(): Promise<void>;
+}
+
+async function admin<T>(fn: (c: pg.Client) => Promise<T>): Promise<T> {
+  const c = new pg.Client({ connectionString: inject('pgAdminUrl') });
+  await c.connect();
+  try {
+    return await fn(c);
+  } finally {
+    await c.end();
+  }
+}
+
+/** A fresh database copied from the migrated template. */
+export async function createTestDb(): Promise<TestDb> {
+  const name = `t_${process.pid}_${randomBytes(4).toString('hex')}`;
+  await admin((c) => c.query(`CREATE DATABASE "${name}" TEMPLATE "${TEMPLATE_DB}"`));
+  const url = inject('pgAdminUrl').replace(/\/postgres$/, `/${name}`);
+  return {
+    name,
+    url,
+    drop: () => admin((c) => c.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`)).then(() => undefined),
+  };
+}
+
+export function testConfig(overrides: Record<string, string> = {}): Config {
+  return loadConfig({ NODE_ENV: 'test', BCRYPT_COST: '4', LOGIN_RATE_LIMIT: '1000', PORT: '0', ...overrides });
+}
+
+export interface TestApp {
+  app: Express;
+  sequelize: Sequelize;
+  config: Config;
+  db: TestDb;
+  /** Another app on the same database with other settings (models bind to one Sequelize per process). */
+  appWith(configOverrides: Record<string, string>): Express;
+  close(): Promise<void>;
+}
+
+/** The app on a fresh database; call close() in afterAll. */
+export async function createTestApp(configOverrides: Record<string, string> = {}): Promise<TestApp> {
+  const db = await createTestDb();
+  const config = testConfig(configOverrides);
+  const sequelize = createSequelize(db.url, { pool: 5 });
+  const pool = new pg.Pool({ connectionString: db.url, max: 3 });
+  const make = (c: Config) => createApp({ config: c, sequelize, pool, sessionSecret: 'test-secret-test-secret', clientDir: '/nonexistent', log: () => {} });
+  return {
+    app: make(config),
+    sequelize,
+    config,
+    db,
+    appWith: (overrides) => make(testConfig({ ...configOverrides, ...overrides })),
+    async close() {
+      await pool.end();
+      await sequelize.close();
+      await db.drop();
+    },
+  };
+}
+
+/** A supertest agent (keeps cookies) signed in with the given credentials. */
+export async function signedIn(app: Express, email: string, password: string): Promise<ReturnType<typeof request.agent>> {
+  const agent = request.agent(app);
+  const res = await agent.post('/api/auth/login').send({ email, password });
+  if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return agent;
+}
