@@ -1,0 +1,268 @@
+/**
+ * The chain family: a general serial arm from a DH table (standard or modified/Craig).
+ *
+ * Parameters (lengths mm, angles deg):
+ * - `convention`: 'standard' (A_i = Rz(θ)Tz(d)Tx(a)Rx(α)) or 'modified' (A_i = Rx(α_{i-1})Tx(a_{i-1})Rz(θ)Tz(d));
+ *   in a modified table row i's `a`, `alpha` are a_{i-1}, α_{i-1} (the link before joint i).
+ * - `joints[i]`: `type`, `a`, `alpha`, `d`, `theta`, limits `min`/`max` in controller units,
+ *   optional `zeroOffset` (default 0) and `direction` (+1 / −1, default +1).
+ *   Revolute: kinematic θ_i = theta + direction·value + zeroOffset (deg); limits are controller degrees.
+ *   Prismatic: kinematic d_i = d + direction·value + zeroOffset (mm); limits are controller mm; θ fixed.
+ * - `tool`: the tool point in the last frame, mm (a translation; the tool frame keeps the last rotation).
+ * - `toolLength`: tooling that reaches beyond the tool point (e.g. a held part), mm; it does not
+ *   move the tool point and only grows maximum space. `payloadRadius`, stopping data: as other families.
+ * - Joint 1 must be revolute about the base z axis through the origin (plan bands need a vertical
+ *   J1): always so in standard DH; in modified DH row 1 must have alpha ≡ 0 (mod 360) and a = 0.
+ *
+ * Frames returned by forward(): 'base' (identity), 'J1' … 'Jn' (frame i = T_0^i, the frame after
+ * joint i's link transform), 'tool'. `wrist` is the origin of frame 4 (the wrist centre of a
+ * spherical wrist, where J4, J5, J6 axes meet in both conventions) for chains of 6 or more joints,
+ * otherwise the origin of the last joint frame (before the tool offset).
+ * Failures carry `axis` numbered from 1 (1 = J1).
+ *
+ * Reach profile: sampled (sampledProfile.ts) for the tool point with J1 at kinematic 0;
+ * r = sign(x)·√(x²+y²), and the lateral offset is the mean y of those samples (see lateralOffset).
+ */
+import { z } from 'zod';
+import { DhPointEvaluator, chainTransforms, dhRowsAt, mat4Translation, type DhJoint, type Mat4 } from './dh';
+import { HaltonSequence, sampleProfile, type AxisRange, type SampledReachProfile } from './sampledProfile';
+import type { AxisInfo, FamilyModule, ForwardResult, Frame, Vec3 } from './types';
+
+const DEG = Math.PI / 180;
+/** Allowance on axis limits for values typed or computed at the limit (deg or mm). */
+const LIMIT_EPS = 1e-9;
+const MAX_LENGTH_MM = 100_000;
+const MAX_ANGLE_DEG = 720;
+
+const num = (what: string) => z.number({ error: `${what} must be a finite number` });
+const length = (what: string) =>
+  num(what).refine((v) => Math.abs(v) <= MAX_LENGTH_MM, { message: `${what} must be within ±${MAX_LENGTH_MM} mm` });
+const angle = (what: string) =>
+  num(what).refine((v) => Math.abs(v) <= MAX_ANGLE_DEG, { message: `${what} must be within ±${MAX_ANGLE_DEG}°` });
+const nonNegative = (what: string) => num(what).nonnegative({ message: `${what} must not be negative` });
+const positive = (what: string) => num(what).positive({ message: `${what} must be greater than 0` });
+
+export const chainJointSchema = z
+  .object({
+    type: z.enum(['revolute', 'prismatic'], { error: 'type must be revolute or prismatic' }),
+    a: length('a'),
+    alpha: angle('alpha'),
+    d: length('d'),
+    theta: angle('theta'),
+    min: length('min'),
+    max: length('max'),
+    zeroOffset: length('zeroOffset').optional(),
+    direction: z.union([z.literal(1), z.literal(-1)], { error: 'direction must be 1 or -1' }).optional(),
+  })
+  .superRefine((j, ctx) => {
+    if (j.min >= j.max) ctx.addIssue({ code: 'custom', path: ['max'], message: 'max must be greater than min' });
+    if (j.type === 'revolute') {
+      if (Math.abs(j.min) > MAX_ANGLE_DEG) ctx.addIssue({ code: 'custom', path: ['min'], message: `min must be within ±${MAX_ANGLE_DEG}°` });
+      if (Math.abs(j.max) > MAX_ANGLE_DEG) ctx.addIssue({ code: 'custom', path: ['max'], message: `max must be within ±${MAX_ANGLE_DEG}°` });
+    }
+  });
+export type ChainJoint = z.infer<typeof chainJointSchema>;
+
+export const chainParamsSchema = z
+  .object({
+    family: z.literal('chain', { error: "family must be 'chain'" }),
+    convention: z.enum(['standard', 'modified'], { error: 'convention must be standard or modified' }),
+    joints: z
+      .array(chainJointSchema, { error: 'joints must be a list' })
+      .min(1, { message: 'Add at least one joint' })
+      .max(8, { message: 'At most 8 joints' }),
+    tool: z.object({ x: length('tool x'), y: length('tool y'), z: length('tool z') }, { error: 'tool must be {x, y, z} in mm' }),
+    toolLength: nonNegative('toolLength').optional(),
+    payloadRadius: nonNegative('payloadRadius').optional(),
+    stopTimeS: positive('stopTimeS').optional(),
+    stopDistanceMm: nonNegative('stopDistanceMm').optional(),
+    maxSpeedMmS: positive('maxSpeedMmS').optional(),
+    payloadKg: nonNegative('payloadKg').optional(),
+  })
+  .superRefine((p, ctx) => {
+    const first = p.joints[0];
+    if (!first) return;
+    if (first.type !== 'revolute') {
+      ctx.addIssue({ code: 'custom', path: ['joints', 0, 'type'], message: 'Joint 1 must be revolute about the vertical base axis' });
+    }
+    if (p.convention === 'modified') {
+      const turns = first.alpha / 360;
+      if (Math.abs(turns - Math.round(turns)) > 1e-12) {
+        ctx.addIssue({ code: 'custom', path: ['joints', 0, 'alpha'], message: 'Joint 1 axis must be vertical: alpha of row 1 must be 0' });
+      }
+      if (first.a !== 0) {
+        ctx.addIssue({ code: 'custom', path: ['joints', 0, 'a'], message: 'Joint 1 axis must pass through the base origin: a of row 1 must be 0' });
+      }
+    }
+  });
+export type ChainParams = z.infer<typeof chainParamsSchema>;
+
+/** Constant DH part of each joint, radians and mm (the joint variable is added to θ or d). */
+export function chainDhJoints(params: ChainParams): DhJoint[] {
+  return params.joints.map((j) => ({ kind: j.type, a: j.a, alpha: j.alpha * DEG, d: j.d, theta: j.theta * DEG }));
+}
+
+/** Controller value of joint i (deg / mm) → its kinematic variable (rad added to θ, or mm added to d): direction·value + zeroOffset. */
+export function chainJointVariable(joint: ChainJoint, value: number): number {
+  const v = (joint.direction ?? 1) * value + (joint.zeroOffset ?? 0);
+  return joint.type === 'revolute' ? v * DEG : v;
+}
+
+function toVec3(m: Mat4): Vec3 {
+  return { x: m[3], y: m[7], z: m[11] };
+}
+
+function toFrame(label: string, m: Mat4): Frame {
+  return {
+    label,
+    origin: toVec3(m),
+    rotation: [
+      [m[0], m[1], m[2]],
+      [m[4], m[5], m[6]],
+      [m[8], m[9], m[10]],
+    ],
+  };
+}
+
+/** Forward kinematics of a DH chain (product of homogeneous transforms) from controller values, every frame in the arm frame, mm. */
+export function chainForward(params: ChainParams, joints: readonly number[]): ForwardResult {
+  const n = params.joints.length;
+  if (joints.length !== n) {
+    return { ok: false, reason: 'bad-joint-count', message: `Expected ${n} joint values, got ${joints.length}` };
+  }
+  joints.forEach((v, i) => {
+    if (typeof v !== 'number' || !Number.isFinite(v)) throw new Error(`joints[${i}] must be a finite number`);
+  });
+  for (let i = 0; i < n; i++) {
+    const j = params.joints[i];
+    if (joints[i] < j.min - LIMIT_EPS || joints[i] > j.max + LIMIT_EPS) {
+      const unit = j.type === 'revolute' ? '°' : ' mm';
+      return {
+        ok: false,
+        reason: 'out-of-limits',
+        axis: i + 1,
+        message: `J${i + 1} = ${joints[i]}${unit} is outside its limits ${j.min}…${j.max}${unit}`,
+      };
+    }
+  }
+  const q = params.joints.map((j, i) => chainJointVariable(j, joints[i]));
+  const mats = chainTransforms(params.convention, dhRowsAt(chainDhJoints(params), q), mat4Translation(params.tool.x, params.tool.y, params.tool.z));
+  const frames = mats.map((m, i) => toFrame(i === 0 ? 'base' : i <= n ? `J${i}` : 'tool', m));
+  const wristIndex = n >= 6 ? 4 : n;
+  return { ok: true, tool: toVec3(mats[n + 1]), wrist: toVec3(mats[wristIndex]), frames };
+}
+
+/**
+ * Joints (counted from the last) that cannot move the tool point: a trailing revolute joint whose
+ * axis passes through the point (e.g. J6 with the tool on its axis; J4–J6 with the tool at the wrist
+ * centre). Sampling holds them fixed, which shrinks the sampled dimension without changing the region.
+ */
+export function chainIdleTrailingJoints(params: ChainParams, epsMm = 1e-9): number {
+  const joints = chainDhJoints(params);
+  let x = params.tool.x, y = params.tool.y, zz = params.tool.z;
+  let idle = 0;
+  for (let i = joints.length - 1; i >= 1; i--) {
+    const j = joints[i];
+    if (j.kind !== 'revolute') break;
+    // the point in the frame whose z axis is joint i's axis, independent of θ_i when it lies on that axis
+    if (params.convention === 'standard') {
+      const ca = Math.cos(j.alpha), sa = Math.sin(j.alpha);
+      const px = x + j.a, py = ca * y - sa * zz;
+      if (Math.hypot(px, py) > epsMm) break;
+      // on the axis: the point is (0, 0, z') in frame i-1 for every θ_i
+      zz = sa * y + ca * zz + j.d;
+      x = 0;
+      y = 0;
+    } else {
+      if (Math.hypot(x, y) > epsMm) break;
+      const z1 = zz + j.d;
+      x = j.a;
+      y = -Math.sin(j.alpha) * z1;
+      zz = Math.cos(j.alpha) * z1;
+    }
+    idle++;
+  }
+  return idle;
+}
+
+/** Sampling ranges in controller units: J1 held at kinematic 0, idle trailing joints held at mid-range, the rest over their limits. */
+function chainSamplingRanges(params: ChainParams): AxisRange[] {
+  const n = params.joints.length;
+  const idle = chainIdleTrailingJoints(params);
+  return params.joints.map((j, i): AxisRange => {
+    if (i === 0) {
+      // J1 at kinematic 0 (θ offset included), in or out of its limits: r and z do not depend on J1
+      const c = -((j.zeroOffset ?? 0) + j.theta) / (j.direction ?? 1);
+      return { min: c, max: c };
+    }
+    if (i >= n - idle) {
+      const mid = (j.min + j.max) / 2;
+      return { min: mid, max: mid };
+    }
+    return { min: j.min, max: j.max };
+  });
+}
+
+/** Sampled side reach profile of a chain's tool point (Halton sampling + raster + d3-contour), arm-frame (r, z), mm. */
+export function chainSampledProfile(params: ChainParams, opts: { toleranceMm?: number; maxSamples?: number } = {}): SampledReachProfile {
+  const evaluator = new DhPointEvaluator(params.convention, chainDhJoints(params), params.tool);
+  const jointsP = params.joints;
+  const n = jointsP.length;
+  const scale = Float64Array.from(jointsP, (j) => (j.direction ?? 1) * (j.type === 'revolute' ? DEG : 1));
+  const bias = Float64Array.from(jointsP, (j) => (j.zeroOffset ?? 0) * (j.type === 'revolute' ? DEG : 1));
+  const qk = new Float64Array(n);
+  const pointFn = (q: Float64Array, out: Float64Array): boolean => {
+    for (let i = 0; i < n; i++) qk[i] = scale[i] * q[i] + bias[i];
+    evaluator.point(qk, out);
+    return true;
+  };
+  return sampleProfile(pointFn, chainSamplingRanges(params), opts);
+}
+
+/** Mean side offset y of the tool point from the plane through J1 at kinematic 0, mm (mean over 1024 Halton poses). */
+export function chainLateralOffset(params: ChainParams): number {
+  const evaluator = new DhPointEvaluator(params.convention, chainDhJoints(params), params.tool);
+  const ranges = chainSamplingRanges(params);
+  const free = ranges.map((r, i) => (r.max > r.min ? i : -1)).filter((i) => i >= 0);
+  const halton = free.length > 0 ? new HaltonSequence(free.length) : null;
+  const u = new Float64Array(Math.max(1, free.length));
+  const q = new Float64Array(ranges.length);
+  const p = new Float64Array(3);
+  const count = halton ? 1024 : 1;
+  let sum = 0;
+  for (let s = 0; s < count; s++) {
+    halton?.next(u);
+    for (let i = 0; i < ranges.length; i++) q[i] = ranges[i].min;
+    free.forEach((i, f) => {
+      q[i] = ranges[i].min + u[f] * (ranges[i].max - ranges[i].min);
+    });
+    for (let i = 0; i < ranges.length; i++) q[i] = chainJointVariable(params.joints[i], q[i]);
+    evaluator.point(q, p);
+    sum += p[1];
+  }
+  const mean = sum / count;
+  return Math.abs(mean) < 1e-9 ? 0 : mean;
+}
+
+/** J1 range as the reach plane's bearing in the arm frame, kinematic degrees (direction·limit + zeroOffset + θ). */
+export function chainJ1Range(params: ChainParams): { min: number; max: number } {
+  const j = params.joints[0];
+  const a = (j.direction ?? 1) * j.min + (j.zeroOffset ?? 0) + j.theta;
+  const b = (j.direction ?? 1) * j.max + (j.zeroOffset ?? 0) + j.theta;
+  return { min: Math.min(a, b), max: Math.max(a, b) };
+}
+
+/** Axes in controller units for forms and the pose panel. */
+export function chainAxes(params: ChainParams): AxisInfo[] {
+  return params.joints.map((j, i) => ({ label: `J${i + 1}`, kind: j.type, min: j.min, max: j.max }));
+}
+
+export const chainFamily: FamilyModule<ChainParams> = {
+  family: 'chain',
+  schema: chainParamsSchema,
+  forward: chainForward,
+  reachProfile: (params, opts) => chainSampledProfile(params, opts),
+  j1Range: chainJ1Range,
+  lateralOffset: chainLateralOffset,
+  axes: chainAxes,
+};
