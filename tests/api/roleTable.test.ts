@@ -1,0 +1,101 @@
+// Role × route table: every route that exists, for anonymous and each role, with the expected status.
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Role } from '@shared/schemas/user';
+import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
+import { createTestApp, signedIn, type TestApp } from '../support/testApp';
+
+type Who = 'anon' | Role;
+const WHO: Who[] = ['anon', 'client', 'reviewer', 'planner', 'admin'];
+
+interface Ctx {
+  projectId: number;
+  otherProjectId: number;
+  memberUserId: number;
+  targetUserId: number;
+}
+
+interface Row {
+  method: 'get' | 'post' | 'patch' | 'delete';
+  path: (c: Ctx) => string;
+  body?: (c: Ctx) => object;
+  expect: Record<Who, number>;
+}
+
+const ROWS: Row[] = [
+  { method: 'get', path: () => '/api/health', expect: { anon: 200, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'get', path: () => '/api/auth/me', expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'get', path: () => '/api/projects', expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  {
+    method: 'post',
+    path: () => '/api/projects',
+    body: () => ({ name: 'Role table project', clientName: 'Fernhill' }),
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 201, admin: 201 },
+  },
+  { method: 'get', path: (c) => `/api/projects/${c.projectId}`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'get', path: (c) => `/api/projects/${c.otherProjectId}`, expect: { anon: 401, client: 404, reviewer: 200, planner: 200, admin: 200 } },
+  {
+    method: 'patch',
+    path: (c) => `/api/projects/${c.projectId}`,
+    body: () => ({ description: 'edited' }),
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 200, admin: 200 },
+  },
+  { method: 'get', path: (c) => `/api/projects/${c.projectId}/members`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  {
+    method: 'post',
+    path: (c) => `/api/projects/${c.otherProjectId}/members`,
+    body: (c) => ({ userId: c.memberUserId }),
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 201, admin: 201 },
+  },
+  {
+    method: 'delete',
+    path: (c) => `/api/projects/${c.otherProjectId}/members/${c.memberUserId}`,
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 },
+  },
+  { method: 'get', path: () => '/api/users', expect: { anon: 401, client: 403, reviewer: 403, planner: 200, admin: 200 } },
+  {
+    method: 'post',
+    path: () => '/api/users',
+    body: () => ({ email: `rt-${Date.now()}-${Math.random().toString(36).slice(2)}@example.test`, name: 'Role Table', role: 'client', password: 'role-table-pass' }),
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 201 },
+  },
+  {
+    method: 'patch',
+    path: (c) => `/api/users/${c.targetUserId}`,
+    body: () => ({ name: 'Renamed' }),
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 200 },
+  },
+  { method: 'delete', path: (c) => `/api/projects/${c.otherProjectId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
+  { method: 'post', path: () => '/api/auth/logout', expect: { anon: 401, client: 204, reviewer: 204, planner: 204, admin: 204 } },
+];
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(async () => t.close());
+
+describe('role × route table', () => {
+  it.each(WHO)('%s gets the expected status on every route', async (who) => {
+    const client = await buildUser({ role: 'client' });
+    const users: Partial<Record<Role, Awaited<ReturnType<typeof buildUser>>>> = { client };
+    for (const r of ['reviewer', 'planner', 'admin'] as const) users[r] = await buildUser({ role: r });
+    const ctx: Ctx = {
+      projectId: (await buildProject({ members: [client] })).id,
+      otherProjectId: (await buildProject()).id,
+      memberUserId: (await buildUser({ role: 'client' })).id,
+      targetUserId: (await buildUser({ role: 'client' })).id,
+    };
+    const agent = who === 'anon' ? request.agent(t.app) : await signedIn(t.app, users[who]!.email, TEST_PASSWORD);
+    const got: Record<string, number> = {};
+    const want: Record<string, number> = {};
+    for (const row of ROWS) {
+      const key = `${row.method.toUpperCase()} ${row.path(ctx)}`;
+      let req = agent[row.method](row.path(ctx));
+      if (row.body) req = req.send(row.body(ctx));
+      got[key] = (await req).status;
+      want[key] = row.expect[who];
+    }
+    expect(got).toEqual(want);
+  });
+});
