@@ -1,10 +1,13 @@
 import type { Sequelize } from 'sequelize';
+import { ArmModel } from './ArmModel';
 import { AuditEvent } from './AuditEvent';
+import { FloorPlan } from './FloorPlan';
+import { Layout } from './Layout';
 import { Project } from './Project';
 import { ProjectMember } from './ProjectMember';
 import { User } from './User';
 
-export { AuditEvent, Project, ProjectMember, User };
+export { ArmModel, AuditEvent, FloorPlan, Layout, Project, ProjectMember, User };
 export { presentProject } from './Project';
 export { presentUser } from './User';
 
@@ -19,9 +22,15 @@ export function initModels(sequelize: Sequelize): void {
   Project.initModel(sequelize);
   ProjectMember.initModel(sequelize);
   AuditEvent.initModel(sequelize);
+  FloorPlan.initModel(sequelize);
+  ArmModel.initModel(sequelize);
+  Layout.initModel(sequelize);
 
   Project.belongsTo(User, { as: 'creator', foreignKey: 'createdBy' });
   Project.belongsToMany(User, { as: 'members', through: ProjectMember, foreignKey: 'projectId', otherKey: 'userId' });
   User.belongsToMany(Project, { as: 'projects', through: ProjectMember, foreignKey: 'userId', otherKey: 'projectId' });
   AuditEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
+  FloorPlan.belongsTo(Project, { foreignKey: 'projectId' });
+  Layout.belongsTo(Project, { foreignKey: 'projectId' });
+  Layout.belongsTo(FloorPlan, { as: 'floorPlan', foreignKey: 'floorPlanId' });
 }
