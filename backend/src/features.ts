@@ -2,6 +2,7 @@ import type { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
 import type { SeedStep } from './db/seed';
+import { layoutsRouter } from './routes/layouts';
 
 export interface FeatureContext {
   config: Config;
@@ -9,8 +10,8 @@ export interface FeatureContext {
 }
 
 /** API routers of the product's features, mounted under /api after the foundation routes. */
-export function featureRouters(_ctx: FeatureContext): Router[] {
-  return [];
+export function featureRouters(ctx: FeatureContext): Router[] {
+  return [layoutsRouter(ctx.sequelize)];
 }
 
 /** Demo seeding steps of the features, run in order after the demo accounts and project. */

@@ -31,3 +31,16 @@ export async function buildProject(attrs: { createdBy?: number | null; name?: st
   for (const m of attrs.members ?? []) await ProjectMember.create({ projectId: p.id, userId: m.id });
   return p;
 }
+
+/** An arm model row (params as given; routes validate, the table does not). */
+export async function buildArmModel(attrs: { name?: string; family?: string; params?: Record<string, unknown>; builtIn?: boolean } = {}) {
+  seq += 1;
+  const { ArmModel } = await import('../../backend/src/models');
+  return ArmModel.create({
+    name: attrs.name ?? `Test arm ${seq}-${process.pid}`,
+    family: attrs.family ?? 'scara',
+    params: attrs.params ?? { family: 'scara', innerLink: 350, outerLink: 250, strokeMin: 0, strokeMax: 200, axes: [{ min: -150, max: 150 }, { min: -145, max: 145 }] },
+    builtIn: attrs.builtIn ?? false,
+    createdBy: null,
+  });
+}

@@ -1,0 +1,122 @@
+import { Router } from 'express';
+import type { Sequelize } from 'sequelize';
+import { LayoutContent, LayoutCreateInput, LayoutUpdateInput, type LayoutDto } from '@shared/schemas/layout';
+import type { SessionUser } from '../auth/passport';
+import { allow, currentUser } from '../auth/guards';
+import { badRequest, conflict, notFound } from '../http/errors';
+import { idParam, parseOr400 } from '../http/validate';
+import { ArmModel, FloorPlan, Layout } from '../models';
+import { audit } from '../services/audit/audit';
+import { loadVisibleProject } from '../services/projectAccess';
+
+export function presentLayout(l: Layout): LayoutDto {
+  return {
+    id: l.id,
+    projectId: l.projectId,
+    floorPlanId: l.floorPlanId,
+    name: l.name,
+    content: l.content as LayoutContent,
+    version: l.version,
+    createdAt: l.createdAt.toISOString(),
+    updatedAt: l.updatedAt.toISOString(),
+  };
+}
+
+/** Loads a layout whose project the user may see, or 404. */
+export async function loadVisibleLayout(user: SessionUser, id: number): Promise<Layout> {
+  const layout = await Layout.findByPk(id);
+  if (!layout) throw notFound('Layout');
+  await loadVisibleProject(user, layout.projectId).catch(() => {
+    throw notFound('Layout');
+  });
+  return layout;
+}
+
+/** Checks references the schema cannot: arm models exist, the floor plan is in the same project. */
+async function checkReferences(projectId: number, floorPlanId: number | null | undefined, content: LayoutContent | undefined) {
+  if (floorPlanId != null) {
+    const fp = await FloorPlan.findByPk(floorPlanId, { attributes: ['id', 'projectId'] });
+    if (!fp || fp.projectId !== projectId) throw badRequest('The floor plan is not one of this project.', { floorPlanId: 'Choose a floor plan of this project' });
+  }
+  if (content) {
+    const ids = [...new Set(content.arms.map((a) => a.armModelId))];
+    const found = new Set((await ArmModel.findAll({ where: { id: ids }, attributes: ['id'] })).map((m) => m.id));
+    const fields: Record<string, string> = {};
+    content.arms.forEach((a, i) => {
+      if (!found.has(a.armModelId)) fields[`content.arms.${i}.armModelId`] = `Unknown arm model ${a.armModelId}`;
+    });
+    if (Object.keys(fields).length) throw badRequest(`The layout names an arm model that does not exist (${Object.values(fields)[0]}).`, fields);
+  }
+}
+
+/** Layouts (working copies) of a project; PUT carries `version` (optimistic lock, 409 when stale). */
+export function layoutsRouter(sequelize: Sequelize): Router {
+  const r = Router();
+
+  r.get('/projects/:id/layouts', allow('layout.read'), async (req, res) => {
+    const project = await loadVisibleProject(currentUser(req), idParam(req.params.id, 'Project'));
+    const layouts = await Layout.findAll({ where: { projectId: project.id }, order: [['updatedAt', 'DESC']] });
+    res.json({
+      layouts: layouts.map((l) => {
+        const c = l.content as LayoutContent;
+        return { ...presentLayout(l), content: undefined, counts: { arms: c.arms?.length ?? 0, workPoints: c.workPoints?.length ?? 0, zones: c.zones?.length ?? 0 } };
+      }),
+    });
+  });
+
+  r.post('/projects/:id/layouts', allow('layout.write'), async (req, res) => {
+    const user = currentUser(req);
+    const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
+    const input = parseOr400(LayoutCreateInput, req.body, 'The layout');
+    await checkReferences(project.id, input.floorPlanId, input.content);
+    const layout = await sequelize.transaction(async (transaction) => {
+      const l = await Layout.create({ projectId: project.id, floorPlanId: input.floorPlanId, name: input.name, content: input.content, createdBy: user.id }, { transaction });
+      await audit(user.id, 'layout.create', 'layout', l.id, { projectId: project.id, name: l.name }, transaction);
+      return l;
+    });
+    res.status(201).json({ layout: presentLayout(layout) });
+  });
+
+  r.get('/layouts/:id', allow('layout.read'), async (req, res) => {
+    const layout = await loadVisibleLayout(currentUser(req), idParam(req.params.id, 'Layout'));
+    res.json({ layout: presentLayout(layout) });
+  });
+
+  r.put('/layouts/:id', allow('layout.write'), async (req, res) => {
+    const user = currentUser(req);
+    const id = idParam(req.params.id, 'Layout');
+    await loadVisibleLayout(user, id);
+    const input = parseOr400(LayoutUpdateInput, req.body, 'The layout');
+    const updated = await sequelize.transaction(async (transaction) => {
+      // Lock the row so two saves cannot both pass the version check.
+      const layout = await Layout.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!layout) throw notFound('Layout');
+      if (layout.version !== input.version) {
+        throw conflict(`This layout was changed elsewhere (now version ${layout.version}, you edited ${input.version}). Reload it or keep your copy.`, {
+          currentVersion: layout.version,
+        });
+      }
+      await checkReferences(layout.projectId, input.floorPlanId, input.content);
+      const changes: Partial<Layout> = { version: layout.version + 1 };
+      if (input.name !== undefined) changes.name = input.name;
+      if (input.floorPlanId !== undefined) changes.floorPlanId = input.floorPlanId;
+      if (input.content !== undefined) changes.content = input.content;
+      await layout.update(changes, { transaction });
+      await audit(user.id, 'layout.update', 'layout', layout.id, { version: layout.version }, transaction);
+      return layout;
+    });
+    res.json({ layout: presentLayout(updated) });
+  });
+
+  r.delete('/layouts/:id', allow('layout.write'), async (req, res) => {
+    const user = currentUser(req);
+    const layout = await loadVisibleLayout(user, idParam(req.params.id, 'Layout'));
+    await sequelize.transaction(async (transaction) => {
+      await audit(user.id, 'layout.delete', 'layout', layout.id, { name: layout.name }, transaction);
+      await layout.destroy({ transaction });
+    });
+    res.status(204).end();
+  });
+
+  return r;
+}

@@ -1,0 +1,77 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Layout } from '../../backend/src/models';
+import { buildArmModel, buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
+import { createTestApp, signedIn, type TestApp } from '../support/testApp';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(async () => t.close());
+
+const content = (armModelId: number) => ({
+  arms: [{ id: 'R1', armModelId, label: 'Picker 1', x: 4000, y: 3000, yaw: 90, mountHeight: 0 }],
+  workPoints: [{ id: 'P1', x: 4300, y: 3200, z: 900, approach: 'top', tag: 'infeed', assignedArm: 'R1' }],
+  zones: [
+    { id: 'F1', kind: 'fence', points: [[0, 0], [8000, 0], [8000, 6000]], height: 2000 },
+    { id: 'O1', kind: 'opening', points: [[2000, 0], [3000, 0]], fenceId: 'F1' },
+  ],
+  workHeights: [900],
+});
+
+describe('layouts', () => {
+  it('creates and reads a layout; PUT with a stale version gets 409 and overwrites nothing', async () => {
+    const planner = await buildUser({ role: 'planner' });
+    const model = await buildArmModel();
+    const project = await buildProject();
+    const a = await signedIn(t.app, planner.email, TEST_PASSWORD);
+    const b = await signedIn(t.app, planner.email, TEST_PASSWORD);
+    const created = await a.post(`/api/projects/${project.id}/layouts`).send({ name: 'Cell A', content: content(model.id) });
+    expect(created.status).toBe(201);
+    const id = created.body.layout.id;
+    expect(created.body.layout.version).toBe(1);
+
+    const first = await a.put(`/api/layouts/${id}`).send({ version: 1, name: 'Cell A (moved picker)' });
+    expect(first.status).toBe(200);
+    expect(first.body.layout.version).toBe(2);
+    const stale = await b.put(`/api/layouts/${id}`).send({ version: 1, name: 'Lost update' });
+    expect(stale.status).toBe(409);
+    expect(stale.body.currentVersion).toBe(2);
+    expect((await Layout.findByPk(id))!.name).toBe('Cell A (moved picker)');
+  });
+
+  it('names the bad field: unknown arm model, duplicate ids, polygon under 3 points', async () => {
+    const planner = await buildUser({ role: 'planner' });
+    const model = await buildArmModel();
+    const project = await buildProject();
+    const a = await signedIn(t.app, planner.email, TEST_PASSWORD);
+    const before = await Layout.count();
+    const unknown = await a.post(`/api/projects/${project.id}/layouts`).send({ name: 'x', content: content(987654) });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.fields).toHaveProperty(['content.arms.0.armModelId']);
+    const c = content(model.id);
+    const dup = await a.post(`/api/projects/${project.id}/layouts`).send({ name: 'x', content: { ...c, arms: [c.arms[0], c.arms[0]] } });
+    expect(dup.status).toBe(400);
+    expect(dup.body.error.fields).toHaveProperty(['content.arms.1.id']);
+    const poly = await a
+      .post(`/api/projects/${project.id}/layouts`)
+      .send({ name: 'x', content: { ...c, zones: [{ id: 'K1', kind: 'keepout', points: [[0, 0], [1, 1]] }] } });
+    expect(poly.status).toBe(400);
+    expect(poly.body.error.fields).toHaveProperty(['content.zones.0.points']);
+    expect(await Layout.count()).toBe(before);
+  });
+
+  it('lets reviewers read but not write layouts, and hides them from clients', async () => {
+    const reviewer = await buildUser({ role: 'reviewer' });
+    const client = await buildUser({ role: 'client' });
+    const model = await buildArmModel();
+    const project = await buildProject({ members: [client] });
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: null, name: 'L', content: content(model.id), createdBy: null });
+    const r = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
+    expect((await r.get(`/api/layouts/${layout.id}`)).status).toBe(200);
+    expect((await r.put(`/api/layouts/${layout.id}`).send({ version: 1, name: 'no' })).status).toBe(403);
+    const c = await signedIn(t.app, client.email, TEST_PASSWORD);
+    expect((await c.get(`/api/layouts/${layout.id}`)).status).toBe(403);
+    expect((await c.get(`/api/projects/${project.id}/layouts`)).status).toBe(403);
+  });
+});
