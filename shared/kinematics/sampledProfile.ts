@@ -3,25 +3,28 @@
  * when every axis but J1 moves over its range, found by sampling the joint space.
  *
  * Method (KINEMATICS.md, "chain"):
- * 1. sample the box of axis ranges with a Halton sequence (low-discrepancy; the radical inverse
- *    in the first primes is written here, with the 2^k corners of the box added first);
- * 2. map each sample to the arm frame and to (r, z): the point is turned by −bearing (the
- *    reach plane's bearing, 0 when J1 is held at kinematic 0), then ρ = √(x² + y²) and
- *    r = sign(x)·ρ (x ≥ 0 counts as +). Using ρ keeps the radial distance from the J1 axis exact
- *    when the point sits to one side of the plane through J1 (a lateral offset); the side
- *    distance y is reported as `lateral` (min / mean / max) so plan bands can turn their edges;
- * 3. raster the samples on cells of `cellMm`, close gaps with a 3×3 morphological closing
- *    (fills holes and slits up to two cells wide), grow by one cell (3×3 dilation) and trace the
- *    0.5 iso-line with d3-contour. A sample's whole cell then lies at least one cell inside the
- *    outline, so the polygon contains EVERY sample;
- * 4. sampling goes on in doubling batches until a batch lands entirely inside the grown raster
- *    of the samples before it (no new sample more than one cell beyond the closed raster),
- *    or `maxSamples` is reached (`converged: false`).
+ * 1. sample the box of axis ranges: its 2^k corners and a Halton sweep (low-discrepancy; the
+ *    radical inverse in the first primes is written here, stepped incrementally);
+ * 2. map each sample to (r, z): the point is turned by −bearing (the reach plane's bearing, 0
+ *    when J1 is held at kinematic 0), then ρ = √(x² + y²) and r = sign(x)·ρ (x ≥ 0 counts as +).
+ *    Using ρ keeps the radial distance from the J1 axis exact when the point sits to one side of
+ *    the plane through J1 (a lateral offset); the side distance y is reported as `lateral`
+ *    (min / mean / max) so plan bands can turn their edges by atan2(y, r);
+ * 3. fill the interior: a few lattice "sheets" over the two most sensitive axes (the others held
+ *    at Halton values), each lattice cell's image drawn as two triangles — nodes ≤ 12 cells
+ *    apart in the image, so a curved edge's sagitta stays well under a cell;
+ * 4. refine the edge: samples in cells touching empty cells get children within a joint step
+ *    that moves the point about 3 cells (clamped to the limits, so limit faces are sampled),
+ *    round after round, until no child of a round lands more than one cell away from what the
+ *    rounds before occupied (`converged`), or `maxSamples` is reached;
+ * 5. close gaps of up to two cells (3×3 morphological closing), grow by one cell (3×3 dilation)
+ *    and trace the 0.5 iso-line with d3-contour. A sample's whole cell lies at least one cell
+ *    inside the outline, so the polygon contains EVERY sample.
  *
- * Tolerance: the outline lies at most 3 cells outside the outermost samples (one cell of
- * growth, up to one of closing, half a cell of contouring, the sample's position in its cell,
- * diagonals included), so `toleranceMm = 3·cellMm`; inward, the stopping rule bounds how far
- * unsampled reach can lie beyond the outline by about one cell. Errs toward MORE reach.
+ * Tolerance: the raster cell is a third of `toleranceMm`. The outline lies within grown cells,
+ * each within 2 cells (in r and in z) of a sampled cell, so every outline point is within 3 cells
+ * in r and in z of a reached point (errs toward MORE reach). Inward, the stopping rule leaves
+ * no reached region that the last round could find more than a cell beyond the outline.
  */
 import { contours } from 'd3';
 import type { Polygon2, ReachProfile, Ring } from './types';
@@ -36,7 +39,7 @@ export interface AxisRange {
 }
 
 export interface SampleProfileOptions {
-  /** Stated tolerance of the outline, mm (default 15). The raster cell is a third of it. */
+  /** Stated tolerance of the outline, mm (default: about 1/160 of the region's extent, at least 6 mm). The raster cell is a third of it. */
   toleranceMm?: number;
   /** Samples of the first batch (default 2048 · free axes, at least 4096). */
   initialSamples?: number;
@@ -190,43 +193,45 @@ function morph3(src: Uint8Array, w: number, h: number, dilate: boolean, tmp: Uin
   return out;
 }
 
+interface Sheet {
+  /** Sample index of each lattice node (−1 when it did not assemble), n0 × n1 nodes. */
+  nodes: Int32Array;
+  n0: number;
+  n1: number;
+}
+
 /**
- * Raster of the samples on a padded grid of square cells: `marks` (sampled cells, with one
- * representative sample per cell), `closed` (3×3 closing of marks) and `grown` (closed + one cell).
+ * Raster of the samples on a padded grid of square cells. `stamp` holds, per cell, 0 when
+ * empty, else the refinement round in which it was first occupied + 1 (samples, and cells
+ * covered by the filled images of lattice sheets); `rep` one sample per sampled cell.
  */
 class Raster {
   r0 = 0;
   z0 = 0;
   w = 0;
   h = 0;
-  marks = new Uint8Array(0);
+  stamp = new Uint16Array(0);
   rep = new Int32Array(0);
-  closed = new Uint8Array(0);
-  grown = new Uint8Array(0);
-  private tmp = new Uint8Array(0);
-  private tmp2 = new Uint8Array(0);
+  private readonly sheets: Sheet[] = [];
+  private lo = 0;
 
   constructor(readonly cell: number, private readonly store: SampleStore) {}
 
-  /** Lays the grid over the store's bounds with a margin and marks every sample. */
+  /** Lays the grid over the store's bounds with a margin, marks every sample and refills the sheets. */
   layOut(): void {
     const { store, cell } = this;
-    const margin = PAD_CELLS * cell + 0.1 * Math.max(store.rMax - store.rMin, store.zMax - store.zMin);
+    const margin = PAD_CELLS * cell + 0.03 * Math.max(store.rMax - store.rMin, store.zMax - store.zMin);
     this.r0 = store.rMin - margin;
     this.z0 = store.zMin - margin;
     this.w = Math.ceil((store.rMax - store.rMin + 2 * margin) / cell) + 1;
     this.h = Math.ceil((store.zMax - store.zMin + 2 * margin) / cell) + 1;
-    const size = this.w * this.h;
-    this.marks = new Uint8Array(size);
-    this.rep = new Int32Array(size).fill(-1);
-    this.closed = new Uint8Array(size);
-    this.grown = new Uint8Array(size);
-    this.tmp = new Uint8Array(size);
-    this.tmp2 = new Uint8Array(size);
-    for (let s = 0; s < store.count; s++) this.mark(s);
+    this.stamp = new Uint16Array(this.w * this.h);
+    this.rep = new Int32Array(this.w * this.h).fill(-1);
+    for (let s = 0; s < store.count; s++) this.mark(s, 1);
+    for (const sheet of this.sheets) this.fillSheet(sheet);
   }
 
-  /** Cell index of (r, z), or −1 when it falls outside the grid or in its outer pad. */
+  /** Cell index of (r, z), or −1 when it falls outside the grid's inner part. */
   cellOf(r: number, z: number): number {
     const i = Math.floor((r - this.r0) / this.cell);
     const j = Math.floor((z - this.z0) / this.cell);
@@ -234,35 +239,119 @@ class Raster {
     return j * this.w + i;
   }
 
-  /** Marks sample s; returns its cell, or −2 when the cell was already marked, −1 when off the grid. */
-  mark(s: number): number {
+  /** Marks sample s with a round stamp; returns its cell when newly occupied, −2 when occupied before, −1 off the grid. */
+  mark(s: number, stamp: number): number {
     const c = this.cellOf(this.store.rz[2 * s], this.store.rz[2 * s + 1]);
     if (c < 0) return -1;
-    const fresh = this.marks[c] === 0;
-    this.marks[c] = 1;
     this.rep[c] = s;
-    return fresh ? c : -2;
+    if (this.stamp[c] !== 0) return -2;
+    this.stamp[c] = stamp;
+    return c;
   }
 
-  /** Recomputes closed (3×3 closing) and grown (one more 3×3 dilation). */
-  update(): void {
-    const { w, h } = this;
-    morph3(this.marks, w, h, true, this.tmp, this.tmp2);
-    morph3(this.tmp2, w, h, false, this.tmp, this.closed);
-    morph3(this.closed, w, h, true, this.tmp, this.grown);
+  /** True when no cell of the 3×3 block around c was occupied before round stamp `stamp`. */
+  isolated(c: number, stamp: number): boolean {
+    const { w, stamp: st } = this;
+    for (let dj = -w; dj <= w; dj += w) {
+      for (let di = -1; di <= 1; di++) {
+        const v = st[c + dj + di];
+        if (v !== 0 && v < stamp) return false;
+      }
+    }
+    return true;
   }
 
-  /** True when a marked cell touches an empty cell of the closed raster (an edge of the region or of a hole). */
+  /** True when a cell touches an empty cell (8-neighbourhood). */
   onEdge(c: number): boolean {
-    const { w, closed } = this;
-    return closed[c - 1] === 0 || closed[c + 1] === 0 || closed[c - w] === 0 || closed[c + w] === 0 ||
-      closed[c - w - 1] === 0 || closed[c - w + 1] === 0 || closed[c + w - 1] === 0 || closed[c + w + 1] === 0;
+    const { w, stamp: st } = this;
+    return st[c - 1] === 0 || st[c + 1] === 0 || st[c - w] === 0 || st[c + w] === 0 ||
+      st[c - w - 1] === 0 || st[c - w + 1] === 0 || st[c + w - 1] === 0 || st[c + w + 1] === 0;
   }
 
-  /** Outline of the grown raster (d3-contour marching squares at 0.5), arm-frame (r, z) mm. */
+  /** Adds a lattice sheet and fills the images of its cells (two triangles per cell, segments for a 1-D lattice). */
+  addSheet(sheet: Sheet): void {
+    this.sheets.push(sheet);
+    this.fillSheet(sheet);
+  }
+
+  private fillSheet({ nodes, n0, n1 }: Sheet): void {
+    const rz = this.store.rz;
+    const { r0, z0, cell } = this;
+    const gx = (s: number) => (rz[2 * s] - r0) / cell;
+    const gy = (s: number) => (rz[2 * s + 1] - z0) / cell;
+    if (n1 === 1) {
+      for (let a = 0; a + 1 < n0; a++) {
+        const s = nodes[a], t = nodes[a + 1];
+        if (s >= 0 && t >= 0) this.fillSegment(gx(s), gy(s), gx(t), gy(t));
+      }
+      return;
+    }
+    for (let a = 0; a + 1 < n0; a++) {
+      for (let b = 0; b + 1 < n1; b++) {
+        const s00 = nodes[a * n1 + b], s10 = nodes[(a + 1) * n1 + b];
+        const s01 = nodes[a * n1 + b + 1], s11 = nodes[(a + 1) * n1 + b + 1];
+        if (s00 >= 0 && s10 >= 0) this.fillSegment(gx(s00), gy(s00), gx(s10), gy(s10));
+        if (s00 >= 0 && s01 >= 0) this.fillSegment(gx(s00), gy(s00), gx(s01), gy(s01));
+        if (s00 < 0 || s10 < 0 || s01 < 0 || s11 < 0) continue;
+        this.fillTriangle(gx(s00), gy(s00), gx(s10), gy(s10), gx(s11), gy(s11));
+        this.fillTriangle(gx(s00), gy(s00), gx(s11), gy(s11), gx(s01), gy(s01));
+      }
+    }
+  }
+
+  private fillCell(i: number, j: number): void {
+    if (i >= PAD_CELLS && j >= PAD_CELLS && i < this.w - PAD_CELLS && j < this.h - PAD_CELLS) {
+      const c = j * this.w + i;
+      if (this.stamp[c] === 0) this.stamp[c] = 1;
+    }
+  }
+
+  /** Fills the cells whose centres lie in a triangle (grid units); lattice edges are drawn as segments apart. */
+  private fillTriangle(ax: number, ay: number, bx: number, by: number, cx: number, cy: number): void {
+    const jLo = Math.ceil(Math.min(ay, by, cy) - 0.5);
+    const jHi = Math.floor(Math.max(ay, by, cy) - 0.5);
+    for (let j = jLo; j <= jHi; j++) {
+      const yc = j + 0.5;
+      this.lo = Infinity;
+      let hi = -Infinity;
+      hi = this.spanEdge(ax, ay, bx, by, yc, hi);
+      hi = this.spanEdge(bx, by, cx, cy, yc, hi);
+      hi = this.spanEdge(cx, cy, ax, ay, yc, hi);
+      const iHi = Math.floor(hi - 0.5);
+      for (let i = Math.ceil(this.lo - 0.5); i <= iHi; i++) this.fillCell(i, j);
+    }
+  }
+
+  /** Where the row through yc meets an edge: lowers this.lo, returns the raised upper end. */
+  private spanEdge(x1: number, y1: number, x2: number, y2: number, yc: number, hi: number): number {
+    if ((y1 <= yc && yc <= y2) || (y2 <= yc && yc <= y1)) {
+      const a = y1 === y2 ? Math.min(x1, x2) : x1 + ((yc - y1) * (x2 - x1)) / (y2 - y1);
+      const b = y1 === y2 ? Math.max(x1, x2) : a;
+      if (a < this.lo) this.lo = a;
+      if (b > hi) return b;
+    }
+    return hi;
+  }
+
+  /** Fills the cells a segment (grid units) passes through, in steps of at most half a cell. */
+  private fillSegment(x1: number, y1: number, x2: number, y2: number): void {
+    const steps = Math.ceil(2 * Math.max(Math.abs(x2 - x1), Math.abs(y2 - y1))) + 1;
+    for (let t = 0; t <= steps; t++) {
+      this.fillCell(Math.floor(x1 + ((x2 - x1) * t) / steps), Math.floor(y1 + ((y2 - y1) * t) / steps));
+    }
+  }
+
+  /** Occupied cells closed (3×3 closing) and grown by one cell (3×3 dilation), then traced (d3-contour at 0.5), arm-frame (r, z) mm. */
   trace(): Polygon2[] {
     const { r0, z0, cell, w, h } = this;
-    const [multi] = contours().size([w, h]).thresholds([0.5])(this.grown as unknown as number[]);
+    const size = w * h;
+    const occupied = new Uint8Array(size);
+    for (let c = 0; c < size; c++) if (this.stamp[c] !== 0) occupied[c] = 1;
+    const tmp = new Uint8Array(size), a = new Uint8Array(size);
+    morph3(occupied, w, h, true, tmp, a);
+    morph3(a, w, h, false, tmp, occupied);
+    const grown = morph3(occupied, w, h, true, tmp, a);
+    const [multi] = contours().size([w, h]).thresholds([0.5])(grown as unknown as number[]);
     return multi.coordinates.map((poly) =>
       poly.map((ring): Ring => ring.slice(0, -1).map(([gx, gy]) => [r0 + gx * cell, z0 + gy * cell] as [number, number])),
     );
@@ -297,11 +386,11 @@ export function sampleProfile(pointFn: PointFn, axes: readonly AxisRange[], opts
   axes.forEach((ax, i) => {
     if (!Number.isFinite(ax.min) || !Number.isFinite(ax.max) || ax.min > ax.max) throw new Error(`axes[${i}]: expected finite min ≤ max`);
   });
-  const toleranceMm = opts.toleranceMm ?? DEFAULT_TOLERANCE_MM;
-  if (!(toleranceMm > 0) || !Number.isFinite(toleranceMm)) throw new Error('toleranceMm: expected a positive number');
+  if (opts.toleranceMm !== undefined && (!(opts.toleranceMm > 0) || !Number.isFinite(opts.toleranceMm))) {
+    throw new Error('toleranceMm: expected a positive number');
+  }
   const bearing = ((opts.bearingDeg ?? 0) * Math.PI) / 180;
   const cb = Math.cos(bearing), sb = Math.sin(bearing);
-  const cell = toleranceMm / 3;
   const free = axes.map((ax, i) => (ax.max > ax.min ? i : -1)).filter((i) => i >= 0);
   const k = free.length;
   if (k > PRIMES.length) throw new Error(`axes: at most ${PRIMES.length} free axes`);
@@ -343,23 +432,58 @@ export function sampleProfile(pointFn: PointFn, axes: readonly AxisRange[], opts
     }
   }
   if (store.count === 0) throw new Error('pointFn: no pose over the axis ranges assembles');
+  const extent = Math.max(store.rMax - store.rMin, store.zMax - store.zMin);
+  const toleranceMm = opts.toleranceMm ?? Math.max(MIN_DEFAULT_TOLERANCE_MM, Math.ceil((3 * extent) / DEFAULT_CELLS_ACROSS));
+  const cell = toleranceMm / 3;
 
-  // 2. refine at the edge: children of edge samples within a joint step that moves the point ≈ 3 cells
+  // 2. lattice sheets over the two most sensitive axes fill the interior (their cells' images
+  //    drawn as triangles); 3. edge refinement: children of edge samples within a joint step that
+  //    moves the point by about 3 cells, round after round, until no child lands more than one
+  //    cell away from what the rounds before had occupied
   const raster = new Raster(cell, store);
-  raster.layOut();
-  raster.update();
   let converged = k === 0;
-  if (halton) {
-    const step = jointSteps(store, k, 3 * cell, evaluateAt(pointFn, axes, free, q, p, cb, sb));
+  if (!halton) raster.layOut();
+  else {
+    const sens = jointSensitivities(store, k, evaluateAt(pointFn, axes, free, q, p, cb, sb));
+    const step = sens.map((d) => (d > 0 ? Math.min(1, (3 * cell) / d) : 1));
+    const order = Array.from({ length: k }, (_, f) => f).sort((a, b) => sens[b] - sens[a]);
+    const lead = order.slice(0, 2);
+    const rest = order.slice(2);
+    const nodeSpan = SHEET_NODE_CELLS * cell;
+    const counts = lead.map((f) => Math.min(SHEET_MAX_NODES, Math.max(2, Math.ceil(sens[f] / nodeSpan) + 1)));
+    const n0 = counts[0], n1 = counts[1] ?? 1;
+    const restSeq = rest.length > 0 ? new HaltonSequence(rest.length) : null;
+    const restU = new Float64Array(Math.max(1, rest.length)).fill(0.5);
+    const sheets: Sheet[] = [];
+    for (let m = 0; m < (restSeq ? SHEETS : 1) && drawn + n0 * n1 <= maxSamples; m++) {
+      if (m > 0 && restSeq) {
+        restSeq.next(restU);
+        if (m === 1) restSeq.next(restU); // past the origin (a corner of the box)
+      }
+      for (let r = 0; r < rest.length; r++) u[rest[r]] = restU[r];
+      const nodes = new Int32Array(n0 * n1);
+      for (let a = 0; a < n0; a++) {
+        for (let b = 0; b < n1; b++) {
+          u[lead[0]] = a / (n0 - 1);
+          if (lead.length > 1) u[lead[1]] = b / (n1 - 1);
+          nodes[a * n1 + b] = evaluate(u) ? store.count - 1 : -1;
+        }
+      }
+      sheets.push({ nodes, n0, n1 });
+    }
+    raster.layOut();
+    for (const sheet of sheets) raster.addSheet(sheet);
+
     const offsets = new HaltonSequence(k);
     const child = new Float64Array(k);
     const childrenPerParent = 2 * k + 2;
     let frontier: number[] = [];
-    for (let c = 0; c < raster.marks.length; c++) if (raster.marks[c] && raster.onEdge(c)) frontier.push(c);
-    for (let round = 0; round < MAX_ROUNDS && frontier.length > 0 && drawn < maxSamples; round++) {
+    for (let c = 0; c < raster.stamp.length; c++) if (raster.rep[c] >= 0 && raster.onEdge(c)) frontier.push(c);
+    for (let round = 1; round <= MAX_ROUNDS && frontier.length > 0 && drawn < maxSamples; round++) {
+      const stamp = round + 1;
       const fresh: number[] = [];
       let escaped = false;
-      let relayout = false;
+      let offGrid = false;
       for (const c of frontier) {
         const parent = raster.rep[c];
         for (let m = 0; m < childrenPerParent && drawn < maxSamples; m++) {
@@ -369,25 +493,21 @@ export function sampleProfile(pointFn: PointFn, axes: readonly AxisRange[], opts
             child[f] = v < 0 ? 0 : v > 1 ? 1 : v;
           }
           if (!evaluate(child)) continue;
-          const s = store.count - 1;
-          const cellIndex = raster.cellOf(store.rz[2 * s], store.rz[2 * s + 1]);
-          if (cellIndex < 0) {
-            relayout = true;
-            escaped = true;
-            continue;
+          const cellIndex = raster.mark(store.count - 1, stamp);
+          if (cellIndex === -1) offGrid = true;
+          if (cellIndex >= 0) {
+            fresh.push(cellIndex);
+            if (raster.isolated(cellIndex, stamp)) escaped = true;
           }
-          if (!raster.grown[cellIndex]) escaped = true;
-          if (raster.mark(s) >= 0) fresh.push(cellIndex);
         }
       }
-      if (relayout) raster.layOut();
-      raster.update();
-      if (!escaped) {
+      if (!escaped && !offGrid) {
         converged = true;
         break;
       }
-      frontier = relayout
-        ? Array.from(raster.marks.keys()).filter((c) => raster.marks[c] && raster.onEdge(c))
+      if (offGrid) raster.layOut(); // every stamp restarts at 1; the new frontier is the whole edge
+      frontier = offGrid
+        ? Array.from(raster.rep.keys()).filter((c) => raster.rep[c] >= 0 && raster.onEdge(c))
         : fresh.filter((c) => raster.onEdge(c));
     }
   }
@@ -406,10 +526,16 @@ export function sampleProfile(pointFn: PointFn, axes: readonly AxisRange[], opts
   };
 }
 
-const DEFAULT_TOLERANCE_MM = 15;
+/** Default tolerance: the first sweep's extent spans about 400 cells (tolerance 30 mm for the 2000 mm demo arm, about 30 ms), never under 6 mm. */
+const DEFAULT_CELLS_ACROSS = 400;
+const MIN_DEFAULT_TOLERANCE_MM = 6;
 /** First-sweep sample counts by number of free axes (0 … 8). */
 const DEFAULT_INITIAL = [1, 512, 2048, 8192, 16384, 24576, 32768, 32768, 32768];
 const MAX_ROUNDS = 60;
+/** Lattice sheets: node spacing in cells (image chord ≤ 12 cells keeps the arc's sagitta well under a cell), nodes per axis, sheets. */
+const SHEET_NODE_CELLS = 12;
+const SHEET_MAX_NODES = 160;
+const SHEETS = 4;
 
 /** (r, z) of pose u ∈ [0,1]^k, or null when it does not assemble (used for finite differences). */
 function evaluateAt(pointFn: PointFn, axes: readonly AxisRange[], free: number[], q: Float64Array, p: Float64Array, cb: number, sb: number) {
@@ -427,11 +553,10 @@ function evaluateAt(pointFn: PointFn, axes: readonly AxisRange[], free: number[]
 }
 
 /**
- * Step per free axis (in [0,1] units) that moves the (r, z) point by about `targetMm`: the largest
- * finite-difference sensitivity over a few hundred stored samples, so a step never moves the point
- * by much more than the target.
+ * Largest sensitivity |∂(r, z)/∂u| per free axis (mm per unit of the axis' range) by finite
+ * differences over a few hundred stored samples.
  */
-function jointSteps(store: SampleStore, k: number, targetMm: number, at: (uu: Float64Array) => [number, number] | null): Float64Array {
+function jointSensitivities(store: SampleStore, k: number, at: (uu: Float64Array) => [number, number] | null): Float64Array {
   const h = 1e-4;
   const sens = new Float64Array(k);
   const uu = new Float64Array(k);
@@ -451,5 +576,5 @@ function jointSteps(store: SampleStore, k: number, targetMm: number, at: (uu: Fl
       if (d > sens[f]) sens[f] = d;
     }
   }
-  return sens.map((d) => (d > 0 ? Math.min(1, targetMm / d) : 1));
+  return sens;
 }
