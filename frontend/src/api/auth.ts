@@ -1,4 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { createContext, useContext } from 'react';
 import type { LoginInput, Role } from '@shared/schemas/user';
 import { api, isApiError } from './client';
 import { authKeys } from './queryKeys';
@@ -33,13 +34,17 @@ export function useMe() {
 }
 
 /**
- * The signed-in user for pages inside the guard; throws when called outside it, where there
- * may be nobody signed in.
+ * The signed-in user as the route guard last saw them. Pages read it through `useSessionUser`
+ * rather than the `me` query, so a page never renders with the user already gone (sign-out,
+ * lapsed session) before the guard has taken it away.
  */
+export const SessionUserContext = createContext<SessionUser | null>(null);
+
+/** The signed-in user for pages inside the route guard; throws when used outside it. */
 export function useSessionUser(): SessionUser {
-  const { data } = useQuery(meQuery());
-  if (!data) throw new Error('useSessionUser: no signed-in user (use it inside the route guard)');
-  return data;
+  const user = useContext(SessionUserContext);
+  if (!user) throw new Error('useSessionUser: no signed-in user (use it inside the route guard)');
+  return user;
 }
 
 /** Signs in with e-mail and password; on success the session user replaces every cached answer. */

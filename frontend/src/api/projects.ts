@@ -51,7 +51,9 @@ export function useDeleteProject(id: number) {
   return useMutation({
     mutationFn: () => api<void>(`/projects/${id}`, { method: 'DELETE' }),
     onSuccess: async () => {
-      // Marked stale, not removed: the open page still observes it until it navigates away.
+      // The list drops the row at once (it may be shown before its refetch returns); the
+      // detail is marked stale, not removed, since the open page observes it until it leaves.
+      queryClient.setQueryData<ProjectDto[]>(projectKeys.list(), (old) => old?.filter((p) => p.id !== id));
       await queryClient.invalidateQueries({ queryKey: projectKeys.detail(id), refetchType: 'none' });
       await queryClient.invalidateQueries({ queryKey: projectKeys.lists() });
     },

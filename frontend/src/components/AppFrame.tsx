@@ -20,8 +20,9 @@ export function AppFrame() {
     try {
       await logout.mutateAsync();
     } finally {
-      // Even when the server is unreachable, this browser forgets the person.
-      void navigate('/sign-in', { replace: true });
+      // Leave the guarded pages first, then forget the person (even when the server could not be
+      // reached), so the guard never sees the user vanish and adds a `?next=` back to this page.
+      await navigate('/sign-in', { replace: true, state: { signedOut: true } });
       forgetSession(queryClient);
     }
   }

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
-import { Navigate, useLocation, useNavigation } from 'react-router-dom';
+import { Navigate, useLocation } from 'react-router-dom';
 import { can, type Action } from '@shared/policy';
-import { useMe } from '../api/auth';
+import { SessionUserContext, useMe, useSessionUser } from '../api/auth';
 import { Button } from './Button';
 import { ErrorNotice, LoadingNotice } from './Notice';
 import { NotAllowed } from './NotAllowed';
@@ -19,7 +19,6 @@ export function signInPath(pathname: string, search = ''): string {
 export function RequireAuth({ children }: { children: ReactNode }) {
   const me = useMe();
   const location = useLocation();
-  const navigation = useNavigation();
 
   if (me.isPending) return <LoadingNotice label="Checking your session…" className="px-8" />;
   if (me.isError) {
@@ -38,16 +37,14 @@ export function RequireAuth({ children }: { children: ReactNode }) {
     );
   }
   if (!me.data) {
-    // Signing out already navigates to sign-in; do not add a second, `?next=` redirect.
-    if (navigation.location?.pathname === '/sign-in') return null;
     return <Navigate to={signInPath(location.pathname, location.search)} state={{ from: location }} replace />;
   }
-  return <>{children}</>;
+  return <SessionUserContext.Provider value={me.data}>{children}</SessionUserContext.Provider>;
 }
 
 /** Renders its children only when the signed-in role may perform `action`; otherwise a "not allowed" page. */
 export function RequirePermission({ action, children }: { action: Action; children: ReactNode }) {
-  const me = useMe();
-  if (!can(me.data?.role, action)) return <NotAllowed />;
+  const user = useSessionUser();
+  if (!can(user.role, action)) return <NotAllowed />;
   return <>{children}</>;
 }

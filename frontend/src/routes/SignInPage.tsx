@@ -38,8 +38,10 @@ export default function SignInPage() {
   });
   const { register, handleSubmit, setError, formState } = form;
 
-  // Signed in (already, or just now): go on to where the person was headed.
-  if (me.data) return <Navigate to={target} replace />;
+  // Signed in (already, or just now): go on to where the person was headed. Right after
+  // signing out the old session is still cached for a moment; stay on the form then.
+  const signedOut = (location.state as { signedOut?: boolean } | null)?.signedOut === true;
+  if (me.data && (!signedOut || login.isSuccess)) return <Navigate to={target} replace />;
   if (me.isPending) return <LoadingNotice label="Checking your session…" className="px-8" />;
 
   const onSubmit = handleSubmit(async (values) => {
@@ -67,7 +69,7 @@ export default function SignInPage() {
           <h1 id="sign-in-title" className="text-lg font-bold">
             Sign in
           </h1>
-          {params.get('next') || location.state ? (
+          {params.get('next') || (location.state as { from?: unknown } | null)?.from ? (
             <p className="mt-1 text-sm text-ink-muted">Sign in to continue where you were.</p>
           ) : null}
           <form onSubmit={(event) => void onSubmit(event)} noValidate className="mt-5 flex flex-col gap-4">

@@ -49,7 +49,7 @@ export function UserCreateForm({ onSubmit, onCancel }: UserCreateFormProps) {
           </option>
         ))}
       </SelectField>
-      <div className="flex items-end gap-2">
+      <div className="flex items-start gap-2">
         <TextField
           label="Temporary password"
           type="text"
@@ -57,12 +57,12 @@ export function UserCreateForm({ onSubmit, onCancel }: UserCreateFormProps) {
           spellCheck={false}
           className="font-mono"
           frameClassName="flex-1"
-          hint="At least 10 characters. Pass it on to the person; they can change it later."
+          hint="At least 10 characters. Pass it on to the person by a safe channel."
           error={errors.password?.message}
           {...register('password')}
         />
         <Button
-          className="mb-[1.375rem]"
+          className="mt-5"
           onClick={() => setValue('password', temporaryPassword(), { shouldValidate: true, shouldDirty: true })}
         >
           Generate
