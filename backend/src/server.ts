@@ -8,11 +8,16 @@ import { createSequelize } from './db/sequelize';
 import { seedDemoIfEmpty } from './db/seed';
 import { ensureSessionSecret } from './db/settings';
 import { featureSeedSteps } from './features';
+import { startFakeSmtp, type FakeSmtp } from './services/mail/fakeSmtp';
+import { createMailer, type Mailer } from './services/mail/mailer';
 
 export interface RunningServer {
   url: string;
   server: http.Server;
   sequelize: Sequelize;
+  mailer: Mailer;
+  /** The local mail fake, when SMTP_URL is not set. */
+  fakeSmtp: FakeSmtp | null;
   close(): Promise<void>;
 }
 
@@ -30,6 +35,9 @@ export async function startServer(
     const seeded = await seedDemoIfEmpty(sequelize, { bcryptCost: config.bcryptCost, steps: featureSeedSteps() });
     if (seeded) say('Seeded the demo data (Fernhill Biscuit Works).');
   }
+  const fakeSmtp = config.smtpUrl ? null : await startFakeSmtp({ log: say });
+  if (fakeSmtp) say(`Local mail fake listening on ${fakeSmtp.url} (messages appear in the admin mail outbox).`);
+  const mailer = createMailer(config.smtpUrl ?? fakeSmtp!.url, config.mailFrom);
   const pool = new pg.Pool({ connectionString: databaseUrl, max: 5 });
   const sessionSecret = await ensureSessionSecret(sequelize, config.sessionSecret);
   const deps: AppDeps = {
@@ -52,9 +60,13 @@ export async function startServer(
     url: `http://${config.host}:${port}`,
     server,
     sequelize,
+    mailer,
+    fakeSmtp,
     async close() {
       server.closeAllConnections();
       await new Promise<void>((r) => server.close(() => r()));
+      mailer.close();
+      await fakeSmtp?.close();
       await pool.end().catch(() => {});
       await sequelize.close().catch(() => {});
     },

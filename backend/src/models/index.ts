@@ -3,11 +3,12 @@ import { ArmModel } from './ArmModel';
 import { AuditEvent } from './AuditEvent';
 import { FloorPlan } from './FloorPlan';
 import { Layout } from './Layout';
+import { MailMessage } from './MailMessage';
 import { Project } from './Project';
 import { ProjectMember } from './ProjectMember';
 import { User } from './User';
 
-export { ArmModel, AuditEvent, FloorPlan, Layout, Project, ProjectMember, User };
+export { ArmModel, AuditEvent, FloorPlan, Layout, MailMessage, Project, ProjectMember, User };
 export { presentProject } from './Project';
 export { presentUser } from './User';
 
@@ -25,6 +26,7 @@ export function initModels(sequelize: Sequelize): void {
   FloorPlan.initModel(sequelize);
   ArmModel.initModel(sequelize);
   Layout.initModel(sequelize);
+  MailMessage.initModel(sequelize);
 
   Project.belongsTo(User, { as: 'creator', foreignKey: 'createdBy' });
   Project.belongsToMany(User, { as: 'members', through: ProjectMember, foreignKey: 'projectId', otherKey: 'userId' });

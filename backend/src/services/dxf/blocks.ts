@@ -1,0 +1,162 @@
+import { DxfImportError } from './errors';
+import { DRAWN_TYPES, drawEntity, entityRef, extrusionPoint, num, pt, type DrawContext } from './entities';
+import { MAX_BLOCK_DEPTH, MAX_ENTITY_INSTANCES } from './limits';
+import type { PlanBuilder } from './planBuilder';
+import { compose, insertTransform, planScale, type Affine } from './transform';
+
+type Loose = Record<string, unknown>;
+
+/** Block definitions by name, and notes on what could not be followed. */
+export interface BlockWalk {
+  blocks: Map<string, Loose>;
+  chordToleranceMm: number;
+  /** Names of missing blocks that INSERTs refer to. */
+  missing: Set<string>;
+  /** Names of blocks that insert themselves (directly or through others). */
+  recursive: Set<string>;
+  /** Names of blocks nested deeper than MAX_BLOCK_DEPTH. */
+  tooDeep: Set<string>;
+  /** External references (xrefs) that are not part of the file. */
+  xrefs: Set<string>;
+  instances: number;
+}
+
+export function newBlockWalk(rawBlocks: unknown, chordToleranceMm: number): BlockWalk {
+  const blocks = new Map<string, Loose>();
+  if (rawBlocks && typeof rawBlocks === 'object') {
+    for (const [name, blk] of Object.entries(rawBlocks as Record<string, unknown>)) {
+      if (blk && typeof blk === 'object') blocks.set(name, blk as Loose);
+    }
+  }
+  return {
+    blocks,
+    chordToleranceMm,
+    missing: new Set(),
+    recursive: new Set(),
+    tooDeep: new Set(),
+    xrefs: new Set(),
+    instances: 0,
+  };
+}
+
+/** Chord tolerance in local units for a map to plan mm (infinite when the map collapses). */
+export function localTolerance(m: Affine, tolMm: number): number {
+  const s = planScale(m);
+  return s > 1e-300 ? tolMm / s : Number.POSITIVE_INFINITY;
+}
+
+function findBlock(w: BlockWalk, name: string): Loose | undefined {
+  const exact = w.blocks.get(name);
+  if (exact) return exact;
+  // Block names are not case-sensitive in DXF.
+  const upper = name.toUpperCase();
+  for (const [k, v] of w.blocks) if (k.toUpperCase() === upper) return v;
+  return undefined;
+}
+
+/**
+ * Draws a list of entities in context: INSERTs are expanded recursively with their transforms
+ * (block base point, scale incl. negative = mirrored, rotation, column/row arrays, extrusion);
+ * entities of a block on layer "0" take the layer of the INSERT that places them. A block that
+ * inserts itself is followed once and reported.
+ */
+export function drawEntities(
+  entities: readonly unknown[],
+  ctx: DrawContext,
+  stack: readonly string[],
+  w: BlockWalk,
+  b: PlanBuilder,
+): void {
+  for (const raw of entities) {
+    if (!raw || typeof raw !== 'object') continue;
+    const e = raw as Loose;
+    const type = String(e.type);
+    if (++w.instances > MAX_ENTITY_INSTANCES) {
+      throw new DxfImportError(
+        'too-complex',
+        `The drawing expands to more than ${MAX_ENTITY_INSTANCES.toLocaleString('en')} entities once its blocks are placed, more than one floor plan import may hold.`,
+      );
+    }
+    if (stack.length === 0 && e.inPaperSpace === true) {
+      b.skip(type, 'on a paper-space layout');
+      continue;
+    }
+    if (e.visible === false) {
+      b.skip(type, 'invisible');
+      continue;
+    }
+    const own = typeof e.layer === 'string' && e.layer !== '' ? e.layer : '0';
+    const layer = own === '0' && stack.length > 0 ? ctx.layer : own;
+    if (type === 'INSERT') {
+      drawInsert(e, { ...ctx, layer }, stack, w, b);
+    } else if (DRAWN_TYPES.has(type)) {
+      drawEntity(e, layer === ctx.layer ? ctx : { ...ctx, layer }, b);
+    } else {
+      b.skip(type, 'not supported');
+    }
+  }
+}
+
+function drawInsert(e: Loose, ctx: DrawContext, stack: readonly string[], w: BlockWalk, b: PlanBuilder): void {
+  const ref = entityRef(e, ctx.block);
+  const name = typeof e.name === 'string' ? e.name : '';
+  const block = name ? findBlock(w, name) : undefined;
+  if (!block) {
+    w.missing.add(name || '(no name)');
+    b.skip('INSERT', 'block missing');
+    return;
+  }
+  const blockName = typeof block.name === 'string' ? block.name : name;
+  if (stack.includes(blockName)) {
+    w.recursive.add(blockName);
+    b.skip('INSERT', 'block inserts itself');
+    return;
+  }
+  if (stack.length >= MAX_BLOCK_DEPTH) {
+    w.tooDeep.add(blockName);
+    b.skip('INSERT', 'nested too deep');
+    return;
+  }
+  if (typeof block.type === 'number' && (block.type & 4) !== 0) {
+    w.xrefs.add(blockName);
+    b.skip('INSERT', 'external reference');
+    return;
+  }
+  const children = Array.isArray(block.entities) ? (block.entities as unknown[]) : [];
+  if (children.length === 0) return;
+
+  const pos = pt(e.position, ref, 'insertion point') ?? [0, 0, 0];
+  const base = pt(block.position, ref, 'block base point') ?? [0, 0, 0];
+  const sx = num(e, 'xScale', 1, ref);
+  const sy = num(e, 'yScale', 1, ref);
+  const sz = num(e, 'zScale', 1, ref);
+  const rot = num(e, 'rotation', 0, ref);
+  const cols = Math.max(1, Math.floor(num(e, 'columnCount', 1, ref)));
+  const rows = Math.max(1, Math.floor(num(e, 'rowCount', 1, ref)));
+  const dc = num(e, 'columnSpacing', 0, ref);
+  const dr = num(e, 'rowSpacing', 0, ref);
+  if (cols * rows > MAX_ENTITY_INSTANCES) {
+    throw new DxfImportError(
+      'too-complex',
+      `Block "${blockName}" is inserted as an array of ${cols} × ${rows} copies, more than one floor plan import may hold.`,
+    );
+  }
+  const ocs = extrusionPoint(e.extrusionDirection, ref);
+  const outer = ocs ? compose(ctx.m, ocs) : ctx.m;
+  const inner = [...stack, blockName];
+  const P = { x: pos[0], y: pos[1], z: pos[2] };
+  const B = { x: base[0], y: base[1], z: base[2] };
+  for (let r = 0; r < rows; r++) {
+    for (let c = 0; c < cols; c++) {
+      const m = compose(outer, insertTransform(P, B, sx, sy, sz, rot, c * dc, r * dr));
+      const child: DrawContext = {
+        m,
+        tol: localTolerance(m, w.chordToleranceMm),
+        layer: ctx.layer,
+        block: blockName,
+        curves: ctx.curves,
+      };
+      drawEntities(children, child, inner, w, b);
+    }
+  }
+}

@@ -1,0 +1,340 @@
+import { DxfImportError } from './errors';
+import { pushArc, pushBulge, pushEllipse, type CurveStats } from './curves';
+import { describeEntity, type EntityRef, type PlanBuilder } from './planBuilder';
+import { bsplineBreaks, bsplineProblem, catmullRom, clampedUniformKnots, deBoor, pushAdaptive, type BSpline } from './spline';
+import { compose, ocsToWcs, type Affine } from './transform';
+
+type Loose = Record<string, unknown>;
+type P3 = [number, number, number];
+
+/** Where an entity is drawn: map to plan mm, chord tolerance in the entity's units, layer. */
+export interface DrawContext {
+  m: Affine;
+  /** Chord tolerance in local units (plan tolerance / plan scale of m). */
+  tol: number;
+  /** The layer the entity lands on (layer-0 entities of a block take the INSERT's layer). */
+  layer: string;
+  block?: string;
+  curves: CurveStats;
+}
+
+/** Entity types this module draws. */
+export const DRAWN_TYPES = new Set([
+  'LINE', 'LWPOLYLINE', 'POLYLINE', 'ARC', 'CIRCLE', 'ELLIPSE', 'SPLINE', 'TEXT', 'MTEXT', 'SOLID', '3DFACE',
+]);
+
+const TWO_PI = 2 * Math.PI;
+
+export function entityRef(e: Loose, block?: string): EntityRef {
+  return { type: String(e.type), handle: typeof e.handle === 'string' ? e.handle : undefined, block };
+}
+
+function badValue(ref: EntityRef, what: string): never {
+  throw new DxfImportError(
+    'bad-coordinates',
+    `The file holds ${describeEntity(ref)} whose ${what} is not a finite number. Check the drawing and export it again.`,
+  );
+}
+
+/** A numeric field: `dflt` when absent; a present value must be a finite number. */
+export function num(e: Loose, key: string, dflt: number, ref: EntityRef): number {
+  const v = e[key];
+  if (v === undefined || v === null) return dflt;
+  if (typeof v !== 'number' || !Number.isFinite(v)) badValue(ref, key);
+  return v;
+}
+
+/** A point field as [x, y, z]; undefined when absent; present coordinates must be finite. */
+export function pt(v: unknown, ref: EntityRef, what: string): P3 | undefined {
+  if (v === undefined || v === null || typeof v !== 'object') return undefined;
+  const p = v as { x?: unknown; y?: unknown; z?: unknown };
+  if (p.x === undefined || p.y === undefined) return undefined;
+  const z = p.z === undefined ? 0 : p.z;
+  if (typeof p.x !== 'number' || typeof p.y !== 'number' || typeof z !== 'number') badValue(ref, what);
+  if (!Number.isFinite(p.x) || !Number.isFinite(p.y) || !Number.isFinite(z)) badValue(ref, what);
+  return [p.x, p.y, z];
+}
+
+/** Extrusion direction from separate X/Y/Z fields (dxf-parser's ARC, LWPOLYLINE and ours). */
+function extrusionXYZ(e: Loose, ref: EntityRef): Affine | null {
+  if (e.extrusionDirectionX === undefined && e.extrusionDirectionY === undefined && e.extrusionDirectionZ === undefined) {
+    return null;
+  }
+  return ocsToWcs(
+    num(e, 'extrusionDirectionX', 0, ref),
+    num(e, 'extrusionDirectionY', 0, ref),
+    num(e, 'extrusionDirectionZ', 1, ref),
+  );
+}
+
+/** Extrusion direction from a point field (dxf-parser's POLYLINE, SOLID, INSERT). */
+export function extrusionPoint(v: unknown, ref: EntityRef): Affine | null {
+  const p = pt(v, ref, 'extrusion direction');
+  return p ? ocsToWcs(p[0], p[1], p[2]) : null;
+}
+
+function withOcs(ctx: DrawContext, ocs: Affine | null): Affine {
+  return ocs ? compose(ctx.m, ocs) : ctx.m;
+}
+
+/** Angle sweep from a to b counter-clockwise, in (0, 2π]; 0 when a and b coincide. */
+function ccwSweep(a: number, b: number): number {
+  let s = (b - a) % TWO_PI;
+  if (s < 0) s += TWO_PI;
+  return s;
+}
+
+/** Plain text of an MTEXT string: paragraph breaks kept, formatting codes dropped. */
+export function mtextPlain(s: string): string {
+  return s
+    .replace(/\\[Pp]/g, '\n')
+    .replace(/\\~/g, ' ')
+    .replace(/\\S([^;]*?)[\^#/]([^;]*?);/g, '$1/$2')
+    .replace(/\\[AaCcFfHhQqTtWw][^;\\{}]*;/g, '')
+    .replace(/\\[LlOoKkNn]/g, '')
+    .replace(/\\\\/g, '\u0000')
+    .replace(/\\\{/g, '\u0001')
+    .replace(/\\\}/g, '\u0002')
+    .replace(/[{}]/g, '')
+    .replace(/\u0000/g, '\\')
+    .replace(/\u0001/g, '{')
+    .replace(/\u0002/g, '}')
+    .replace(/%%[cC]/g, '⌀')
+    .replace(/%%[dD]/g, '°')
+    .replace(/%%[pP]/g, '±')
+    .trim();
+}
+
+/** Plain text of a TEXT string (%%c, %%d, %%p special characters; %%u/%%o toggles dropped). */
+function textPlain(s: string): string {
+  return s
+    .replace(/%%[cC]/g, '⌀')
+    .replace(/%%[dD]/g, '°')
+    .replace(/%%[pP]/g, '±')
+    .replace(/%%[uUoOkK]/g, '')
+    .trim();
+}
+
+/** Points of a polyline with bulges (x, y, bulge per vertex) in its OCS at height z. */
+function bulgedPolyline(vs: Array<[number, number, number]>, closed: boolean, z: number, ctx: DrawContext): number[] {
+  const out: number[] = [vs[0][0], vs[0][1], z];
+  const n = vs.length;
+  const last = closed ? n : n - 1;
+  for (let i = 0; i < last; i++) {
+    const a = vs[i];
+    const b = vs[(i + 1) % n];
+    pushBulge(out, a[0], a[1], b[0], b[1], a[2], z, ctx.tol, ctx.curves);
+  }
+  return out;
+}
+
+/**
+ * Draws one non-INSERT entity into the builder: lines and polylines (bulges as arcs), arcs,
+ * circles, ellipses, splines, solids and faces as paths; TEXT and MTEXT as labels. OCS entities
+ * are carried to world coordinates by their extrusion direction first. Returns false when the
+ * type is not one this module draws.
+ */
+export function drawEntity(e: Loose, ctx: DrawContext, b: PlanBuilder): boolean {
+  const type = String(e.type);
+  const ref = entityRef(e, ctx.block);
+  const layer = ctx.layer;
+  switch (type) {
+    case 'LINE': {
+      const vs = Array.isArray(e.vertices) ? e.vertices : [];
+      const p = pt(vs[0], ref, 'start point');
+      const q = pt(vs[1], ref, 'end point');
+      if (!p || !q) return b.skip(type, 'incomplete'), true;
+      b.path(ref, layer, false, [...p, ...q], ctx.m);
+      return true;
+    }
+    case 'LWPOLYLINE': {
+      const vs: Array<[number, number, number]> = [];
+      for (const v of Array.isArray(e.vertices) ? e.vertices : []) {
+        const p = pt(v, ref, 'vertex');
+        if (!p) continue;
+        vs.push([p[0], p[1], num(v as Loose, 'bulge', 0, ref)]);
+      }
+      if (vs.length < 2) return b.skip(type, 'incomplete'), true;
+      const z = num(e, 'elevation', 0, ref);
+      const closed = e.shape === true;
+      b.path(ref, layer, closed, bulgedPolyline(vs, closed, z, ctx), withOcs(ctx, extrusionXYZ(e, ref)));
+      return true;
+    }
+    case 'POLYLINE': {
+      if (e.is3dPolygonMesh === true || e.isPolyfaceMesh === true) return b.skip(type, 'mesh, not supported'), true;
+      const is3d = e.is3dPolyline === true;
+      const closed = e.shape === true;
+      const raw = (Array.isArray(e.vertices) ? e.vertices : []).filter((v: Loose) => v && v.splineControlPoint !== true);
+      if (is3d) {
+        const pts: number[] = [];
+        for (const v of raw) {
+          const p = pt(v, ref, 'vertex');
+          if (p) pts.push(...p);
+        }
+        if (pts.length < 6) return b.skip(type, 'incomplete'), true;
+        b.path(ref, layer, closed, pts, ctx.m);
+        return true;
+      }
+      const vs: Array<[number, number, number]> = [];
+      let z = 0;
+      for (const v of raw) {
+        const p = pt(v, ref, 'vertex');
+        if (!p) continue;
+        z = p[2];
+        vs.push([p[0], p[1], num(v as Loose, 'bulge', 0, ref)]);
+      }
+      if (vs.length < 2) return b.skip(type, 'incomplete'), true;
+      b.path(ref, layer, closed, bulgedPolyline(vs, closed, z, ctx), withOcs(ctx, extrusionPoint(e.extrusionDirection, ref)));
+      return true;
+    }
+    case 'ARC':
+    case 'CIRCLE': {
+      const c = pt(e.center, ref, 'centre');
+      const r = num(e, 'radius', Number.NaN, ref);
+      if (!c || Number.isNaN(r)) return b.skip(type, 'incomplete'), true;
+      if (!(r > 0)) return b.skip(type, 'zero size'), true;
+      const m = withOcs(ctx, extrusionXYZ(e, ref));
+      const out: number[] = [];
+      if (type === 'CIRCLE') {
+        pushArc(out, c[0], c[1], r, 0, TWO_PI, c[2], ctx.tol, true, ctx.curves);
+        b.path(ref, layer, true, out, m);
+      } else {
+        const a0 = num(e, 'startAngle', 0, ref);
+        const sweep = ccwSweep(a0, num(e, 'endAngle', TWO_PI, ref));
+        if (sweep < 1e-12) return b.skip(type, 'zero size'), true;
+        pushArc(out, c[0], c[1], r, a0, sweep, c[2], ctx.tol, true, ctx.curves);
+        b.path(ref, layer, false, out, m);
+      }
+      return true;
+    }
+    case 'ELLIPSE': {
+      const c = pt(e.center, ref, 'centre');
+      const u = pt(e.majorAxisEndPoint, ref, 'major axis');
+      if (!c || !u) return b.skip(type, 'incomplete'), true;
+      const k = num(e, 'axisRatio', 1, ref);
+      const nx = num(e, 'extrusionDirectionX', 0, ref);
+      const ny = num(e, 'extrusionDirectionY', 0, ref);
+      const nz = num(e, 'extrusionDirectionZ', 1, ref);
+      const nl = Math.hypot(nx, ny, nz) || 1;
+      // minor half-axis: ratio · (N × major), N the unit normal of the ellipse's plane
+      const v: P3 = [
+        (k * (ny * u[2] - nz * u[1])) / nl,
+        (k * (nz * u[0] - nx * u[2])) / nl,
+        (k * (nx * u[1] - ny * u[0])) / nl,
+      ];
+      const t0 = num(e, 'startAngle', 0, ref);
+      const t1 = num(e, 'endAngle', TWO_PI, ref);
+      let sweep = ccwSweep(t0, t1);
+      const full = sweep < 1e-9 || Math.abs(sweep - TWO_PI) < 1e-9 || Math.abs(t1 - t0) >= TWO_PI - 1e-9;
+      if (full) sweep = TWO_PI;
+      if (!(Math.hypot(u[0], u[1], u[2]) > 0)) return b.skip(type, 'zero size'), true;
+      const out: number[] = [];
+      pushEllipse(out, c, u, v, full ? 0 : t0, sweep, ctx.tol, ctx.curves);
+      b.path(ref, layer, full, out, ctx.m);
+      return true;
+    }
+    case 'SPLINE':
+      drawSpline(e, ctx, b, ref);
+      return true;
+    case 'SOLID':
+    case '3DFACE': {
+      const list = (type === 'SOLID' ? e.points : e.vertices) as unknown[] | undefined;
+      const ps: P3[] = [];
+      for (const v of Array.isArray(list) ? list : []) {
+        const p = pt(v, ref, 'corner');
+        if (p) ps.push(p);
+      }
+      if (ps.length < 3) return b.skip(type, 'incomplete'), true;
+      // SOLID corners run 1, 2, 4, 3 around the outline (DXF reference); 3DFACE in order.
+      const ring = type === 'SOLID' && ps.length >= 4 ? [ps[0], ps[1], ps[3], ps[2]] : ps;
+      const m = type === 'SOLID' ? withOcs(ctx, extrusionPoint(e.extrusionDirection, ref)) : ctx.m;
+      b.path(ref, layer, true, ring.flat(), m);
+      return true;
+    }
+    case 'TEXT': {
+      const aligned = num(e, 'halign', 0, ref) !== 0 || num(e, 'valign', 0, ref) !== 0;
+      const p = (aligned ? pt(e.endPoint, ref, 'alignment point') : undefined) ?? pt(e.startPoint, ref, 'insertion point');
+      const text = typeof e.text === 'string' ? textPlain(e.text) : '';
+      if (!p) return b.skip(type, 'incomplete'), true;
+      if (text === '') return b.skip(type, 'empty'), true;
+      const h = num(e, 'textHeight', 0, ref);
+      const r = (num(e, 'rotation', 0, ref) * Math.PI) / 180;
+      const m = withOcs(ctx, extrusionXYZ(e, ref));
+      b.label(ref, layer, text, p, [Math.cos(r), Math.sin(r), 0], [-Math.sin(r) * h, Math.cos(r) * h, 0], m);
+      return true;
+    }
+    case 'MTEXT': {
+      const p = pt(e.position, ref, 'insertion point');
+      const text = typeof e.text === 'string' ? mtextPlain(e.text) : '';
+      if (!p) return b.skip(type, 'incomplete'), true;
+      if (text === '') return b.skip(type, 'empty'), true;
+      const h = num(e, 'height', 0, ref);
+      // x-axis direction (group 11, WCS) wins over the rotation (group 50, radians).
+      let d = pt(e.directionVector, ref, 'direction');
+      if (!d || Math.hypot(d[0], d[1], d[2]) === 0) {
+        const r = num(e, 'rotation', 0, ref);
+        d = [Math.cos(r), Math.sin(r), 0];
+      }
+      const dl = Math.hypot(d[0], d[1], d[2]);
+      const dir: P3 = [d[0] / dl, d[1] / dl, d[2] / dl];
+      b.label(ref, layer, text, p, dir, [-dir[1] * h, dir[0] * h, 0], ctx.m);
+      return true;
+    }
+    default:
+      return false;
+  }
+}
+
+function drawSpline(e: Loose, ctx: DrawContext, b: PlanBuilder, ref: EntityRef): void {
+  const type = ref.type;
+  const ctrl: P3[] = [];
+  for (const v of Array.isArray(e.controlPoints) ? e.controlPoints : []) {
+    const p = pt(v, ref, 'control point');
+    if (p) ctrl.push(p);
+  }
+  const fit: P3[] = [];
+  for (const v of Array.isArray(e.fitPoints) ? e.fitPoints : []) {
+    const p = pt(v, ref, 'fit point');
+    if (p) fit.push(p);
+  }
+  const knots = (Array.isArray(e.knotValues) ? e.knotValues : []).map((k: unknown) => {
+    if (typeof k !== 'number' || !Number.isFinite(k)) badValue(ref, 'knot');
+    return k;
+  });
+  const weightsRaw = Array.isArray(e.weights) ? (e.weights as unknown[]) : [];
+  const weights = weightsRaw.map((w) => {
+    if (typeof w !== 'number' || !Number.isFinite(w)) badValue(ref, 'weight');
+    return w;
+  });
+  const degree = num(e, 'degreeOfSplineCurve', 3, ref);
+  const closedFlag = e.closed === true || e.periodic === true;
+  const out: number[] = [];
+  let spline: BSpline | null = null;
+  if (ctrl.length >= 2) {
+    spline = { degree, knots, points: ctrl };
+    if (weights.length === ctrl.length && weights.every((w) => w > 0)) spline.weights = weights;
+    const problem = bsplineProblem(spline);
+    if (problem === 'knots' && Number.isInteger(degree) && degree >= 1 && degree <= 11 && ctrl.length >= degree + 1) {
+      if (fit.length < 2) {
+        spline.knots = clampedUniformKnots(ctrl.length, degree);
+        b.skip(type, 'knots rebuilt, drawn approximately');
+      } else spline = null;
+    } else if (problem) spline = null;
+  }
+  if (spline) {
+    const s = spline;
+    pushAdaptive(out, (t) => deBoor(s, t), bsplineBreaks(s), ctx.tol, true, ctx.curves);
+  } else if (fit.length >= 2) {
+    const pts = fit.filter((p, i) => i === 0 || p[0] !== fit[i - 1][0] || p[1] !== fit[i - 1][1] || p[2] !== fit[i - 1][2]);
+    if (pts.length < 2) return b.skip(type, 'zero size');
+    const closedFit = closedFlag && pts.length >= 3;
+    const { f, segments } = catmullRom(pts, closedFit);
+    const breaks: number[] = [];
+    for (let i = 0; i <= segments; i++) breaks.push(i);
+    pushAdaptive(out, f, breaks, ctx.tol, true, ctx.curves);
+  } else {
+    return b.skip(type, 'unreadable');
+  }
+  // An unflagged spline whose ends meet is closed later, by the joining of chains.
+  b.path(ref, ctx.layer, closedFlag, out, ctx.m);
+}

@@ -1,0 +1,212 @@
+import { DxfImportError } from './errors';
+
+/** What one pass over the group codes of a DXF text found. */
+export interface GroupScan {
+  /** Entity types met in the ENTITIES section and in blocks (not the layout blocks), with counts. */
+  entityTypes: Map<string, number>;
+  /** True when a 0/EOF group ends the file. */
+  hasEof: boolean;
+  /** True when the last group of a file without EOF closes a section (0/ENDSEC). */
+  endsAfterSection: boolean;
+  /** Number of the last line read (1-based). */
+  lastLine: number;
+  /** Names of the sections in file order. */
+  sections: string[];
+}
+
+/** Types that mark structure rather than an entity of their own. */
+const STRUCTURAL = new Set(['BLOCK', 'ENDBLK', 'ENDSEC', 'SEQEND', 'VERTEX', 'EOF', 'SECTION']);
+/** Group codes that may follow an LWPOLYLINE vertex x (code 10) without confusing the parser. */
+const LW_VERTEX_CODES = new Set([0, 10, 20, 30, 40, 41, 42]);
+
+function fail(message: string, line: number): never {
+  throw new DxfImportError('parse-error', `${message} (line ${line}).`, line);
+}
+
+/**
+ * Reads the file as dxf-parser will (pairs of lines: group code, value) and checks the few
+ * structures on which that parser would loop for ever or run out of memory: a LAYER or VPORT
+ * table holding a foreign record, a POLYLINE not closed by SEQEND, an LWPOLYLINE vertex whose x is
+ * not followed by its y, or an LWPOLYLINE declaring more vertices than it lists. Every group code
+ * must be a whole number. Also counts entity types per section, so that the types the parser
+ * drops silently (HATCH, …) can be reported. `text` uses "\n" line ends (see sniffDxf).
+ */
+export function scanGroups(text: string): GroupScan {
+  const entityTypes = new Map<string, number>();
+  const sections: string[] = [];
+  const len = text.length;
+  let pos = 0;
+  let line = 1; // line number of the current code line
+  let section: string | null = null;
+  let expectSectionName = false;
+  let expectTableName = false;
+  let tableGuard: string | null = null;
+  let tableLine = 0;
+  let polylineLine = 0; // > 0 while inside POLYLINE … SEQEND
+  let inLw = false;
+  let lwLine = 0;
+  let lwDeclared = -1;
+  let lwCount = 0;
+  let prevLw10 = false;
+  let lastCode0 = '';
+  let lastWasCode0 = false;
+  let hasEof = false;
+  let expectBlockName = false;
+  let countBlock = true; // false inside the *Model_Space / *Paper_Space blocks
+
+  while (pos < len) {
+    const codeEnd0 = text.indexOf('\n', pos);
+    const codeEnd = codeEnd0 === -1 ? len : codeEnd0;
+    // Parse the group code: optional blanks, optional minus, digits, optional blanks.
+    let i = pos;
+    while (i < codeEnd && (text.charCodeAt(i) === 32 || text.charCodeAt(i) === 9)) i++;
+    let neg = false;
+    if (i < codeEnd && text.charCodeAt(i) === 45) {
+      neg = true;
+      i++;
+    }
+    let code = 0;
+    let digits = 0;
+    while (i < codeEnd) {
+      const c = text.charCodeAt(i);
+      if (c < 48 || c > 57) break;
+      code = code * 10 + (c - 48);
+      digits++;
+      i++;
+    }
+    while (i < codeEnd && (text.charCodeAt(i) === 32 || text.charCodeAt(i) === 9)) i++;
+    if (digits === 0 || i !== codeEnd || digits > 9) {
+      if (codeEnd0 === -1 && i === codeEnd && digits === 0) break; // trailing blank line
+      const shown = text.slice(pos, Math.min(codeEnd, pos + 40)).trim();
+      fail(`Line ${line} should hold a group code (a whole number) but holds "${shown}"`, line);
+    }
+    if (neg) code = -code;
+    if (codeEnd0 === -1) {
+      fail('The file ends after a group code without its value: it looks cut off', line);
+    }
+    const valueStart = codeEnd + 1;
+    const valueEnd0 = text.indexOf('\n', valueStart);
+    const valueEnd = valueEnd0 === -1 ? len : valueEnd0;
+    const codeLine = line;
+
+    let value: string | null = null;
+    const needValue =
+      code === 0 || expectSectionName || expectTableName || (expectBlockName && code === 2) || (inLw && code === 90);
+    if (needValue) value = text.slice(valueStart, valueEnd).trim();
+
+    if (prevLw10 && !LW_VERTEX_CODES.has(code)) {
+      fail('An LWPOLYLINE vertex has an x coordinate without its y coordinate', codeLine);
+    }
+    prevLw10 = false;
+
+    if (expectSectionName) {
+      expectSectionName = false;
+      if (code === 2) {
+        section = value;
+        sections.push(value as string);
+      }
+    }
+    if (expectTableName) {
+      expectTableName = false;
+      if (value === 'LAYER' || value === 'VPORT') {
+        tableGuard = value;
+        tableLine = codeLine;
+      }
+    }
+
+    if (expectBlockName && code === 2) {
+      expectBlockName = false;
+      const u = (value as string).toUpperCase();
+      countBlock = !u.startsWith('*MODEL_SPACE') && !u.startsWith('*PAPER_SPACE');
+    }
+
+    if (code === 0) {
+      const v = value as string;
+      if (v === 'BLOCK') {
+        expectBlockName = true;
+        countBlock = true;
+      } else if (v === 'ENDBLK') {
+        expectBlockName = false;
+        countBlock = true;
+      }
+      if (inLw) {
+        if (lwDeclared > lwCount) {
+          fail(`An LWPOLYLINE declares ${lwDeclared} vertices but lists ${lwCount}`, lwLine);
+        }
+        inLw = false;
+      }
+      if (tableGuard !== null && v !== tableGuard && v !== 'ENDTAB' && v !== 'EOF') {
+        fail(`The ${tableGuard} table that starts at line ${tableLine} holds a "${v}" record`, codeLine);
+      }
+      if (v === 'ENDTAB') tableGuard = null;
+      if (polylineLine > 0) {
+        if (v === 'SEQEND') polylineLine = 0;
+        else if (v !== 'VERTEX' && v !== 'EOF') {
+          fail(`The POLYLINE that starts at line ${polylineLine} is not closed by SEQEND`, polylineLine);
+        }
+      } else if (v === 'POLYLINE') {
+        polylineLine = codeLine;
+      }
+      if (v === 'LWPOLYLINE') {
+        inLw = true;
+        lwLine = codeLine;
+        lwDeclared = -1;
+        lwCount = 0;
+      }
+      if (v === 'SECTION') expectSectionName = true;
+      else if (v === 'TABLE') expectTableName = true;
+      else if (v === 'ENDSEC') section = null;
+      else if ((section === 'ENTITIES' || (section === 'BLOCKS' && countBlock)) && !STRUCTURAL.has(v)) {
+        entityTypes.set(v, (entityTypes.get(v) ?? 0) + 1);
+      }
+      lastCode0 = v;
+      lastWasCode0 = true;
+      if (v === 'EOF') {
+        hasEof = true;
+        line += 2;
+        break;
+      }
+    } else {
+      lastWasCode0 = false;
+      if (inLw) {
+        if (code === 90) {
+          const n = Number.parseInt(value as string, 10);
+          lwDeclared = Number.isFinite(n) ? n : -1;
+        } else if (code === 10) {
+          lwCount++;
+          prevLw10 = true;
+        }
+      }
+    }
+
+    line += 2;
+    if (valueEnd0 === -1) {
+      pos = len;
+      break;
+    }
+    pos = valueEnd + 1;
+  }
+
+  return {
+    entityTypes,
+    hasEof,
+    endsAfterSection: !hasEof && lastWasCode0 && lastCode0 === 'ENDSEC',
+    lastLine: Math.max(1, line - 1),
+    sections,
+  };
+}
+
+/**
+ * Line of the first point whose x (code `xCode`) is followed by `gotCode` instead of its y —
+ * where dxf-parser stops with "Expected code for point value to be … but got …".
+ */
+export function findBrokenPoint(text: string, xCode: number, gotCode: number): number | undefined {
+  const lines = text.split('\n');
+  let prev = Number.NaN;
+  for (let i = 0; i + 1 < lines.length; i += 2) {
+    const code = Number.parseInt(lines[i], 10);
+    if (prev === xCode && code === gotCode) return i + 1;
+    prev = code;
+  }
+  return undefined;
+}

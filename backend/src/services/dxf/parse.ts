@@ -1,0 +1,298 @@
+import DxfParser from 'dxf-parser';
+import { DxfImportError } from './errors';
+import { findBrokenPoint } from './groupScan';
+
+/** A group as dxf-parser's scanner hands it to entity handlers. */
+interface Group {
+  code: number;
+  value: number | string | boolean;
+}
+interface Scanner {
+  next(): Group;
+  isEOF(): boolean;
+  rewind(n?: number): void;
+  lastReadGroup: Group;
+}
+type Loose = Record<string, unknown>;
+
+/** Same reading (and same error text) as dxf-parser's own point helper. */
+function readPoint(scanner: Scanner, curr: Group): { x: number; y: number; z?: number } {
+  const code = curr.code;
+  const p: { x: number; y: number; z?: number } = { x: curr.value as number, y: Number.NaN };
+  let g = scanner.next();
+  if (g.code !== code + 10) {
+    throw new Error(`Expected code for point value to be ${code + 10} but got ${g.code}.`);
+  }
+  p.y = g.value as number;
+  g = scanner.next();
+  if (g.code !== code + 20) {
+    scanner.rewind();
+    return p;
+  }
+  p.z = g.value as number;
+  return p;
+}
+
+/** Common entity groups, read as dxf-parser reads them; false when the group is not one. */
+function readCommon(e: Loose, curr: Group, scanner: Scanner): boolean {
+  switch (curr.code) {
+    case 5:
+      e.handle = curr.value;
+      return true;
+    case 8:
+      e.layer = curr.value;
+      return true;
+    case 60:
+      e.visible = curr.value === 0;
+      return true;
+    case 62:
+      e.colorIndex = curr.value;
+      return true;
+    case 67:
+      e.inPaperSpace = curr.value !== 0;
+      return true;
+    case 101: {
+      // Embedded object (DXF 2018): skip to the next entity, as dxf-parser does.
+      let g = curr;
+      while (g.code !== 0) g = scanner.next();
+      scanner.rewind();
+      return true;
+    }
+    default:
+      return false;
+  }
+}
+
+/** Reads one entity: `onGroup` handles the entity's own groups, the rest are common ones. */
+function readEntity(scanner: Scanner, first: Group, onGroup: (e: Loose, g: Group) => boolean): Loose {
+  const e: Loose = { type: first.value };
+  let curr = scanner.next();
+  while (!scanner.isEOF()) {
+    if (curr.code === 0) break;
+    if (!onGroup(e, curr)) readCommon(e, curr, scanner);
+    curr = scanner.next();
+  }
+  return e;
+}
+
+function extrusion(e: Loose, g: Group): boolean {
+  if (g.code === 210) e.extrusionDirectionX = g.value;
+  else if (g.code === 220) e.extrusionDirectionY = g.value;
+  else if (g.code === 230) e.extrusionDirectionZ = g.value;
+  else return false;
+  return true;
+}
+
+/*
+ * dxf-parser 1.1.2 drops the extrusion direction of CIRCLE, TEXT and ELLIPSE and the weights
+ * of SPLINE; these handlers read the same groups as its own plus those.
+ */
+class CircleHandler {
+  ForEntityName = 'CIRCLE' as const;
+  parseEntity(scanner: Scanner, curr: Group): Loose {
+    return readEntity(scanner, curr, (e, g) => {
+      if (g.code === 10) e.center = readPoint(scanner, g);
+      else if (g.code === 40) e.radius = g.value;
+      else return extrusion(e, g);
+      return true;
+    });
+  }
+}
+
+class TextHandler {
+  ForEntityName = 'TEXT' as const;
+  parseEntity(scanner: Scanner, curr: Group): Loose {
+    return readEntity(scanner, curr, (e, g) => {
+      switch (g.code) {
+        case 10:
+          e.startPoint = readPoint(scanner, g);
+          return true;
+        case 11:
+          e.endPoint = readPoint(scanner, g);
+          return true;
+        case 40:
+          e.textHeight = g.value;
+          return true;
+        case 41:
+          e.xScale = g.value;
+          return true;
+        case 50:
+          e.rotation = g.value;
+          return true;
+        case 1:
+          e.text = g.value;
+          return true;
+        case 72:
+          e.halign = g.value;
+          return true;
+        case 73:
+          e.valign = g.value;
+          return true;
+        default:
+          return extrusion(e, g);
+      }
+    });
+  }
+}
+
+class EllipseHandler {
+  ForEntityName = 'ELLIPSE' as const;
+  parseEntity(scanner: Scanner, curr: Group): Loose {
+    return readEntity(scanner, curr, (e, g) => {
+      switch (g.code) {
+        case 10:
+          e.center = readPoint(scanner, g);
+          return true;
+        case 11:
+          e.majorAxisEndPoint = readPoint(scanner, g);
+          return true;
+        case 40:
+          e.axisRatio = g.value;
+          return true;
+        case 41:
+          e.startAngle = g.value;
+          return true;
+        case 42:
+          e.endAngle = g.value;
+          return true;
+        default:
+          return extrusion(e, g);
+      }
+    });
+  }
+}
+
+class SplineHandler {
+  ForEntityName = 'SPLINE' as const;
+  parseEntity(scanner: Scanner, curr: Group): Loose {
+    const push = (e: Loose, key: string, v: unknown) => {
+      const list = (e[key] as unknown[] | undefined) ?? [];
+      list.push(v);
+      e[key] = list;
+    };
+    return readEntity(scanner, curr, (e, g) => {
+      switch (g.code) {
+        case 10:
+          push(e, 'controlPoints', readPoint(scanner, g));
+          return true;
+        case 11:
+          push(e, 'fitPoints', readPoint(scanner, g));
+          return true;
+        case 12:
+          e.startTangent = readPoint(scanner, g);
+          return true;
+        case 13:
+          e.endTangent = readPoint(scanner, g);
+          return true;
+        case 40:
+          push(e, 'knotValues', g.value);
+          return true;
+        case 41:
+          push(e, 'weights', g.value);
+          return true;
+        case 70: {
+          const f = Number(g.value);
+          e.closed = (f & 1) !== 0;
+          e.periodic = (f & 2) !== 0;
+          e.rational = (f & 4) !== 0;
+          return true;
+        }
+        case 71:
+          e.degreeOfSplineCurve = g.value;
+          return true;
+        case 210:
+          e.normalVector = readPoint(scanner, g);
+          return true;
+        default:
+          return false;
+      }
+    });
+  }
+}
+
+/** The parsed drawing as the import engine reads it (loose: a damaged file may lack anything). */
+export interface ParsedDxf {
+  header?: Record<string, unknown>;
+  entities?: Loose[];
+  blocks?: Record<string, Loose>;
+  tables?: { layer?: { layers?: Record<string, Loose> } };
+}
+
+const CONSOLE_METHODS = ['log', 'warn', 'error', 'info', 'debug', 'trace'] as const;
+
+/** A dxf-parser with the extra entity handlers of this module. */
+export function createParser(): DxfParser {
+  const parser = new DxfParser();
+  for (const H of [CircleHandler, TextHandler, EllipseHandler, SplineHandler]) {
+    parser.registerEntityHandler(H as unknown as Parameters<DxfParser['registerEntityHandler']>[0]);
+  }
+  return parser;
+}
+
+const GENERIC =
+  'The structure of the file could not be read; it may be damaged, or written by a program that does not follow the DXF format';
+
+/**
+ * Parses checked DXF text (see scanGroups) with dxf-parser, its console output silenced, and
+ * turns every failure into a DxfImportError; `lastLine` is where a cut-off file ends.
+ */
+export function parseDxfText(text: string, lastLine: number): ParsedDxf {
+  const saved = CONSOLE_METHODS.map((m) => console[m]);
+  const quiet = () => undefined;
+  for (const m of CONSOLE_METHODS) console[m] = quiet;
+  let dxf: unknown;
+  try {
+    dxf = createParser().parseSync(text);
+  } catch (err) {
+    throw toImportError(err, text, lastLine);
+  } finally {
+    CONSOLE_METHODS.forEach((m, i) => (console[m] = saved[i] as typeof console.log));
+  }
+  if (dxf === null || typeof dxf !== 'object') throw new DxfImportError('parse-error', `${GENERIC}.`);
+  const d = dxf as ParsedDxf;
+  if (!d.header && !d.entities && !d.blocks) {
+    throw new DxfImportError(
+      'parse-error',
+      'No HEADER, BLOCKS or ENTITIES section could be read from the file; its group codes may be damaged.',
+    );
+  }
+  return d;
+}
+
+function toImportError(err: unknown, text: string, lastLine: number): DxfImportError {
+  const msg = err instanceof Error ? err.message : String(err);
+  if (msg === 'Empty file') {
+    return new DxfImportError('empty', 'The file is empty. Upload the floor plan as an ASCII DXF file.');
+  }
+  if (msg.startsWith('Unexpected end of input')) {
+    return new DxfImportError(
+      'parse-error',
+      `The file ends before its end marker (EOF) in the middle of a section: it looks cut off (line ${lastLine}).`,
+      lastLine,
+    );
+  }
+  if (msg.startsWith("Cannot call 'next' after EOF")) {
+    return new DxfImportError(
+      'parse-error',
+      'The end-of-file marker (EOF) comes before the drawing is complete; the file may be damaged.',
+    );
+  }
+  const point = /^Expected code for point value to be (-?\d+) but got (-?\d+|NaN)/.exec(msg);
+  if (point) {
+    const want = Number(point[1]);
+    const line = findBrokenPoint(text, want - 10, Number(point[2]));
+    const where = line === undefined ? '' : ` (line ${line})`;
+    return new DxfImportError(
+      'parse-error',
+      `A point in the file has an x coordinate without its y coordinate${where}; the file may be damaged.`,
+      line,
+    );
+  }
+  if (msg.startsWith('n must be greater than 0')) {
+    return new DxfImportError(
+      'parse-error',
+      'An LWPOLYLINE lists vertices without saying how many it has; the file may be damaged.',
+    );
+  }
+  return new DxfImportError('parse-error', `${GENERIC}.`);
+}

@@ -1,0 +1,165 @@
+import type { Feature, Geometry } from 'geojson';
+import type { PlanFeatureProps } from '../../../../shared/schemas/floorPlan';
+import { DxfImportError } from './errors';
+import { MAX_COORDINATE_MM, MAX_OUTPUT_POINTS, roundMm } from './limits';
+import { planX, planY, type Affine } from './transform';
+
+/** An open plan polyline waiting to be joined: flat [x0, y0, x1, y1, …] in plan mm. */
+export interface OpenPath {
+  layer: string;
+  entity: string;
+  coords: number[];
+}
+
+/** Names an entity for messages: type, handle from the file, block it sits in. */
+export interface EntityRef {
+  type: string;
+  handle?: string;
+  block?: string;
+}
+
+export function describeEntity(ref: EntityRef): string {
+  let s = `a ${ref.type} entity`;
+  if (ref.handle) s += ` (handle ${ref.handle})`;
+  if (ref.block) s += ` in block "${ref.block}"`;
+  return s;
+}
+
+/** Signed area of a flat ring [x0, y0, …] (shoelace formula); positive = counter-clockwise. */
+export function ringSignedArea(c: readonly number[]): number {
+  let s = 0;
+  const n = c.length;
+  for (let i = 0; i < n; i += 2) {
+    const j = (i + 2) % n;
+    s += c[i] * c[j + 1] - c[j] * c[i + 1];
+  }
+  return s / 2;
+}
+
+/** Closed GeoJSON ring, counter-clockwise (RFC 7946 §3.1.6), from a flat open ring. */
+export function toCcwRing(flat: readonly number[]): Array<[number, number]> {
+  const ring: Array<[number, number]> = [];
+  for (let i = 0; i < flat.length; i += 2) ring.push([flat[i], flat[i + 1]]);
+  if (ringSignedArea(flat) < 0) ring.reverse();
+  ring.push([ring[0][0], ring[0][1]]);
+  return ring;
+}
+
+/**
+ * Collects what entities draw, in plan millimetres: closed rings and labels become features at
+ * once, open paths are kept for joining. Checks every coordinate (finite, within
+ * MAX_COORDINATE_MM) and the size limits, counts entities per layer and skipped entities.
+ */
+export class PlanBuilder {
+  readonly features: Array<Feature<Geometry, PlanFeatureProps>> = [];
+  readonly open: OpenPath[] = [];
+  readonly layerCounts = new Map<string, number>();
+  readonly skipped = new Map<string, number>();
+  entities = 0;
+  private points = 0;
+
+  /** Counts an entity that was not drawn; `reason` is shown in the warning. */
+  skip(type: string, reason: string): void {
+    const key = `${type} (${reason})`;
+    this.skipped.set(key, (this.skipped.get(key) ?? 0) + 1);
+  }
+
+  private count(layer: string): void {
+    this.entities++;
+    this.layerCounts.set(layer, (this.layerCounts.get(layer) ?? 0) + 1);
+  }
+
+  private spend(n: number): void {
+    this.points += n;
+    if (this.points > MAX_OUTPUT_POINTS) {
+      throw new DxfImportError(
+        'too-complex',
+        `The drawing expands to more than ${MAX_OUTPUT_POINTS.toLocaleString('en')} points, more than one floor plan import may hold. Remove detail the plan does not need (furniture, hatching, dimensions) and try again.`,
+      );
+    }
+  }
+
+  private project(m: Affine, pts: readonly number[], ref: EntityRef): number[] {
+    const out: number[] = [];
+    let px = Number.NaN;
+    let py = Number.NaN;
+    for (let i = 0; i < pts.length; i += 3) {
+      const X = planX(m, pts[i], pts[i + 1], pts[i + 2]);
+      const Y = planY(m, pts[i], pts[i + 1], pts[i + 2]);
+      if (!(Math.abs(X) <= MAX_COORDINATE_MM) || !(Math.abs(Y) <= MAX_COORDINATE_MM)) badPoint(X, Y, ref);
+      const x = roundMm(X);
+      const y = roundMm(Y);
+      if (x === px && y === py) continue;
+      out.push(x, y);
+      px = x;
+      py = y;
+    }
+    return out;
+  }
+
+  /** Adds what one entity draws: points (x, y, z triples) in the frame that `m` maps to plan mm. */
+  path(ref: EntityRef, layer: string, closed: boolean, pts: readonly number[], m: Affine): void {
+    let c = this.project(m, pts, ref);
+    if (closed && c.length >= 4 && c[0] === c[c.length - 2] && c[1] === c[c.length - 1]) c = c.slice(0, -2);
+    if (closed && c.length >= 6) {
+      this.spend(c.length / 2 + 1);
+      this.count(layer);
+      this.features.push({
+        type: 'Feature',
+        properties: { layer, entity: ref.type, closed: true },
+        geometry: { type: 'Polygon', coordinates: [toCcwRing(c)] },
+      });
+      return;
+    }
+    if (c.length < 4) {
+      this.skip(ref.type, 'zero size');
+      return;
+    }
+    this.spend(c.length / 2);
+    this.count(layer);
+    this.open.push({ layer, entity: ref.type, coords: c });
+  }
+
+  /** Adds a text label at local point p with direction d and up vector u (its height). */
+  label(
+    ref: EntityRef,
+    layer: string,
+    text: string,
+    p: readonly [number, number, number],
+    d: readonly [number, number, number],
+    u: readonly [number, number, number],
+    m: Affine,
+  ): void {
+    const [x, y] = this.project(m, p, ref);
+    const dx = m[0] * d[0] + m[1] * d[1] + m[2] * d[2];
+    const dy = m[4] * d[0] + m[5] * d[1] + m[6] * d[2];
+    const ux = m[0] * u[0] + m[1] * u[1] + m[2] * u[2];
+    const uy = m[4] * u[0] + m[5] * u[1] + m[6] * u[2];
+    let rotation = (Math.atan2(dy, dx) * 180) / Math.PI;
+    if (!Number.isFinite(rotation)) rotation = 0;
+    rotation = Math.round(rotation * 1e6) / 1e6;
+    if (rotation <= -180) rotation += 360;
+    const h = Math.hypot(ux, uy);
+    if (!(h <= MAX_COORDINATE_MM)) badPoint(h, h, ref);
+    this.spend(1);
+    this.count(layer);
+    this.features.push({
+      type: 'Feature',
+      properties: { layer, entity: ref.type, closed: false, text, textHeight: roundMm(h), rotation: rotation || 0 },
+      geometry: { type: 'Point', coordinates: [x, y] },
+    });
+  }
+}
+
+/** Throws the 'bad-coordinates' error for a point that is not finite or lies too far out. */
+export function badPoint(x: number, y: number, ref: EntityRef): never {
+  const v = Math.abs(x) <= MAX_COORDINATE_MM ? y : x;
+  const what = Number.isFinite(v)
+    ? `a coordinate of ${v.toExponential(3)} mm, farther than ${MAX_COORDINATE_MM / 1e6} km from the drawing origin`
+    : 'a coordinate that is not a number';
+  const who = describeEntity(ref);
+  throw new DxfImportError(
+    'bad-coordinates',
+    `The file holds ${who} with ${what}. Check the drawing (or its unit) and export it again.`,
+  );
+}
