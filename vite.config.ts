@@ -18,7 +18,8 @@ export default defineConfig({
   worker: { format: 'es' },
   server: {
     port: 5173,
-    proxy: { '/api': 'http://127.0.0.1:3000' },
+    // changeOrigin false keeps the browser's Host, so the API's same-origin check accepts the dev server.
+    proxy: { '/api': { target: 'http://127.0.0.1:3000', changeOrigin: false } },
   },
   test: {
     root: '.',
