@@ -130,6 +130,8 @@ export class HaltonSequence {
 /** Growable store of samples: (r, z), the free-axis coordinates u ∈ [0,1]^k, running bounds and lateral statistics. */
 class SampleStore {
   rz = new Float64Array(2 * 8192);
+  /** Side distance y of each sample (turned frame), mm. */
+  side = new Float64Array(8192);
   u: Float64Array;
   count = 0;
   rMin = Infinity;
@@ -150,12 +152,16 @@ class SampleStore {
       const rz = new Float64Array(this.rz.length * 2);
       rz.set(this.rz);
       this.rz = rz;
+      const side = new Float64Array(this.side.length * 2);
+      side.set(this.side);
+      this.side = side;
       const uu = new Float64Array(this.u.length * 2);
       uu.set(this.u);
       this.u = uu;
     }
     this.rz[2 * this.count] = r;
     this.rz[2 * this.count + 1] = z;
+    this.side[this.count] = y;
     for (let f = 0; f < k; f++) this.u[k * this.count + f] = u[f];
     this.count++;
     if (r < this.rMin) this.rMin = r;
@@ -275,14 +281,24 @@ class Raster {
   }
 
   private fillSheet({ nodes, n0, n1 }: Sheet): void {
-    const rz = this.store.rz;
+    const { rz, side } = this.store;
     const { r0, z0, cell } = this;
+    // r = sign(x)·ρ jumps by 2|y| where x changes sign off the plane through J1: never fill across it
+    const jumps = (...ss: number[]): boolean => {
+      let pos = false, neg = false, off = false;
+      for (const s of ss) {
+        if (rz[2 * s] >= 0) pos = true;
+        else neg = true;
+        if (Math.abs(side[s]) > cell / 2) off = true;
+      }
+      return pos && neg && off;
+    };
     const gx = (s: number) => (rz[2 * s] - r0) / cell;
     const gy = (s: number) => (rz[2 * s + 1] - z0) / cell;
     if (n1 === 1) {
       for (let a = 0; a + 1 < n0; a++) {
         const s = nodes[a], t = nodes[a + 1];
-        if (s >= 0 && t >= 0) this.fillSegment(gx(s), gy(s), gx(t), gy(t));
+        if (s >= 0 && t >= 0 && !jumps(s, t)) this.fillSegment(gx(s), gy(s), gx(t), gy(t));
       }
       return;
     }
@@ -290,9 +306,9 @@ class Raster {
       for (let b = 0; b + 1 < n1; b++) {
         const s00 = nodes[a * n1 + b], s10 = nodes[(a + 1) * n1 + b];
         const s01 = nodes[a * n1 + b + 1], s11 = nodes[(a + 1) * n1 + b + 1];
-        if (s00 >= 0 && s10 >= 0) this.fillSegment(gx(s00), gy(s00), gx(s10), gy(s10));
-        if (s00 >= 0 && s01 >= 0) this.fillSegment(gx(s00), gy(s00), gx(s01), gy(s01));
-        if (s00 < 0 || s10 < 0 || s01 < 0 || s11 < 0) continue;
+        if (s00 >= 0 && s10 >= 0 && !jumps(s00, s10)) this.fillSegment(gx(s00), gy(s00), gx(s10), gy(s10));
+        if (s00 >= 0 && s01 >= 0 && !jumps(s00, s01)) this.fillSegment(gx(s00), gy(s00), gx(s01), gy(s01));
+        if (s00 < 0 || s10 < 0 || s01 < 0 || s11 < 0 || jumps(s00, s10, s01, s11)) continue;
         this.fillTriangle(gx(s00), gy(s00), gx(s10), gy(s10), gx(s11), gy(s11));
         this.fillTriangle(gx(s00), gy(s00), gx(s11), gy(s11), gx(s01), gy(s01));
       }

@@ -17,7 +17,7 @@ export const sixAxisExample: ChainParams = chainParamsSchema.parse({
   joints: [
     { type: 'revolute', theta: 0, d: 0, a: 0, alpha: 90, min: -160, max: 160 },
     { type: 'revolute', theta: 0, d: 0, a: 431.8, alpha: 0, min: -225, max: 45 },
-    { type: 'revolute', theta: 0, d: 150.05, a: 20.3, alpha: -90, min: -45, max: 225 },
+    { type: 'revolute', theta: 0, d: 150.05, a: 20.3, alpha: -90, min: -160, max: 160 },
     { type: 'revolute', theta: 0, d: 431.8, a: 0, alpha: 90, min: -110, max: 170 },
     { type: 'revolute', theta: 0, d: 0, a: 0, alpha: -90, min: -100, max: 100 },
     { type: 'revolute', theta: 0, d: 0, a: 0, alpha: 0, min: -266, max: 266 },
