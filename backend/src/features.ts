@@ -2,6 +2,7 @@ import type { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
 import type { SeedStep } from './db/seed';
+import { floorPlansRouter } from './routes/floorPlans';
 import { layoutsRouter } from './routes/layouts';
 
 export interface FeatureContext {
@@ -11,7 +12,7 @@ export interface FeatureContext {
 
 /** API routers of the product's features, mounted under /api after the foundation routes. */
 export function featureRouters(ctx: FeatureContext): Router[] {
-  return [layoutsRouter(ctx.sequelize)];
+  return [floorPlansRouter(ctx.sequelize, { uploadLimitBytes: ctx.config.uploadLimitBytes }), layoutsRouter(ctx.sequelize)];
 }
 
 /** Demo seeding steps of the features, run in order after the demo accounts and project. */

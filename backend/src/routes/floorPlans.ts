@@ -1,0 +1,202 @@
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import type { Sequelize } from 'sequelize';
+import { FloorPlanPatch, type ImportResult } from '@shared/schemas/floorPlan';
+import type { SessionUser } from '../auth/passport';
+import { allow, currentUser } from '../auth/guards';
+import { badRequest, conflict, HttpError, notFound } from '../http/errors';
+import { idParam, parseOr400 } from '../http/validate';
+import { FloorPlan, Layout } from '../models';
+import { audit } from '../services/audit/audit';
+import { isDxfImportError } from '../services/dxf/errors';
+import { readFloorPlan } from '../services/floorPlanImport';
+import { loadVisibleProject } from '../services/projectAccess';
+
+const SUMMARY_ATTRS = ['id', 'projectId', 'fileName', 'units', 'unitsSource', 'bounds', 'layers', 'warnings', 'stats', 'createdAt', 'updatedAt'] as const;
+
+function summary(fp: FloorPlan) {
+  return {
+    id: fp.id,
+    projectId: fp.projectId,
+    fileName: fp.fileName,
+    units: fp.units,
+    unitsSource: fp.unitsSource,
+    bounds: fp.bounds,
+    layers: fp.layers,
+    warnings: fp.warnings,
+    stats: fp.stats,
+    createdAt: fp.createdAt.toISOString(),
+    updatedAt: fp.updatedAt.toISOString(),
+  };
+}
+
+/** Maps an import failure to the HTTP answer: 415 for files that are not ASCII DXF, else 400. */
+function importFailure(err: unknown): never {
+  if (isDxfImportError(err)) {
+    const e = err as { code: string; message: string; line?: number };
+    const status = e.code === 'not-dxf' || e.code === 'binary-dxf' ? 415 : e.code === 'timeout' || e.code === 'internal' ? 422 : 400;
+    const where = e.line && !/\bline \d+/.test(e.message) ? ` (line ${e.line})` : '';
+    throw new HttpError(status, `dxf_${e.code.replace(/-/g, '_')}`, `${e.message}${where}`, undefined, e.line ? { line: e.line } : undefined);
+  }
+  throw err;
+}
+
+async function loadVisiblePlan(user: SessionUser, id: number, withGeometry: boolean): Promise<FloorPlan> {
+  const fp = await FloorPlan.findByPk(id, { attributes: withGeometry ? [...SUMMARY_ATTRS, 'geometry'] : [...SUMMARY_ATTRS] });
+  if (!fp) throw notFound('Floor plan');
+  await loadVisibleProject(user, fp.projectId).catch(() => {
+    throw notFound('Floor plan');
+  });
+  return fp;
+}
+
+/** Carries roles and heights the planner set over to a re-read of the same drawing. */
+function keepLayerChoices(result: ImportResult, previous: FloorPlan['layers']): ImportResult['layers'] {
+  const byName = new Map(previous.map((l) => [l.name, l]));
+  return result.layers.map((l) => {
+    const old = byName.get(l.name);
+    return old ? { ...l, role: old.role, height: old.height } : l;
+  });
+}
+
+/** Floor plans: DXF upload (multer, in memory, size-capped), read, layer roles and units, source, delete. */
+export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes: number }): Router {
+  const r = Router();
+  const capMb = Math.round((opts.uploadLimitBytes / 1024 / 1024) * 10) / 10;
+  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: opts.uploadLimitBytes, files: 1, fields: 10 } });
+  const singleFile: RequestHandler = (req, res, next) => {
+    upload.single('file')(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE') return next(new HttpError(413, 'too_large', `The file is larger than the upload limit of ${capMb} MB.`));
+        if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(badRequest(`Send the drawing in the form field "file" (got "${err.field}").`, { file: 'Choose a DXF file' }));
+        return next(badRequest(`The upload could not be read: ${err.message}.`));
+      }
+      next(err);
+    });
+  };
+
+  r.get('/projects/:id/floor-plans', allow('floorPlan.read'), async (req, res) => {
+    const project = await loadVisibleProject(currentUser(req), idParam(req.params.id, 'Project'));
+    const plans = await FloorPlan.findAll({ where: { projectId: project.id }, attributes: [...SUMMARY_ATTRS], order: [['createdAt', 'DESC']] });
+    res.json({ floorPlans: plans.map(summary) });
+  });
+
+  r.post('/projects/:id/floor-plans', allow('floorPlan.write'), async (req, res) => {
+    const user = currentUser(req);
+    const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
+    await new Promise<void>((resolve, reject) => singleFile(req, res, (e?: unknown) => (e ? reject(e) : resolve())));
+    const file = req.file;
+    if (!file) throw badRequest('Choose a DXF file to upload (form field "file").', { file: 'Choose a DXF file' });
+    if (file.size === 0) throw badRequest('The file is empty.', { file: 'The file is empty' });
+    let result: ImportResult;
+    try {
+      result = await readFloorPlan(file.buffer);
+    } catch (err) {
+      importFailure(err);
+    }
+    const fileName = (file.originalname || 'floor-plan.dxf').slice(0, 255);
+    const fp = await sequelize.transaction(async (transaction) => {
+      const row = await FloorPlan.create(
+        {
+          projectId: project.id,
+          fileName,
+          originalDxf: file.buffer,
+          units: result.units,
+          unitsSource: result.unitsSource,
+          bounds: result.bounds,
+          layers: result.layers,
+          geometry: result.geometry,
+          warnings: result.warnings,
+          stats: { ...result.stats, chordToleranceMm: result.chordToleranceMm, insunits: result.insunits },
+          createdBy: user.id,
+        },
+        { transaction },
+      );
+      await audit(user.id, 'floorPlan.create', 'floorPlan', row.id, { projectId: project.id, fileName, bytes: file.size }, transaction);
+      return row;
+    });
+    res.status(201).json(summary(fp));
+  });
+
+  r.get('/floor-plans/:id', allow('floorPlan.read'), async (req, res) => {
+    const fp = await loadVisiblePlan(currentUser(req), idParam(req.params.id, 'Floor plan'), true);
+    res.json({ ...summary(fp), geometry: fp.geometry });
+  });
+
+  r.patch('/floor-plans/:id', allow('floorPlan.write'), async (req, res) => {
+    const user = currentUser(req);
+    const id = idParam(req.params.id, 'Floor plan');
+    await loadVisiblePlan(user, id, false);
+    const patch = parseOr400(FloorPlanPatch, req.body, 'The floor plan change');
+    const updated = await sequelize.transaction(async (transaction) => {
+      const fp = await FloorPlan.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!fp) throw notFound('Floor plan');
+      const changes: Partial<FloorPlan> = {};
+      let layers = fp.layers;
+      if (patch.units && patch.units !== fp.units) {
+        // Re-read the stored original in the chosen unit: geometry rescaled exactly, no re-upload.
+        let result: ImportResult;
+        try {
+          result = await readFloorPlan(fp.originalDxf, { units: patch.units });
+        } catch (err) {
+          importFailure(err);
+        }
+        layers = keepLayerChoices(result, fp.layers);
+        Object.assign(changes, {
+          units: result.units,
+          unitsSource: 'chosen',
+          bounds: result.bounds,
+          geometry: result.geometry,
+          warnings: result.warnings,
+          stats: { ...result.stats, chordToleranceMm: result.chordToleranceMm, insunits: result.insunits },
+        });
+      }
+      if (patch.layers) {
+        const byName = new Map(layers.map((l) => [l.name, l]));
+        const fields: Record<string, string> = {};
+        patch.layers.forEach((p, i) => {
+          if (!byName.has(p.name)) fields[`layers.${i}.name`] = `No layer named "${p.name}" in this drawing`;
+        });
+        if (Object.keys(fields).length) throw badRequest(`The change names a layer the drawing does not have.`, fields);
+        layers = layers.map((l) => {
+          const p = patch.layers!.find((x) => x.name === l.name);
+          return p ? { ...l, ...(p.role !== undefined ? { role: p.role } : {}), ...(p.height !== undefined ? { height: p.height } : {}) } : l;
+        });
+      }
+      changes.layers = layers;
+      await fp.update(changes, { transaction });
+      await audit(user.id, 'floorPlan.update', 'floorPlan', fp.id, { units: patch.units, layers: patch.layers?.map((l) => l.name) }, transaction);
+      return fp;
+    });
+    const fresh = await FloorPlan.findByPk(updated.id, { attributes: [...SUMMARY_ATTRS, 'geometry'] });
+    res.json({ ...summary(fresh!), geometry: fresh!.geometry });
+  });
+
+  r.get('/floor-plans/:id/source', allow('floorPlan.read'), async (req, res) => {
+    const id = idParam(req.params.id, 'Floor plan');
+    await loadVisiblePlan(currentUser(req), id, false);
+    const fp = await FloorPlan.findByPk(id, { attributes: ['id', 'fileName', 'originalDxf'] });
+    res.set('Content-Type', 'application/dxf');
+    res.attachment(fp!.fileName);
+    res.send(fp!.originalDxf);
+  });
+
+  r.delete('/floor-plans/:id', allow('floorPlan.write'), async (req, res) => {
+    const user = currentUser(req);
+    const fp = await loadVisiblePlan(user, idParam(req.params.id, 'Floor plan'), false);
+    const users = await Layout.findAll({ where: { floorPlanId: fp.id }, attributes: ['id', 'name'] });
+    if (users.length) {
+      throw conflict(`This floor plan is used by ${users.length === 1 ? 'the layout' : 'the layouts'} ${users.map((l) => `"${l.name}"`).join(', ')}; move or delete ${users.length === 1 ? 'it' : 'them'} first.`, {
+        layouts: users.map((l) => ({ id: l.id, name: l.name })),
+      });
+    }
+    await sequelize.transaction(async (transaction) => {
+      await audit(user.id, 'floorPlan.delete', 'floorPlan', fp.id, { fileName: fp.fileName }, transaction);
+      await FloorPlan.destroy({ where: { id: fp.id }, transaction });
+    });
+    res.status(204).end();
+  });
+
+  return r;
+}

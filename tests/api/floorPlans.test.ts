@@ -1,0 +1,136 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { FloorPlan, Layout } from '../../backend/src/models';
+import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
+import { createTestApp, signedIn, type TestApp } from '../support/testApp';
+
+/** A hand-written ASCII DXF: a 10 m × 6 m outline (LWPOLYLINE) and one wall line, in the given $INSUNITS. */
+function tinyDxf(insunits = 4): string {
+  const g = (code: number, value: string | number) => `${code}\n${value}\n`;
+  const head = g(0, 'SECTION') + g(2, 'HEADER') + g(9, '$INSUNITS') + g(70, insunits) + g(0, 'ENDSEC');
+  const outline =
+    g(0, 'LWPOLYLINE') + g(8, 'OUTLINE') + g(90, 4) + g(70, 1) +
+    g(10, 0) + g(20, 0) + g(10, 10000) + g(20, 0) + g(10, 10000) + g(20, 6000) + g(10, 0) + g(20, 6000);
+  const wall = g(0, 'LINE') + g(8, 'WALLS') + g(10, 5000) + g(20, 0) + g(30, 0) + g(11, 5000) + g(21, 4000) + g(31, 0);
+  return head + g(0, 'SECTION') + g(2, 'ENTITIES') + outline + wall + g(0, 'ENDSEC') + g(0, 'EOF');
+}
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(async () => t.close());
+
+async function plannerAgent() {
+  const planner = await buildUser({ role: 'planner' });
+  return signedIn(t.app, planner.email, TEST_PASSWORD);
+}
+
+describe('floor-plan upload', () => {
+  it('imports an ASCII DXF into mm, lists layers with guessed roles, and keeps the original bytes', async () => {
+    const agent = await plannerAgent();
+    const project = await buildProject();
+    const text = tinyDxf(4);
+    const res = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(text), 'hall.dxf');
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({ units: 'mm', unitsSource: 'header', bounds: { minX: 0, minY: 0, maxX: 10000, maxY: 6000 } });
+    const roles = Object.fromEntries(res.body.layers.map((l: { name: string; role: string }) => [l.name, l.role]));
+    expect(roles).toEqual({ OUTLINE: 'boundary', WALLS: 'wall' });
+    const full = await agent.get(`/api/floor-plans/${res.body.id}`);
+    expect(full.body.geometry.type).toBe('FeatureCollection');
+    expect(full.body.geometry.features.length).toBe(2);
+    const src = await agent.get(`/api/floor-plans/${res.body.id}/source`).buffer(true).parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+    expect(src.status).toBe(200);
+    expect((src.body as Buffer).toString('utf8')).toBe(text);
+    const list = await agent.get(`/api/projects/${project.id}/floor-plans`);
+    expect(list.body.floorPlans.map((p: { id: number }) => p.id)).toEqual([res.body.id]);
+    expect(list.body.floorPlans[0].geometry).toBeUndefined();
+  });
+
+  it('answers binary DXF, random bytes and empty files with a clear 4xx and stores nothing', async () => {
+    const agent = await plannerAgent();
+    const project = await buildProject();
+    const before = await FloorPlan.count();
+    const binary = Buffer.concat([Buffer.from('AutoCAD Binary DXF\r\n\x1a\x00', 'latin1'), Buffer.alloc(64, 7)]);
+    const bin = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', binary, 'plan.dxf');
+    expect(bin.status).toBe(415);
+    expect(bin.body.error.message).toMatch(/ASCII/i);
+    const junk = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0, 1, 2, 3, 250, 251]), 'photo.dxf');
+    expect(junk.status).toBe(415);
+    const truncated = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(tinyDxf().slice(0, 180)), 'cut.dxf');
+    expect(truncated.status).toBeGreaterThanOrEqual(400);
+    expect(truncated.status).toBeLessThan(500);
+    expect(truncated.body.error.message.length).toBeGreaterThan(10);
+    const empty = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.alloc(0), 'empty.dxf');
+    expect(empty.status).toBe(400);
+    const nofile = await agent.post(`/api/projects/${project.id}/floor-plans`).field('note', 'x');
+    expect(nofile.status).toBe(400);
+    expect(await FloorPlan.count()).toBe(before);
+    expect((await request(t.app).get('/api/health')).status).toBe(200);
+  });
+
+  it('refuses a file over the size cap with 413 naming the cap', async () => {
+    const small = t.appWith({ UPLOAD_LIMIT_MB: '0.001' });
+    const planner = await buildUser({ role: 'planner' });
+    const agent = await signedIn(small, planner.email, TEST_PASSWORD);
+    const project = await buildProject();
+    const res = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(tinyDxf() + ' '.repeat(4000)), 'big.dxf');
+    expect(res.status).toBe(413);
+    expect(res.body.error.message).toMatch(/0 MB|0\.\d+ MB|limit/);
+  });
+
+  it('changes layer roles and heights, and re-reads the drawing when the unit changes (inches → ×25.4)', async () => {
+    const agent = await plannerAgent();
+    const project = await buildProject();
+    const up = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(tinyDxf(1)), 'inches.dxf');
+    expect(up.status).toBe(201);
+    expect(up.body.units).toBe('in');
+    expect(up.body.bounds.maxX).toBeCloseTo(254000, 6);
+    const roles = await agent.patch(`/api/floor-plans/${up.body.id}`).send({ layers: [{ name: 'WALLS', role: 'obstacle', height: 1200 }] });
+    expect(roles.status).toBe(200);
+    expect(roles.body.layers.find((l: { name: string }) => l.name === 'WALLS')).toMatchObject({ role: 'obstacle', height: 1200 });
+    const units = await agent.patch(`/api/floor-plans/${up.body.id}`).send({ units: 'mm' });
+    expect(units.status).toBe(200);
+    expect(units.body).toMatchObject({ units: 'mm', unitsSource: 'chosen' });
+    expect(units.body.bounds.maxX).toBeCloseTo(10000, 6);
+    // the planner's role choice survives the re-read
+    expect(units.body.layers.find((l: { name: string }) => l.name === 'WALLS')).toMatchObject({ role: 'obstacle', height: 1200 });
+    const bad = await agent.patch(`/api/floor-plans/${up.body.id}`).send({ layers: [{ name: 'NOPE', role: 'wall' }] });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty(['layers.0.name']);
+  });
+
+  it('refuses to delete a plan a layout uses (409 naming it), deletes an unused one', async () => {
+    const agent = await plannerAgent();
+    const project = await buildProject();
+    const up = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(tinyDxf()), 'hall.dxf');
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: up.body.id, name: 'Cell layout', content: { arms: [], workPoints: [], zones: [], workHeights: [] }, createdBy: null });
+    const refused = await agent.delete(`/api/floor-plans/${up.body.id}`);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toContain('Cell layout');
+    await layout.destroy();
+    expect((await agent.delete(`/api/floor-plans/${up.body.id}`)).status).toBe(204);
+    expect(await FloorPlan.findByPk(up.body.id)).toBeNull();
+  });
+
+  it('lets clients and reviewers read but never upload', async () => {
+    const client = await buildUser({ role: 'client' });
+    const reviewer = await buildUser({ role: 'reviewer' });
+    const project = await buildProject({ members: [client] });
+    const agent = await plannerAgent();
+    const up = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(tinyDxf()), 'hall.dxf');
+    for (const u of [client, reviewer]) {
+      const a = await signedIn(t.app, u.email, TEST_PASSWORD);
+      expect((await a.get(`/api/floor-plans/${up.body.id}`)).status).toBe(200);
+      expect((await a.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(tinyDxf()), 'x.dxf')).status).toBe(403);
+      expect((await a.patch(`/api/floor-plans/${up.body.id}`).send({ units: 'm' })).status).toBe(403);
+    }
+    const outsider = await buildUser({ role: 'client' });
+    const o = await signedIn(t.app, outsider.email, TEST_PASSWORD);
+    expect((await o.get(`/api/floor-plans/${up.body.id}`)).status).toBe(404);
+  });
+});
