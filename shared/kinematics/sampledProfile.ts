@@ -492,7 +492,7 @@ export function sampleProfile(pointFn: PointFn, axes: readonly AxisRange[], opts
 
     const offsets = new HaltonSequence(k);
     const child = new Float64Array(k);
-    const childrenPerParent = 2 * k + 2;
+    const childrenPerParent = k + 2;
     let frontier: number[] = [];
     for (let c = 0; c < raster.stamp.length; c++) if (raster.rep[c] >= 0 && raster.onEdge(c)) frontier.push(c);
     for (let round = 1; round <= MAX_ROUNDS && frontier.length > 0 && drawn < maxSamples; round++) {
@@ -546,7 +546,7 @@ export function sampleProfile(pointFn: PointFn, axes: readonly AxisRange[], opts
 const DEFAULT_CELLS_ACROSS = 400;
 const MIN_DEFAULT_TOLERANCE_MM = 6;
 /** First-sweep sample counts by number of free axes (0 … 8). */
-const DEFAULT_INITIAL = [1, 512, 2048, 8192, 16384, 24576, 32768, 32768, 32768];
+const DEFAULT_INITIAL = [1, 512, 2048, 4096, 8192, 12288, 16384, 16384, 16384];
 const MAX_ROUNDS = 60;
 /** Lattice sheets: node spacing in cells (image chord ≤ 12 cells keeps the arc's sagitta well under a cell), nodes per axis, sheets. */
 const SHEET_NODE_CELLS = 12;
