@@ -1,6 +1,7 @@
 import type { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
+import { seedDemoFloorPlan } from './db/demoFloorPlan';
 import type { SeedStep } from './db/seed';
 import { floorPlansRouter } from './routes/floorPlans';
 import { layoutsRouter } from './routes/layouts';
@@ -17,5 +18,5 @@ export function featureRouters(ctx: FeatureContext): Router[] {
 
 /** Demo seeding steps of the features, run in order after the demo accounts and project. */
 export function featureSeedSteps(): SeedStep[] {
-  return [];
+  return [seedDemoFloorPlan];
 }

@@ -134,3 +134,20 @@ describe('floor-plan upload', () => {
     expect((await o.get(`/api/floor-plans/${up.body.id}`)).status).toBe(404);
   });
 });
+
+describe('demo floor plan', () => {
+  it('seeds the Fernhill hall into the demo project through the real importer', async () => {
+    const { seedDemoIfEmpty } = await import('../../backend/src/db/seed');
+    const { featureSeedSteps } = await import('../../backend/src/features');
+    const { User } = await import('../../backend/src/models');
+    await User.destroy({ where: {}, cascade: true });
+    expect(await seedDemoIfEmpty(t.sequelize, { bcryptCost: 4, steps: featureSeedSteps() })).toBe(true);
+    const plans = await FloorPlan.findAll();
+    const demo = plans.find((p) => p.fileName === 'fernhill-hall.dxf');
+    expect(demo).toBeDefined();
+    expect(demo!.units).toBe('mm');
+    // the demo hall is about 24 m × 16 m (PRODUCT.md demo scenario)
+    expect(demo!.bounds.maxX - demo!.bounds.minX).toBeGreaterThan(20000);
+    expect(demo!.bounds.maxY - demo!.bounds.minY).toBeGreaterThan(14000);
+  });
+});

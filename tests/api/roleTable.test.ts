@@ -2,6 +2,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '@shared/schemas/user';
+import { FloorPlan, Layout } from '../../backend/src/models';
 import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
 
@@ -9,6 +10,8 @@ type Who = 'anon' | Role;
 const WHO: Who[] = ['anon', 'client', 'reviewer', 'planner', 'admin'];
 
 interface Ctx {
+  floorPlanId: number;
+  layoutId: number;
   projectId: number;
   otherProjectId: number;
   memberUserId: number;
@@ -16,7 +19,7 @@ interface Ctx {
 }
 
 interface Row {
-  method: 'get' | 'post' | 'patch' | 'delete';
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
   path: (c: Ctx) => string;
   body?: (c: Ctx) => object;
   expect: Record<Who, number>;
@@ -65,6 +68,32 @@ const ROWS: Row[] = [
     body: () => ({ name: 'Renamed' }),
     expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 200 },
   },
+  { method: 'get', path: (c) => `/api/projects/${c.projectId}/floor-plans`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'get', path: (c) => `/api/floor-plans/${c.floorPlanId}`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'get', path: (c) => `/api/floor-plans/${c.floorPlanId}/source`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  {
+    method: 'patch',
+    path: (c) => `/api/floor-plans/${c.floorPlanId}`,
+    body: () => ({ layers: [{ name: 'OUTLINE', role: 'boundary' }] }),
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 200, admin: 200 },
+  },
+  { method: 'post', path: (c) => `/api/projects/${c.projectId}/floor-plans`, expect: { anon: 401, client: 403, reviewer: 403, planner: 400, admin: 400 } },
+  { method: 'get', path: (c) => `/api/projects/${c.projectId}/layouts`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
+  {
+    method: 'post',
+    path: (c) => `/api/projects/${c.projectId}/layouts`,
+    body: () => ({ name: 'Role table layout' }),
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 201, admin: 201 },
+  },
+  { method: 'get', path: (c) => `/api/layouts/${c.layoutId}`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
+  {
+    method: 'put',
+    path: (c) => `/api/layouts/${c.layoutId}`,
+    body: () => ({ version: 1, name: 'Renamed layout' }),
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 200, admin: 200 },
+  },
+  { method: 'delete', path: (c) => `/api/layouts/${c.layoutId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
+  { method: 'delete', path: (c) => `/api/floor-plans/${c.floorPlanId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'delete', path: (c) => `/api/projects/${c.otherProjectId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'post', path: () => '/api/auth/logout', expect: { anon: 401, client: 204, reviewer: 204, planner: 204, admin: 204 } },
 ];
@@ -80,8 +109,23 @@ describe('role × route table', () => {
     const client = await buildUser({ role: 'client' });
     const users: Partial<Record<Role, Awaited<ReturnType<typeof buildUser>>>> = { client };
     for (const r of ['reviewer', 'planner', 'admin'] as const) users[r] = await buildUser({ role: r });
+    const projectId = (await buildProject({ members: [client] })).id;
+    const fp = await FloorPlan.create({
+      projectId,
+      fileName: 'x.dxf',
+      originalDxf: Buffer.from('0\nEOF\n'),
+      units: 'mm',
+      unitsSource: 'header',
+      bounds: { minX: 0, minY: 0, maxX: 1, maxY: 1 },
+      layers: [{ name: 'OUTLINE', role: 'boundary', height: null, entityCount: 1, color: '#000000' }],
+      geometry: { type: 'FeatureCollection', features: [] },
+      createdBy: null,
+    });
+    const layout = await Layout.create({ projectId, floorPlanId: null, name: 'L', content: { arms: [], workPoints: [], zones: [], workHeights: [] }, createdBy: null });
     const ctx: Ctx = {
-      projectId: (await buildProject({ members: [client] })).id,
+      floorPlanId: fp.id,
+      layoutId: layout.id,
+      projectId,
       otherProjectId: (await buildProject()).id,
       memberUserId: (await buildUser({ role: 'client' })).id,
       targetUserId: (await buildUser({ role: 'client' })).id,
