@@ -21,3 +21,11 @@ export const userKeys = {
   lists: () => [...userKeys.all, 'list'] as const,
   list: () => [...userKeys.lists()] as const,
 };
+
+export const floorPlanKeys = {
+  all: ['floorPlans'] as const,
+  lists: () => [...floorPlanKeys.all, 'list'] as const,
+  list: (projectId: number) => [...floorPlanKeys.lists(), projectId] as const,
+  details: () => [...floorPlanKeys.all, 'detail'] as const,
+  detail: (id: number) => [...floorPlanKeys.details(), id] as const,
+};

@@ -1,6 +1,7 @@
 import type { ComponentType } from 'react';
 import type { ProjectDetailDto } from '@shared/schemas/project';
 import type { Action } from '@shared/policy';
+import { FloorPlanSection } from '../components/floorPlan/FloorPlanSection';
 import { ProjectDetails } from '../components/project/ProjectDetails';
 import { ProjectMembers } from '../components/project/ProjectMembers';
 
@@ -24,7 +25,13 @@ export interface ProjectSection {
  */
 export const PROJECT_SECTIONS: ProjectSection[] = [
   { id: 'details', title: 'Details', Component: ProjectDetails },
-  // ← "Floor plans" goes here.
+  {
+    id: 'floor-plans',
+    title: 'Floor plans',
+    lead: 'The building drawing (DXF) the layouts are placed on, with what each of its layers stands for.',
+    requires: 'floorPlan.read',
+    Component: FloorPlanSection,
+  },
   // ← "Layouts" goes here.
   {
     id: 'members',

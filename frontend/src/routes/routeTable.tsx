@@ -41,6 +41,7 @@ export const routes: RouteObject[] = [
           { index: true, element: <Navigate to="/projects" replace /> },
           { path: 'projects', lazy: page(() => import('./ProjectsPage')) },
           { path: 'projects/:id', lazy: page(() => import('./ProjectPage')) },
+          { path: 'projects/:id/floor-plans/:planId', lazy: page(() => import('./FloorPlanPage')) },
           { path: 'admin/users', lazy: page(() => import('./AdminUsersPage')) },
           { path: '*', lazy: page(() => import('./NotFoundPage')) },
         ],

@@ -1,0 +1,174 @@
+import { useMemo, useState } from 'react';
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import type { LayerPatch } from '@shared/schemas/floorPlan';
+import { can } from '@shared/policy';
+import { useSessionUser } from '../api/auth';
+import { isApiError } from '../api/client';
+import { floorPlanSourceUrl, useDeleteFloorPlan, useFloorPlan, useUpdateFloorPlan, type FloorPlanDto } from '../api/floorPlans';
+import { useProject } from '../api/projects';
+import { Button } from '../components/Button';
+import { ConfirmDialog } from '../components/ConfirmDialog';
+import { extentText } from '../components/floorPlan/FloorPlanSection';
+import { ImportNotes } from '../components/floorPlan/ImportNotes';
+import { LayerTable } from '../components/floorPlan/LayerTable';
+import { layerStylesFor } from '../components/floorPlan/layerRoles';
+import { UnitsPicker } from '../components/floorPlan/UnitsPicker';
+import { ErrorNotice, LoadingNotice } from '../components/Notice';
+import { PageHeader } from '../components/PageHeader';
+import { PlanView } from '../plan/PlanView';
+import NotFoundPage from './NotFoundPage';
+
+function parseId(raw: string | undefined): number | null {
+  if (!raw || !/^[1-9]\d*$/.test(raw)) return null;
+  const id = Number(raw);
+  return Number.isSafeInteger(id) ? id : null;
+}
+
+/** One floor plan of a project: import notes, drawing unit, layer roles, preview, download, delete. */
+export default function FloorPlanPage() {
+  const params = useParams();
+  const projectId = parseId(params.id);
+  const planId = parseId(params.planId);
+  if (projectId === null || planId === null) return <NotFoundPage />;
+  return <FloorPlanView projectId={projectId} planId={planId} />;
+}
+
+function FloorPlanView({ projectId, planId }: { projectId: number; planId: number }) {
+  const plan = useFloorPlan(planId);
+  const project = useProject(projectId);
+
+  if (plan.isPending) return <LoadingNotice label="Loading the floor plan…" />;
+  if (plan.isError || plan.data.projectId !== projectId) {
+    const missing = plan.isError ? isApiError(plan.error, 404) : true;
+    return (
+      <div className="flex max-w-xl flex-col gap-4 py-6">
+        <h1 className="text-2xl font-bold">{missing ? 'Floor plan not found' : 'The floor plan could not be loaded'}</h1>
+        {plan.isError && <ErrorNotice error={plan.error} />}
+        <Link to={`/projects/${projectId}#floor-plans`} className="text-sm font-bold text-accent underline underline-offset-4">
+          Back to the project
+        </Link>
+      </div>
+    );
+  }
+  return <FloorPlanDetail plan={plan.data} projectName={project.data?.name} />;
+}
+
+function FloorPlanDetail({ plan, projectName }: { plan: FloorPlanDto; projectName?: string }) {
+  const user = useSessionUser();
+  const mayWrite = can(user.role, 'floorPlan.write');
+  const update = useUpdateFloorPlan(plan.id);
+  const remove = useDeleteFloorPlan(plan.id, plan.projectId);
+  const navigate = useNavigate();
+  const [hidden, setHidden] = useState<ReadonlySet<string>>(new Set());
+  const [confirming, setConfirming] = useState(false);
+  const [savingLayer, setSavingLayer] = useState<string | null>(null);
+
+  const styles = useMemo(() => layerStylesFor(plan.layers, hidden), [plan.layers, hidden]);
+  const projectPath = `/projects/${plan.projectId}`;
+
+  function toggle(name: string) {
+    setHidden((old) => {
+      const next = new Set(old);
+      if (next.has(name)) next.delete(name);
+      else next.add(name);
+      return next;
+    });
+  }
+
+  function changeLayer(patch: LayerPatch) {
+    setSavingLayer(patch.name);
+    update.mutate({ layers: [patch] }, { onSettled: () => setSavingLayer(null) });
+  }
+
+  return (
+    <>
+      <PageHeader
+        eyebrow={
+          <span className="flex gap-1.5">
+            <Link to="/projects" className="hover:text-ink">
+              Projects
+            </Link>
+            <span aria-hidden>/</span>
+            <Link to={`${projectPath}#floor-plans`} className="hover:text-ink">
+              {projectName ?? 'Project'}
+            </Link>
+          </span>
+        }
+        title={plan.fileName}
+        lead={`Floor plan · ${extentText(plan.bounds)} · ${plan.stats.features} shapes on ${plan.layers.length} layers`}
+        actions={
+          <>
+            <a
+              href={floorPlanSourceUrl(plan.id)}
+              download={plan.fileName}
+              className="inline-flex h-9 items-center rounded-control border border-rule-strong bg-paper-raised px-4 text-sm font-bold hover:bg-paper-sunk"
+            >
+              Download original
+            </a>
+            {mayWrite && (
+              <Button variant="danger" onClick={() => setConfirming(true)}>
+                Delete
+              </Button>
+            )}
+          </>
+        }
+      />
+
+      <div className="flex flex-col gap-6">
+        <ImportNotes warnings={plan.warnings} />
+        {update.isError && <ErrorNotice title="The change was not saved" error={update.error} />}
+
+        <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_31rem]">
+          <PlanView
+            geometry={plan.geometry}
+            layerStyles={styles}
+            bounds={plan.bounds}
+            label={`Preview of ${plan.fileName}`}
+            className="h-[34rem] xl:h-[40rem]"
+          />
+          <div className="flex min-w-0 flex-col gap-5">
+            <UnitsPicker
+              units={plan.units}
+              source={plan.unitsSource}
+              busy={update.isPending && update.variables?.units !== undefined}
+              onChange={mayWrite ? (units) => update.mutate({ units }) : undefined}
+            />
+            <div className="flex flex-col gap-2">
+              <h2 className="text-xs font-bold tracking-wide text-ink-muted uppercase">Layers</h2>
+              <p className="text-xs text-ink-muted">
+                {mayWrite
+                  ? 'Say what each layer stands for. Hiding a layer only changes this preview.'
+                  : 'What each layer stands for. Hiding a layer only changes this preview.'}
+              </p>
+              <LayerTable
+                layers={plan.layers}
+                hidden={hidden}
+                onToggle={toggle}
+                onChange={mayWrite ? changeLayer : undefined}
+                savingLayer={savingLayer}
+              />
+            </div>
+          </div>
+        </div>
+      </div>
+
+      <ConfirmDialog
+        open={confirming}
+        title="Delete this floor plan?"
+        confirmLabel="Delete floor plan"
+        busy={remove.isPending}
+        error={remove.error}
+        onClose={() => {
+          setConfirming(false);
+          remove.reset();
+        }}
+        onConfirm={() => remove.mutate(undefined, { onSuccess: () => void navigate(`${projectPath}#floor-plans`, { replace: true }) })}
+      >
+        <p>
+          <strong>{plan.fileName}</strong> and its layer roles will be deleted. A floor plan that a layout is drawn on cannot be
+          deleted until that layout is moved to another plan or deleted.
+        </p>
+      </ConfirmDialog>
+    </>
+  );
+}
