@@ -52,6 +52,7 @@ export function scanGroups(text: string): GroupScan {
   let lastWasCode0 = false;
   let hasEof = false;
   let expectBlockName = false;
+  let blockLine = 0;
   let countBlock = true; // false inside the *Model_Space / *Paper_Space blocks
 
   while (pos < len) {
@@ -116,13 +117,18 @@ export function scanGroups(text: string): GroupScan {
 
     if (expectBlockName && code === 2) {
       expectBlockName = false;
+      if (value === '') fail('A block definition has an empty name', blockLine);
       const u = (value as string).toUpperCase();
       countBlock = !u.startsWith('*MODEL_SPACE') && !u.startsWith('*PAPER_SPACE');
     }
 
     if (code === 0) {
       const v = value as string;
+      // dxf-parser takes a block's name only before the block's first entity, and logs (past
+      // any console silencing) when there is none; such a block could never be inserted.
+      if (expectBlockName && section === 'BLOCKS') fail('A block definition has no name', blockLine);
       if (v === 'BLOCK') {
+        blockLine = codeLine;
         expectBlockName = true;
         countBlock = true;
       } else if (v === 'ENDBLK') {
