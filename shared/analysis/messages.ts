@@ -1,0 +1,34 @@
+import type { Finding, FindingKind, Severity } from './types';
+
+/** Stable finding id from its kind and the ids involved (order-independent for pairs). */
+export function findingId(kind: FindingKind, ...ids: string[]): string {
+  return `${kind}:${ids.join('+')}`;
+}
+
+export const SEVERITY_OF: Record<FindingKind, Severity> = {
+  'unreached-point': 'critical',
+  'assigned-unreachable': 'critical',
+  handover: 'info',
+  'shared-zone': 'warning',
+  'reach-into-structure': 'warning',
+  'base-off-floor': 'critical',
+  'base-on-column': 'critical',
+  'reach-beyond-fence': 'critical',
+  'reach-through-opening': 'warning',
+  'fence-clearance': 'warning',
+  'fence-too-low': 'warning',
+  'reach-into-operator-area': 'critical',
+  'reach-into-keepout': 'critical',
+  'unknown-model': 'critical',
+  'computation-failed': 'warning',
+};
+
+const SEVERITY_RANK: Record<Severity, number> = { critical: 0, warning: 1, info: 2 };
+
+/** Findings in the order people read them: most severe first, then by id. */
+export function sortFindings(findings: Finding[]): Finding[] {
+  return findings.sort((a, b) => SEVERITY_RANK[a.severity] - SEVERITY_RANK[b.severity] || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+}
+
+export const m2 = (mm2: number) => Math.round((mm2 / 1e6) * 1000) / 1000;
+export const mm = (v: number) => Math.round(v);

@@ -1,0 +1,96 @@
+import { pointInPolygons, distanceToSegment } from '../geometry/pointInPolygon';
+import type { Polygon2 } from '../geometry/types';
+
+type P = readonly [number, number];
+
+/** True when segments ab and cd intersect or touch (orientation test, planar). */
+export function segmentsIntersect(a: P, b: P, c: P, d: P): boolean {
+  const o = (p: P, q: P, r: P) => (q[0] - p[0]) * (r[1] - p[1]) - (q[1] - p[1]) * (r[0] - p[0]);
+  const d1 = o(c, d, a);
+  const d2 = o(c, d, b);
+  const d3 = o(a, b, c);
+  const d4 = o(a, b, d);
+  if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) return true;
+  const on = (p: P, q: P, r: P) => Math.min(p[0], q[0]) <= r[0] && r[0] <= Math.max(p[0], q[0]) && Math.min(p[1], q[1]) <= r[1] && r[1] <= Math.max(p[1], q[1]);
+  return (d1 === 0 && on(c, d, a)) || (d2 === 0 && on(c, d, b)) || (d3 === 0 && on(a, b, c)) || (d4 === 0 && on(a, b, d));
+}
+
+/** Shortest distance between segments ab and cd, mm (0 when they cross). */
+export function segmentDistance(a: P, b: P, c: P, d: P): number {
+  if (segmentsIntersect(a, b, c, d)) return 0;
+  return Math.min(
+    distanceToSegment(a[0], a[1], c[0], c[1], d[0], d[1]),
+    distanceToSegment(b[0], b[1], c[0], c[1], d[0], d[1]),
+    distanceToSegment(c[0], c[1], a[0], a[1], b[0], b[1]),
+    distanceToSegment(d[0], d[1], a[0], a[1], b[0], b[1]),
+  );
+}
+
+/** True when an open polyline enters or crosses a polygon region. */
+export function polylineHitsPolygons(line: ReadonlyArray<P>, polygons: ReadonlyArray<Polygon2>): boolean {
+  for (const p of line) if (pointInPolygons(p[0], p[1], polygons)) return true;
+  for (let i = 0; i + 1 < line.length; i++) {
+    for (const poly of polygons) {
+      for (const r of poly) {
+        for (let k = 0; k < r.length; k++) {
+          if (segmentsIntersect(line[i], line[i + 1], r[k], r[(k + 1) % r.length])) return true;
+        }
+      }
+    }
+  }
+  return false;
+}
+
+/** Shortest distance from an open polyline to a polygon region's boundary, mm (0 when it enters). */
+export function polylineDistanceToPolygons(line: ReadonlyArray<P>, polygons: ReadonlyArray<Polygon2>): number {
+  if (polylineHitsPolygons(line, polygons)) return 0;
+  let best = Infinity;
+  for (let i = 0; i + 1 < line.length; i++) {
+    for (const poly of polygons) {
+      for (const r of poly) {
+        for (let k = 0; k < r.length; k++) best = Math.min(best, segmentDistance(line[i], line[i + 1], r[k], r[(k + 1) % r.length]));
+      }
+    }
+  }
+  return best;
+}
+
+/** The parts of a polyline's segments that lie within `cut` distance of other segments are removed. */
+export function subtractOpenings(line: ReadonlyArray<P>, openings: ReadonlyArray<readonly [P, P]>, tol = 1): Array<Array<[number, number]>> {
+  // Cut each fence segment at the projections of the opening ends; drop pieces whose midpoint lies on an opening.
+  const out: Array<Array<[number, number]>> = [];
+  let current: Array<[number, number]> = [];
+  for (let i = 0; i + 1 < line.length; i++) {
+    const a = line[i];
+    const b = line[i + 1];
+    const dx = b[0] - a[0];
+    const dy = b[1] - a[1];
+    const len2 = dx * dx + dy * dy;
+    const ts = new Set<number>([0, 1]);
+    for (const [p, q] of openings) {
+      for (const e of [p, q]) {
+        if (len2 === 0) continue;
+        const t = ((e[0] - a[0]) * dx + (e[1] - a[1]) * dy) / len2;
+        if (t > 0 && t < 1 && distanceToSegment(e[0], e[1], a[0], a[1], b[0], b[1]) <= tol) ts.add(t);
+      }
+    }
+    const sorted = [...ts].sort((u, v) => u - v);
+    for (let k = 0; k + 1 < sorted.length; k++) {
+      const t0 = sorted[k];
+      const t1 = sorted[k + 1];
+      const p0: [number, number] = [a[0] + dx * t0, a[1] + dy * t0];
+      const p1: [number, number] = [a[0] + dx * t1, a[1] + dy * t1];
+      const mid: [number, number] = [(p0[0] + p1[0]) / 2, (p0[1] + p1[1]) / 2];
+      const inOpening = openings.some(([p, q]) => distanceToSegment(mid[0], mid[1], p[0], p[1], q[0], q[1]) <= tol);
+      if (inOpening) {
+        if (current.length > 1) out.push(current);
+        current = [];
+      } else {
+        if (current.length === 0) current.push(p0);
+        current.push(p1);
+      }
+    }
+  }
+  if (current.length > 1) out.push(current);
+  return out;
+}

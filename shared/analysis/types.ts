@@ -1,0 +1,110 @@
+import type { AreaGeometry } from '../geometry/geojson';
+import type { Polygon2 } from '../geometry/types';
+import type { ArmPlacement, WorkPoint, Zone } from '../schemas/layout';
+
+export type Severity = 'info' | 'warning' | 'critical';
+
+export const FINDING_KINDS = [
+  'unreached-point',
+  'assigned-unreachable',
+  'handover',
+  'shared-zone',
+  'reach-into-structure',
+  'base-off-floor',
+  'base-on-column',
+  'reach-beyond-fence',
+  'reach-through-opening',
+  'fence-clearance',
+  'fence-too-low',
+  'reach-into-operator-area',
+  'reach-into-keepout',
+  'unknown-model',
+  'computation-failed',
+] as const;
+export type FindingKind = (typeof FINDING_KINDS)[number];
+
+/** One result of a check. `id` is stable across edits and revisions (kind + the ids involved). */
+export interface Finding {
+  id: string;
+  kind: FindingKind;
+  severity: Severity;
+  arms: string[];
+  points: string[];
+  /** Plan mm; null when the finding has no area (e.g. a base point is given in `at`). */
+  geometry: AreaGeometry | null;
+  /** A plan spot to zoom to, mm. */
+  at: [number, number] | null;
+  message: string;
+  /** Numbers behind the message (areas m², distances mm …). */
+  data?: Record<string, number | string>;
+}
+
+/**
+ * What the analysis needs of one arm model, precomputed once per (model, restricting limits): all
+ * regions in the ARM frame (origin on J1 at the base plate, x along J1 zero), mm.
+ */
+export interface ArmReach {
+  /** Largest plan distance of the restricted space from the J1 axis, mm. */
+  maxReach: number;
+  /** Lowest and highest tool-point height the arm reaches, arm frame mm. */
+  zMin: number;
+  zMax: number;
+  /** Restricted space (the placement's restricting J1 limits applied), plan projection, arm frame. */
+  restricted: Polygon2[];
+  /** Reach band at a height above the base plate (arm frame z), mm. */
+  bandAt(zArm: number): Polygon2[];
+  /** Plan projection of the restricted space of the part of the reach below a height (arm frame z). */
+  restrictedBelow(zArmTop: number): Polygon2[];
+  /** Signed margin of a point given in the arm frame (mm, positive = reached). */
+  margin(x: number, y: number, z: number, approach: 'top' | 'any'): number;
+}
+
+/** Builds the ArmReach of a model under restricting J1 limits (controller degrees), or throws. */
+export type ArmReachFactory = (modelId: number, restrict: ArmPlacement['restrict']) => ArmReach;
+
+/** One structure item of the floor plan (a wall, column or obstacle), plan mm. */
+export interface StructureItem {
+  /** Stable within a floor plan: layer name + index of the feature in the plan. */
+  id: string;
+  layer: string;
+  role: 'wall' | 'column' | 'obstacle';
+  /** Top of the item above the floor, mm; Infinity = full height. */
+  top: number;
+  polygons: Polygon2[];
+  /** Open polylines (walls drawn as lines). */
+  lines: Array<Array<[number, number]>>;
+  bbox: [number, number, number, number];
+}
+
+export interface PreparedFloor {
+  /** Union of the floor boundary rings (empty when the plan has no boundary layer). */
+  boundary: Polygon2[];
+  structures: StructureItem[];
+}
+
+export interface AnalysisInput {
+  arms: ReadonlyArray<ArmPlacement>;
+  workPoints: ReadonlyArray<WorkPoint>;
+  zones: ReadonlyArray<Zone>;
+  workHeights: ReadonlyArray<number>;
+  floor: PreparedFloor | null;
+}
+
+export interface SharedZone {
+  arms: [string, string];
+  areaM2: number;
+  points: string[];
+  geometry: AreaGeometry | null;
+  /** Overlap of the two arms' bands at each work height, m². */
+  byHeight: Array<{ height: number; areaM2: number }>;
+}
+
+export interface AnalysisResult {
+  findings: Finding[];
+  overlaps: SharedZone[];
+  /** pointId → armId → margin mm (positive = reached). */
+  coverage: Record<string, Record<string, number>>;
+  /** Placed regions per arm, plan mm, for drawing. */
+  regions: Record<string, { restricted: AreaGeometry | null; bands: Array<{ height: number; geometry: AreaGeometry | null }> }>;
+  timingMs: number;
+}
