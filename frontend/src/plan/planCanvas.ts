@@ -282,8 +282,12 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
     behaviour.scaleExtent([k * zoomOut, k * zoomIn]);
   }
 
+  // Where a running animated zoom is heading, so quick repeated key presses add up.
+  let heading: ViewTransform | null = null;
+
   function setTransform(t: ViewTransform, animate: boolean): void {
     const zt = zoomIdentity.translate(t.x, t.y).scale(t.k);
+    heading = null;
     if (animate && duration > 0) root.transition().duration(duration).call(behaviour.transform, zt);
     else root.call(behaviour.transform, zt);
   }
@@ -299,9 +303,25 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
   function zoomBy(factor: number, at?: [number, number]): void {
     if (!(factor > 0) || !Number.isFinite(factor)) throw new RangeError('factor: must be a positive number');
     userMoved = true;
-    const p = at ?? [width / 2, height / 2];
-    if (duration > 0) root.transition().duration(duration).call(behaviour.scaleBy, factor, p);
-    else root.call(behaviour.scaleBy, factor, p);
+    const [px, py] = at ?? [width / 2, height / 2];
+    const base = heading ?? current;
+    const [lo, hi] = behaviour.scaleExtent();
+    const k = Math.min(hi, Math.max(lo, base.k * factor));
+    // Keep the plan point under (px, py) where it is.
+    const target = { k, x: px - ((px - base.x) * k) / base.k, y: py - ((py - base.y) * k) / base.k };
+    const zt = zoomIdentity.translate(target.x, target.y).scale(target.k);
+    if (duration > 0) {
+      heading = target;
+      root
+        .transition()
+        .duration(duration)
+        .call(behaviour.transform, zt)
+        .on('end interrupt', () => {
+          if (heading === target) heading = null;
+        });
+    } else {
+      root.call(behaviour.transform, zt);
+    }
   }
 
   function onKey(event: KeyboardEvent): void {

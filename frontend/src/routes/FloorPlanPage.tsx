@@ -118,7 +118,7 @@ function FloorPlanDetail({ plan, projectName }: { plan: FloorPlanDto; projectNam
         <ImportNotes warnings={plan.warnings} />
         {update.isError && <ErrorNotice title="The change was not saved" error={update.error} />}
 
-        <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_31rem]">
+        <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_33rem]">
           <PlanView
             geometry={plan.geometry}
             layerStyles={styles}

@@ -22,11 +22,10 @@ export function LayerTable({ layers, hidden, onToggle, onChange, savingLayer }: 
       <table aria-label="Layers" className="w-full border-collapse text-sm">
         <thead>
           <tr className="border-b border-rule-strong bg-paper-sunk text-left text-xs font-bold tracking-wide text-ink-muted uppercase">
-            <th scope="col" className="px-3 py-2">Shown</th>
-            <th scope="col" className="px-3 py-2">Layer</th>
-            <th scope="col" className="px-3 py-2">Role</th>
-            <th scope="col" className="px-3 py-2">Height (mm)</th>
-            <th scope="col" className="px-3 py-2 text-right">Entities</th>
+            <th scope="col" className="px-2 py-2">Shown · layer</th>
+            <th scope="col" className="px-2 py-2">Role</th>
+            <th scope="col" className="px-2 py-2">Height, mm</th>
+            <th scope="col" className="px-2 py-2 text-right">Entities</th>
           </tr>
         </thead>
         <tbody>
@@ -83,27 +82,25 @@ function LayerRow({
   const withHeight = ROLES_WITH_HEIGHT.has(layer.role);
   return (
     <tr className={cn('border-b border-rule last:border-b-0', !shown && 'text-ink-faint')} aria-busy={saving || undefined}>
-      <td className="px-3 py-1.5">
-        <input
-          type="checkbox"
-          checked={shown}
-          onChange={onToggle}
-          aria-label={`Show layer ${layer.name}`}
-          className="size-4 accent-accent"
-        />
-      </td>
-      <td className="px-3 py-1.5">
+      <td className="px-2 py-1.5">
         <span className="inline-flex items-center gap-2">
+          <input
+            type="checkbox"
+            checked={shown}
+            onChange={onToggle}
+            aria-label={`Show layer ${layer.name}`}
+            className="size-4 shrink-0 accent-accent"
+          />
           <span
             aria-hidden
             title={`Colour in the drawing: ${layer.color}`}
             className="inline-block size-3.5 shrink-0 rounded-sm border border-rule-strong"
             style={{ backgroundColor: layer.color }}
           />
-          <span className="font-mono text-xs font-bold break-all">{layer.name}</span>
+          <span className="font-mono text-xs font-bold [overflow-wrap:anywhere]">{layer.name}</span>
         </span>
       </td>
-      <td className="px-3 py-1.5">
+      <td className="px-2 py-1.5">
         <span className="inline-flex items-center gap-2">
           <span aria-hidden className="inline-block h-0.5 w-4 shrink-0" style={{ backgroundColor: roleStyle.stroke }} />
           {onChange ? (
@@ -125,7 +122,7 @@ function LayerRow({
           )}
         </span>
       </td>
-      <td className="px-3 py-1.5">
+      <td className="px-2 py-1.5">
         {!withHeight ? (
           <span className="text-ink-faint">—</span>
         ) : onChange ? (
@@ -144,7 +141,7 @@ function LayerRow({
                 if (e.key === 'Enter') commitHeight();
               }}
               className={cn(
-                'h-8 w-28 rounded-control border bg-paper-raised px-2 text-sm tabular-nums placeholder:text-ink-faint',
+                'h-8 w-24 rounded-control border bg-paper-raised px-2 text-sm tabular-nums placeholder:text-ink-faint',
                 heightError ? 'border-finding-critical' : 'border-rule-strong',
               )}
             />
@@ -158,7 +155,7 @@ function LayerRow({
           <span className="tabular-nums">{layer.height == null ? 'full height' : layer.height}</span>
         )}
       </td>
-      <td className="px-3 py-1.5 text-right tabular-nums">{layer.entityCount}</td>
+      <td className="px-2 py-1.5 text-right tabular-nums">{layer.entityCount}</td>
     </tr>
   );
 }
