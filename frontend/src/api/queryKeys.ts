@@ -29,3 +29,11 @@ export const floorPlanKeys = {
   details: () => [...floorPlanKeys.all, 'detail'] as const,
   detail: (id: number) => [...floorPlanKeys.details(), id] as const,
 };
+
+export const layoutKeys = {
+  all: ['layouts'] as const,
+  lists: () => [...layoutKeys.all, 'list'] as const,
+  list: (projectId: number) => [...layoutKeys.lists(), projectId] as const,
+  details: () => [...layoutKeys.all, 'detail'] as const,
+  detail: (id: number) => [...layoutKeys.details(), id] as const,
+};
