@@ -133,6 +133,43 @@ describe('floor plans in Chromium', () => {
     await page.close();
   });
 
+  it('shows the upload\u2019s progress as a percentage bar, then the server\u2019s answer', async () => {
+    const page = await e.browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInPage(page, e.server.url, PLANNER);
+    await openDemoProject(page);
+    // Slow the upload (Chromium's network emulation) and send 2 MB so the steps can be watched;
+    // the body is plain text, so the server answers that it is not a DXF drawing.
+    const cdp = await page.context().newCDPSession(page);
+    await cdp.send('Network.enable');
+    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: 10e6, uploadThroughput: 1e6 });
+    const seen = new Set<number>();
+    let reading = false;
+    const bar = page.getByRole('progressbar', { name: 'Upload' });
+    const watch = setInterval(() => {
+      void bar
+        .getAttribute('aria-valuenow', { timeout: 50 })
+        .then((v) => v && seen.add(Number(v)))
+        .catch(() => undefined);
+      void page
+        .getByText('Reading the drawing…')
+        .isVisible()
+        .then((v) => (reading ||= v))
+        .catch(() => undefined);
+    }, 30);
+    await page.locator('input[type="file"]').setInputFiles({
+      name: 'big-notes.dxf',
+      mimeType: 'application/dxf',
+      buffer: Buffer.from('a line of notes that is not a drawing\n'.repeat(55_000)),
+    });
+    await page.getByRole('alert').filter({ hasText: 'could not be imported' }).waitFor({ timeout: 30_000 });
+    clearInterval(watch);
+    await cdp.detach();
+    expect([...seen].some((v) => v > 0 && v < 100)).toBe(true);
+    expect(reading).toBe(true);
+    expect(await page.getByRole('alert').filter({ hasText: 'could not be imported' }).textContent()).toMatch(/not a DXF drawing/i);
+    await page.close();
+  });
+
   it('lets the reviewer read a plan but not change roles or upload', async () => {
     const page = await e.browser.newPage({ viewport: { width: 1280, height: 900 } });
     await signInPage(page, e.server.url, 'reviewer@fernhill.test');
