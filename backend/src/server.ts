@@ -3,6 +3,7 @@ import pg from 'pg';
 import type { Sequelize } from 'sequelize';
 import { createApp, type AppDeps } from './app';
 import type { Config } from './config';
+import { ensureBuiltInCatalogue } from './db/demoCatalogue';
 import { migrateUp } from './db/migrate';
 import { createSequelize } from './db/sequelize';
 import { seedDemoIfEmpty } from './db/seed';
@@ -31,6 +32,7 @@ export async function startServer(
   const sequelize = createSequelize(databaseUrl);
   const applied = await migrateUp(sequelize);
   if (applied.length) say(`Applied ${applied.length} migration(s).`);
+  await ensureBuiltInCatalogue(sequelize);
   if (opts.seed !== false) {
     const seeded = await seedDemoIfEmpty(sequelize, { bcryptCost: config.bcryptCost, steps: featureSeedSteps() });
     if (seeded) say('Seeded the demo data (Fernhill Biscuit Works).');

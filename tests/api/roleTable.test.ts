@@ -2,7 +2,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '@shared/schemas/user';
-import { FloorPlan, Layout } from '../../backend/src/models';
+import { ArmModel, FloorPlan, Layout } from '../../backend/src/models';
 import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
 
@@ -16,6 +16,7 @@ interface Ctx {
   otherProjectId: number;
   memberUserId: number;
   targetUserId: number;
+  armModelId: number;
 }
 
 interface Row {
@@ -24,6 +25,16 @@ interface Row {
   body?: (c: Ctx) => object;
   expect: Record<Who, number>;
 }
+
+const ROLE_TABLE_ARM = {
+  family: 'chain',
+  convention: 'standard',
+  joints: [
+    { type: 'revolute', a: 0, alpha: 90, d: 300, theta: 0, min: -180, max: 180 },
+    { type: 'revolute', a: 500, alpha: 0, d: 0, theta: 0, min: -90, max: 90 },
+  ],
+  tool: { x: 0, y: 0, z: 0 },
+};
 
 const ROWS: Row[] = [
   { method: 'get', path: () => '/api/health', expect: { anon: 200, client: 200, reviewer: 200, planner: 200, admin: 200 } },
@@ -95,6 +106,33 @@ const ROWS: Row[] = [
   { method: 'delete', path: (c) => `/api/layouts/${c.layoutId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'delete', path: (c) => `/api/floor-plans/${c.floorPlanId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'delete', path: (c) => `/api/projects/${c.otherProjectId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
+  { method: 'get', path: () => '/api/arm-models', expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'get', path: (c) => `/api/arm-models/${c.armModelId}`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  {
+    method: 'post',
+    path: () => '/api/arm-models',
+    body: () => ({ name: `Role table arm ${Date.now()}-${Math.random().toString(36).slice(2)}`, params: ROLE_TABLE_ARM }),
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 201, admin: 201 },
+  },
+  {
+    method: 'put',
+    path: (c) => `/api/arm-models/${c.armModelId}`,
+    body: (c) => ({ name: `Role table arm ${c.armModelId} renamed`, params: ROLE_TABLE_ARM }),
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 200, admin: 200 },
+  },
+  {
+    method: 'post',
+    path: () => '/api/kinematics/forward',
+    body: () => ({ model: ROLE_TABLE_ARM, joints: [0, 45] }),
+    expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 },
+  },
+  {
+    method: 'post',
+    path: () => '/api/kinematics/reach',
+    body: (c) => ({ model: { id: c.armModelId } }),
+    expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 },
+  },
+  { method: 'delete', path: (c) => `/api/arm-models/${c.armModelId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'post', path: () => '/api/auth/logout', expect: { anon: 401, client: 204, reviewer: 204, planner: 204, admin: 204 } },
 ];
 
@@ -129,6 +167,7 @@ describe('role × route table', () => {
       otherProjectId: (await buildProject()).id,
       memberUserId: (await buildUser({ role: 'client' })).id,
       targetUserId: (await buildUser({ role: 'client' })).id,
+      armModelId: (await ArmModel.create({ name: `Role table arm ${who} ${process.pid}`, family: 'chain', params: ROLE_TABLE_ARM, createdBy: null })).id,
     };
     const agent = who === 'anon' ? request.agent(t.app) : await signedIn(t.app, users[who]!.email, TEST_PASSWORD);
     const got: Record<string, number> = {};

@@ -1,0 +1,117 @@
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { z } from 'zod';
+import { chainAxes, chainForward, chainParamsSchema, chainSampledProfile, type ChainParams } from '@shared/kinematics/chain';
+import type { AxisInfo, ForwardResult, ReachProfile } from '@shared/kinematics/types';
+import { fieldErrors } from '@shared/schemas/errors';
+import { badRequest, HttpError, notFound } from '../http/errors';
+import { ArmModel } from '../models';
+
+/** Parameters of any arm model family (lengths mm, angles deg). */
+export const ArmModelParams = chainParamsSchema;
+export type ArmModelParams = ChainParams;
+/** What a create or update sends: a name and the family parameters. */
+export const ArmModelInput = z.object({
+  name: z.string({ error: 'Give the model a name' }).trim().min(1, 'Give the model a name').max(120, 'Use at most 120 characters'),
+  params: ArmModelParams,
+});
+export type ArmModelInput = z.infer<typeof ArmModelInput>;
+
+const forwardModel = (params: ArmModelParams, joints: readonly number[]): ForwardResult => chainForward(params, joints);
+const reachProfileOf = (params: ArmModelParams): ReachProfile => chainSampledProfile(params);
+const axesOf = (params: ArmModelParams): AxisInfo[] => chainAxes(params);
+
+export { axesOf, forwardModel };
+
+/** An arm model as the API presents it (whitelisted fields; lengths mm, angles deg). */
+export interface ArmModelDto {
+  id: number;
+  name: string;
+  family: string;
+  params: Record<string, unknown>;
+  builtIn: boolean;
+  createdBy: number | null;
+  createdAt: string;
+  updatedAt: string;
+  /** Largest and smallest horizontal reach of the tool point from the J1 axis, mm (null when the stored parameters no longer parse). */
+  maxReach: number | null;
+  minReach: number | null;
+}
+
+const PROFILE_CACHE_SIZE = 64;
+const profileCache = new Map<string, ReachProfile>();
+
+/** The side reach profile of a parameter set, computed once per distinct parameter JSON (small LRU). */
+export function cachedReachProfile(params: ArmModelParams): ReachProfile {
+  const key = JSON.stringify(params);
+  const hit = profileCache.get(key);
+  if (hit) {
+    profileCache.delete(key);
+    profileCache.set(key, hit);
+    return hit;
+  }
+  const profile = reachProfileOf(params);
+  profileCache.set(key, profile);
+  while (profileCache.size > PROFILE_CACHE_SIZE) profileCache.delete(profileCache.keys().next().value!);
+  return profile;
+}
+
+export function presentArmModel(m: ArmModel): ArmModelDto {
+  const parsed = ArmModelParams.safeParse(m.params);
+  const profile = parsed.success ? cachedReachProfile(parsed.data) : null;
+  return {
+    id: m.id,
+    name: m.name,
+    family: m.family,
+    params: m.params,
+    builtIn: m.builtIn,
+    createdBy: m.createdBy,
+    createdAt: m.createdAt.toISOString(),
+    updatedAt: m.updatedAt.toISOString(),
+    maxReach: profile ? profile.maxReach : null,
+    minReach: profile ? profile.minReach : null,
+  };
+}
+
+/** Parses the `model` of a kinematics request: `{id}` of a stored model, or the parameter JSON itself (400 with `model.*` field errors). */
+export async function resolveModelParams(model: unknown): Promise<ArmModelParams> {
+  if (model && typeof model === 'object' && !Array.isArray(model) && 'id' in model && !('family' in model)) {
+    const id = (model as { id: unknown }).id;
+    if (typeof id !== 'number' || !Number.isInteger(id) || id < 1 || id > 2147483647) {
+      throw badRequest('The model id must be a positive whole number.', { 'model.id': 'Give the id of a stored arm model' });
+    }
+    const row = await ArmModel.findByPk(id);
+    if (!row) throw notFound('Arm model');
+    const parsed = ArmModelParams.safeParse(row.params);
+    if (!parsed.success) throw badRequest(`The stored parameters of "${row.name}" are no longer valid; open the model and save it again.`);
+    return parsed.data;
+  }
+  const parsed = ArmModelParams.safeParse(model ?? null);
+  if (!parsed.success) {
+    const fields = Object.fromEntries(Object.entries(fieldErrors(parsed.error.issues)).map(([k, v]) => [k === '_' ? 'model' : `model.${k}`, v]));
+    const first = parsed.error.issues[0];
+    const where = first && first.path.length ? ` (model.${first.path.join('.')})` : '';
+    throw badRequest(`The model has invalid fields${where}: ${first?.message ?? 'invalid'}.`, fields);
+  }
+  return parsed.data;
+}
+
+/** Layouts (with their project) whose arms use the arm model. */
+export async function layoutsUsingArmModel(
+  sequelize: Sequelize,
+  armModelId: number,
+  transaction?: Transaction,
+): Promise<Array<{ id: number; name: string; projectId: number; projectName: string }>> {
+  return sequelize.query(
+    `SELECT l.id, l.name, l."projectId", p.name AS "projectName"
+       FROM layouts l JOIN projects p ON p.id = l."projectId"
+      WHERE l.content->'arms' @> :needle::jsonb
+      ORDER BY p.name, l.name`,
+    { replacements: { needle: JSON.stringify([{ armModelId }]) }, type: QueryTypes.SELECT, transaction },
+  );
+}
+
+/** Reach bands (plan view, arm frame) at heights above the base plate, mm. */
+export function bandsAt(_params: ArmModelParams, heights: readonly number[]): Array<{ height: number; geometry: unknown }> {
+  if (heights.length === 0) return [];
+  throw new HttpError(501, 'not_available', 'Reach bands are not available yet on this server.');
+}
