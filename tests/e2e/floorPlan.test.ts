@@ -113,6 +113,18 @@ describe('floor plans in Chromium', () => {
     await page.getByLabel('Show layer TEXT').uncheck();
     expect(await page.locator('g.plan-layer[data-layer="TEXT"]').getAttribute('display')).toBe('none');
     expect(patches).toBe(0);
+
+    // Reading the drawing in centimetres makes it ten times larger: 240 m × 160 m, refitted.
+    const rescaled = page.waitForResponse((r) => r.request().method() === 'PATCH' && r.url().includes('/api/floor-plans/'));
+    await page.getByLabel('Drawing unit').selectOption('cm');
+    expect((await rescaled).status()).toBe(200);
+    await expect.poll(() => page.getByText(/240 m × 160 m/).count()).toBeGreaterThan(0);
+    expect(await page.locator('[data-units-source]').getAttribute('data-units-source')).toBe('chosen');
+    const cm = await previewFacts(page);
+    expect(cm.inside).toBe(true);
+    expect(Math.abs(cm.outlinePx.width - facts.outlinePx.width)).toBeLessThan(3);
+    expect(cm.barPx / cm.barMetres).toBeCloseTo(pxPerMetre / 10, 6);
+    expect(await page.getByLabel('Role of layer DOORS').inputValue()).toBe('obstacle');
     await page.close();
   });
 
@@ -142,30 +154,28 @@ describe('floor plans in Chromium', () => {
     const cdp = await page.context().newCDPSession(page);
     await cdp.send('Network.enable');
     await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: 10e6, uploadThroughput: 1e6 });
-    const seen = new Set<number>();
-    let reading = false;
-    const bar = page.getByRole('progressbar', { name: 'Upload' });
-    const watch = setInterval(() => {
-      void bar
-        .getAttribute('aria-valuenow', { timeout: 50 })
-        .then((v) => v && seen.add(Number(v)))
-        .catch(() => undefined);
-      void page
-        .getByText('Reading the drawing…')
-        .isVisible()
-        .then((v) => (reading ||= v))
-        .catch(() => undefined);
-    }, 30);
+    // Record every state the upload shows, in the page itself (a MutationObserver), so no step
+    // is missed between two looks from the test.
+    await page.evaluate(() => {
+      const w = window as unknown as { __seen: { values: number[]; reading: boolean } };
+      w.__seen = { values: [], reading: false };
+      new MutationObserver(() => {
+        const bar = document.querySelector('[role="progressbar"][aria-label="Upload"]');
+        if (bar) w.__seen.values.push(Number(bar.getAttribute('aria-valuenow')));
+        if (document.body.textContent?.includes('Reading the drawing…')) w.__seen.reading = true;
+      }).observe(document.body, { subtree: true, childList: true, attributes: true, characterData: true });
+    });
     await page.locator('input[type="file"]').setInputFiles({
       name: 'big-notes.dxf',
       mimeType: 'application/dxf',
       buffer: Buffer.from('a line of notes that is not a drawing\n'.repeat(55_000)),
     });
     await page.getByRole('alert').filter({ hasText: 'could not be imported' }).waitFor({ timeout: 30_000 });
-    clearInterval(watch);
     await cdp.detach();
-    expect([...seen].some((v) => v > 0 && v < 100)).toBe(true);
-    expect(reading).toBe(true);
+    const seen = await page.evaluate(() => (window as unknown as { __seen: { values: number[]; reading: boolean } }).__seen);
+    expect(seen.values.some((v) => v > 0 && v < 100)).toBe(true);
+    expect(Math.max(...seen.values)).toBe(100);
+    expect(seen.reading).toBe(true);
     expect(await page.getByRole('alert').filter({ hasText: 'could not be imported' }).textContent()).toMatch(/not a DXF drawing/i);
     await page.close();
   });

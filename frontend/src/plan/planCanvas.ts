@@ -117,7 +117,7 @@ export interface PlanCanvas {
   setStaticLayers(features: readonly PlanFeature[], styles?: LayerStyles): void;
   /** Restyles the static layers (colour, visibility, opacity) without rebuilding their paths. */
   setLayerStyles(styles: LayerStyles): void;
-  /** The plan extent (mm) used by fit and the zoom range. */
+  /** The plan extent (mm) used by fit and the zoom range; fits the view to it. */
   setBounds(bounds: PlanBounds | null): void;
   /** Shows `bounds` (default: the plan extent) whole. */
   fit(bounds?: PlanBounds, opts?: { animate?: boolean }): void;
@@ -449,7 +449,8 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
   function setBounds(b: PlanBounds | null): void {
     bounds = isValidBounds(b) ? { ...b } : null;
     updateZoomRange();
-    if (bounds && (!fitted || !userMoved)) fit();
+    // New bounds mean a new or rescaled drawing: show it whole.
+    if (bounds) fit();
   }
 
   function orderOverlays(space: 'plan' | 'screen'): void {
