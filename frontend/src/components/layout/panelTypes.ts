@@ -1,0 +1,19 @@
+import type { AnalysisResult } from '@shared/analysis/types';
+import type { LayoutContent } from '@shared/schemas/layout';
+
+/** What the editor selects: an arm, a work point, a zone or a finding, by id. */
+export interface LayoutSelection {
+  kind: 'arm' | 'point' | 'zone' | 'finding';
+  id: string;
+}
+
+/** Props every layout panel (work points, coverage, shared zones) receives from the editor page. */
+export interface LayoutPanelProps {
+  content: LayoutContent;
+  analysis: AnalysisResult | null;
+  armModels: Array<{ id: number; name: string }>;
+  readOnly: boolean;
+  onEdit(next: LayoutContent, label: string): void;
+  onSelect(sel: { kind: 'arm' | 'point' | 'zone' | 'finding'; id: string } | null): void;
+  selected: { kind: string; id: string } | null;
+}
