@@ -37,3 +37,11 @@ export const layoutKeys = {
   details: () => [...layoutKeys.all, 'detail'] as const,
   detail: (id: number) => [...layoutKeys.details(), id] as const,
 };
+
+export const armModelKeys = {
+  all: ['armModels'] as const,
+  lists: () => [...armModelKeys.all, 'list'] as const,
+  list: () => [...armModelKeys.lists()] as const,
+  details: () => [...armModelKeys.all, 'detail'] as const,
+  detail: (id: number) => [...armModelKeys.details(), id] as const,
+};

@@ -16,5 +16,6 @@ export interface NavItem {
  */
 export const NAV: NavItem[] = [
   { label: 'Projects', to: '/projects', requires: 'project.read' },
+  { label: 'Arm catalogue', to: '/catalogue', requires: 'armModel.read' },
   { label: 'People', to: '/admin/users', requires: 'user.manage' },
 ];
