@@ -63,21 +63,24 @@ describe('colour scale', () => {
     expect(() => marginScaleSpan(Number.NaN)).toThrow('maxAbs');
   });
 
-  it('is red when short, pale at the boundary, green when reached, clamped beyond the span', () => {
+  it('is red when short, green when reached (0 counts as reached), clamped beyond the span', () => {
     const s = marginColourScale(500);
     const rgb = (c: string) => color(c)!.rgb();
     expect(rgb(s(-500)).toString()).toBe(rgb(MARGIN_COLOURS.short).toString());
     expect(rgb(s(-5000)).toString()).toBe(rgb(MARGIN_COLOURS.short).toString());
-    expect(rgb(s(0)).toString()).toBe(rgb(MARGIN_COLOURS.edge).toString());
+    expect(rgb(s(0)).toString()).toBe(rgb(MARGIN_COLOURS.reachedEdge).toString());
+    const justShort = rgb(s(-0.01));
+    expect(justShort.r - justShort.g).toBeGreaterThan(20);
+    const justReached = rgb(s(0.01));
+    expect(justReached.g - justReached.r).toBeGreaterThan(20);
     expect(rgb(s(500)).toString()).toBe(rgb(MARGIN_COLOURS.reached).toString());
-    // Halfway to the span: each channel halfway between the boundary colour and the end colour
+    // Halfway to the span: each channel halfway between the just-reached colour and the end colour
     // (linear RGB interpolation, checked with a d3 linear scale per channel).
     const half = rgb(s(250));
-    const e = rgb(MARGIN_COLOURS.edge);
+    const e = rgb(MARGIN_COLOURS.reachedEdge);
     const g = rgb(MARGIN_COLOURS.reached);
     // rgb strings round channels to integers, so allow one unit.
     for (const ch of ['r', 'g', 'b'] as const) expect(Math.abs(half[ch] - scaleLinear([0, 1], [e[ch], g[ch]])(0.5))).toBeLessThanOrEqual(1);
-    expect(rgb(s(-1)).r).toBeGreaterThan(rgb(s(1)).r);
     expect(() => marginColourScale(0)).toThrow('span');
   });
 });

@@ -99,10 +99,14 @@ export function sortedRowOrder(best: Float64Array, margins: Float64Array, armCou
   return Uint32Array.from(sorted);
 }
 
-/** Colours of the heat map: short of reach, on the boundary, reached with room to spare; unknown. */
+/**
+ * Colours of the heat map: far short, just short, just reached, reached with room to spare; not
+ * analysed. The two sides do not meet in one colour, so 1 mm short never looks like 1 mm reached.
+ */
 export const MARGIN_COLOURS = {
   short: '#b42318',
-  edge: '#f4efe1',
+  shortEdge: '#f2cfc8',
+  reachedEdge: '#d3eadb',
   reached: '#1f7a4d',
   unknown: '#d8d4c9',
 } as const;
@@ -119,12 +123,18 @@ export function marginScaleSpan(maxAbs: number, cap = 2000): number {
   return 10 * p;
 }
 
-/** Diverging colour scale over margin mm: −span red (short), 0 pale, +span green (reached); clamped. */
+/**
+ * Diverging colour scale over margin mm: −span deep red … just below 0 pale red | 0 pale green …
+ * +span deep green (a margin of 0 counts as reached, as in the analysis); clamped beyond ±span.
+ */
+const shortRamp = interpolateRgb(MARGIN_COLOURS.short, MARGIN_COLOURS.shortEdge);
+const reachedRamp = interpolateRgb(MARGIN_COLOURS.reachedEdge, MARGIN_COLOURS.reached);
+
 export function marginColourScale(span: number): ScaleDiverging<string> {
   if (!(span > 0)) throw new Error('span must be greater than 0');
   return scaleDiverging<string>()
     .domain([-span, 0, span])
-    .interpolator((t: number) => (t < 0.5 ? interpolateRgb(MARGIN_COLOURS.short, MARGIN_COLOURS.edge)(t * 2) : interpolateRgb(MARGIN_COLOURS.edge, MARGIN_COLOURS.reached)((t - 0.5) * 2)))
+    .interpolator((t: number) => (t < 0.5 ? shortRamp(t * 2) : reachedRamp((t - 0.5) * 2)))
     .clamp(true);
 }
 
