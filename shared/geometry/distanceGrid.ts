@@ -75,12 +75,16 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
   const eStart = Uint8Array.from(startKind);
   const eEnd = Uint8Array.from(endKind);
 
-  /** Signed distance from p using the edges listed in idx[from..to) (or all when idx is null). */
-  const evaluate = (x: number, y: number, idx: Int32Array | null, from: number, to: number): number => {
+  /**
+   * Signed distance from p using the edges listed in idx[from..to) (or all when idx is null); with
+   * lower bounds lb2 (squared, ascending) the scan stops once no further edge can be nearer.
+   */
+  const evaluate = (x: number, y: number, idx: Int32Array | null, lb2: Float64Array | null, from: number, to: number): number => {
     let best = Infinity;
     let bestEdge = -1;
     let bestT = 0;
     for (let k = from; k < to; k++) {
+      if (lb2 !== null && lb2[k] >= best) break;
       const e = idx ? idx[k] : k;
       const px = x - eAx[e];
       const py = y - eAy[e];
@@ -114,7 +118,7 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
   const w = bounds[2] - bounds[0];
   const h = bounds[3] - bounds[1];
   const size = Math.max(w, h, 1);
-  const pad = size * 0.25 + 1;
+  const pad = size * 0.5 + 1;
   const gx0 = bounds[0] - pad;
   const gy0 = bounds[1] - pad;
   const cell = (size + 2 * pad) / maxCells;
@@ -123,7 +127,9 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
   const halfDiag = (cell * Math.SQRT2) / 2;
   const starts = new Int32Array(nx * ny + 1);
   const lists: number[] = [];
+  const bounds2: number[] = [];
   const dist = new Float64Array(E);
+  const order: number[] = [];
   for (let iy = 0; iy < ny; iy++) {
     const cy = gy0 + (iy + 0.5) * cell;
     for (let ix = 0; ix < nx; ix++) {
@@ -143,19 +149,28 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
       }
       const limit = dc + 2 * halfDiag + 1e-9 * (1 + dc);
       starts[iy * nx + ix] = lists.length;
-      for (let e = 0; e < E; e++) if (dist[e] <= limit) lists.push(e);
+      order.length = 0;
+      for (let e = 0; e < E; e++) if (dist[e] <= limit) order.push(e);
+      // Nearest first: a point in the cell is at least dist(c, e) − h from edge e.
+      order.sort((p, q) => dist[p] - dist[q]);
+      for (const e of order) {
+        lists.push(e);
+        const lb = dist[e] - halfDiag;
+        bounds2.push(lb > 0 ? lb * lb : 0);
+      }
     }
   }
   starts[nx * ny] = lists.length;
   const cellEdges = Int32Array.from(lists);
+  const cellBounds = Float64Array.from(bounds2);
   const invCell = 1 / cell;
 
   const signedDistance = (x: number, y: number): number => {
     const ix = Math.floor((x - gx0) * invCell);
     const iy = Math.floor((y - gy0) * invCell);
-    if (ix < 0 || iy < 0 || ix >= nx || iy >= ny) return evaluate(x, y, null, 0, E);
+    if (ix < 0 || iy < 0 || ix >= nx || iy >= ny) return evaluate(x, y, null, null, 0, E);
     const c = iy * nx + ix;
-    return evaluate(x, y, cellEdges, starts[c], starts[c + 1]);
+    return evaluate(x, y, cellEdges, cellBounds, starts[c], starts[c + 1]);
   };
   return {
     signedDistance,

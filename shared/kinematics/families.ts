@@ -1,0 +1,109 @@
+import {
+  armParamsSchema,
+  articulatedParamsSchema,
+  linkageParamsSchema,
+  scaraParamsSchema,
+  type ArmParams,
+  type ArticulatedParams,
+  type LinkageParams,
+  type ScaraParams,
+} from '../schemas/armModel';
+import { articulatedAxes, articulatedForward, articulatedJ1Range, articulatedReachProfile } from './articulated';
+import { chainFamily, type ChainParams } from './chain';
+import { linkageAxes, linkageForward, linkageJ1Range, linkageReachProfile } from './linkage';
+import { scaraAxes, scaraForward, scaraJ1Range, scaraReachProfile } from './scara';
+import type { FamilyModule, ForwardResult, ReachProfile } from './types';
+
+/** The scara family module (planar 2R + stroke). */
+export const scaraFamily: FamilyModule<ScaraParams> = {
+  family: 'scara',
+  schema: scaraParamsSchema,
+  forward: scaraForward,
+  reachProfile: (p) => scaraReachProfile(p),
+  j1Range: scaraJ1Range,
+  lateralOffset: () => 0,
+  axes: scaraAxes,
+};
+
+/** The articulated family module (J1 vertical, J2 ∥ J3, wrist centre). */
+export const articulatedFamily: FamilyModule<ArticulatedParams> = {
+  family: 'articulated',
+  schema: articulatedParamsSchema,
+  forward: articulatedForward,
+  reachProfile: articulatedReachProfile,
+  j1Range: articulatedJ1Range,
+  lateralOffset: () => 0,
+  axes: articulatedAxes,
+};
+
+/** The linkage family module (four-bar driven forearm, level flange). */
+export const linkageFamily: FamilyModule<LinkageParams> = {
+  family: 'linkage',
+  schema: linkageParamsSchema,
+  forward: linkageForward,
+  reachProfile: linkageReachProfile,
+  j1Range: linkageJ1Range,
+  lateralOffset: () => 0,
+  axes: linkageAxes,
+};
+
+/** Registry: family name → module. */
+export const FAMILIES = {
+  scara: scaraFamily,
+  articulated: articulatedFamily,
+  linkage: linkageFamily,
+  chain: chainFamily,
+} as const;
+
+export type FamilyName = keyof typeof FAMILIES;
+
+/** The family module of a parameter set (throws on an unknown family). */
+export function familyOf<M extends ArmParams>(model: M): FamilyModule<M> {
+  const fam = (FAMILIES as unknown as Record<string, FamilyModule<unknown> | undefined>)[model?.family];
+  if (!fam) throw new Error(`model.family '${String(model?.family)}' is not a known kinematic family`);
+  return fam as unknown as FamilyModule<M>;
+}
+
+/** Validates raw parameter JSON (defaults applied); throws a short message naming the first bad field. */
+export function parseArmParams(raw: unknown): ArmParams {
+  const r = armParamsSchema.safeParse(raw);
+  if (r.success) return r.data;
+  const first = r.error.issues[0];
+  const where = first && first.path.length ? first.path.join('.') : 'model';
+  throw new Error(`${where}: ${first?.message ?? 'invalid arm model parameters'}`);
+}
+
+/** Forward kinematics of any family from controller joint values, arm frame, mm. */
+export function forwardModel(model: ArmParams, joints: readonly number[]): ForwardResult {
+  return familyOf(model).forward(model, joints);
+}
+
+/** JSON with object keys sorted, so equal parameter sets give equal keys whatever their key order. */
+export function stableKey(value: unknown): string {
+  return JSON.stringify(value, (_k, v: unknown) => {
+    if (v && typeof v === 'object' && !Array.isArray(v)) {
+      return Object.fromEntries(Object.keys(v as object).sort().map((k) => [k, (v as Record<string, unknown>)[k]]));
+    }
+    return v;
+  });
+}
+
+const PROFILE_CACHE_SIZE = 64;
+const profileCache = new Map<string, ReachProfile>();
+
+/** Side reach profile of any family, computed once per distinct parameter set (small LRU keyed by stable JSON), mm. */
+export function reachProfileOf(model: ArmParams, opts: { toleranceMm?: number } = {}): ReachProfile {
+  const key = `${opts.toleranceMm ?? ''}|${stableKey(model)}`;
+  const hit = profileCache.get(key);
+  if (hit) {
+    profileCache.delete(key);
+    profileCache.set(key, hit);
+    return hit;
+  }
+  const profile = familyOf(model).reachProfile(model, opts);
+  profileCache.set(key, profile);
+  while (profileCache.size > PROFILE_CACHE_SIZE) profileCache.delete(profileCache.keys().next().value as string);
+  return profile;
+}
+
+export type { ChainParams };

@@ -1,0 +1,10 @@
+export * from './types';
+export * from './fourBar';
+export * from './profile';
+export * from './articulated';
+export * from './scara';
+export * from './linkage';
+export * from './families';
+export * from './planRegions';
+export * from './pointReach';
+export { chainFamily, chainForward, chainParamsSchema, type ChainParams } from './chain';

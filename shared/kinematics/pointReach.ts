@@ -1,0 +1,175 @@
+import { angularMargin, toRadians } from '../geometry/angles';
+import { clipOffset } from '../geometry/clipper';
+import { buildDistanceGrid, type DistanceGrid } from '../geometry/distanceGrid';
+import type { Polygon2 } from '../geometry/types';
+import type { ArmParams, ScaraParams } from '../schemas/armModel';
+import { familyOf, reachProfileOf, stableKey } from './families';
+import { bandPolygons, j1KinematicRange, restrictedBelowPolygons, restrictedSpacePolygons, toolDrop, type J1Restrict } from './planRegions';
+import { scaraPlanRegion } from './scara';
+
+/**
+ * Coverage of a work point: a cheap, exact test in the arm's own frame against a region built once
+ * per (model, restricting limits).
+ * - articulated, linkage, chain: the point's bearing must lie in the (restricted) J1 range — or in
+ *   the range turned by 180° for negative r, considered only when the profile reaches behind the
+ *   J1 axis — and its (r, z) inside the profile; a chain with a
+ *   lateral offset e reaches the point at in-plane r = ±√(ρ² − e²) with J1 = bearing − atan2(e, r).
+ * - scara: the plan position against the arm-frame 2R region (restricted J1 included), the height
+ *   against the stroke.
+ * - Default 'top' approach: the tool points down, so the flange target is z + toolLength. 'any':
+ *   for articulated and chain arms the tool may point any way in the reach plane, so the point must
+ *   lie within toolLength of the profile (the profile grown by toolLength); scara and linkage tools
+ *   are held vertical by construction, so 'any' is the same as 'top'.
+ * Margin: signed distance to the boundary in mm (negative outside). The J1-limit edges count as
+ * arc lengths at the point's radius; inside both, the smaller of the two distances; outside one,
+ * that (negative) distance; outside both, −√(a² + b²).
+ * One check is a grid lookup plus a few edge distances (DistanceGrid), ~10⁷ checks/s.
+ */
+
+/** A point in the arm frame, mm; approach default 'top'. */
+export interface ArmTarget {
+  x: number;
+  y: number;
+  z: number;
+  approach?: 'top' | 'any';
+}
+
+/** Result of a coverage check: reached, and the signed distance to the reach boundary, mm. */
+export interface PointReachResult {
+  reached: boolean;
+  marginMm: number;
+}
+
+/** Where an arm stands on the plan: position (mm), yaw (deg CCW from +x), mount height (mm), restricting J1 limits (controller deg). */
+export interface ReachPlacement {
+  x: number;
+  y: number;
+  yaw: number;
+  mountHeight: number;
+  restrict?: J1Restrict | null;
+}
+
+/** Hot-loop form: margin only (mm, ≥ 0 reached) of an arm-frame point. */
+export type MarginFn = (x: number, y: number, z: number, approach?: 'top' | 'any') => number;
+
+function combine(a: number, b: number): number {
+  if (a >= 0 && b >= 0) return a < b ? a : b;
+  if (a < 0 && b < 0) return -Math.sqrt(a * a + b * b);
+  return a < b ? a : b;
+}
+
+function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
+  const drop = toolDrop(model);
+  if (model.family === 'scara') {
+    const s = model as ScaraParams;
+    const grid = buildDistanceGrid(scaraPlanRegion(s, j1KinematicRange(model, restrict)));
+    const zLo = s.strokeMin;
+    const zHi = s.strokeMax;
+    return (x, y, z) => {
+      const zf = z + drop;
+      const dz = zf - zLo < zHi - zf ? zf - zLo : zHi - zf;
+      return combine(grid.signedDistance(x, y), dz);
+    };
+  }
+  const profile = reachProfileOf(model);
+  const range = j1KinematicRange(model, restrict);
+  const a0 = toRadians(range.min);
+  const a1 = toRadians(range.max);
+  const e = familyOf(model).lateralOffset(model);
+  const grid = buildDistanceGrid(profile.polygons);
+  const tiltable = model.family === 'articulated' || model.family === 'chain';
+  const reachTool = model.toolLength ?? 0;
+  let anyGrid: DistanceGrid | null = null;
+  const gridFor = (approach: 'top' | 'any' | undefined): DistanceGrid => {
+    if (approach !== 'any' || !tiltable || !(reachTool > 0)) return grid;
+    if (!anyGrid) anyGrid = buildDistanceGrid(clipOffset(profile.polygons, reachTool, { join: 'round', arcToleranceMm: 0.25 }));
+    return anyGrid;
+  };
+  const hasNegative = profile.polygons.some((p) => p[0].some(([r]) => r < 0));
+  const e2 = e * e;
+  return (x, y, z, approach) => {
+    const g = gridFor(approach);
+    const zt = approach === 'any' && tiltable ? z : z + drop;
+    const rho2 = x * x + y * y;
+    const rho = Math.sqrt(rho2);
+    const bearing = Math.atan2(y, x);
+    // Profiles carry the plan distance from the J1 axis as |r| (a chain's includes its lateral
+    // offset); the in-plane radius rIn only sets the bearing shift atan2(e, rIn).
+    let shift = 0;
+    let rIn = rho;
+    if (e !== 0) {
+      if (rho2 < e2) return combine(g.signedDistance(0, zt), rho - Math.abs(e));
+      rIn = Math.sqrt(rho2 - e2);
+      shift = Math.atan2(e, rIn);
+    }
+    const arcA = rho * angularMargin(bearing - shift, a0, a1);
+    const mA = combine(g.signedDistance(rho, zt), arcA);
+    if (!hasNegative) return mA;
+    const shiftB = e === 0 ? Math.PI : Math.atan2(e, -rIn);
+    const arcB = rho * angularMargin(bearing - shiftB, a0, a1);
+    const mB = combine(g.signedDistance(-rho, zt), arcB);
+    return mA > mB ? mA : mB;
+  };
+}
+
+const marginCache = new WeakMap<object, Map<string, MarginFn>>();
+
+/** The margin function of a model under restricting J1 limits, built once and cached (per model object). */
+export function marginFnOf(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
+  let byRestrict = marginCache.get(model);
+  if (!byRestrict) {
+    byRestrict = new Map();
+    marginCache.set(model, byRestrict);
+  }
+  const key = restrict ? `${restrict.j1Min}|${restrict.j1Max}` : '-';
+  let fn = byRestrict.get(key);
+  if (!fn) {
+    fn = buildMargin(model, restrict);
+    byRestrict.set(key, fn);
+  }
+  return fn;
+}
+
+/** Coverage check of an arm-frame point for the hot loop: `(point) => {reached, marginMm}` (see the file comment). */
+export function makePointReach(model: ArmParams, restrict?: J1Restrict | null): (point: Readonly<ArmTarget>) => PointReachResult {
+  const margin = marginFnOf(model, restrict);
+  return (p) => {
+    const m = margin(p.x, p.y, p.z, p.approach);
+    return { reached: m >= 0, marginMm: m };
+  };
+}
+
+/** Coverage of a plan point (mm) by a placed arm: transform into the arm frame, then the cached region test. */
+export function pointReach(model: ArmParams, placement: Readonly<ReachPlacement>, point: Readonly<ArmTarget>): PointReachResult {
+  const yaw = toRadians(placement.yaw);
+  const c = Math.cos(yaw);
+  const s = Math.sin(yaw);
+  const dx = point.x - placement.x;
+  const dy = point.y - placement.y;
+  const m = marginFnOf(model, placement.restrict)(c * dx + s * dy, -s * dx + c * dy, point.z - placement.mountHeight, point.approach);
+  return { reached: m >= 0, marginMm: m };
+}
+
+/**
+ * Everything the layout analysis needs of one model under restricting limits, arm frame, mm:
+ * restricted space, bands, the restricted space below a height, margins, and the vertical extent
+ * of the space (lowest tool point … highest flange/wrist point).
+ */
+export function armReach(model: ArmParams, restrict?: J1Restrict | null) {
+  const restricted = restrictedSpacePolygons(model, restrict);
+  let maxReach = 0;
+  for (const p of restricted) for (const [x, y] of p[0]) maxReach = Math.max(maxReach, Math.hypot(x, y));
+  const profile = reachProfileOf(model);
+  const margin = marginFnOf(model, restrict);
+  const payload = model.payloadRadius ?? 0;
+  return {
+    key: stableKey({ model, restrict: restrict ?? null }),
+    maxReach,
+    zMin: profile.zMin - toolDrop(model) - payload,
+    zMax: profile.zMax + payload,
+    restricted,
+    bandAt: (zArm: number): Polygon2[] => bandPolygons(model, zArm, restrict),
+    restrictedBelow: (zArmTop: number): Polygon2[] => restrictedBelowPolygons(model, zArmTop, restrict),
+    margin: (x: number, y: number, z: number, approach: 'top' | 'any' = 'top'): number => margin(x, y, z, approach),
+  };
+}
