@@ -1,5 +1,6 @@
 // Arm catalogue API and the kinematics endpoints, against a real PostgreSQL.
 import { readdirSync } from 'node:fs';
+import { polygonArea } from 'd3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_CATALOGUE_DIR, ensureBuiltInCatalogue, readDemoCatalogue } from '../../backend/src/db/demoCatalogue';
 import { ArmModel, AuditEvent, Layout } from '../../backend/src/models';
@@ -34,6 +35,54 @@ function threeR(limits: { j2?: [number, number]; j3?: [number, number] } = {}) {
     payloadKg: 5,
     stopTimeS: 0.3,
   };
+}
+
+/** The same anthropomorphic arm in the articulated family: J2 = upper arm from horizontal, J3 = forearm relative to it. */
+function articulated3R(j1: [number, number] = [-180, 180]) {
+  return {
+    family: 'articulated',
+    shoulderHeight: 300,
+    shoulderOffset: 0,
+    upperArm: 500,
+    forearm: 400,
+    axes: [
+      { min: j1[0], max: j1[1] },
+      { min: -180, max: 180 },
+      { min: -180, max: 180 },
+    ],
+  };
+}
+
+/**
+ * A linkage arm whose four-bar (crank a = 300, coupler b = 1100, rocker c = 320, ground d = 1150 mm)
+ * cannot close at every crank angle: it assembles only while f ≤ b + c, with
+ * f² = a² + d² − 2ad·cos θ2 (law of cosines, Norton, Design of Machinery, ch. 4). At θ2 = 180°
+ * f = a + d = 1450 > b + c = 1420 [derived].
+ */
+function linkageArm() {
+  return {
+    family: 'linkage',
+    shoulderHeight: 700,
+    shoulderOffset: 250,
+    upperArm: 1150,
+    forearm: 1300,
+    flangeOffset: { horizontal: 200, vertical: -150 },
+    fourBar: { ground: 1150, crank: 300, coupler: 1100, rocker: 320, branch: 'crossed' },
+    interiorAngle: { min: 10, max: 350 },
+    axes: [
+      { min: -180, max: 180 },
+      { min: -40, max: 90, zeroOffset: 90, direction: -1 },
+      { min: -180, max: 180 },
+    ],
+  };
+}
+
+/** Planar area of a GeoJSON Polygon / MultiPolygon in mm² (d3.polygonArea per ring, holes subtracted). */
+function geoArea(g: { type: string; coordinates: number[][][] | number[][][][] }): number {
+  const polys = (g.type === 'Polygon' ? [g.coordinates] : g.coordinates) as number[][][][];
+  let sum = 0;
+  for (const poly of polys) poly.forEach((ring, i) => (sum += (i === 0 ? 1 : -1) * Math.abs(polygonArea(ring as Array<[number, number]>))));
+  return sum;
 }
 
 let seq = 0;
@@ -261,6 +310,53 @@ describe('kinematics endpoints', () => {
     const inline = await agent.post('/api/kinematics/reach').send({ model: threeR() });
     expect(inline.status).toBe(200);
     expect(inline.body.maxReach).toBe(maxReach);
+  });
+
+  it('forward, articulated family: the wrist centre matches the anthropomorphic 3R closed form', async () => {
+    const { agent } = await planner();
+    const res = await agent.post('/api/kinematics/forward').send({ model: articulated3R(), joints: [45, 30, -60] });
+    expect(res.status).toBe(200);
+    // Siciliano et al. §2.9.3 with d1 = 300 added to z: θ = (45°, 30°, −60°) → (551.1, 551.1, 350.0) mm [derived, REFERENCES.md].
+    expect(res.body.wrist.x).toBeCloseTo(551.1, 1);
+    expect(res.body.wrist.y).toBeCloseTo(551.1, 1);
+    expect(res.body.wrist.z).toBeCloseTo(350.0, 6);
+  });
+
+  it('forward, linkage family: a pose whose four-bar cannot close is 422 not-assemblable, never NaN', async () => {
+    const { agent } = await planner();
+    const created = await agent.post('/api/arm-models').send({ name: uniqueName('Palletizer test'), params: linkageArm() });
+    expect(created.status).toBe(201);
+    // J2 = 0 → upper arm vertical (kinematic 90°); J3 = −90 → crank absolute −90°: θ2 = −180° from the upper arm.
+    const res = await agent.post('/api/kinematics/forward').send({ model: { id: created.body.armModel.id }, joints: [0, 0, -90] });
+    expect(res.status).toBe(422);
+    expect(res.body.reason).toBe('not-assemblable');
+    expect(res.body.error.code).toBe('not_assemblable');
+    expect(JSON.stringify(res.body)).not.toMatch(/NaN/);
+    // θ2 = −90° − 90° + 120° = −60°: f² = a² + d² − 2ad·cos 60° → f ≈ 1035 mm ≤ 1420: it closes.
+    const ok = await agent.post('/api/kinematics/forward').send({ model: { id: created.body.armModel.id }, joints: [0, 0, 30] });
+    expect(ok.status).toBe(200);
+    expect(Number.isFinite(ok.body.tool.x)).toBe(true);
+  });
+
+  it('reach bands: a slice through the 3R annulus gives two annular sectors of (θ/2)(R² − r²) each', async () => {
+    const { agent } = await planner();
+    const res = await agent.post('/api/kinematics/reach').send({ model: articulated3R([-45, 45]), heights: [300, 5000] });
+    expect(res.status).toBe(200);
+    const [atShoulder, above] = res.body.bands;
+    expect(atShoulder.height).toBe(300);
+    // At the shoulder height the profile (annulus 100 … 900 mm about the shoulder, Spong et al.) is
+    // cut at r ∈ ±[100, 900]; over J1 = −45 … 45° that is a 90° sector in front and one turned 180°
+    // behind: 2 × (π/2)/2 × (900² − 100²) = 1 256 637 mm² (annular sector area [derived, REFERENCES.md]).
+    // The band errs outward (outer arcs circumscribed), so it may be a little larger, never smaller.
+    const expected = (Math.PI / 2) * (900 ** 2 - 100 ** 2);
+    const area = geoArea(atShoulder.geometry);
+    expect(area).toBeGreaterThanOrEqual(expected * 0.999);
+    expect(area).toBeLessThanOrEqual(expected * 1.01);
+    // Above the reach (z = 5000 mm > 300 + 900) the band is empty.
+    expect(geoArea(above.geometry)).toBe(0);
+    const bad = await agent.post('/api/kinematics/reach').send({ model: articulated3R(), heights: ['high'] });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty(['heights.0']);
   });
 
   it('anonymous callers get 401 on both endpoints', async () => {

@@ -1,26 +1,20 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { z } from 'zod';
-import { chainAxes, chainForward, chainParamsSchema, chainSampledProfile, type ChainParams } from '@shared/kinematics/chain';
-import type { AxisInfo, ForwardResult, ReachProfile } from '@shared/kinematics/types';
+import { familyOf, forwardModel, reachProfileOf } from '@shared/kinematics/families';
+import { bandAt } from '@shared/kinematics/planRegions';
+import type { AreaGeometry } from '@shared/geometry/geojson';
+import type { AxisInfo, ReachProfile } from '@shared/kinematics/types';
+import { armParamsSchema, ArmModelInput, type ArmParams } from '@shared/schemas/armModel';
 import { fieldErrors } from '@shared/schemas/errors';
-import { badRequest, HttpError, notFound } from '../http/errors';
+import { badRequest, notFound } from '../http/errors';
 import { ArmModel } from '../models';
 
-/** Parameters of any arm model family (lengths mm, angles deg). */
-export const ArmModelParams = chainParamsSchema;
-export type ArmModelParams = ChainParams;
-/** What a create or update sends: a name and the family parameters. */
-export const ArmModelInput = z.object({
-  name: z.string({ error: 'Give the model a name' }).trim().min(1, 'Give the model a name').max(120, 'Use at most 120 characters'),
-  params: ArmModelParams,
-});
-export type ArmModelInput = z.infer<typeof ArmModelInput>;
+/** Parameters of any arm model family (lengths mm, angles deg): the shared discriminated union. */
+export const ArmModelParams = armParamsSchema;
+export type ArmModelParams = ArmParams;
+export { ArmModelInput, forwardModel };
 
-const forwardModel = (params: ArmModelParams, joints: readonly number[]): ForwardResult => chainForward(params, joints);
-const reachProfileOf = (params: ArmModelParams): ReachProfile => chainSampledProfile(params);
-const axesOf = (params: ArmModelParams): AxisInfo[] => chainAxes(params);
-
-export { axesOf, forwardModel };
+/** Axes of a model in controller units (deg / mm). */
+export const axesOf = (params: ArmModelParams): AxisInfo[] => familyOf(params).axes(params);
 
 /** An arm model as the API presents it (whitelisted fields; lengths mm, angles deg). */
 export interface ArmModelDto {
@@ -37,22 +31,9 @@ export interface ArmModelDto {
   minReach: number | null;
 }
 
-const PROFILE_CACHE_SIZE = 64;
-const profileCache = new Map<string, ReachProfile>();
-
-/** The side reach profile of a parameter set, computed once per distinct parameter JSON (small LRU). */
+/** The side reach profile of a parameter set (the shared core keeps a small cache per parameter set). */
 export function cachedReachProfile(params: ArmModelParams): ReachProfile {
-  const key = JSON.stringify(params);
-  const hit = profileCache.get(key);
-  if (hit) {
-    profileCache.delete(key);
-    profileCache.set(key, hit);
-    return hit;
-  }
-  const profile = reachProfileOf(params);
-  profileCache.set(key, profile);
-  while (profileCache.size > PROFILE_CACHE_SIZE) profileCache.delete(profileCache.keys().next().value!);
-  return profile;
+  return reachProfileOf(params);
 }
 
 export function presentArmModel(m: ArmModel): ArmModelDto {
@@ -110,8 +91,7 @@ export async function layoutsUsingArmModel(
   );
 }
 
-/** Reach bands (plan view, arm frame) at heights above the base plate, mm. */
-export function bandsAt(_params: ArmModelParams, heights: readonly number[]): Array<{ height: number; geometry: unknown }> {
-  if (heights.length === 0) return [];
-  throw new HttpError(501, 'not_available', 'Reach bands are not available yet on this server.');
+/** Reach bands at tool-point heights above the base plate (plan view, arm frame, GeoJSON in mm): annular sectors from the profile slice. */
+export function bandsAt(params: ArmModelParams, heights: readonly number[]): Array<{ height: number; geometry: AreaGeometry }> {
+  return heights.map((height) => ({ height, geometry: bandAt(params, height) }));
 }

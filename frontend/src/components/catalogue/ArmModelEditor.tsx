@@ -5,7 +5,12 @@ import { applyServerErrors } from '../../lib/serverErrors';
 import { Button } from '../Button';
 import { TextField } from '../Field';
 import { ErrorNotice } from '../Notice';
+import { axisKinematicDeg } from '@shared/kinematics/articulated';
+import { ArticulatedFields } from './ArticulatedFields';
 import { ChainFields } from './ChainFields';
+import { FourBarDiagram } from './FourBarDiagram';
+import { LinkageFields } from './LinkageFields';
+import { ScaraFields } from './ScaraFields';
 import type { ArmModelFormValues } from './familyDefaults';
 import { ArmModelInput, FAMILY_LABELS } from './modelCore';
 import { PosePanel } from './PosePanel';
@@ -13,6 +18,14 @@ import { ProfilePlot } from './ProfilePlot';
 import { StoppingFields } from './StoppingFields';
 import { useLiveProfile } from './useLiveProfile';
 import { usePose } from './usePose';
+
+/** Which point the side profile traces, per family (the pose drawing ends at the tool point). */
+const PROFILE_POINT: Record<string, string> = {
+  scara: 'The profile is that of the flange over the stroke; the tool point hangs the tool length below it.',
+  articulated: 'The profile is that of the wrist centre; the tool point hangs the tool length below it.',
+  linkage: 'The profile is that of the level flange; the tool point hangs the tool length below it.',
+  chain: 'The profile is that of the tool point over all joints but J1.',
+};
 
 /** Every dot path of a value (objects and arrays), for placing server field errors on the form. */
 export function valuePaths(value: unknown, prefix = ''): string[] {
@@ -47,7 +60,7 @@ export function ArmModelEditor({ initial, readOnly, submitLabel, onSubmit, onCha
     defaultValues: initial,
     mode: 'onChange',
   });
-  const { register, control, handleSubmit, setError, formState } = form;
+  const { register, control, handleSubmit, setError, setValue, getValues, formState } = form;
   const { errors, isSubmitting, isDirty } = formState;
   const params = useWatch({ control, name: 'params' });
   const family = (params as { family?: string } | undefined)?.family ?? initial.params.family;
@@ -88,6 +101,9 @@ export function ArmModelEditor({ initial, readOnly, submitLabel, onSubmit, onCha
               <span className="flex h-9 items-center text-sm font-bold">{FAMILY_LABELS[family] ?? family}</span>
             </div>
           </div>
+          {family === 'scara' && <ScaraFields register={register} errors={errors} />}
+          {family === 'articulated' && <ArticulatedFields register={register} errors={errors} />}
+          {family === 'linkage' && <LinkageFields control={control} register={register} setValue={setValue} getValues={getValues} errors={errors} readOnly={readOnly} />}
           {family === 'chain' && <ChainFields control={control} register={register} errors={errors} readOnly={readOnly} />}
           <StoppingFields register={register} errors={errors} />
         </fieldset>
@@ -105,9 +121,17 @@ export function ArmModelEditor({ initial, readOnly, submitLabel, onSubmit, onCha
       </form>
 
       <div className="flex min-w-0 flex-col gap-6 xl:sticky xl:top-4 xl:self-start">
-        <ProfilePlot profile={profileView} pose={pose.view} stale={live.stale} />
+        <ProfilePlot profile={profileView} pose={pose.view} stale={live.stale} note={PROFILE_POINT[family]} />
         {live.failure && <ErrorNotice title="The profile could not be computed" message={live.failure} />}
         <PosePanel pose={pose} />
+        {live.params?.family === 'linkage' && live.params.fourBar && pose.joints.length === 3 && (
+          <FourBarDiagram
+            fourBar={live.params.fourBar}
+            crankDeg={
+              axisKinematicDeg(live.params.axes[2], pose.joints[2]) - axisKinematicDeg(live.params.axes[1], pose.joints[1]) - (live.params.fourBar.groundAngle ?? 0)
+            }
+          />
+        )}
         <p className="border-l-4 border-finding-warning pl-3 text-xs text-ink-muted">
           Reach drawn from nominal kinematics is a planning estimate. It does not replace a risk assessment (ISO 12100), the
           robot-system safety requirements (ISO 10218-2) or the arm maker's stopping data; safeguarding is designed and validated

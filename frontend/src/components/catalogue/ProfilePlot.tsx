@@ -1,6 +1,6 @@
 import { useEffect, useRef } from 'react';
 import { cn } from '../../lib/cn';
-import { createProfileDrawing, formatMm, type PoseView, type ProfileDrawing, type ProfileView } from './profileDrawing';
+import { createProfileDrawing, formatMm, formatTolerance, type PoseView, type ProfileDrawing, type ProfileView } from './profileDrawing';
 
 export interface ProfilePlotProps {
   profile: ProfileView | null;
@@ -11,6 +11,8 @@ export interface ProfilePlotProps {
   /** Drawing height in px; the width follows the container. */
   height?: number;
   label?: string;
+  /** A line under the figures saying which point the profile traces. */
+  note?: string;
   className?: string;
 }
 
@@ -18,7 +20,7 @@ export interface ProfilePlotProps {
  * The side reach profile (profileDrawing.ts draws it with d3; React only hands it data), with the
  * reach figures repeated as text under the drawing for reading and screen readers.
  */
-export function ProfilePlot({ profile, pose = null, stale = false, height = 420, label = 'Side reach profile', className }: ProfilePlotProps) {
+export function ProfilePlot({ profile, pose = null, stale = false, height = 420, label = 'Side reach profile', note, className }: ProfilePlotProps) {
   const boxRef = useRef<HTMLDivElement>(null);
   const svgRef = useRef<SVGSVGElement>(null);
   const drawingRef = useRef<ProfileDrawing | null>(null);
@@ -61,7 +63,7 @@ export function ProfilePlot({ profile, pose = null, stale = false, height = 420,
               Min reach <strong className="tabular-nums">{formatMm(profile.minReach)}</strong>
             </span>
             <span className="text-ink-muted">
-              Boundary within ±{formatMm(profile.toleranceMm)} ({profile.method === 'exact' ? 'exact boundary' : 'sampled'})
+              Boundary {formatTolerance(profile.toleranceMm)} ({profile.method === 'exact' ? 'traced from the joint limits' : 'sampled joint space'})
             </span>
             {stale && <span className="font-bold text-finding-warning">Showing the last valid profile</span>}
           </>
@@ -69,6 +71,7 @@ export function ProfilePlot({ profile, pose = null, stale = false, height = 420,
           <span className="text-ink-muted">The profile appears once the parameters are complete.</span>
         )}
       </figcaption>
+      {note && <p className="text-xs text-ink-muted">{note}</p>}
     </figure>
   );
 }

@@ -41,6 +41,12 @@ export function formatMm(value: number): string {
   return `${mm.format(Math.round(value)).replace(/,/g, ' ')} mm`;
 }
 
+/** "±14 mm", "±0.5 mm", or "exact" for a boundary with no stated error. */
+export function formatTolerance(toleranceMm: number): string {
+  if (toleranceMm < 0.05) return 'exact';
+  return toleranceMm < 10 ? `±${toleranceMm.toFixed(1)} mm` : `±${formatMm(toleranceMm)}`;
+}
+
 /** SVG path data of polygons (outer ring then holes; even-odd fill) through the two scales. */
 export function polygonsPath(polygons: readonly Polygon2[], x: (r: number) => number, y: (z: number) => number): string {
   let d = '';
@@ -227,7 +233,7 @@ export function createProfileDrawing(svg: SVGSVGElement): ProfileDrawing {
     }
     caption.text(
       profile
-        ? `${stale ? 'Last valid profile — ' : ''}boundary within ±${formatMm(profile.toleranceMm)} (${profile.method === 'exact' ? 'exact boundary' : 'sampled'}); grid ${formatMm(step)}`
+        ? `${stale ? 'Last valid profile — ' : ''}boundary ${formatTolerance(profile.toleranceMm)} (${profile.method === 'exact' ? 'traced' : 'sampled'}); grid ${formatMm(step)}`
         : 'No profile yet',
     );
 

@@ -3,12 +3,13 @@ import type { Frame } from '@shared/kinematics/types';
 /**
  * The frames of one pose in the side view: each origin as (r, z) mm in the vertical plane through
  * the J1 axis at the pose's J1 angle, r = x·cos φ + y·sin φ. φ is read from the frame after J1 (its
- * x axis lies along the reach plane in DH chains), or else from the first origin off the axis.
+ * x axis lies along the reach plane in DH chains), else from the base frame (the plane families
+ * turn their base frame with J1), else from the first origin off the axis.
  * A lateral offset from that plane is dropped (the drawing is a projection).
  */
 export function sideViewPoints(frames: readonly Frame[]): Array<[number, number]> {
   let phi: number | null = null;
-  const j1 = frames.find((f) => f.label === 'J1');
+  const j1 = frames.find((f) => f.label === 'J1') ?? frames.find((f) => f.label === 'base');
   if (j1) {
     const [cx, cy] = [j1.rotation[0][0], j1.rotation[1][0]];
     if (Math.hypot(cx, cy) > 1e-9) phi = Math.atan2(cy, cx);
