@@ -73,8 +73,9 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
   }
   const profile = reachProfileOf(model);
   const range = j1KinematicRange(model, restrict);
-  const a0 = toRadians(range.min);
-  const a1 = toRadians(range.max);
+  // A point exactly on a J1 limit is reached: allow the same 1e-9 as the axis limit checks.
+  const a0 = toRadians(range.min) - 1e-9;
+  const a1 = toRadians(range.max) + 1e-9;
   const e = familyOf(model).lateralOffset(model);
   const grid = buildDistanceGrid(profile.polygons);
   const tiltable = model.family === 'articulated' || model.family === 'chain';
@@ -102,11 +103,13 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
       rIn = Math.sqrt(rho2 - e2);
       shift = Math.atan2(e, rIn);
     }
-    const arcA = rho * angularMargin(bearing - shift, a0, a1);
+    // On the J1 axis every bearing is the same point; an unlimited J1 has no edges.
+    const arcOf = (ang: number) => (rho === 0 || ang === Infinity ? Infinity : rho * ang);
+    const arcA = arcOf(angularMargin(bearing - shift, a0, a1));
     const mA = combine(g.signedDistance(rho, zt), arcA);
     if (!hasNegative) return mA;
     const shiftB = e === 0 ? Math.PI : Math.atan2(e, -rIn);
-    const arcB = rho * angularMargin(bearing - shiftB, a0, a1);
+    const arcB = arcOf(angularMargin(bearing - shiftB, a0, a1));
     const mB = combine(g.signedDistance(-rho, zt), arcB);
     return mA > mB ? mA : mB;
   };

@@ -1,0 +1,110 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { forwardModel, parseArmParams } from '@shared/kinematics/families';
+import { armReach, makePointReach, pointReach } from '@shared/kinematics/pointReach';
+import type { ArmParams } from '@shared/schemas/armModel';
+import { ax, articulatedSets, deepFreeze, linkageSets, scaraSets } from './fixtures';
+
+function jointLimits(m: ArmParams): Array<{ min: number; max: number }> {
+  if (m.family === 'scara') return [...m.axes, { min: m.strokeMin, max: m.strokeMax }];
+  if (m.family === 'chain') return m.joints;
+  return m.axes;
+}
+
+describe('point reach agrees with forward kinematics', () => {
+  for (const m of [...articulatedSets, ...scaraSets, ...linkageSets]) {
+    it(`${m.family}: the tool point of every assembled in-limit pose is reached, in the arm frame and placed on the plan`, () => {
+      const check = makePointReach(m);
+      const place = { x: 12000, y: -3500, yaw: 37, mountHeight: 400 };
+      const yaw = (place.yaw * Math.PI) / 180;
+      fc.assert(
+        fc.property(fc.tuple(...jointLimits(m).map((l) => fc.double({ min: l.min, max: l.max, noNaN: true }))), (joints) => {
+          const f = forwardModel(m, joints);
+          if (!f.ok) return;
+          const a = check({ x: f.tool.x, y: f.tool.y, z: f.tool.z });
+          expect(a.marginMm).toBeGreaterThanOrEqual(0);
+          expect(a.reached).toBe(true);
+          const px = place.x + Math.cos(yaw) * f.tool.x - Math.sin(yaw) * f.tool.y;
+          const py = place.y + Math.sin(yaw) * f.tool.x + Math.cos(yaw) * f.tool.y;
+          const b = pointReach(m, place, { x: px, y: py, z: f.tool.z + place.mountHeight });
+          expect(b.reached).toBe(true);
+          expect(b.marginMm).toBeCloseTo(a.marginMm, 6);
+        }),
+        { numRuns: 1500 },
+      );
+    });
+  }
+});
+
+describe('point reach at known radii and heights', () => {
+  // Full J2/J3 ranges: the wrist reaches the annulus 100…1100 mm around the shoulder (planar 2R
+  // annulus, Spong et al. [pub]); the shoulder sits on the J1 axis at 500 mm.
+  const ring = parseArmParams({ family: 'articulated', shoulderHeight: 500, shoulderOffset: 0, upperArm: 600, forearm: 500, axes: [ax(-180, 180), ax(-180, 180), ax(-180, 180)] });
+  const check = makePointReach(ring);
+
+  it('classifies points inside and outside with margins to 1 mm', () => {
+    const cases: Array<[number, number, number]> = [
+      [800, 500, 300], // r = 800 at shoulder height: 1100 − 800 (and 800 − 100)
+      [1200, 500, -100], // beyond full stretch
+      [300, 1400, 1100 - Math.hypot(300, 900)],
+      [50, 500, -50], // inside the fold hole
+      [0, 500 - 1150, -50], // straight below, beyond reach
+    ];
+    for (const [r, z, margin] of cases) {
+      const got = check({ x: r, y: 0, z });
+      expect(Math.abs(got.marginMm - margin)).toBeLessThanOrEqual(1);
+      expect(got.reached).toBe(margin >= 0);
+    }
+  });
+
+  it('the top approach targets the flange toolLength above the point', () => {
+    const tooled = makePointReach({ ...ring, toolLength: 200 });
+    expect(Math.abs(tooled({ x: 800, y: 0, z: 300 }).marginMm - 300)).toBeLessThanOrEqual(1);
+    expect(Math.abs(tooled({ x: 0, y: 0, z: 500 - 1100 - 200 + 10 }).marginMm - 10)).toBeLessThanOrEqual(1);
+    // 'any' lets an articulated wrist reach within toolLength in the reach plane.
+    expect(tooled({ x: 1250, y: 0, z: 500, approach: 'any' }).reached).toBe(true);
+    expect(tooled({ x: 1250, y: 0, z: 500 }).reached).toBe(false);
+  });
+
+  it('restricted J1 limits exclude points behind, with the J1 edge counted as arc length', () => {
+    const fwd = parseArmParams({ family: 'articulated', shoulderHeight: 500, shoulderOffset: 100, upperArm: 600, forearm: 500, axes: [ax(-180, 180), ax(-30, 80), ax(-150, 0)] });
+    const p = { x: 0, y: 0, z: 600 };
+    const a = forwardModel(fwd, [0, 20, -60]);
+    if (!a.ok) throw new Error(a.message);
+    const r = a.tool.x;
+    expect(pointReach(fwd, { ...p, yaw: 0, mountHeight: 0 }, { x: -r, y: 0, z: a.tool.z }).reached).toBe(true);
+    const restricted = { ...p, yaw: 0, mountHeight: 0, restrict: { j1Min: -90, j1Max: 90 } };
+    const behind = pointReach(fwd, restricted, { x: -r, y: 0, z: a.tool.z });
+    expect(behind.reached).toBe(false);
+    expect(behind.marginMm).toBeCloseTo(-r * (Math.PI / 2), 0);
+    // 10° past the restricting limit: margin −r·10° (the point lies well inside the profile).
+    const t = (100 * Math.PI) / 180;
+    const past = pointReach(fwd, restricted, { x: r * Math.cos(t), y: r * Math.sin(t), z: a.tool.z });
+    expect(past.marginMm).toBeCloseTo(-r * ((10 * Math.PI) / 180), 0);
+    // The same place turned by the arm's yaw is reached again.
+    expect(pointReach(fwd, { ...restricted, yaw: 180 }, { x: -r, y: 0, z: a.tool.z }).reached).toBe(true);
+  });
+
+  it('scara: plan region and stroke', () => {
+    const s = parseArmParams({ family: 'scara', innerLink: 325, outerLink: 275, strokeMin: 50, strokeMax: 250, toolLength: 40, axes: [ax(-180, 180), ax(-180, 180)] });
+    const c = makePointReach(s);
+    // r = 300 in the 50…600 annulus; flange at 110 + 40 = 150 → 100 mm from each stroke end.
+    expect(Math.abs(c({ x: 0, y: 300, z: 110 }).marginMm - 100)).toBeLessThanOrEqual(1);
+    expect(Math.abs(c({ x: 560, y: 0, z: 110 }).marginMm - 40)).toBeLessThanOrEqual(1);
+    expect(c({ x: 300, y: 0, z: 230 }).reached).toBe(false);
+    expect(Math.abs(c({ x: 300, y: 0, z: 230 }).marginMm + 20)).toBeLessThanOrEqual(1);
+    expect(c({ x: 0, y: 20, z: 110 }).reached).toBe(false);
+  });
+
+  it('armReach bundles the regions and margins the layout analysis needs', () => {
+    const m = deepFreeze(structuredClone(linkageSets[0]));
+    const r = armReach(m, { j1Min: -60, j1Max: 60 });
+    expect(r.maxReach).toBeGreaterThan(3000);
+    expect(r.zMin).toBeLessThan(r.zMax);
+    expect(r.restricted.length).toBeGreaterThan(0);
+    expect(r.bandAt(1200).length).toBeGreaterThan(0);
+    expect(r.margin(2500, 0, 1200)).toBeGreaterThan(0);
+    expect(r.margin(-2500, 0, 1200)).toBeLessThan(0);
+    expect(scaraSets.length).toBeGreaterThan(0);
+  });
+});
