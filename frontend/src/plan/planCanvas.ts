@@ -240,6 +240,8 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
   }
 
   function onKey(event: KeyboardEvent): void {
+    // A page that used the key already (an editor's capture-phase handler) has the last word.
+    if (event.defaultPrevented) return;
     if (event.altKey || event.ctrlKey || event.metaKey) return;
     switch (event.key) {
       case '+':
@@ -400,6 +402,7 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
   applyView(current);
 
   return {
+    svg,
     setStaticLayers,
     setLayerStyles,
     setBounds,

@@ -71,6 +71,8 @@ export interface PlanCanvasOptions {
 
 /** The canvas API. See the top of this file. */
 export interface PlanCanvas {
+  /** The svg the canvas draws into (for overlays that listen to pointer events on the drawing). */
+  readonly svg: SVGSVGElement;
   /** Replaces the static plan drawing: one path per layer, built once, never redrawn on zoom. */
   setStaticLayers(features: readonly PlanFeature[], styles?: LayerStyles): void;
   /** Restyles the static layers (colour, visibility, opacity) without rebuilding their paths. */

@@ -2,6 +2,7 @@ import type { ComponentType } from 'react';
 import type { ProjectDetailDto } from '@shared/schemas/project';
 import type { Action } from '@shared/policy';
 import { FloorPlanSection } from '../components/floorPlan/FloorPlanSection';
+import { LayoutsSection } from '../components/layout/LayoutsSection';
 import { ProjectDetails } from '../components/project/ProjectDetails';
 import { ProjectMembers } from '../components/project/ProjectMembers';
 
@@ -32,7 +33,13 @@ export const PROJECT_SECTIONS: ProjectSection[] = [
     requires: 'floorPlan.read',
     Component: FloorPlanSection,
   },
-  // ← "Layouts" goes here.
+  {
+    id: 'layouts',
+    title: 'Layouts',
+    lead: 'Working copies that place arms, work points and zones on a floor plan, with their findings.',
+    requires: 'layout.read',
+    Component: LayoutsSection,
+  },
   {
     id: 'members',
     title: 'Members',

@@ -1,0 +1,297 @@
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useNavigate } from 'react-router-dom';
+import type { Finding } from '@shared/analysis/types';
+import type { LayoutContent, LayoutDto } from '@shared/schemas/layout';
+import type { ArmModelDto } from '../../api/armModels';
+import type { FloorPlanDto } from '../../api/floorPlans';
+import { useCreateLayout } from '../../api/layouts';
+import { commandForKey } from '../../editor/editorKeys';
+import { addArm, addZone, duplicateArm, moveArm, moveZoneVertex, nudgeArm, removeArm, removeZone, rotateArm, roundMm, setArmYaw } from '../../editor/layoutEdits';
+import { useAnalysisWorker } from '../../editor/useAnalysisWorker';
+import { useLayoutEditor } from '../../editor/useLayoutEditor';
+import { PlanView } from '../../plan/PlanView';
+import type { PlanCanvas } from '../../plan/planTypes';
+import { screenToPlan, type PlanBounds } from '../../plan/viewTransform';
+import { layerStylesFor } from '../floorPlan/layerRoles';
+import { ArmInspector } from './ArmInspector';
+import { ConflictDialog } from './ConflictDialog';
+import { EditorToolbar } from './EditorToolbar';
+import { FindingsPanel } from './FindingsPanel';
+import { LayoutPanels } from './LayoutPanels';
+import { createLayoutScene, type EditorTool, type LayoutScene } from './layoutScene';
+import type { LayoutSelection } from './panelTypes';
+import { WorkHeightsEditor } from './WorkHeightsEditor';
+import { ZoneInspector } from './ZoneInspector';
+
+export interface LayoutEditorProps {
+  layout: LayoutDto;
+  floorPlan: FloorPlanDto | null;
+  armModels: ArmModelDto[];
+  /** Reviewers: no drag, no tools, the same findings. */
+  readOnly: boolean;
+}
+
+const ZONE_WORD = { fence: 'fence', keepout: 'keep-out', operator: 'operator area', opening: 'opening' } as const;
+/** Height a new fence gets until the planner types its own, mm (a common guard height). */
+const NEW_FENCE_HEIGHT_MM = 2000;
+const NO_HIGHLIGHT: ReadonlySet<string> = new Set();
+
+const isEditable = (t: EventTarget | null) => t instanceof HTMLElement && (t.isContentEditable || /^(INPUT|TEXTAREA|SELECT)$/.test(t.tagName));
+
+/** Plan bounds of a finding: its geometry's box, or 5 m around its spot. */
+function findingBounds(f: Finding): PlanBounds | null {
+  const pad = 1500;
+  if (f.geometry) {
+    const rings = f.geometry.type === 'Polygon' ? f.geometry.coordinates : f.geometry.coordinates.flat();
+    let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+    for (const r of rings) for (const [x, y] of r) {
+      minX = Math.min(minX, x); minY = Math.min(minY, y); maxX = Math.max(maxX, x); maxY = Math.max(maxY, y);
+    }
+    if (Number.isFinite(minX)) return { minX: minX - pad, minY: minY - pad, maxX: maxX + pad, maxY: maxY + pad };
+  }
+  if (f.at) return { minX: f.at[0] - 2500, minY: f.at[1] - 2500, maxX: f.at[0] + 2500, maxY: f.at[1] + 2500 };
+  return null;
+}
+
+/** The layout editor: plan with arms, reach and zones, tools, inspector, live findings from the worker. */
+export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly }: LayoutEditorProps) {
+  const ed = useLayoutEditor(layout);
+  const { content, edit } = ed;
+  const conflict = ed.save.kind === 'conflict';
+  const readOnly = viewOnly || conflict;
+  const [selection, setSelection] = useState<LayoutSelection | null>(null);
+  const [tool, setTool] = useState<EditorTool>('select');
+  const [hint, setHint] = useState<string | null>(null);
+  const [bandHeight, setBandHeight] = useState<number | null>(layout.content.workHeights[0] ?? null);
+  const [focusHeightOf, setFocusHeightOf] = useState<string | null>(null);
+  const [conflictOpen, setConflictOpen] = useState(true);
+  const [canvas, setCanvas] = useState<PlanCanvas | null>(null);
+  const scene = useRef<LayoutScene | null>(null);
+  const contentRef = useRef(content);
+  contentRef.current = content;
+  const navigate = useNavigate();
+  const createLayout = useCreateLayout(layout.projectId);
+
+  const models = useMemo(() => armModels.map((m) => ({ id: m.id, params: m.params })), [armModels]);
+  const floor = useMemo(
+    () => (floorPlan ? { geometry: floorPlan.geometry, layers: floorPlan.layers.map((l) => ({ name: l.name, role: l.role, height: l.height })) } : null),
+    [floorPlan],
+  );
+  const live = useAnalysisWorker({ models, floor, content });
+  const findings = live.view?.analysis.findings ?? null;
+  const selectedFinding = selection?.kind === 'finding' ? (findings?.find((f) => f.id === selection.id) ?? null) : null;
+  const highlightArms = useMemo(() => (selectedFinding ? new Set(selectedFinding.arms) : NO_HIGHLIGHT), [selectedFinding]);
+
+  const styles = useMemo(() => (floorPlan ? layerStylesFor(floorPlan.layers, new Set()) : {}), [floorPlan]);
+  const bounds = useMemo(() => {
+    if (floorPlan) return floorPlan.bounds;
+    const xs = content.arms.map((a) => a.x);
+    const ys = content.arms.map((a) => a.y);
+    return xs.length ? { minX: Math.min(...xs) - 3000, minY: Math.min(...ys) - 3000, maxX: Math.max(...xs) + 3000, maxY: Math.max(...ys) + 3000 } : { minX: -5000, minY: -5000, maxX: 5000, maxY: 5000 };
+    // Bounds are fitted once; later arm moves must not refit the view.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [floorPlan]);
+
+  // The latest callbacks for the scene, which is created once per canvas.
+  const handlers = useRef({
+    onArmMoved: (id: string, x: number, y: number) => edit(moveArm(contentRef.current, id, x, y), `Move ${id}`, `drag:${id}`),
+    onArmTurned: (id: string, yaw: number) => edit(setArmYaw(contentRef.current, id, yaw), `Turn ${id}`, `turn:${id}`),
+    onVertexMoved: (zoneId: string, index: number, to: [number, number]) =>
+      edit(moveZoneVertex(contentRef.current, zoneId, index, to), `Move corner of ${zoneId}`, `vertex:${zoneId}:${index}`),
+    onShapeDrawn: (kind: Exclude<EditorTool, 'select'>, points: Array<[number, number]>) => {
+      try {
+        const r = addZone(contentRef.current, kind, points, kind === 'fence' ? { height: NEW_FENCE_HEIGHT_MM } : {});
+        edit(r.content, `Draw ${ZONE_WORD[kind]} ${r.id}`);
+        setSelection({ kind: 'zone', id: r.id });
+        if (kind === 'fence') {
+          setFocusHeightOf(r.id);
+          setTool('select');
+          setHint(`Fence ${r.id} drawn at ${NEW_FENCE_HEIGHT_MM} mm: type its real height in the inspector.`);
+        }
+      } catch (err) {
+        setHint(err instanceof Error ? err.message.replace(/^\w+: /, '') : String(err));
+      }
+    },
+  });
+  const postDrag = live.postDrag;
+
+  useEffect(() => {
+    if (!canvas) return;
+    const s = createLayoutScene(canvas, canvas.svg, {
+      onSelect: (sel) => setSelection(sel),
+      onDragPose: (pose) => postDrag(pose),
+      onArmMoved: (...a) => handlers.current.onArmMoved(...a),
+      onArmTurned: (...a) => handlers.current.onArmTurned(...a),
+      onVertexMoved: (...a) => handlers.current.onVertexMoved(...a),
+      onShapeDrawn: (...a) => handlers.current.onShapeDrawn(...a),
+      onHint: (t) => setHint(t),
+    });
+    scene.current = s;
+    return () => {
+      s.destroy();
+      scene.current = null;
+    };
+  }, [canvas, postDrag]);
+
+  useEffect(() => {
+    scene.current?.update({
+      content,
+      view: live.view,
+      selection,
+      highlightArms,
+      findingGeometry: selectedFinding?.geometry ?? null,
+      tool: readOnly ? 'select' : tool,
+      bandHeight,
+      readOnly,
+    });
+  }, [canvas, content, live.view, selection, highlightArms, selectedFinding, tool, bandHeight, readOnly]);
+
+  const selectedArm = selection?.kind === 'arm' ? content.arms.find((a) => a.id === selection.id) : undefined;
+  const selectedZone = selection?.kind === 'zone' ? content.zones.find((z) => z.id === selection.id) : undefined;
+
+  const onAddArm = useCallback(
+    (modelId: number) => {
+      const c = canvas?.view();
+      const centre = c && c.width > 0 ? screenToPlan(c.transform, c.width / 2, c.height / 2) : { x: 0, y: 0 };
+      const r = addArm(contentRef.current, modelId, [roundMm(centre.x), roundMm(centre.y)]);
+      edit(r.content, `Add ${r.id}`);
+      setSelection({ kind: 'arm', id: r.id });
+      setTool('select');
+    },
+    [canvas, edit],
+  );
+
+  // Keys: captured before the plan's own keys (which pan with the arrows when nothing is selected).
+  useEffect(() => {
+    function onKey(e: KeyboardEvent) {
+      if (isEditable(e.target) || document.querySelector('dialog[open]')) return;
+      const cmd = commandForKey(e, { armSelected: !!selectedArm && !readOnly, zoneSelected: !!selectedZone && !readOnly, drawing: tool !== 'select' && !readOnly });
+      if (!cmd) return;
+      const c = contentRef.current;
+      switch (cmd.kind) {
+        case 'undo':
+          if (readOnly) return;
+          ed.undo();
+          break;
+        case 'redo':
+          if (readOnly) return;
+          ed.redo();
+          break;
+        case 'nudge':
+          edit(nudgeArm(c, selectedArm!.id, cmd.dx, cmd.dy), `Move ${selectedArm!.id}`, `nudge:${selectedArm!.id}`);
+          break;
+        case 'rotate':
+          edit(rotateArm(c, selectedArm!.id, cmd.delta), `Turn ${selectedArm!.id}`, `turn:${selectedArm!.id}`);
+          break;
+        case 'duplicate': {
+          const r = duplicateArm(c, selectedArm!.id);
+          edit(r.content, `Duplicate ${selectedArm!.id}`);
+          setSelection({ kind: 'arm', id: r.id });
+          break;
+        }
+        case 'delete':
+          if (selectedArm) edit(removeArm(c, selectedArm.id), `Remove ${selectedArm.id}`);
+          else if (selectedZone) edit(removeZone(c, selectedZone.id), `Remove ${selectedZone.id}`);
+          setSelection(null);
+          break;
+        case 'finish':
+          scene.current?.finishDraw();
+          break;
+        case 'cancel':
+          if (scene.current?.isDrawing()) scene.current.cancelDraw();
+          else if (tool !== 'select') setTool('select');
+          else setSelection(null);
+          break;
+      }
+      e.preventDefault();
+    }
+    document.addEventListener('keydown', onKey, true);
+    return () => document.removeEventListener('keydown', onKey, true);
+  }, [ed, edit, readOnly, selectedArm, selectedZone, tool]);
+
+  function pickFinding(f: Finding) {
+    setSelection({ kind: 'finding', id: f.id });
+    const b = findingBounds(f);
+    if (b && canvas) canvas.fit(b, { animate: true });
+  }
+
+  async function keepMineAsCopy() {
+    const copy = await createLayout.mutateAsync({ name: `${layout.name} (my copy)`.slice(0, 160), floorPlanId: layout.floorPlanId, content: contentRef.current });
+    await navigate(`/projects/${layout.projectId}/layouts/${copy.id}`);
+  }
+
+  const panelEdit = useCallback((next: LayoutContent, label: string) => edit(next, label), [edit]);
+  const modelList = useMemo(() => armModels.map((m) => ({ id: m.id, name: m.name, maxReach: m.maxReach })), [armModels]);
+  const undoLabel = ed.history.label;
+  const redoLabel = ed.history.future[0]?.label ?? '';
+
+  return (
+    <div className="flex flex-col gap-3" data-layout-editor data-read-only={readOnly ? 'true' : 'false'}>
+      <EditorToolbar
+        readOnly={readOnly}
+        tool={tool}
+        onTool={(t) => {
+          setTool(t);
+          if (t !== 'select') setSelection(null);
+        }}
+        armModels={modelList}
+        onAddArm={onAddArm}
+        canUndo={ed.canUndo}
+        canRedo={ed.canRedo}
+        undoLabel={undoLabel}
+        redoLabel={redoLabel}
+        onUndo={ed.undo}
+        onRedo={ed.redo}
+        save={ed.save}
+        onRetrySave={() => void ed.saveNow()}
+      />
+      <div className="grid min-h-0 grid-cols-[minmax(0,1fr)_22rem] gap-3">
+        <div className="flex min-w-0 flex-col gap-1">
+          <PlanView
+            geometry={floorPlan?.geometry ?? null}
+            layerStyles={styles}
+            bounds={bounds}
+            onCanvas={setCanvas}
+            label={`Layout ${layout.name}`}
+            className="h-[min(70vh,46rem)]"
+          />
+          <p className="min-h-5 text-xs text-ink-muted" aria-live="polite" data-hint>
+            {hint ?? (readOnly ? '' : tool === 'select' ? 'Click an arm to select it; drag to move it, drag its round handle to turn it.' : '')}
+          </p>
+        </div>
+        <aside className="flex min-h-0 flex-col gap-3" aria-label="Inspector and findings">
+          <div className="rounded-control border border-rule bg-paper-raised p-3">
+            {selectedArm ? (
+              <ArmInspector arm={selectedArm} content={content} armModels={modelList} readOnly={readOnly} onEdit={edit} onSelectArm={(id) => setSelection(id ? { kind: 'arm', id } : null)} />
+            ) : selectedZone ? (
+              <ZoneInspector zone={selectedZone} content={content} readOnly={readOnly} focusHeight={focusHeightOf === selectedZone.id} onEdit={edit} onDeselect={() => setSelection(null)} />
+            ) : (
+              <WorkHeightsEditor content={content} readOnly={readOnly} onEdit={edit} bandHeight={bandHeight} onBandHeight={setBandHeight} />
+            )}
+          </div>
+          <div className="flex max-h-[34rem] min-h-0 flex-1 flex-col">
+            <FindingsPanel findings={findings} selectedId={selectedFinding?.id ?? null} onPick={pickFinding} busy={live.busy} error={live.error} timingMs={live.view?.analysis.timingMs ?? null} />
+          </div>
+        </aside>
+      </div>
+      <LayoutPanels
+        content={content}
+        analysis={live.view?.analysis ?? null}
+        armModels={modelList}
+        readOnly={readOnly}
+        onEdit={panelEdit}
+        onSelect={setSelection}
+        selected={selection}
+      />
+      <ConflictDialog
+        open={conflict && conflictOpen}
+        onClose={() => setConflictOpen(false)}
+        onReloadTheirs={async () => {
+          await ed.reloadFromServer();
+          setConflictOpen(true);
+        }}
+        onKeepMineAsCopy={keepMineAsCopy}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,150 @@
+import { useState, type FormEvent } from 'react';
+import { Link, useNavigate } from 'react-router-dom';
+import type { ProjectDetailDto } from '@shared/schemas/project';
+import { can } from '@shared/policy';
+import { useSessionUser } from '../../api/auth';
+import { useFloorPlans } from '../../api/floorPlans';
+import { useCreateLayout, useDeleteLayout, useLayouts, type LayoutSummaryDto } from '../../api/layouts';
+import { formatDateTime } from '../../lib/format';
+import { Button } from '../Button';
+import { ConfirmDialog } from '../ConfirmDialog';
+import { Dialog, DialogActions } from '../Dialog';
+import { SelectField, TextField } from '../Field';
+import { EmptyState, ErrorNotice, LoadingNotice } from '../Notice';
+
+/** The project page's "Layouts" section: the working layouts, a new one, open and delete. */
+export function LayoutsSection({ project }: { project: ProjectDetailDto }) {
+  const user = useSessionUser();
+  const mayWrite = can(user.role, 'layout.write');
+  const layouts = useLayouts(project.id);
+  const plans = useFloorPlans(project.id);
+  const [creating, setCreating] = useState(false);
+  const [deleting, setDeleting] = useState<LayoutSummaryDto | null>(null);
+  const remove = useDeleteLayout(project.id);
+
+  if (layouts.isPending) return <LoadingNotice label="Loading layouts…" />;
+  if (layouts.isError) return <ErrorNotice error={layouts.error} title="Layouts could not be loaded" />;
+  const planName = (id: number | null) => (id === null ? '—' : (plans.data?.find((p) => p.id === id)?.fileName ?? `plan ${id}`));
+
+  return (
+    <div className="flex flex-col gap-4">
+      {layouts.data.length === 0 ? (
+        <EmptyState title="No layout yet — a layout places arms, work points and zones on a floor plan.">
+          {!mayWrite && <p>A planner of the project adds it.</p>}
+        </EmptyState>
+      ) : (
+        <table aria-label="Layouts" className="w-full border-collapse rounded-control border border-rule bg-paper-raised text-sm">
+          <thead>
+            <tr className="border-b border-rule-strong bg-paper-sunk text-left text-xs font-bold tracking-wide text-ink-muted uppercase">
+              <th scope="col" className="px-3 py-2">Layout</th>
+              <th scope="col" className="px-3 py-2">Floor plan</th>
+              <th scope="col" className="px-3 py-2 text-right">Arms</th>
+              <th scope="col" className="px-3 py-2 text-right">Work points</th>
+              <th scope="col" className="px-3 py-2 text-right">Zones</th>
+              <th scope="col" className="px-3 py-2">Updated</th>
+              {mayWrite && <th scope="col" className="px-3 py-2"><span className="sr-only">Actions</span></th>}
+            </tr>
+          </thead>
+          <tbody>
+            {layouts.data.map((l) => (
+              <tr key={l.id} className="border-b border-rule last:border-b-0 hover:bg-paper">
+                <td className="px-3 py-2">
+                  <Link to={`/projects/${project.id}/layouts/${l.id}`} className="font-bold text-accent underline-offset-4 hover:underline">
+                    {l.name}
+                  </Link>
+                </td>
+                <td className="px-3 py-2 text-ink-muted">{planName(l.floorPlanId)}</td>
+                <td className="px-3 py-2 text-right tabular-nums">{l.counts.arms}</td>
+                <td className="px-3 py-2 text-right tabular-nums">{l.counts.workPoints}</td>
+                <td className="px-3 py-2 text-right tabular-nums">{l.counts.zones}</td>
+                <td className="px-3 py-2 text-ink-muted tabular-nums">{formatDateTime(l.updatedAt)}</td>
+                {mayWrite && (
+                  <td className="px-3 py-2 text-right">
+                    <Button size="sm" variant="quiet" aria-label={`Delete ${l.name}`} onClick={() => setDeleting(l)}>
+                      Delete
+                    </Button>
+                  </td>
+                )}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+      {mayWrite && (
+        <div>
+          <Button variant="primary" onClick={() => setCreating(true)}>
+            New layout
+          </Button>
+        </div>
+      )}
+      <NewLayoutDialog open={creating} onClose={() => setCreating(false)} project={project} plans={plans.data ?? []} />
+      <ConfirmDialog
+        open={deleting !== null}
+        title="Delete this layout?"
+        confirmLabel="Delete layout"
+        busy={remove.isPending}
+        error={remove.error}
+        onClose={() => {
+          setDeleting(null);
+          remove.reset();
+        }}
+        onConfirm={() => deleting && remove.mutate(deleting.id, { onSuccess: () => setDeleting(null) })}
+      >
+        <p>
+          <strong>{deleting?.name}</strong> and its {deleting?.counts.arms ?? 0} arms, {deleting?.counts.workPoints ?? 0} work points and {deleting?.counts.zones ?? 0} zones will be gone. Revisions already submitted are kept.
+        </p>
+      </ConfirmDialog>
+    </div>
+  );
+}
+
+function NewLayoutDialog({ open, onClose, project, plans }: { open: boolean; onClose(): void; project: ProjectDetailDto; plans: Array<{ id: number; fileName: string }> }) {
+  const create = useCreateLayout(project.id);
+  const navigate = useNavigate();
+  const [name, setName] = useState('');
+  const [planId, setPlanId] = useState<string>('');
+  const [error, setError] = useState<string | undefined>();
+  const chosenPlan = planId || (plans[0] ? String(plans[0].id) : '');
+
+  function submit(e: FormEvent) {
+    e.preventDefault();
+    if (!name.trim()) {
+      setError('Name the layout');
+      return;
+    }
+    setError(undefined);
+    create.mutate(
+      { name: name.trim(), floorPlanId: chosenPlan ? Number(chosenPlan) : null },
+      {
+        onSuccess: (l) => {
+          onClose();
+          setName('');
+          void navigate(`/projects/${project.id}/layouts/${l.id}`);
+        },
+      },
+    );
+  }
+
+  return (
+    <Dialog open={open} title="New layout" onClose={onClose} description="A working copy where arms, work points and zones are placed on one floor plan.">
+      <form onSubmit={submit} className="flex flex-col gap-4" noValidate>
+        <TextField label="Name" value={name} onChange={(e) => setName(e.target.value)} error={error} maxLength={160} autoFocus placeholder="e.g. Line 3 — option B" />
+        <SelectField label="Floor plan" value={chosenPlan} onChange={(e) => setPlanId(e.target.value)} hint={plans.length === 0 ? 'The project has no floor plan yet; the layout starts on an empty sheet.' : undefined}>
+          {plans.map((p) => (
+            <option key={p.id} value={p.id}>
+              {p.fileName}
+            </option>
+          ))}
+          <option value="">No floor plan</option>
+        </SelectField>
+        {create.isError && <ErrorNotice error={create.error} />}
+        <DialogActions>
+          <Button onClick={onClose}>Cancel</Button>
+          <Button type="submit" variant="primary" busy={create.isPending}>
+            Create layout
+          </Button>
+        </DialogActions>
+      </form>
+    </Dialog>
+  );
+}

@@ -1,0 +1,319 @@
+/**
+ * Drawing of the layout editor's overlays on the plan canvas: reach regions, shared zones, zones,
+ * work points (plan space, mm, y north) and the marks that keep their size on screen (arm bases,
+ * labels, handles; screen px). d3 joins only; no state and no event handling here.
+ */
+import type { Selection } from 'd3';
+import type { AreaGeometry } from '@shared/geometry/geojson';
+import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
+import { geometryPath } from '../../plan/pathData';
+import type { PlanViewState } from '../../plan/planTypes';
+import type { AnalysisView } from '../../workers/analysisProtocol';
+
+type G = Selection<SVGGElement, unknown, null, undefined>;
+type XY = [number, number];
+
+/** Colours of the editor's drawing: theme tokens where styles.css has them, with a fallback. */
+export const SCENE_COLOURS = {
+  reach: 'var(--color-reach)',
+  shared: 'var(--color-shared-zone)',
+  fence: 'var(--color-zone-fence, #1c2230)',
+  keepout: 'var(--color-zone-keepout, #5f6472)',
+  operator: 'var(--color-zone-operator, #c27c0e)',
+  opening: 'var(--color-zone-opening, #0b6e69)',
+  point: 'var(--color-ink)',
+  unreached: 'var(--color-finding-critical)',
+  selected: 'var(--color-accent)',
+  finding: 'var(--color-finding-warning)',
+  paper: 'var(--color-paper-raised, #fff)',
+} as const;
+
+/** Id of the shared-zone hatch pattern (one per page). */
+export const HATCH_ID = 'rf-shared-hatch';
+export const KEEPOUT_HATCH_ID = 'rf-keepout-hatch';
+/** Screen length of an arm's J1-zero tick, px (the turn handle sits at its end). */
+export const TICK_PX = 34;
+
+/** The hatch patterns, sized in plan mm so their lines are ~7 px apart at the current zoom. */
+export function drawPatterns(layer: G, view: PlanViewState): void {
+  const k = view.transform.k || 1;
+  const defs = layer.selectAll<SVGDefsElement, null>('defs').data([null]).join('defs');
+  const spec = [
+    { id: HATCH_ID, px: 7, colour: SCENE_COLOURS.shared, width: 1.4 },
+    { id: KEEPOUT_HATCH_ID, px: 9, colour: SCENE_COLOURS.keepout, width: 1 },
+  ];
+  const pats = defs
+    .selectAll<SVGPatternElement, (typeof spec)[number]>('pattern')
+    .data(spec, (d) => d.id)
+    .join((enter) => {
+      const p = enter.append('pattern').attr('id', (d) => d.id).attr('patternUnits', 'userSpaceOnUse');
+      p.append('path');
+      return p;
+    });
+  pats
+    .attr('width', (d) => d.px / k)
+    .attr('height', (d) => d.px / k)
+    .attr('patternTransform', 'rotate(45)')
+    .select('path')
+    .attr('d', (d) => `M0,0V${d.px / k}`)
+    .style('stroke', (d) => d.colour)
+    .attr('stroke-width', (d) => d.width / k);
+}
+
+function zonePath(z: Zone): string {
+  if (z.points.length === 0) return '';
+  const d = z.points.map((p, i) => `${i ? 'L' : 'M'}${p[0]},${p[1]}`).join('');
+  return z.kind === 'keepout' || z.kind === 'operator' ? `${d}Z` : d;
+}
+
+/** Keep-out and operator areas (plan space), below the reach. */
+export function drawAreaZones(layer: G, zones: readonly Zone[], selectedZone: string | null): void {
+  const areas = zones.filter((z) => z.kind === 'keepout' || z.kind === 'operator');
+  layer
+    .selectAll<SVGPathElement, Zone>('path.zone-area')
+    .data(areas, (z) => z.id)
+    .join('path')
+    .attr('class', 'zone-area')
+    .attr('data-zone', (z) => z.id)
+    .attr('data-kind', (z) => z.kind)
+    .attr('d', zonePath)
+    .attr('vector-effect', 'non-scaling-stroke')
+    .style('fill', (z) => (z.kind === 'operator' ? SCENE_COLOURS.operator : `url(#${KEEPOUT_HATCH_ID})`))
+    .style('fill-opacity', (z) => (z.kind === 'operator' ? 0.16 : 1))
+    .style('stroke', (z) => (z.id === selectedZone ? SCENE_COLOURS.selected : z.kind === 'operator' ? SCENE_COLOURS.operator : SCENE_COLOURS.keepout))
+    .style('stroke-width', (z) => (z.id === selectedZone ? 2.5 : 1.5))
+    .style('stroke-dasharray', (z) => (z.kind === 'operator' ? '7 3' : null))
+    .style('cursor', 'pointer');
+}
+
+export interface ArmRegionsDatum {
+  arm: ArmPlacement;
+  /** Pose the shown pose differs from the analysed one by: a transform in plan mm. */
+  transform: string;
+  max: AreaGeometry | null;
+  restricted: AreaGeometry | null;
+  band: AreaGeometry | null;
+  emphasis: boolean;
+}
+
+/**
+ * Each arm's maximum space (dashed outline), restricted space (light fill) and the reach band at
+ * the chosen work height (strong outline), plan space. The group's transform follows a drag until
+ * the worker's next result arrives.
+ */
+export function drawReach(layer: G, data: readonly ArmRegionsDatum[]): void {
+  const groups = layer
+    .selectAll<SVGGElement, ArmRegionsDatum>('g.arm-reach')
+    .data(data, (d) => d.arm.id)
+    .join((enter) => {
+      const g = enter.append('g').attr('class', 'arm-reach').attr('pointer-events', 'none');
+      g.append('path').attr('class', 'reach-restricted').attr('fill-rule', 'evenodd').attr('vector-effect', 'non-scaling-stroke');
+      g.append('path').attr('class', 'reach-max').attr('fill', 'none').attr('vector-effect', 'non-scaling-stroke');
+      g.append('path').attr('class', 'reach-band').attr('fill', 'none').attr('vector-effect', 'non-scaling-stroke');
+      return g;
+    })
+    .attr('data-arm', (d) => d.arm.id)
+    .attr('transform', (d) => d.transform);
+  groups
+    .select('path.reach-restricted')
+    .attr('d', (d) => geometryPath(d.restricted))
+    .style('fill', SCENE_COLOURS.reach)
+    .style('fill-opacity', (d) => (d.emphasis ? 0.17 : 0.1))
+    .style('stroke', SCENE_COLOURS.reach)
+    .style('stroke-opacity', 0.45)
+    .style('stroke-width', 1);
+  groups
+    .select('path.reach-max')
+    .attr('d', (d) => geometryPath(d.max))
+    .style('stroke', SCENE_COLOURS.reach)
+    .style('stroke-opacity', 0.75)
+    .style('stroke-width', 1)
+    .style('stroke-dasharray', '6 4');
+  groups
+    .select('path.reach-band')
+    .attr('d', (d) => geometryPath(d.band))
+    .style('stroke', SCENE_COLOURS.reach)
+    .style('stroke-width', (d) => (d.emphasis ? 2.5 : 2));
+}
+
+/** Shared zones: hatched (the pattern) with an outline, plan space. */
+export function drawSharedZones(layer: G, overlaps: AnalysisView['analysis']['overlaps'], selectedPair: string | null): void {
+  layer
+    .selectAll<SVGPathElement, (typeof overlaps)[number]>('path.shared-zone')
+    .data(overlaps, (o) => o.arms.join('+'))
+    .join('path')
+    .attr('class', 'shared-zone')
+    .attr('data-shared', (o) => o.arms.join('+'))
+    .attr('d', (o) => geometryPath(o.geometry))
+    .attr('fill-rule', 'evenodd')
+    .attr('vector-effect', 'non-scaling-stroke')
+    .attr('pointer-events', 'none')
+    .style('fill', `url(#${HATCH_ID})`)
+    .style('stroke', SCENE_COLOURS.shared)
+    .style('stroke-width', (o) => (o.arms.join('+') === selectedPair ? 3 : 1.5));
+}
+
+/** Fences (thick lines) and openings (a paper-coloured gap drawn over the fence), plan space. */
+export function drawLineZones(layer: G, zones: readonly Zone[], selectedZone: string | null): void {
+  const lines = zones.filter((z) => z.kind === 'fence' || z.kind === 'opening');
+  // Openings after fences so the gap covers the fence line.
+  lines.sort((a, b) => (a.kind === b.kind ? 0 : a.kind === 'fence' ? -1 : 1));
+  layer
+    .selectAll<SVGPathElement, Zone>('path.zone-line')
+    .data(lines, (z) => z.id)
+    .join('path')
+    .attr('class', 'zone-line')
+    .attr('data-zone', (z) => z.id)
+    .attr('data-kind', (z) => z.kind)
+    .attr('d', zonePath)
+    .attr('fill', 'none')
+    .attr('vector-effect', 'non-scaling-stroke')
+    .attr('stroke-linecap', (z) => (z.kind === 'opening' ? 'butt' : 'square'))
+    .attr('stroke-linejoin', 'miter')
+    .style('stroke', (z) => (z.kind === 'opening' ? SCENE_COLOURS.paper : z.id === selectedZone ? SCENE_COLOURS.selected : SCENE_COLOURS.fence))
+    .style('stroke-width', (z) => (z.kind === 'opening' ? 7 : 4.5))
+    .style('cursor', 'pointer');
+}
+
+/** Work points as small crosses (plan space, ~5 px arms); red where no arm reaches them. */
+export function drawWorkPoints(layer: G, content: LayoutContent, coverage: Record<string, Record<string, number>> | null, view: PlanViewState, selectedPoint: string | null): void {
+  const s = 5 / (view.transform.k || 1);
+  let ok = '';
+  let bad = '';
+  let sel = '';
+  for (const p of content.workPoints) {
+    const row = coverage?.[p.id];
+    const reached = !row || content.arms.length === 0 || Object.values(row).some((m) => m >= 0);
+    const d = `M${p.x - s},${p.y - s}L${p.x + s},${p.y + s}M${p.x - s},${p.y + s}L${p.x + s},${p.y - s}`;
+    if (p.id === selectedPoint) sel += d;
+    else if (reached) ok += d;
+    else bad += d;
+  }
+  layer
+    .selectAll<SVGPathElement, { cls: string; d: string; colour: string; w: number }>('path')
+    .data([
+      { cls: 'points-reached', d: ok, colour: SCENE_COLOURS.point, w: 1.3 },
+      { cls: 'points-unreached', d: bad, colour: SCENE_COLOURS.unreached, w: 2 },
+      { cls: 'points-selected', d: sel, colour: SCENE_COLOURS.selected, w: 2.5 },
+    ])
+    .join('path')
+    .attr('class', (d) => d.cls)
+    .attr('d', (d) => d.d)
+    .attr('fill', 'none')
+    .attr('vector-effect', 'non-scaling-stroke')
+    .attr('pointer-events', 'none')
+    .style('stroke', (d) => d.colour)
+    .style('stroke-width', (d) => d.w);
+}
+
+/** The selected finding's own geometry, outlined (plan space). */
+export function drawFindingGeometry(layer: G, geometry: AreaGeometry | null): void {
+  layer
+    .selectAll<SVGPathElement, AreaGeometry>('path.finding-geometry')
+    .data(geometry ? [geometry] : [])
+    .join('path')
+    .attr('class', 'finding-geometry')
+    .attr('d', (g) => geometryPath(g))
+    .attr('fill', 'none')
+    .attr('vector-effect', 'non-scaling-stroke')
+    .attr('pointer-events', 'none')
+    .style('stroke', SCENE_COLOURS.finding)
+    .style('stroke-width', 3)
+    .style('stroke-dasharray', '2 3');
+}
+
+/** Where on screen a zone's label goes: the middle of its longest segment (lines) or its vertex centre (areas). */
+export function zoneLabelAt(z: Zone): XY {
+  const pts = z.points as XY[];
+  if (z.kind === 'fence' || z.kind === 'opening') {
+    let best = 0;
+    let at: XY = pts[0];
+    for (let i = 0; i + 1 < pts.length; i++) {
+      const len = Math.hypot(pts[i + 1][0] - pts[i][0], pts[i + 1][1] - pts[i][1]);
+      if (len > best) {
+        best = len;
+        at = [(pts[i][0] + pts[i + 1][0]) / 2, (pts[i][1] + pts[i + 1][1]) / 2];
+      }
+    }
+    return at;
+  }
+  const sx = pts.reduce((s, p) => s + p[0], 0);
+  const sy = pts.reduce((s, p) => s + p[1], 0);
+  return [sx / pts.length, sy / pts.length];
+}
+
+/** Text of a zone's label on the plan. */
+export function zoneLabelText(z: Zone): string {
+  const name = z.label ? `${z.id} ${z.label}` : z.id;
+  switch (z.kind) {
+    case 'fence':
+      return `${name} · fence ${Math.round(z.height ?? 0)} mm`;
+    case 'opening':
+      return `${name} · access opening`;
+    case 'operator':
+      return `${name} · OPERATOR AREA — people work here`;
+    case 'keepout':
+      return `${name} · keep-out`;
+  }
+}
+
+/** Zone labels and opening end marks (screen space). */
+export function drawZoneMarks(layer: G, zones: readonly Zone[], view: PlanViewState): void {
+  const labels = layer
+    .selectAll<SVGTextElement, Zone>('text.zone-label')
+    .data(zones.filter((z) => z.points.length >= 2), (z) => z.id)
+    .join('text')
+    .attr('class', 'zone-label')
+    .attr('data-zone', (z) => z.id)
+    .attr('pointer-events', 'none')
+    .attr('text-anchor', 'middle')
+    .attr('paint-order', 'stroke')
+    .style('stroke', SCENE_COLOURS.paper)
+    .style('stroke-width', 3)
+    .style('font', (z) => `${z.kind === 'operator' ? 700 : 400} 11px var(--font-sans, sans-serif)`)
+    .style('fill', (z) => (z.kind === 'operator' ? SCENE_COLOURS.operator : z.kind === 'keepout' ? SCENE_COLOURS.keepout : SCENE_COLOURS.fence))
+    .text(zoneLabelText);
+  labels.each(function (z) {
+    const [sx, sy] = view.toScreen({ x: zoneLabelAt(z)[0], y: zoneLabelAt(z)[1] });
+    this.setAttribute('x', String(sx));
+    this.setAttribute('y', String(z.kind === 'fence' ? sy - 8 : z.kind === 'opening' ? sy + 16 : sy));
+  });
+  // Openings: a short bar across the fence at each end, so the gap reads as a door.
+  const ends: Array<{ key: string; a: XY; b: XY }> = [];
+  for (const z of zones) {
+    if (z.kind !== 'opening' || z.points.length !== 2) continue;
+    const [p, q] = z.points.map(([x, y]) => view.toScreen({ x, y }));
+    const len = Math.hypot(q[0] - p[0], q[1] - p[1]) || 1;
+    const nx = (-(q[1] - p[1]) / len) * 8;
+    const ny = ((q[0] - p[0]) / len) * 8;
+    for (const [i, e] of [p, q].entries()) ends.push({ key: `${z.id}:${i}`, a: [e[0] - nx, e[1] - ny], b: [e[0] + nx, e[1] + ny] });
+  }
+  layer
+    .selectAll<SVGLineElement, (typeof ends)[number]>('line.opening-end')
+    .data(ends, (d) => d.key)
+    .join('line')
+    .attr('class', 'opening-end')
+    .attr('pointer-events', 'none')
+    .attr('x1', (d) => d.a[0])
+    .attr('y1', (d) => d.a[1])
+    .attr('x2', (d) => d.b[0])
+    .attr('y2', (d) => d.b[1])
+    .style('stroke', SCENE_COLOURS.opening)
+    .style('stroke-width', 3);
+}
+
+/** Work point ids beside their crosses (screen space), only while few enough to read. */
+export function drawPointLabels(layer: G, content: LayoutContent, view: PlanViewState, limit = 150): void {
+  const pts = content.workPoints.length <= limit ? content.workPoints : [];
+  layer
+    .selectAll<SVGTextElement, (typeof pts)[number]>('text.point-label')
+    .data(pts, (p) => p.id)
+    .join('text')
+    .attr('class', 'point-label')
+    .attr('pointer-events', 'none')
+    .attr('x', (p) => view.toScreen({ x: p.x, y: p.y })[0] + 7)
+    .attr('y', (p) => view.toScreen({ x: p.x, y: p.y })[1] - 5)
+    .style('font', '10px var(--font-mono, monospace)')
+    .style('fill', 'var(--color-ink-muted)')
+    .text((p) => p.id);
+}

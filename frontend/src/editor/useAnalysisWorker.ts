@@ -1,0 +1,99 @@
+import { useCallback, useEffect, useRef, useState } from 'react';
+import type { FeatureCollection } from 'geojson';
+import type { FloorLayer } from '@shared/analysis/floor';
+import type { LayoutContent } from '@shared/schemas/layout';
+import type { AnalysisView, DragPose, FromWorker, ToWorker, WorkerArmModel } from '../workers/analysisProtocol';
+
+export interface LiveAnalysis {
+  /** The latest result (of the content, or of the content with a drag pose); null until the first. */
+  view: (AnalysisView & { dragging: boolean }) | null;
+  error: string | null;
+  /** True while a newer input than the shown result is being analysed. */
+  busy: boolean;
+  /** Tells the worker the pose of an arm being dragged; posted at most once per animation frame. */
+  postDrag(pose: DragPose | null): void;
+}
+
+/**
+ * Runs the layout analysis in a Web Worker: the models and the floor are posted when they change
+ * (rarely), the content on every edit, drag poses throttled to animation frames. The worker keeps
+ * one analyzer, so a drag recomputes only the dragged arm's parts.
+ */
+export function useAnalysisWorker(input: {
+  models: WorkerArmModel[] | null;
+  floor: { geometry: FeatureCollection; layers: FloorLayer[] } | null;
+  content: LayoutContent;
+}): LiveAnalysis {
+  const worker = useRef<Worker | null>(null);
+  const seq = useRef(0);
+  const shown = useRef(0);
+  const frame = useRef<number | null>(null);
+  const pendingPose = useRef<DragPose | null>(null);
+  const [view, setView] = useState<LiveAnalysis['view']>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(true);
+
+  const post = useCallback((msg: ToWorker) => worker.current?.postMessage(msg), []);
+
+  useEffect(() => {
+    const w = new Worker(new URL('../workers/analysis.worker.ts', import.meta.url), { type: 'module', name: 'layout-analysis' });
+    worker.current = w;
+    w.onmessage = (event: MessageEvent<FromWorker>) => {
+      const msg = event.data;
+      if (msg.seq < shown.current) return;
+      shown.current = msg.seq;
+      setBusy(msg.seq < seq.current);
+      if (msg.type === 'error') {
+        setError(msg.message);
+        return;
+      }
+      setError(null);
+      setView({ analysis: msg.analysis, maxSpaces: msg.maxSpaces, placed: msg.placed, dragging: msg.dragging });
+    };
+    w.onerror = (event) => {
+      setError(event.message || 'The analysis could not start in this browser.');
+      setBusy(false);
+    };
+    return () => {
+      w.terminate();
+      worker.current = null;
+      if (frame.current !== null) cancelAnimationFrame(frame.current);
+      frame.current = null;
+    };
+  }, []);
+
+  const { models, floor, content } = input;
+  // Declared in this order so the worker has models and floor before the first content.
+  useEffect(() => {
+    if (models) post({ type: 'models', models });
+  }, [models, post]);
+  useEffect(() => {
+    post({ type: 'floor', floor });
+  }, [floor, post]);
+  useEffect(() => {
+    if (!models) return;
+    // A committed edit supersedes any drag pose still waiting for its frame.
+    if (frame.current !== null) cancelAnimationFrame(frame.current);
+    frame.current = null;
+    pendingPose.current = null;
+    seq.current += 1;
+    setBusy(true);
+    post({ type: 'content', seq: seq.current, content });
+  }, [content, models, post]);
+
+  const postDrag = useCallback(
+    (pose: DragPose | null) => {
+      pendingPose.current = pose;
+      if (frame.current !== null) return;
+      frame.current = requestAnimationFrame(() => {
+        frame.current = null;
+        seq.current += 1;
+        setBusy(true);
+        post({ type: 'drag', seq: seq.current, pose: pendingPose.current });
+      });
+    },
+    [post],
+  );
+
+  return { view, error, busy, postDrag };
+}

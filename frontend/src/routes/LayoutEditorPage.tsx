@@ -1,0 +1,80 @@
+import { useQuery } from '@tanstack/react-query';
+import { Link, useParams } from 'react-router-dom';
+import { can } from '@shared/policy';
+import { useArmModels } from '../api/armModels';
+import { useSessionUser } from '../api/auth';
+import { isApiError } from '../api/client';
+import { floorPlanDetailQuery } from '../api/floorPlans';
+import { useLayout } from '../api/layouts';
+import { useProject } from '../api/projects';
+import { LayoutEditor } from '../components/layout/LayoutEditor';
+import { ErrorNotice, LoadingNotice } from '../components/Notice';
+import { PageHeader } from '../components/PageHeader';
+import NotFoundPage from './NotFoundPage';
+
+function parseId(raw: string | undefined): number | null {
+  if (!raw || !/^[1-9]\d*$/.test(raw)) return null;
+  const id = Number(raw);
+  return Number.isSafeInteger(id) ? id : null;
+}
+
+/** `/projects/:id/layouts/:layoutId` — the layout editor (read-only for reviewers). */
+export default function LayoutEditorPage() {
+  const params = useParams();
+  const projectId = parseId(params.id);
+  const layoutId = parseId(params.layoutId);
+  if (projectId === null || layoutId === null) return <NotFoundPage />;
+  // Keyed by id: opening another layout (e.g. a kept copy) starts a fresh editor and worker.
+  return <LayoutEditorLoader key={layoutId} projectId={projectId} layoutId={layoutId} />;
+}
+
+function LayoutEditorLoader({ projectId, layoutId }: { projectId: number; layoutId: number }) {
+  const user = useSessionUser();
+  const layout = useLayout(layoutId);
+  const project = useProject(projectId);
+  const models = useArmModels();
+  const floorPlanId = layout.data?.floorPlanId ?? null;
+  const plan = useQuery({ ...floorPlanDetailQuery(floorPlanId ?? 0), enabled: floorPlanId !== null });
+  const back = (
+    <Link to={`/projects/${projectId}#layouts`} className="text-sm font-bold text-accent underline underline-offset-4">
+      Back to the project
+    </Link>
+  );
+
+  if (layout.isError || (layout.data && layout.data.projectId !== projectId)) {
+    const missing = layout.isError ? isApiError(layout.error, 404) : true;
+    return (
+      <div className="flex max-w-xl flex-col gap-4 py-6">
+        <h1 className="text-2xl font-bold">{missing ? 'Layout not found' : 'The layout could not be loaded'}</h1>
+        {layout.isError && <ErrorNotice error={layout.error} />}
+        {back}
+      </div>
+    );
+  }
+  if (models.isError) return <ErrorNotice title="The arm catalogue could not be loaded" error={models.error} />;
+  if (floorPlanId !== null && plan.isError) return <ErrorNotice title="The floor plan could not be loaded" error={plan.error} />;
+  if (layout.isPending || models.isPending || (floorPlanId !== null && plan.isPending)) return <LoadingNotice label="Loading the layout…" />;
+
+  const l = layout.data;
+  const readOnly = !can(user.role, 'layout.write');
+  return (
+    <>
+      <PageHeader
+        eyebrow={
+          <span className="flex gap-1.5">
+            <Link to="/projects" className="hover:text-ink">
+              Projects
+            </Link>
+            <span aria-hidden>/</span>
+            <Link to={`/projects/${projectId}#layouts`} className="hover:text-ink">
+              {project.data?.name ?? 'Project'}
+            </Link>
+          </span>
+        }
+        title={l.name}
+        lead={`Layout · ${plan.data ? `on ${plan.data.fileName}` : 'no floor plan'} · ${l.content.arms.length} arms, ${l.content.workPoints.length} work points, ${l.content.zones.length} zones`}
+      />
+      <LayoutEditor layout={l} floorPlan={floorPlanId !== null ? (plan.data ?? null) : null} armModels={models.data} readOnly={readOnly} />
+    </>
+  );
+}

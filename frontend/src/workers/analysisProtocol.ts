@@ -1,0 +1,42 @@
+/**
+ * Messages between the editor and the analysis worker. Lengths plan mm, angles degrees. The
+ * worker is told the arm models and the floor once, then the content on every change; during a
+ * drag it gets only the dragged arm's pose, at most once per animation frame.
+ */
+import type { FeatureCollection } from 'geojson';
+import type { FloorLayer } from '@shared/analysis/floor';
+import type { AnalysisResult } from '@shared/analysis/types';
+import type { AreaGeometry } from '@shared/geometry/geojson';
+import type { LayoutContent } from '@shared/schemas/layout';
+
+/** An arm model as the worker needs it: its id and kinematic parameters (as the catalogue API sends them). */
+export interface WorkerArmModel {
+  id: number;
+  params: unknown;
+}
+
+/** A pose the editor is dragging an arm through (not yet committed to the content). */
+export interface DragPose {
+  armId: string;
+  x: number;
+  y: number;
+  yaw: number;
+}
+
+export type ToWorker =
+  | { type: 'models'; models: WorkerArmModel[] }
+  | { type: 'floor'; floor: { geometry: FeatureCollection; layers: FloorLayer[] } | null }
+  | { type: 'content'; seq: number; content: LayoutContent }
+  | { type: 'drag'; seq: number; pose: DragPose | null };
+
+/** What the worker adds to the analysis for drawing: each arm's maximum space (full J1 range), placed on the plan. */
+export interface AnalysisView {
+  analysis: AnalysisResult;
+  maxSpaces: Record<string, AreaGeometry | null>;
+  /** The pose (x, y mm; yaw deg) each arm was analysed at, so the drawing can follow a drag before the next result. */
+  placed: Record<string, [number, number, number]>;
+}
+
+export type FromWorker =
+  | ({ type: 'result'; seq: number; dragging: boolean } & AnalysisView)
+  | { type: 'error'; seq: number; message: string };

@@ -1,0 +1,131 @@
+/**
+ * The state the analysis worker keeps between messages: one analyzer (its per-arm, per-pair and
+ * per-column caches survive every edit), the arm models' reach regions built once per (model,
+ * restricting limits), the prepared floor, the latest content and the pose being dragged. Pure
+ * apart from its own caches, so it runs the same in a test as in the worker.
+ */
+import { createAnalyzer, type Analyzer } from '@shared/analysis/analyze';
+import { prepareFloor } from '@shared/analysis/floor';
+import type { ArmReach, PreparedFloor } from '@shared/analysis/types';
+import { polygonsToGeoJSON, type AreaGeometry } from '@shared/geometry/geojson';
+import type { Polygon2 } from '@shared/geometry/types';
+import type { ArmPlacement, LayoutContent } from '@shared/schemas/layout';
+import type { AnalysisView, DragPose, ToWorker, WorkerArmModel } from './analysisProtocol';
+
+/** Builds an arm model's reach under restricting J1 limits (controller degrees); throws on bad parameters. */
+export type ReachBuilder = (params: unknown, restrict: ArmPlacement['restrict']) => ArmReach;
+
+const restrictKey = (r: ArmPlacement['restrict']) => (r ? `${r.j1Min},${r.j1Max}` : '-');
+
+/** Arm-frame polygons placed on the plan: rotated by yaw (deg CCW) about the base, moved to (x, y) mm. */
+export function placePolygons(polys: ReadonlyArray<Polygon2>, x: number, y: number, yawDeg: number): Polygon2[] {
+  const t = (yawDeg * Math.PI) / 180;
+  const c = Math.cos(t);
+  const s = Math.sin(t);
+  return polys.map((p) => p.map((ring) => ring.map(([u, v]) => [c * u - s * v + x, s * u + c * v + y] as [number, number])));
+}
+
+/** The content with the dragged arm at its drag pose (the content itself when nothing is dragged). */
+export function contentWithPose(content: LayoutContent, pose: DragPose | null): LayoutContent {
+  if (!pose) return content;
+  const i = content.arms.findIndex((a) => a.id === pose.armId);
+  if (i < 0) return content;
+  const arms = content.arms.slice();
+  arms[i] = { ...arms[i], x: pose.x, y: pose.y, yaw: pose.yaw };
+  return { ...content, arms };
+}
+
+export interface AnalysisSession {
+  /** Applies one message; returns true when the analysis should run again. */
+  receive(msg: ToWorker): boolean;
+  /** Analyses the latest content (with the drag pose applied); null before any content arrived. */
+  run(): (AnalysisView & { seq: number; dragging: boolean }) | null;
+  /** Sequence number of the latest input (content or drag pose). */
+  currentSeq(): number;
+  /** How many reach regions were built so far (each model × restricting limits once). */
+  reachBuilds(): number;
+  analyzer(): Analyzer;
+}
+
+/** Creates the worker's session around a reach builder. */
+export function createAnalysisSession(build: ReachBuilder): AnalysisSession {
+  let models = new Map<number, unknown>();
+  const reaches = new Map<string, ArmReach>();
+  const maxSpaces = new Map<string, AreaGeometry | null>();
+  let builds = 0;
+  let floor: PreparedFloor | null = null;
+  let content: LayoutContent | null = null;
+  let pose: DragPose | null = null;
+  let seq = 0;
+
+  function reachOf(modelId: number, restrict: ArmPlacement['restrict']): ArmReach {
+    const key = `${modelId}|${restrictKey(restrict)}`;
+    let r = reaches.get(key);
+    if (!r) {
+      if (!models.has(modelId)) throw new Error(`arm model ${modelId} is not in the catalogue`);
+      r = build(models.get(modelId), restrict);
+      builds++;
+      reaches.set(key, r);
+    }
+    return r;
+  }
+
+  let analyzer = createAnalyzer(reachOf);
+
+  function maxSpaceOf(a: ArmPlacement): AreaGeometry | null {
+    const key = `${a.id}|${a.armModelId}|${a.x}|${a.y}|${a.yaw}`;
+    if (maxSpaces.has(key)) return maxSpaces.get(key)!;
+    let g: AreaGeometry | null = null;
+    try {
+      const polys = reachOf(a.armModelId, undefined).restricted;
+      g = polys.length ? polygonsToGeoJSON(placePolygons(polys, a.x, a.y, a.yaw)) : null;
+    } catch {
+      g = null; // the analysis reports the model as a finding
+    }
+    maxSpaces.set(key, g);
+    return g;
+  }
+
+  return {
+    receive(msg) {
+      switch (msg.type) {
+        case 'models':
+          models = new Map(msg.models.map((m: WorkerArmModel) => [m.id, m.params]));
+          reaches.clear();
+          maxSpaces.clear();
+          analyzer = createAnalyzer(reachOf);
+          return content !== null;
+        case 'floor':
+          floor = msg.floor ? prepareFloor(msg.floor.geometry, msg.floor.layers) : null;
+          return content !== null;
+        case 'content':
+          content = msg.content;
+          pose = null;
+          seq = msg.seq;
+          return true;
+        case 'drag':
+          pose = msg.pose;
+          seq = msg.seq;
+          return content !== null;
+      }
+    },
+    run() {
+      if (!content) return null;
+      const c = contentWithPose(content, pose);
+      const analysis = analyzer.analyze({ arms: c.arms, workPoints: c.workPoints, zones: c.zones, workHeights: c.workHeights, floor });
+      const spaces: Record<string, AreaGeometry | null> = {};
+      const placed: Record<string, [number, number, number]> = {};
+      const live = new Set<string>();
+      for (const a of c.arms) {
+        spaces[a.id] = maxSpaceOf(a);
+        placed[a.id] = [a.x, a.y, a.yaw];
+        live.add(`${a.id}|${a.armModelId}|${a.x}|${a.y}|${a.yaw}`);
+      }
+      for (const k of maxSpaces.keys()) if (!live.has(k)) maxSpaces.delete(k);
+      return { analysis, maxSpaces: spaces, placed, seq, dragging: pose !== null };
+    },
+    currentSeq: () => seq,
+    reachBuilds: () => builds,
+    analyzer: () => analyzer,
+  };
+}
