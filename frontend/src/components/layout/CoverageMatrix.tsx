@@ -268,19 +268,19 @@ function MarginLegend({ span, colour }: { span: number; colour: (m: number) => s
   const id = `margin-legend-${span}`;
   return (
     <figure className="flex flex-col text-xs text-ink-muted" aria-label={`Colour key: margin in mm from −${span} (short) to +${span} (reached)`}>
-      <figcaption className="mb-0.5 flex justify-between" style={{ width: w + 16 }}>
+      <figcaption className="mb-0.5 flex justify-between px-4" style={{ width: w + 48 }}>
         <span>short</span>
         <span>margin, mm</span>
         <span>reached</span>
       </figcaption>
-      <svg width={w + 16} height={30} aria-hidden>
+      <svg width={w + 48} height={30} aria-hidden>
         <defs>
           <linearGradient id={id}>
             {stops.map((s, i) => <stop key={i} offset={`${s.offset}%`} stopColor={s.c} />)}
           </linearGradient>
         </defs>
-        <rect x={8} y={0} width={w} height={10} fill={`url(#${id})`} />
-        <g ref={axisRef} transform="translate(8,10)" />
+        <rect x={24} y={0} width={w} height={10} fill={`url(#${id})`} />
+        <g ref={axisRef} transform="translate(24,10)" />
       </svg>
       <span className="flex items-center gap-1">
         <span className="inline-block h-2.5 w-3" style={{ background: MARGIN_COLOURS.unknown }} /> not analysed

@@ -14,6 +14,12 @@ const VIEW_HEIGHT = 420;
 const OVERSCAN = 8;
 const SORT_MARK = { asc: '▲', desc: '▼' } as const;
 
+const HEADER_TITLES: Record<string, string> = {
+  assignedArm: 'Assigned arm',
+  best: 'Best margin over the arms, mm: + reached with room to spare, − short of reach',
+  reachedBy: 'Arms that reach the point, best first',
+};
+
 const fmtMm = (v: number) => (Number.isInteger(v) ? String(v) : v.toFixed(1));
 
 /**
@@ -65,23 +71,23 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
         />
       );
     return [
-      { id: 'id', header: 'Id', accessorFn: (r) => r.point.id, cell: cell('id', (p) => p.id), size: 90 },
-      { id: 'x', header: 'x mm', accessorFn: (r) => r.point.x, cell: cell('x', (p) => fmtMm(p.x), { align: 'right' }), size: 90 },
-      { id: 'y', header: 'y mm', accessorFn: (r) => r.point.y, cell: cell('y', (p) => fmtMm(p.y), { align: 'right' }), size: 90 },
-      { id: 'z', header: 'z mm', accessorFn: (r) => r.point.z, cell: cell('z', (p) => fmtMm(p.z), { align: 'right' }), size: 80 },
+      { id: 'id', header: 'Id', accessorFn: (r) => r.point.id, cell: cell('id', (p) => p.id), size: 72 },
+      { id: 'x', header: 'x mm', accessorFn: (r) => r.point.x, cell: cell('x', (p) => fmtMm(p.x), { align: 'right' }), size: 76 },
+      { id: 'y', header: 'y mm', accessorFn: (r) => r.point.y, cell: cell('y', (p) => fmtMm(p.y), { align: 'right' }), size: 76 },
+      { id: 'z', header: 'z mm', accessorFn: (r) => r.point.z, cell: cell('z', (p) => fmtMm(p.z), { align: 'right' }), size: 64 },
       {
-        id: 'approach', header: 'Approach', accessorFn: (r) => r.point.approach, size: 90,
+        id: 'approach', header: 'Approach', accessorFn: (r) => r.point.approach, size: 76,
         cell: cell('approach', (p) => p.approach, { options: [{ value: 'top', label: 'top' }, { value: 'any', label: 'any' }] }),
       },
-      { id: 'tag', header: 'Tag', accessorFn: (r) => r.point.tag, cell: cell('tag', (p) => p.tag), size: 130 },
-      { id: 'assignedArm', header: 'Assigned arm', accessorFn: (r) => r.point.assignedArm ?? '', cell: cell('assignedArm', (p) => p.assignedArm ?? '', { options: armOptions }), size: 110 },
+      { id: 'tag', header: 'Tag', accessorFn: (r) => r.point.tag, cell: cell('tag', (p) => p.tag), size: 100 },
+      { id: 'assignedArm', header: 'Arm', accessorFn: (r) => r.point.assignedArm ?? '', cell: cell('assignedArm', (p) => p.assignedArm ?? '', { options: armOptions }), size: 72 },
       {
-        id: 'best', header: 'Best margin mm', size: 110,
+        id: 'best', header: 'Margin mm', size: 84,
         accessorFn: (r) => r.best ?? undefined, sortUndefined: 'last',
         cell: ({ row }) => <MarginText value={row.original.best} />,
       },
       {
-        id: 'reachedBy', header: 'Reached by', size: 120,
+        id: 'reachedBy', header: 'Reached by', size: 88,
         accessorFn: (r) => r.reachedBy.join(' '),
         cell: ({ row }) => (row.original.best === null ? <span className="text-ink-faint">—</span> : row.original.reachedBy.length ? row.original.reachedBy.join(', ') : <span className="font-bold text-finding-critical">no arm</span>),
       },
@@ -206,6 +212,7 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
                       key={header.id}
                       scope="col"
                       aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none'}
+                      title={HEADER_TITLES[header.id]}
                       className="px-2 py-2 text-left text-xs font-bold tracking-wide text-ink-muted uppercase"
                     >
                       <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-ink">
@@ -287,8 +294,11 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
 function MarginText({ value }: { value: number | null }) {
   if (value === null) return <span className="block text-right text-ink-faint">—</span>;
   return (
-    <span className={cn('block text-right font-bold tabular-nums', value < 0 ? 'text-finding-critical' : 'text-ink')}>
-      {value < 0 ? `${fmtMm(-value)} short` : `+${fmtMm(value)}`}
+    <span
+      title={value < 0 ? `Best arm is ${fmtMm(-value)} mm short` : `Reached with ${fmtMm(value)} mm to spare`}
+      className={cn('block text-right font-bold tabular-nums', value < 0 ? 'text-finding-critical' : 'text-ink')}
+    >
+      {value < 0 ? `−${fmtMm(-value)}` : `+${fmtMm(value)}`}
     </span>
   );
 }
