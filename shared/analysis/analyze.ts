@@ -4,10 +4,12 @@ import { polygonsToGeoJSON } from '../geometry/geojson';
 import { pointInPolygons } from '../geometry/pointInPolygon';
 import type { Polygon2 } from '../geometry/types';
 import type { ArmPlacement, Zone } from '../schemas/layout';
-import { findingId, m2, mm, SEVERITY_OF, sortFindings } from './messages';
+import { findingId, m2, m2Text, mm, SEVERITY_OF, sortFindings } from './messages';
 import { polylineDistanceToPolygons, polylineHitsPolygons, subtractOpenings } from './segments';
 import type { AnalysisInput, AnalysisResult, ArmReach, ArmReachFactory, Finding, FindingKind, SharedZone, StructureItem } from './types';
 
+/** Points farther than this outside an arm's maximum-reach circle get that circle's distance as margin, mm. */
+export const FAR_MM = 1000;
 /** Smallest overlap area that counts, mm² (below it is boolean-op noise). */
 const MIN_AREA_MM2 = 1;
 /** Kept between the restricted space and a fence before a clearance warning, mm (common practice: 120–200 mm). */
@@ -113,7 +115,10 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     col = new Float64Array(pts.length);
     const { x: bx, y: by, mountHeight } = p.arm;
     const reach = p.reach;
-    const far = reach.maxReach + 1;
+    // Beyond this distance from the base the exact test is skipped: the point is more than FAR_MM
+    // outside the circle of maximum reach, and its margin is given as that circle's (the true margin
+    // is at most this — the region lies inside the circle — and both say "far out of reach").
+    const far = reach.maxReach + FAR_MM;
     for (let i = 0; i < pts.length; i++) {
       const pt = pts[i];
       const dx = pt.x - bx;
@@ -255,7 +260,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
           overlaps.push({ arms: [ids[0], ids[1]], areaM2: m2(r.area), points: pts, geometry, byHeight: r.byHeight });
           add('shared-zone', ids, {
             arms: ids, points: pts, geometry, at: centroidOf(r.polys),
-            message: `${ids[0]} and ${ids[1]} share ${m2(r.area)} m² of restricted space${pts.length ? ` containing ${pts.length} work point${pts.length === 1 ? '' : 's'}` : ''}: plan interlocks or zone-sharing logic.`,
+            message: `${ids[0]} and ${ids[1]} share ${m2Text(r.area)} m² of restricted space${pts.length ? ` containing ${pts.length} work point${pts.length === 1 ? '' : 's'}` : ''}: plan interlocks or zone-sharing logic.`,
             data: { areaM2: m2(r.area) },
           });
         }
@@ -357,8 +362,8 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
           add(kind, [id, z.id], {
             arms: [id], points: [], geometry: polygonsToGeoJSON(inter), at: centroidOf(inter),
             message: z.kind === 'operator'
-              ? `${name}: restricted space reaches ${m2(area)} m² into operator area ${z.label || z.id}; people there need safeguarding.`
-              : `${name}: restricted space reaches ${m2(area)} m² into keep-out ${z.label || z.id}.`,
+              ? `${name}: restricted space reaches ${m2Text(area)} m² into operator area ${z.label || z.id}; people there need safeguarding.`
+              : `${name}: restricted space reaches ${m2Text(area)} m² into keep-out ${z.label || z.id}.`,
             data: { areaM2: m2(area) },
           });
         }

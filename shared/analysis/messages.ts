@@ -30,5 +30,8 @@ export function sortFindings(findings: Finding[]): Finding[] {
   return findings.sort((a, b) => SEVERITY_RANK[a.severity] - SEVERITY_RANK[b.severity] || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
 }
 
-export const m2 = (mm2: number) => Math.round((mm2 / 1e6) * 1000) / 1000;
+/** mm² → m², kept to 1 mm² (display rounds further). */
+export const m2 = (mm2: number) => Math.round(mm2) / 1e6;
+/** m² for messages: 3 decimals. */
+export const m2Text = (mm2: number) => (Math.round(mm2 / 1000) / 1000).toFixed(3);
 export const mm = (v: number) => Math.round(v);

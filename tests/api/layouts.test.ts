@@ -75,3 +75,37 @@ describe('layouts', () => {
     expect((await c.get(`/api/projects/${project.id}/layouts`)).status).toBe(403);
   });
 });
+
+describe('layout analysis endpoint', () => {
+  it('analyses the stored layout and unsaved content with the shared engine; bad content is a 400', async () => {
+    const reviewer = await buildUser({ role: 'reviewer' });
+    const model = await buildArmModel({ params: { family: 'scara', innerLink: 500, outerLink: 500, strokeMin: 0, strokeMax: 300, axes: [{ min: -180, max: 180 }, { min: -180, max: 180 }] } });
+    const project = await buildProject();
+    const content = {
+      arms: [
+        { id: 'R1', armModelId: model.id, label: '', x: 0, y: 0, yaw: 0, mountHeight: 0 },
+        { id: 'R2', armModelId: model.id, label: '', x: 1000, y: 0, yaw: 0, mountHeight: 0 },
+      ],
+      workPoints: [{ id: 'P1', x: 500, y: 0, z: 100, approach: 'top', tag: '' }],
+      zones: [],
+      workHeights: [100],
+    };
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: null, name: 'Analysed', content, createdBy: null });
+    const agent = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
+    const res = await agent.post(`/api/layouts/${layout.id}/analysis`).send({});
+    expect(res.status).toBe(200);
+    expect(res.body.overlaps).toHaveLength(1);
+    // two unit disks 1 m apart share 1.22837 m² (Wolfram MathWorld, "Circle-Circle Intersection"); 1 mm chord tolerance errs outward
+    expect(res.body.overlaps[0].areaM2).toBeGreaterThan(1.2283);
+    expect(res.body.overlaps[0].areaM2).toBeLessThan(1.2283 * 1.002);
+    expect(res.body.coverage.P1.R1).toBeGreaterThan(0);
+    expect(res.body.findings.map((f: { id: string }) => f.id)).toContain('shared-zone:R1+R2');
+    expect(typeof res.body.timingMs).toBe('number');
+    const moved = await agent.post(`/api/layouts/${layout.id}/analysis`).send({ content: { ...content, arms: [content.arms[0], { ...content.arms[1], x: 5000 }] } });
+    expect(moved.status).toBe(200);
+    expect(moved.body.overlaps).toHaveLength(0);
+    const bad = await agent.post(`/api/layouts/${layout.id}/analysis`).send({ content: { ...content, arms: [{ ...content.arms[0], x: 'east' }] } });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty(['arms.0.x']);
+  });
+});

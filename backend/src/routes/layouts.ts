@@ -7,6 +7,7 @@ import { badRequest, conflict, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
 import { ArmModel, FloorPlan, Layout } from '../models';
 import { audit } from '../services/audit/audit';
+import { analyzeLayout } from '../services/layoutAnalysis';
 import { loadVisibleProject } from '../services/projectAccess';
 
 export function presentLayout(l: Layout): LayoutDto {
@@ -106,6 +107,16 @@ export function layoutsRouter(sequelize: Sequelize): Router {
       return layout;
     });
     res.json({ layout: presentLayout(updated) });
+  });
+
+  // Analysis of the stored layout, or of unsaved content sent in the body (the editor's working state).
+  r.post('/layouts/:id/analysis', allow('layout.read'), async (req, res) => {
+    const layout = await loadVisibleLayout(currentUser(req), idParam(req.params.id, 'Layout'));
+    const body = (req.body ?? {}) as { content?: unknown };
+    const content = body.content === undefined ? undefined : parseOr400(LayoutContent, body.content, 'The layout content');
+    if (content) await checkReferences(layout.projectId, undefined, content);
+    const result = await analyzeLayout(layout, content);
+    res.json(result);
   });
 
   r.delete('/layouts/:id', allow('layout.write'), async (req, res) => {

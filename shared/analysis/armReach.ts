@@ -1,0 +1,23 @@
+import { armReach, parseArmParams, stableKey } from '../kinematics';
+import type { ArmPlacement } from '../schemas/layout';
+import type { ArmReach } from './types';
+
+const cache = new Map<string, ArmReach>();
+const CACHE_LIMIT = 256;
+
+/**
+ * The analysis' view of an arm model (stored params, validated here) under a placement's
+ * restricting J1 limits: regions and margins from shared/kinematics, built once per distinct
+ * (params, limits) and kept in a small cache, so re-analysing after an edit costs only the moved arm.
+ */
+export function armReachFor(params: unknown, restrict: ArmPlacement['restrict']): ArmReach {
+  const key = stableKey({ params, restrict: restrict ?? null });
+  let r = cache.get(key);
+  if (!r) {
+    const model = parseArmParams(params);
+    r = armReach(model, restrict ?? null);
+    if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value as string);
+    cache.set(key, r);
+  }
+  return r;
+}
