@@ -258,7 +258,7 @@ export class DxfWriter {
       out.g(8, '0');
       if (!this.r12) out.g(100, 'AcDbBlockBegin');
       out.g(2, b.name).g(70, 0).point(10, b.base[0], b.base[1]).g(3, b.name).g(1, '');
-      out.lines.push(...b.body.lines);
+      for (const l of b.body.lines) out.lines.push(l);
       out.g(0, 'ENDBLK');
       if (!this.r12) out.g(5, (this.handle++).toString(16).toUpperCase()).g(100, 'AcDbEntity');
       out.g(8, '0');
@@ -267,7 +267,7 @@ export class DxfWriter {
     out.g(0, 'ENDSEC');
 
     out.g(0, 'SECTION').g(2, 'ENTITIES');
-    out.lines.push(...this.entities.lines);
+    for (const l of this.entities.lines) out.lines.push(l);
     out.g(0, 'ENDSEC');
     out.g(0, 'EOF');
     return out.lines.join('\n') + '\n';

@@ -53,6 +53,7 @@ export function scanGroups(text: string): GroupScan {
   let hasEof = false;
   let expectBlockName = false;
   let blockLine = 0;
+  let blockName = '';
   let countBlock = true; // false inside the *Model_Space / *Paper_Space blocks
 
   while (pos < len) {
@@ -116,9 +117,9 @@ export function scanGroups(text: string): GroupScan {
     }
 
     if (expectBlockName && code === 2) {
-      expectBlockName = false;
-      if (value === '') fail('A block definition has an empty name', blockLine);
-      const u = (value as string).toUpperCase();
+      // the parser keeps the last name given before the block's first entity
+      blockName = value as string;
+      const u = blockName.toUpperCase();
       countBlock = !u.startsWith('*MODEL_SPACE') && !u.startsWith('*PAPER_SPACE');
     }
 
@@ -126,9 +127,13 @@ export function scanGroups(text: string): GroupScan {
       const v = value as string;
       // dxf-parser takes a block's name only before the block's first entity, and logs (past
       // any console silencing) when there is none; such a block could never be inserted.
-      if (expectBlockName && section === 'BLOCKS') fail('A block definition has no name', blockLine);
+      if (expectBlockName) {
+        if (!blockName) fail('A block definition has no name', blockLine);
+        expectBlockName = false;
+      }
       if (v === 'BLOCK') {
         blockLine = codeLine;
+        blockName = '';
         expectBlockName = true;
         countBlock = true;
       } else if (v === 'ENDBLK') {
@@ -141,7 +146,8 @@ export function scanGroups(text: string): GroupScan {
         }
         inLw = false;
       }
-      if (tableGuard !== null && v !== tableGuard && v !== 'ENDTAB' && v !== 'EOF') {
+      // (even EOF: the parser's LAYER/VPORT loops stop only at ENDTAB)
+      if (tableGuard !== null && v !== tableGuard && v !== 'ENDTAB') {
         fail(`The ${tableGuard} table that starts at line ${tableLine} holds a "${v}" record`, codeLine);
       }
       if (v === 'ENDTAB') tableGuard = null;
@@ -211,7 +217,7 @@ export function findBrokenPoint(text: string, xCode: number, gotCode: number): n
   let prev = Number.NaN;
   for (let i = 0; i + 1 < lines.length; i += 2) {
     const code = Number.parseInt(lines[i], 10);
-    if (prev === xCode && code === gotCode) return i + 1;
+    if (prev === xCode && code === gotCode) return i - 1; // 1-based line of the x code
     prev = code;
   }
   return undefined;

@@ -40,9 +40,13 @@ export function joinPaths(paths: readonly OpenPath[], tol: number): Array<Featur
   const grid = new Map<number, number[]>();
   const key = (ix: number, iy: number) => (Math.imul(ix | 0, 73856093) ^ Math.imul(iy | 0, 19349663)) | 0;
   const tol2 = tol * tol;
+  // A bucket keeps only distinct points: an end at exactly the point of one already there
+  // (duplicated drawings, arrays with zero spacing) is joined through it and not stored, so a
+  // pile of copies costs no pairwise comparisons.
   for (let e = 0; e < ends; e++) {
     const x = ex[e];
     const y = ey[e];
+    let twin = false;
     const ix = Math.floor(x / cell);
     const iy = Math.floor(y / cell);
     const lid = layerIds[e >> 1];
@@ -58,10 +62,12 @@ export function joinPaths(paths: readonly OpenPath[], tol: number): Array<Featur
             const ra = find(e);
             const rb = find(o);
             if (ra !== rb) parent[ra] = rb;
+            if (ddx === 0 && ddy === 0) twin = true;
           }
         }
       }
     }
+    if (twin) continue;
     const k = key(ix, iy);
     const bucket = grid.get(k);
     if (bucket) bucket.push(e);

@@ -1,0 +1,13 @@
+/**
+ * The DXF floor-plan import engine. Call `parseInWorker` from request handlers (large files
+ * never block the event loop), `importDxf` where blocking is fine (seeding, scripts, tests),
+ * and `rescaleImport` to read an import in another unit without the file.
+ */
+export { importDxf, boundsOf, type ImportOptions } from './importDxf';
+export { parseInWorker, type WorkerOptions } from './parseInWorker';
+export { rescaleImport } from './rescale';
+export { DxfImportError, isDxfImportError, DXF_IMPORT_ERROR_CODES, type DxfImportErrorCode } from './errors';
+export { UNIT_NAMES, unitToMm, unitFromInsunits, unitLabel, resolveUnits, type UnitName } from './units';
+export { guessLayerRole, defaultLayerHeight } from './layerRoles';
+export { DEFAULT_CHORD_TOLERANCE_MM, DEFAULT_JOIN_TOLERANCE_MM, MAX_COORDINATE_MM } from './limits';
+export type { ImportResult, ImportLayer, LayerRole, PlanFeatureProps } from '../../../../shared/schemas/floorPlan';

@@ -1,0 +1,36 @@
+// Runs importDxf off the request thread: one job per worker (see parseInWorker.ts).
+import { parentPort } from 'node:worker_threads';
+import { isDxfImportError } from './errors';
+import { importDxf, type ImportOptions } from './importDxf';
+
+export interface WorkerJob {
+  input: string | Uint8Array;
+  opts?: ImportOptions;
+}
+
+export type WorkerReply =
+  | { ok: true; result: ReturnType<typeof importDxf> }
+  | { ok: false; error: { code: string; message: string; line?: number } };
+
+if (!parentPort) throw new Error('worker.ts: must run as a worker thread');
+const port = parentPort;
+
+port.once('message', (job: WorkerJob) => {
+  let reply: WorkerReply;
+  try {
+    reply = { ok: true, result: importDxf(job.input, job.opts) };
+  } catch (err) {
+    if (isDxfImportError(err)) {
+      reply = { ok: false, error: err.toJSON() };
+    } else if (err instanceof RangeError && /^[a-zA-Z]+: /.test(err.message)) {
+      // invalid options: a programming error of the caller, passed on as it is
+      reply = { ok: false, error: { code: 'invalid-options', message: err.message } };
+    } else {
+      reply = {
+        ok: false,
+        error: { code: 'internal', message: 'The drawing could not be read because of a fault in the import. Please report the file.' },
+      };
+    }
+  }
+  port.postMessage(reply);
+});
