@@ -3,6 +3,7 @@ import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
 import { seedDemoCatalogue } from './db/demoCatalogue';
 import { seedDemoFloorPlan } from './db/demoFloorPlan';
+import { seedDemoLayout } from './db/demoLayout';
 import type { SeedStep } from './db/seed';
 import { armModelsRouter } from './routes/armModels';
 import { floorPlansRouter } from './routes/floorPlans';
@@ -26,5 +27,5 @@ export function featureRouters(ctx: FeatureContext): Router[] {
 
 /** Demo seeding steps of the features, run in order after the demo accounts and project. */
 export function featureSeedSteps(): SeedStep[] {
-  return [seedDemoCatalogue, seedDemoFloorPlan];
+  return [seedDemoCatalogue, seedDemoFloorPlan, seedDemoLayout];
 }

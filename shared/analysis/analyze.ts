@@ -31,6 +31,11 @@ interface PlacedArm {
   below: Map<number, Polygon2[]>;
 }
 
+/** clipIntersect, with an empty side giving an empty result (clipper refuses two empty inputs). */
+function intersect(a: Polygon2[], b: Polygon2[]): Polygon2[] {
+  return a.length && b.length ? clipIntersect(a, b) : [];
+}
+
 const bboxOverlap = (a: BBox | null, b: BBox | null) => !!a && !!b && a[0] <= b[2] && b[0] <= a[2] && a[1] <= b[3] && b[1] <= a[3];
 
 function place(polys: Polygon2[], p: PlacedArm): Polygon2[] {
@@ -233,8 +238,8 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
           if (!r) {
             stats.pairs++;
             try {
-              const polys = clipIntersect(first.restricted, second.restricted);
-              const byHeight = heights.map((h) => ({ height: h, areaM2: m2(polygonsArea(clipIntersect(first.bands.get(h)!, second.bands.get(h)!))) }));
+              const polys = intersect(first.restricted, second.restricted);
+              const byHeight = heights.map((h) => ({ height: h, areaM2: m2(polygonsArea(intersect(first.bands.get(h)!, second.bands.get(h)!))) }));
               r = { area: polygonsArea(polys), polys, byHeight };
             } catch (err) {
               r = { failed: err instanceof Error ? err.message : String(err) };
@@ -289,7 +294,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
           let hit = false;
           try {
             if (s.polygons.length) {
-              hitPolys = clipIntersect(region, s.polygons);
+              hitPolys = intersect(region, s.polygons);
               hit = polygonsArea(hitPolys) >= MIN_AREA_MM2;
             }
             if (!hit) hit = s.lines.some((l) => polylineHitsPolygons(l, region));
@@ -351,7 +356,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
           const poly: Polygon2[] = [[z.points.map(([x, y]) => [x, y] as [number, number])]];
           let inter: Polygon2[];
           try {
-            inter = clipIntersect(p.restricted, poly);
+            inter = intersect(p.restricted, poly);
           } catch (err) {
             add('computation-failed', ['zone', id, z.id], { arms: [id], points: [], geometry: null, at: null, message: `Could not check ${name} against zone ${z.id} (${err instanceof Error ? err.message : err}).` });
             continue;

@@ -150,4 +150,17 @@ describe('demo floor plan', () => {
     expect(demo!.bounds.maxX - demo!.bounds.minX).toBeGreaterThan(20000);
     expect(demo!.bounds.maxY - demo!.bounds.minY).toBeGreaterThan(14000);
   });
+
+  it('seeds the Fernhill line 3 layout on that hall; its analysis reaches every work point and finds the pickers\' shared zone', async () => {
+    const { Layout } = await import('../../backend/src/models');
+    const { analyzeLayout } = await import('../../backend/src/services/layoutAnalysis');
+    const layout = await Layout.findOne({ where: { name: 'Fernhill line 3 — cell layout' } });
+    expect(layout).not.toBeNull();
+    expect(layout!.floorPlanId).not.toBeNull();
+    const result = await analyzeLayout(layout!);
+    const ids = result.findings.map((f) => f.id);
+    expect(ids).toContain('shared-zone:R1+R2');
+    expect(result.findings.filter((f) => f.kind === 'unreached-point')).toEqual([]);
+    expect(result.findings.filter((f) => f.kind === 'computation-failed')).toEqual([]);
+  });
 });
