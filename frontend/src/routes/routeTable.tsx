@@ -42,6 +42,7 @@ export const routes: RouteObject[] = [
           { path: 'projects', lazy: page(() => import('./ProjectsPage')) },
           { path: 'projects/:id', lazy: page(() => import('./ProjectPage')) },
           { path: 'projects/:id/floor-plans/:planId', lazy: page(() => import('./FloorPlanPage')) },
+          { path: 'projects/:id/layouts/:layoutId', lazy: page(() => import('./LayoutEditorPage')) },
           { path: 'admin/users', lazy: page(() => import('./AdminUsersPage')) },
           { path: 'catalogue', lazy: page(() => import('./CataloguePage')) },
           { path: 'catalogue/new', lazy: page(() => import('./ArmModelNewPage')) },

@@ -17,8 +17,8 @@ export interface ArmInspectorProps {
 const FIELD_LABEL: Record<Exclude<ArmField, 'label'>, { label: string; unit: string; hint?: string }> = {
   x: { label: 'x (east)', unit: 'mm' },
   y: { label: 'y (north)', unit: 'mm' },
-  yaw: { label: 'Yaw', unit: '°', hint: 'J1 zero direction, counter-clockwise from east' },
-  mountHeight: { label: 'Mount height', unit: 'mm', hint: 'Base plate above the floor' },
+  yaw: { label: 'Yaw', unit: '°', hint: 'J1 zero, CCW from east' },
+  mountHeight: { label: 'Mount height', unit: 'mm', hint: 'Base plate above floor' },
   j1Min: { label: 'J1 min', unit: '°' },
   j1Max: { label: 'J1 max', unit: '°' },
 };
@@ -69,7 +69,7 @@ export function ArmInspector({ arm, content, armModels, readOnly, onEdit, onSele
   );
 
   return (
-    <form onSubmit={onSubmit} aria-label={`Arm ${arm.id}`} className="flex flex-col gap-3" noValidate>
+    <form onSubmit={onSubmit} aria-label={`Arm ${arm.id}`} className="flex flex-col gap-2.5" noValidate>
       <div className="flex items-baseline gap-2">
         <h2 className="text-sm font-bold">Arm {arm.id}</h2>
         <span className="truncate text-xs text-ink-muted">
@@ -101,14 +101,14 @@ export function ArmInspector({ arm, content, armModels, readOnly, onEdit, onSele
           ))}
         </SelectField>
       )}
-      <div className="grid grid-cols-2 gap-3">
+      <div className="grid grid-cols-2 gap-2.5">
         {field('x')}
         {field('y')}
         {field('yaw')}
         {field('mountHeight')}
       </div>
       <fieldset className="flex flex-col gap-2 rounded-control border border-rule p-2">
-        <legend className="px-1 text-xs font-bold text-ink-muted">Restricting J1 limits (stops or safety-rated limits; empty = the model’s own)</legend>
+        <legend className="px-1 text-xs font-bold text-ink-muted" title="Mechanical stops or safety-rated soft limits on this arm; leave both empty for the model’s own limits">Restricting J1 limits (empty = the model’s own)</legend>
         <div className="grid grid-cols-2 gap-3">
           {field('j1Min')}
           {field('j1Max')}

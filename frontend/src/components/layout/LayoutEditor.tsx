@@ -245,31 +245,34 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
         save={ed.save}
         onRetrySave={() => void ed.saveNow()}
       />
-      <div className="grid min-h-0 grid-cols-[minmax(0,1fr)_22rem] gap-3">
-        <div className="flex min-w-0 flex-col gap-1">
+      <div className="rounded-control border border-rule bg-paper-raised px-3 py-2">
+        <WorkHeightsEditor content={content} readOnly={readOnly} onEdit={edit} bandHeight={bandHeight} onBandHeight={setBandHeight} />
+      </div>
+      <div className="grid h-[min(74vh,48rem)] min-h-[30rem] grid-cols-[minmax(0,1fr)_23rem] gap-3">
+        <div className="flex min-h-0 min-w-0 flex-col gap-1">
           <PlanView
             geometry={floorPlan?.geometry ?? null}
             layerStyles={styles}
             bounds={bounds}
             onCanvas={setCanvas}
             label={`Layout ${layout.name}`}
-            className="h-[min(70vh,46rem)]"
+            className="min-h-0 flex-1"
           />
           <p className="min-h-5 text-xs text-ink-muted" aria-live="polite" data-hint>
             {hint ?? (readOnly ? '' : tool === 'select' ? 'Click an arm to select it; drag to move it, drag its round handle to turn it.' : '')}
           </p>
         </div>
         <aside className="flex min-h-0 flex-col gap-3" aria-label="Inspector and findings">
-          <div className="rounded-control border border-rule bg-paper-raised p-3">
-            {selectedArm ? (
-              <ArmInspector arm={selectedArm} content={content} armModels={modelList} readOnly={readOnly} onEdit={edit} onSelectArm={(id) => setSelection(id ? { kind: 'arm', id } : null)} />
-            ) : selectedZone ? (
-              <ZoneInspector zone={selectedZone} content={content} readOnly={readOnly} focusHeight={focusHeightOf === selectedZone.id} onEdit={edit} onDeselect={() => setSelection(null)} />
-            ) : (
-              <WorkHeightsEditor content={content} readOnly={readOnly} onEdit={edit} bandHeight={bandHeight} onBandHeight={setBandHeight} />
-            )}
-          </div>
-          <div className="flex max-h-[34rem] min-h-0 flex-1 flex-col">
+          {(selectedArm || selectedZone) && (
+            <div className="max-h-[55%] shrink-0 overflow-y-auto rounded-control border border-rule bg-paper-raised p-3">
+              {selectedArm ? (
+                <ArmInspector arm={selectedArm} content={content} armModels={modelList} readOnly={readOnly} onEdit={edit} onSelectArm={(id) => setSelection(id ? { kind: 'arm', id } : null)} />
+              ) : (
+                <ZoneInspector zone={selectedZone!} content={content} readOnly={readOnly} focusHeight={focusHeightOf === selectedZone!.id} onEdit={edit} onDeselect={() => setSelection(null)} />
+              )}
+            </div>
+          )}
+          <div className="flex min-h-0 flex-1 flex-col">
             <FindingsPanel findings={findings} selectedId={selectedFinding?.id ?? null} onPick={pickFinding} busy={live.busy} error={live.error} timingMs={live.view?.analysis.timingMs ?? null} />
           </div>
         </aside>

@@ -42,12 +42,12 @@ export function WorkHeightsEditor({ content, readOnly, onEdit, bandHeight, onBan
   }
 
   return (
-    <section aria-labelledby="heights-heading" className="flex flex-col gap-2">
+    <section aria-labelledby="heights-heading" className="flex flex-wrap items-center gap-x-3 gap-y-1.5">
       <h2 id="heights-heading" className="text-xs font-bold tracking-wide text-ink-muted uppercase">
         Work heights (mm)
       </h2>
       <ul className="flex flex-wrap gap-1.5" aria-label="Work heights">
-        {heights.length === 0 && <li className="text-xs text-ink-muted">None yet: add the heights where work happens to see reach bands.</li>}
+        {heights.length === 0 && <li className="text-xs text-ink-muted">none yet — add the heights where work happens</li>}
         {heights.map((h) => (
           <li key={h} className="inline-flex items-center gap-1 rounded-control border border-rule bg-paper px-2 py-0.5 text-xs tabular-nums">
             {mm.format(h)}
@@ -68,8 +68,8 @@ export function WorkHeightsEditor({ content, readOnly, onEdit, bandHeight, onBan
         ))}
       </ul>
       {!readOnly && (
-        <div className="flex items-start gap-2">
-          <div className="flex flex-1 flex-col">
+        <div className="flex items-start gap-1">
+          <div className="flex w-28 flex-col">
             <input
               aria-label="New work height (mm)"
               inputMode="decimal"
@@ -96,13 +96,13 @@ export function WorkHeightsEditor({ content, readOnly, onEdit, bandHeight, onBan
           </Button>
         </div>
       )}
-      <label className="flex items-center gap-2 text-xs text-ink-muted">
-        Band drawn at
+      <label className="ml-auto flex items-center gap-2 text-xs text-ink-muted">
+        Reach band drawn at
         <select
           aria-label="Reach band at height"
           value={bandHeight === null ? '' : String(bandHeight)}
           onChange={(e) => onBandHeight(e.target.value === '' ? null : Number(e.target.value))}
-          className="h-7 flex-1 rounded-control border border-rule-strong bg-paper-raised px-1 text-xs tabular-nums text-ink"
+          className="h-7 rounded-control border border-rule-strong bg-paper-raised px-1 text-xs tabular-nums text-ink"
         >
           <option value="">no band</option>
           {heights.map((h) => (

@@ -181,7 +181,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
         const g = enter.append('g').attr('class', 'arm-mark').attr('data-plan-drag', '');
         g.append('line').attr('class', 'arm-tick');
         g.append('circle').attr('class', 'arm-base').attr('r', 8);
-        g.append('circle').attr('class', 'arm-axis').attr('r', 2);
+        g.append('circle').attr('class', 'arm-axis').attr('r', 2).attr('pointer-events', 'none');
         g.append('text').attr('class', 'arm-label').attr('x', 12).attr('y', -10).attr('paint-order', 'stroke');
         g.append('circle').attr('class', 'turn-handle').attr('r', 5.5).attr('data-plan-drag', '');
         return g;
@@ -283,7 +283,11 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
     return [p.x, p.y];
   };
 
+  // A press on a marker or handle ends in a click on whatever is under the pointer then: not a deselect.
+  let pressedOnMark = false;
+
   function startCapture(el: Element, e: PointerEvent): void {
+    pressedOnMark = true;
     e.stopPropagation();
     e.preventDefault();
     (el as SVGElement).setPointerCapture?.(e.pointerId);
@@ -298,6 +302,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
     if (state.tool !== 'select' && !turning) return;
     cb.onSelect({ kind: 'arm', id: a.id });
     if (state.readOnly) {
+      pressedOnMark = true;
       e.stopPropagation();
       return;
     }
@@ -382,7 +387,9 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
   function onClick(e: MouseEvent): void {
     if (!state) return;
     const target = e.target as Element;
-    if (target.closest('[data-plan-drag]')) return;
+    const fromMark = pressedOnMark;
+    pressedOnMark = false;
+    if (fromMark || target.closest('[data-plan-drag]')) return;
     if (state.tool === 'select' || state.readOnly) {
       if (!target.closest('[data-zone]')) cb.onSelect(null);
       return;

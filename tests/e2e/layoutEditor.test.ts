@@ -1,0 +1,222 @@
+import path from 'node:path';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SCREENS, signInPage, startE2e, type E2e } from '../support/e2e';
+
+const PLANNER = 'planner@fernhill.test';
+const REVIEWER = 'reviewer@fernhill.test';
+const DEMO_PROJECT = 'Line 3 end-of-line cell';
+const DEMO_LAYOUT = 'Fernhill line 3 — cell layout';
+
+let e: E2e;
+beforeAll(async () => {
+  e = await startE2e();
+});
+afterAll(async () => e?.close());
+
+/**
+ * The demo layout's ids, through the page's own session. When the seed has no demo layout, one is
+ * made here from the demo floor plan and catalogue: four arms of the invented Fernhill cell.
+ */
+async function demoLayout(page: Page): Promise<{ projectId: number; layoutId: number }> {
+  return page.evaluate(
+    async ({ projectName, layoutName }) => {
+      const get = async (url: string) => {
+        const r = await fetch(url);
+        if (!r.ok) throw new Error(`${url}: ${r.status}`);
+        return r.json();
+      };
+      const { projects } = await get('/api/projects');
+      const project = projects.find((p: { name: string }) => p.name === projectName);
+      const { layouts } = await get(`/api/projects/${project.id}/layouts`);
+      const existing = layouts.find((l: { name: string }) => l.name === layoutName);
+      if (existing) return { projectId: project.id, layoutId: existing.id };
+      const { floorPlans } = await get(`/api/projects/${project.id}/floor-plans`);
+      const { armModels } = await get('/api/arm-models');
+      const model = (name: string) => armModels.find((m: { name: string }) => m.name.startsWith(name))?.id ?? armModels[0].id;
+      const arm = (id: string, m: string, x: number, y: number, yaw: number) => ({ id, armModelId: model(m), label: '', x, y, yaw, mountHeight: 0 });
+      const content = {
+        arms: [
+          arm('R1', 'Demo SCARA', 5000, 9000, 0),
+          arm('R2', 'Demo SCARA', 9000, 9000, 180),
+          arm('R3', 'Demo Articulated', 13000, 6000, 90),
+          arm('R4', 'Demo Palletizer', 19000, 6000, 90),
+        ],
+        workPoints: [],
+        zones: [],
+        // Inside the stroke of the demo SCARA (mounted on the floor here), so every arm has a band.
+        workHeights: [500],
+      };
+      const r = await fetch(`/api/projects/${project.id}/layouts`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ name: layoutName, floorPlanId: floorPlans[0]?.id ?? null, content }),
+      });
+      if (!r.ok) throw new Error(`create layout: ${r.status} ${await r.text()}`);
+      return { projectId: project.id, layoutId: (await r.json()).layout.id };
+    },
+    { projectName: DEMO_PROJECT, layoutName: DEMO_LAYOUT },
+  );
+}
+
+async function storedArm(page: Page, layoutId: number, armId: string): Promise<{ x: number; y: number }> {
+  return page.evaluate(
+    async ({ id, arm }) => {
+      const { layout } = await (await fetch(`/api/layouts/${id}`)).json();
+      const a = layout.content.arms.find((x: { id: string }) => x.id === arm);
+      return { x: a.x, y: a.y };
+    },
+    { id: layoutId, arm: armId },
+  );
+}
+
+/** Screen centre of an arm's base marker. */
+async function baseCentre(page: Page, armId: string): Promise<[number, number]> {
+  const box = await page.locator(`g.arm-mark[data-arm="${armId}"] circle.arm-base`).boundingBox();
+  if (!box) throw new Error(`no marker for ${armId}`);
+  return [box.x + box.width / 2, box.y + box.height / 2];
+}
+
+const pairKey = (a: string, b: string) => [a, b].sort().join('+');
+
+async function openEditor(page: Page, projectId: number, layoutId: number) {
+  await page.goto(`${e.server.url}/projects/${projectId}/layouts/${layoutId}`);
+  await page.locator('[data-layout-editor]').waitFor();
+  // The first analysis from the worker has drawn the findings list.
+  await page.locator('[data-analysis-state="idle"]').waitFor();
+  await page.locator('g.arm-mark').first().waitFor({ state: 'attached' });
+}
+
+describe('layout editor in Chromium', () => {
+  it('drags an arm until it shares space with another; the shared zone follows live, undo and reload hold', async () => {
+    const page = await e.browser.newPage({ viewport: { width: 1440, height: 1100 } });
+    await signInPage(page, e.server.url, PLANNER);
+    const { projectId, layoutId } = await demoLayout(page);
+
+    // The project page lists the layout with its counts.
+    await page.goto(`${e.server.url}/projects/${projectId}`);
+    const row = page.getByRole('table', { name: 'Layouts' }).getByRole('row', { name: new RegExp(DEMO_LAYOUT) });
+    await row.waitFor();
+    await row.getByRole('link', { name: DEMO_LAYOUT }).click();
+    await page.waitForURL(new RegExp(`/layouts/${layoutId}$`));
+    await openEditor(page, projectId, layoutId);
+
+    // Two arms that do not share space yet: the moving one and its neighbour (nearest such pair).
+    const arms = await page.locator('g.arm-mark').evaluateAll((gs) => gs.map((g) => g.getAttribute('data-arm')!));
+    expect(arms.length).toBeGreaterThanOrEqual(2);
+    const shared = new Set(await page.locator('path.shared-zone').evaluateAll((ps) => ps.map((p) => p.getAttribute('data-shared'))));
+    const centres = new Map<string, [number, number]>();
+    for (const id of arms) centres.set(id, await baseCentre(page, id));
+    let best: { a: string; b: string; d: number } | null = null;
+    for (const a of arms) {
+      for (const b of arms) {
+        if (a >= b || shared.has(pairKey(a, b))) continue;
+        const [ax, ay] = centres.get(a)!;
+        const [bx, by] = centres.get(b)!;
+        const d = Math.hypot(ax - bx, ay - by);
+        if (!best || d < best.d) best = { a, b, d };
+      }
+    }
+    expect(best, 'a pair of arms without a shared zone').not.toBeNull();
+    const { a: mover, b: other } = best!;
+    const key = pairKey(mover, other);
+    const before = await storedArm(page, layoutId, mover);
+
+    // Drag without letting go: the worker's analysis of the drag pose draws the shared zone live.
+    const [sx, sy] = centres.get(mover)!;
+    const [tx, ty] = centres.get(other)!;
+    await page.mouse.move(sx, sy);
+    await page.mouse.down();
+    const zone = page.locator(`path.shared-zone[data-shared="${key}"]`);
+    let appeared = false;
+    for (let f = 0.1; f <= 0.9 + 1e-9 && !appeared; f += 0.1) {
+      await page.mouse.move(sx + (tx - sx) * f, sy + (ty - sy) * f, { steps: 4 });
+      appeared = await zone
+        .waitFor({ state: 'attached', timeout: 1500 })
+        .then(() => true)
+        .catch(() => false);
+    }
+    expect(appeared, 'shared zone drawn during the drag').toBe(true);
+    await page.mouse.up();
+
+    // The finding is listed and the zone is drawn with the hatch pattern.
+    const finding = page.locator(`[data-finding="shared-zone:${key}"]`);
+    await finding.waitFor();
+    expect(await finding.textContent()).toMatch(/share [\d.]+ m² of restricted space/);
+    const fill = await zone.evaluate((p) => getComputedStyle(p).fill);
+    expect(fill).toContain('rf-shared-hatch');
+    expect(await page.locator('pattern#rf-shared-hatch').count()).toBe(1);
+    await expect.poll(async () => (await storedArm(page, layoutId, mover)).x, { timeout: 10000 }).not.toBe(before.x);
+    const moved = await storedArm(page, layoutId, mover);
+    // The caution is shown at the foot of the findings.
+    expect(await page.locator('[data-caution]').textContent()).toMatch(/ISO 12100.*ISO 10218-2.*competent person/s);
+    await page.screenshot({ path: path.join(SCREENS, 'layout-editor-after-drag.png') });
+
+    // Clicking the finding selects it, emphasises the arms involved and zooms onto the shared zone.
+    const zoneBox0 = (await zone.boundingBox())!;
+    await finding.click();
+    expect(await finding.getAttribute('aria-pressed')).toBe('true');
+    await expect.poll(async () => (await zone.boundingBox())!.width, { timeout: 5000 }).toBeGreaterThan(zoneBox0.width * 1.5);
+    await page.waitForTimeout(400);
+    await page.screenshot({ path: path.join(SCREENS, 'layout-editor-shared-zone.png') });
+
+    // Undo (Ctrl+Z) puts the arm back; the shared zone goes; the server gets the old position again.
+    await page.locator('body').click({ position: { x: 5, y: 5 } });
+    await page.keyboard.press('Control+z');
+    await expect.poll(async () => zone.count(), { timeout: 10000 }).toBe(0);
+    await expect.poll(async () => storedArm(page, layoutId, mover), { timeout: 10000 }).toEqual(before);
+    // Redo (Shift+Ctrl+Z) moves it again, and the save reaches the server.
+    await page.keyboard.press('Shift+Control+z');
+    await expect.poll(async () => storedArm(page, layoutId, mover), { timeout: 10000 }).toEqual(moved);
+    await page.locator('[data-save-state="saved"]').waitFor();
+
+    // Reload: the saved position, and the shared zone drawn again.
+    await page.reload();
+    await openEditor(page, projectId, layoutId);
+    await page.locator(`path.shared-zone[data-shared="${key}"]`).waitFor({ state: 'attached' });
+    await page.locator(`g.arm-mark[data-arm="${mover}"] circle.arm-base`).click();
+    expect(Number(await page.getByLabel('x (east) (mm)').inputValue())).toBeCloseTo(moved.x, 0);
+    expect(Number(await page.getByLabel('y (north) (mm)').inputValue())).toBeCloseTo(moved.y, 0);
+
+    // Arrow keys nudge the selected arm 10 mm (Shift: 100 mm); ] turns it 5°.
+    const yaw0 = Number(await page.getByLabel('Yaw (°)').inputValue());
+    await page.locator('body').click({ position: { x: 5, y: 5 } });
+    await page.locator(`g.arm-mark[data-arm="${mover}"] circle.arm-base`).click();
+    await page.keyboard.press('ArrowRight');
+    await page.keyboard.press('Shift+ArrowUp');
+    await page.keyboard.press(']');
+    await expect.poll(async () => Number(await page.getByLabel('x (east) (mm)').inputValue())).toBeCloseTo(moved.x + 10, 0);
+    expect(Number(await page.getByLabel('y (north) (mm)').inputValue())).toBeCloseTo(moved.y + 100, 0);
+    const yaw1 = Number(await page.getByLabel('Yaw (°)').inputValue());
+    expect(((yaw1 - yaw0 + 540) % 360) - 180).toBeCloseTo(5, 6);
+    await page.close();
+  });
+
+  it('shows the reviewer the same findings, read only', async () => {
+    const planner = await e.browser.newPage();
+    await signInPage(planner, e.server.url, PLANNER);
+    const { projectId, layoutId } = await demoLayout(planner);
+    await planner.close();
+
+    const page = await e.browser.newPage({ viewport: { width: 1440, height: 1000 } });
+    await signInPage(page, e.server.url, REVIEWER);
+    await openEditor(page, projectId, layoutId);
+    expect(await page.locator('[data-layout-editor]').getAttribute('data-read-only')).toBe('true');
+    expect(await page.getByRole('button', { name: 'Add arm' }).count()).toBe(0);
+    expect(await page.getByRole('button', { name: 'Fence' }).count()).toBe(0);
+    const first = await page.locator('g.arm-mark').first().getAttribute('data-arm');
+    const before = await storedArm(page, layoutId, first!);
+    const [x, y] = await baseCentre(page, first!);
+    await page.mouse.move(x, y);
+    await page.mouse.down();
+    await page.mouse.move(x + 120, y + 60, { steps: 5 });
+    await page.mouse.up();
+    // Selected but not moved: the marker stays where it was and nothing is saved.
+    expect(await baseCentre(page, first!)).toEqual([x, y]);
+    expect(await page.getByLabel('x (east) (mm)').getAttribute('readonly')).not.toBeNull();
+    expect(await storedArm(page, layoutId, first!)).toEqual(before);
+    expect(await page.locator('ul[aria-label="Findings"] li').count()).toBeGreaterThan(0);
+    await page.screenshot({ path: path.join(SCREENS, 'layout-editor-reviewer.png') });
+    await page.close();
+  });
+});
