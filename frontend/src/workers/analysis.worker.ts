@@ -1,15 +1,15 @@
 /// <reference lib="webworker" />
 /**
  * The layout analysis off the main thread: one session (analyzer + reach regions + floor) for the
- * life of the editor page. Messages that arrive while an analysis runs are folded together: only
- * the latest input is analysed next.
+ * life of the editor page, with the same reach adapter the server's analysis uses. Messages that
+ * arrive while an analysis runs are folded together: only the latest input is analysed next.
  */
+import { armReachFor } from '@shared/analysis/armReach';
 import type { FromWorker, ToWorker } from './analysisProtocol';
 import { createAnalysisSession } from './analysisSession';
-import { reachOfParams } from './reachBuilder';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
-const session = createAnalysisSession(reachOfParams);
+const session = createAnalysisSession(armReachFor);
 let scheduled = false;
 
 function runLatest(): void {
