@@ -4,7 +4,7 @@ import type { Polygon2 } from './types';
 /**
  * Fast exact signed distance to a fixed polygon set, for hot loops (millions of queries).
  *
- * Method: a uniform grid over the padded bounds. For each cell centre c the distance d_c to the
+ * Method: a uniform grid over the padded bounds (a fine level close by, a coarse one far out). For each cell centre c the distance d_c to the
  * boundary is computed once; by the triangle inequality every query point p in that cell has its
  * nearest edge among the edges within d_c + 2h of c (h = half the cell diagonal), so only those are
  * stored and tested. The sign comes from the nearest feature (region on the left of every edge):
@@ -114,63 +114,125 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
   if (!bounds || E === 0) {
     return { signedDistance: () => -Infinity, contains: () => false, edgeCount: 0 };
   }
-  const maxCells = opts.maxCells ?? 64;
   const w = bounds[2] - bounds[0];
   const h = bounds[3] - bounds[1];
   const size = Math.max(w, h, 1);
-  const pad = size * 0.5 + 1;
-  const gx0 = bounds[0] - pad;
-  const gy0 = bounds[1] - pad;
-  const cell = (size + 2 * pad) / maxCells;
-  const nx = Math.max(1, Math.ceil((w + 2 * pad) / cell));
-  const ny = Math.max(1, Math.ceil((h + 2 * pad) / cell));
-  const halfDiag = (cell * Math.SQRT2) / 2;
-  const starts = new Int32Array(nx * ny + 1);
-  const lists: number[] = [];
-  const bounds2: number[] = [];
-  const dist = new Float64Array(E);
-  const order: number[] = [];
-  for (let iy = 0; iy < ny; iy++) {
-    const cy = gy0 + (iy + 0.5) * cell;
-    for (let ix = 0; ix < nx; ix++) {
-      const cx = gx0 + (ix + 0.5) * cell;
-      let dc = Infinity;
-      for (let e = 0; e < E; e++) {
-        const px = cx - eAx[e];
-        const py = cy - eAy[e];
-        let t = (px * eDx[e] + py * eDy[e]) * eInvLen2[e];
-        if (t < 0) t = 0;
-        else if (t > 1) t = 1;
-        const qx = px - t * eDx[e];
-        const qy = py - t * eDy[e];
-        const d = Math.sqrt(qx * qx + qy * qy);
-        dist[e] = d;
-        if (d < dc) dc = d;
-      }
-      const limit = dc + 2 * halfDiag + 1e-9 * (1 + dc);
-      starts[iy * nx + ix] = lists.length;
-      order.length = 0;
-      for (let e = 0; e < E; e++) if (dist[e] <= limit) order.push(e);
-      // Nearest first: a point in the cell is at least dist(c, e) − h from edge e.
-      order.sort((p, q) => dist[p] - dist[q]);
-      for (const e of order) {
-        lists.push(e);
-        const lb = dist[e] - halfDiag;
-        bounds2.push(lb > 0 ? lb * lb : 0);
+  const maxCells = opts.maxCells ?? 64;
+
+  interface Level {
+    gx0: number;
+    gy0: number;
+    nx: number;
+    ny: number;
+    invCell: number;
+    starts: Int32Array;
+    edges: Int32Array;
+    lb2: Float64Array;
+  }
+  /** One grid level over the bounds grown by `pad` with `cells` cells across. */
+  const buildLevel = (pad: number, cells: number): Level => {
+    const gx0 = bounds[0] - pad;
+    const gy0 = bounds[1] - pad;
+    const cell = (size + 2 * pad) / cells;
+    const nx = Math.max(1, Math.ceil((w + 2 * pad) / cell));
+    const ny = Math.max(1, Math.ceil((h + 2 * pad) / cell));
+    const halfDiag = (cell * Math.SQRT2) / 2;
+    const starts = new Int32Array(nx * ny + 1);
+    const lists: number[] = [];
+    const bounds2: number[] = [];
+    const dist = new Float64Array(E);
+    const order: number[] = [];
+    for (let iy = 0; iy < ny; iy++) {
+      const cy = gy0 + (iy + 0.5) * cell;
+      for (let ix = 0; ix < nx; ix++) {
+        const cx = gx0 + (ix + 0.5) * cell;
+        let dc = Infinity;
+        for (let e = 0; e < E; e++) {
+          const px = cx - eAx[e];
+          const py = cy - eAy[e];
+          let t = (px * eDx[e] + py * eDy[e]) * eInvLen2[e];
+          if (t < 0) t = 0;
+          else if (t > 1) t = 1;
+          const qx = px - t * eDx[e];
+          const qy = py - t * eDy[e];
+          const d = Math.sqrt(qx * qx + qy * qy);
+          dist[e] = d;
+          if (d < dc) dc = d;
+        }
+        const limit = dc + 2 * halfDiag + 1e-9 * (1 + dc);
+        starts[iy * nx + ix] = lists.length;
+        order.length = 0;
+        for (let e = 0; e < E; e++) if (dist[e] <= limit) order.push(e);
+        // Nearest first: a point in the cell is at least dist(c, e) − h from edge e.
+        order.sort((p, q) => dist[p] - dist[q]);
+        for (const e of order) {
+          lists.push(e);
+          const lb = dist[e] - halfDiag;
+          bounds2.push(lb > 0 ? lb * lb : 0);
+        }
       }
     }
-  }
-  starts[nx * ny] = lists.length;
-  const cellEdges = Int32Array.from(lists);
-  const cellBounds = Float64Array.from(bounds2);
-  const invCell = 1 / cell;
+    starts[nx * ny] = lists.length;
+    return { gx0, gy0, nx, ny, invCell: 1 / cell, starts, edges: Int32Array.from(lists), lb2: Float64Array.from(bounds2) };
+  };
+  // A fine level around the polygons and a coarse one far beyond them; outside both, all edges.
+  const fine = buildLevel(size * 0.5 + 1, maxCells);
+  const coarse = buildLevel(size * 2.5 + 1, 24);
 
+  // Edge data interleaved for locality: ax, ay, dx, dy, 1/len².
+  const ed = new Float64Array(5 * E);
+  for (let e = 0; e < E; e++) {
+    ed[5 * e] = eAx[e];
+    ed[5 * e + 1] = eAy[e];
+    ed[5 * e + 2] = eDx[e];
+    ed[5 * e + 3] = eDy[e];
+    ed[5 * e + 4] = eInvLen2[e];
+  }
   const signedDistance = (x: number, y: number): number => {
-    const ix = Math.floor((x - gx0) * invCell);
-    const iy = Math.floor((y - gy0) * invCell);
-    if (ix < 0 || iy < 0 || ix >= nx || iy >= ny) return evaluate(x, y, null, null, 0, E);
-    const c = iy * nx + ix;
-    return evaluate(x, y, cellEdges, cellBounds, starts[c], starts[c + 1]);
+    let L = fine;
+    let fx = (x - L.gx0) * L.invCell;
+    let fy = (y - L.gy0) * L.invCell;
+    if (!(fx >= 0 && fy >= 0 && fx < L.nx && fy < L.ny)) {
+      L = coarse;
+      fx = (x - L.gx0) * L.invCell;
+      fy = (y - L.gy0) * L.invCell;
+      if (!(fx >= 0 && fy >= 0 && fx < L.nx && fy < L.ny)) return evaluate(x, y, null, null, 0, E);
+    }
+    const c = (fy | 0) * L.nx + (fx | 0);
+    const starts = L.starts;
+    const cellEdges = L.edges;
+    const cellBounds = L.lb2;
+    const to = starts[c + 1];
+    let best = Infinity;
+    let bestEdge = -1;
+    let bestT = 0;
+    for (let k = starts[c]; k < to; k++) {
+      if (cellBounds[k] >= best) break;
+      const o = 5 * cellEdges[k];
+      const px = x - ed[o];
+      const py = y - ed[o + 1];
+      const dx = ed[o + 2];
+      const dy = ed[o + 3];
+      let t = (px * dx + py * dy) * ed[o + 4];
+      if (t < 0) t = 0;
+      else if (t > 1) t = 1;
+      const qx = px - t * dx;
+      const qy = py - t * dy;
+      const d2 = qx * qx + qy * qy;
+      if (d2 < best) {
+        best = d2;
+        bestEdge = o / 5;
+        bestT = t;
+      }
+    }
+    if (bestEdge < 0) return evaluate(x, y, null, null, 0, E);
+    if (best === 0) return 0;
+    const d = Math.sqrt(best);
+    const kind = bestT <= 0 ? eStart[bestEdge] : bestT >= 1 ? eEnd[bestEdge] : STRAIGHT;
+    if (kind === CONVEX) return -d;
+    if (kind === REFLEX) return d;
+    const o = 5 * bestEdge;
+    return ed[o + 2] * (y - ed[o + 1]) - ed[o + 3] * (x - ed[o]) > 0 ? d : -d;
   };
   return {
     signedDistance,

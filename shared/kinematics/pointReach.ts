@@ -1,6 +1,7 @@
-import { angularMargin, toRadians } from '../geometry/angles';
+import { toRadians } from '../geometry/angles';
 import { clipOffset } from '../geometry/clipper';
 import { buildDistanceGrid, type DistanceGrid } from '../geometry/distanceGrid';
+import { polygonsBounds } from '../geometry/area';
 import type { Polygon2 } from '../geometry/types';
 import type { ArmParams, ScaraParams } from '../schemas/armModel';
 import { familyOf, reachProfileOf, stableKey } from './families';
@@ -81,36 +82,75 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
   const tiltable = model.family === 'articulated' || model.family === 'chain';
   const reachTool = model.toolLength ?? 0;
   let anyGrid: DistanceGrid | null = null;
-  const gridFor = (approach: 'top' | 'any' | undefined): DistanceGrid => {
-    if (approach !== 'any' || !tiltable || !(reachTool > 0)) return grid;
-    if (!anyGrid) anyGrid = buildDistanceGrid(clipOffset(profile.polygons, reachTool, { join: 'round', arcToleranceMm: 0.25 }));
+  const anyGridOf = (): DistanceGrid => {
+    if (!anyGrid) {
+      const grown = clipOffset(profile.polygons, reachTool, { join: 'round', arcToleranceMm: 0.25 });
+      anyGrid = buildDistanceGrid(grown);
+      anyBox = boxOf(grown);
+    }
     return anyGrid;
   };
   const hasNegative = profile.polygons.some((p) => p[0].some(([r]) => r < 0));
+  const boxOf = (polys: Polygon2[]): [number, number, number, number] => polygonsBounds(polys) ?? [0, 0, 0, 0];
+  const topBox = boxOf(profile.polygons);
+  let anyBox = topBox;
+  /** Upper bound of the signed distance at (r, z): minus the distance to the region's bounding box when outside it. */
+  const boxBound = (b: readonly number[], r: number, z: number): number => {
+    const dx = r < b[0] ? b[0] - r : r > b[2] ? r - b[2] : 0;
+    const dz = z < b[1] ? b[1] - z : z > b[3] ? z - b[3] : 0;
+    return dx === 0 && dz === 0 ? Infinity : -Math.sqrt(dx * dx + dz * dz);
+  };
   const e2 = e * e;
+  const absE = Math.abs(e);
+  const TWO_PI = 2 * Math.PI;
+  const span = a1 - a0;
+  const unlimited = span >= TWO_PI - 1e-9;
+  /** Arc length (mm) at radius rho from bearing b to the nearer J1 edge: positive inside, negative outside. */
+  const arcAt = (b: number, rho: number): number => {
+    if (unlimited) return Infinity;
+    let t = b - a0;
+    t -= TWO_PI * Math.floor(t / TWO_PI);
+    if (t <= span) return rho * (t < span - t ? t : span - t);
+    const o = t - span;
+    const u = TWO_PI - t;
+    return -rho * (o < u ? o : u);
+  };
   return (x, y, z, approach) => {
-    const g = gridFor(approach);
-    const zt = approach === 'any' && tiltable ? z : z + drop;
+    const tilt = approach === 'any' && tiltable && reachTool > 0;
+    const g = tilt ? anyGridOf() : grid;
+    const box = tilt ? anyBox : topBox;
+    const zt = tilt ? z : z + drop;
     const rho2 = x * x + y * y;
     const rho = Math.sqrt(rho2);
+    // On the J1 axis every bearing is the same point: no J1 edge applies there.
+    if (rho < 1e-9) return g.signedDistance(0, zt);
     const bearing = Math.atan2(y, x);
     // Profiles carry the plan distance from the J1 axis as |r| (a chain's includes its lateral
     // offset); the in-plane radius rIn only sets the bearing shift atan2(e, rIn).
-    let shift = 0;
-    let rIn = rho;
+    let shiftA = 0;
+    let shiftB = Math.PI;
     if (e !== 0) {
-      if (rho2 < e2) return combine(g.signedDistance(0, zt), rho - Math.abs(e));
-      rIn = Math.sqrt(rho2 - e2);
-      shift = Math.atan2(e, rIn);
+      if (rho2 < e2) return combine(g.signedDistance(0, zt), rho - absE);
+      const rIn = Math.sqrt(rho2 - e2);
+      shiftA = Math.atan2(e, rIn);
+      shiftB = Math.atan2(e, -rIn);
     }
-    // On the J1 axis every bearing is the same point; an unlimited J1 has no edges.
-    const arcOf = (ang: number) => (rho === 0 || ang === Infinity ? Infinity : rho * ang);
-    const arcA = arcOf(angularMargin(bearing - shift, a0, a1));
-    const mA = combine(g.signedDistance(rho, zt), arcA);
-    if (!hasNegative) return mA;
-    const shiftB = e === 0 ? Math.PI : Math.atan2(e, -rIn);
-    const arcB = arcOf(angularMargin(bearing - shiftB, a0, a1));
+    const arcA = arcAt(bearing - shiftA, rho);
+    if (!hasNegative) return combine(g.signedDistance(rho, zt), arcA);
+    const arcB = arcAt(bearing - shiftB, rho);
+    // combine(d, arc) ≤ min(d, arc), and d is at most minus the distance to the profile's bounding
+    // box, so an option is looked up only when its upper bound can beat the other's margin.
+    const ubA = Math.min(arcA, boxBound(box, rho, zt));
+    const ubB = Math.min(arcB, boxBound(box, -rho, zt));
+    if (ubA >= ubB) {
+      const mA = combine(g.signedDistance(rho, zt), arcA);
+      if (ubB <= mA) return mA;
+      const mB = combine(g.signedDistance(-rho, zt), arcB);
+      return mA > mB ? mA : mB;
+    }
     const mB = combine(g.signedDistance(-rho, zt), arcB);
+    if (ubA <= mB) return mB;
+    const mA = combine(g.signedDistance(rho, zt), arcA);
     return mA > mB ? mA : mB;
   };
 }

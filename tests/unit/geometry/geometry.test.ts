@@ -138,7 +138,7 @@ describe('point in polygon and signed distance', () => {
     const polys = [ring, square(1500, -200, 300), withHole.map((r) => r.map(([x, y]) => [x - 200, y - 1600] as [number, number]))];
     const grid = buildDistanceGrid(polys);
     fc.assert(
-      fc.property(fc.double({ min: -2500, max: 2500, noNaN: true }), fc.double({ min: -2500, max: 2500, noNaN: true }), (x, y) => {
+      fc.property(fc.double({ min: -12000, max: 12000, noNaN: true }), fc.double({ min: -12000, max: 12000, noNaN: true }), (x, y) => {
         expect(grid.signedDistance(x, y)).toBeCloseTo(signedDistanceToPolygons(x, y, polys), 9);
       }),
       { numRuns: 3000 },

@@ -1,7 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { forwardModel, parseArmParams } from '@shared/kinematics/families';
-import { armReach, makePointReach, pointReach } from '@shared/kinematics/pointReach';
+import { angularMargin } from '@shared/geometry/angles';
+import { signedDistanceToPolygons } from '@shared/geometry/pointInPolygon';
+import { reachProfileOf } from '@shared/kinematics/families';
+import { j1KinematicRange } from '@shared/kinematics/planRegions';
+import { armReach, makePointReach, marginFnOf, pointReach } from '@shared/kinematics/pointReach';
 import type { ArmParams } from '@shared/schemas/armModel';
 import { ax, articulatedSets, deepFreeze, linkageSets, scaraSets } from './fixtures';
 
@@ -107,4 +111,36 @@ describe('point reach at known radii and heights', () => {
     expect(r.margin(-2500, 0, 1200)).toBeLessThan(0);
     expect(scaraSets.length).toBeGreaterThan(0);
   });
+});
+
+describe('the fast margin equals its plain definition', () => {
+  // Plain form: max over the two ways to reach a bearing (in front, or behind over the top when the
+  // profile reaches behind the J1 axis) of combine(profile distance, J1 edge arc length).
+  const combine = (a: number, b: number) => (a >= 0 && b >= 0 ? Math.min(a, b) : a < 0 && b < 0 ? -Math.hypot(a, b) : Math.min(a, b));
+  for (const m of [articulatedSets[0], articulatedSets[1], linkageSets[2]]) {
+    it(`${m.family}: brute-force distances and the grid agree for random points`, () => {
+      const restrict = { j1Min: -75, j1Max: 120 };
+      const fast = marginFnOf(m, restrict);
+      const prof = reachProfileOf(m);
+      const range = j1KinematicRange(m, restrict);
+      const a0 = (range.min * Math.PI) / 180 - 1e-9;
+      const a1 = (range.max * Math.PI) / 180 + 1e-9;
+      const behind = prof.polygons.some((p) => p[0].some(([r]) => r < 0));
+      const R = prof.maxReach * 2;
+      fc.assert(
+        fc.property(fc.double({ min: -R, max: R, noNaN: true }), fc.double({ min: -R, max: R, noNaN: true }), fc.double({ min: prof.zMin - 1000, max: prof.zMax + 1000, noNaN: true }), (x, y, z) => {
+          const rho = Math.hypot(x, y);
+          if (rho < 1e-6) return; // on the J1 axis no J1 edge applies (see pointReach.ts)
+          const zt = z + m.toolLength;
+          const b = Math.atan2(y, x);
+          const arc = (ang: number) => rho * angularMargin(ang, a0, a1);
+          const mA = combine(signedDistanceToPolygons(rho, zt, prof.polygons), arc(b));
+          const mB = combine(signedDistanceToPolygons(-rho, zt, prof.polygons), arc(b - Math.PI));
+          const plain = behind ? Math.max(mA, mB) : mA;
+          expect(fast(x, y, z)).toBeCloseTo(plain, 6);
+        }),
+        { numRuns: 2000 },
+      );
+    });
+  }
 });

@@ -1,0 +1,78 @@
+// Kinematics core benchmark: reach profile time per family (target ≤ 50 ms each) and point-reach
+// throughput (target ≥ 5 million checks per second on one core). Prints figures and ratios.
+import { readFileSync, readdirSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { familyOf } from '../../shared/kinematics/families';
+import { makePointReach, marginFnOf } from '../../shared/kinematics/pointReach';
+import { ArmModelInput, type ArmParams } from '../../shared/schemas/armModel';
+
+const PROFILE_TARGET_MS = 50;
+const REACH_TARGET_PER_S = 5e6;
+
+const dir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../samples/arm-models');
+const models: Array<{ name: string; params: ArmParams }> = readdirSync(dir)
+  .filter((f) => f.endsWith('.json'))
+  .sort()
+  .map((f) => ArmModelInput.parse(JSON.parse(readFileSync(path.join(dir, f), 'utf8'))));
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
+console.log('reach profile (uncached, median of 15 after 3 warm-up runs)');
+for (const m of models) {
+  const fam = familyOf(m.params);
+  for (let i = 0; i < 3; i++) fam.reachProfile(m.params);
+  const times: number[] = [];
+  let profile = fam.reachProfile(m.params);
+  for (let i = 0; i < 15; i++) {
+    const t = performance.now();
+    profile = fam.reachProfile(m.params);
+    times.push(performance.now() - t);
+  }
+  const ms = median(times);
+  const verts = profile.polygons.reduce((n, p) => n + p.reduce((k, r) => k + r.length, 0), 0);
+  console.log(
+    `  ${m.params.family.padEnd(12)} ${m.name.padEnd(24)} ${ms.toFixed(2).padStart(7)} ms  (${profile.method}, ${verts} vertices, ±${profile.toleranceMm.toFixed(2)} mm)  target ≤ ${PROFILE_TARGET_MS} ms  ratio ${(PROFILE_TARGET_MS / ms).toFixed(1)}× ${ms <= PROFILE_TARGET_MS ? 'OK' : 'SLOW'}`,
+  );
+}
+
+console.log('\npoint reach (arm-frame points in a box of ±1.2 × max reach, z over the profile heights ± 300 mm)');
+const N = 5_000_000;
+for (const m of models) {
+  const t0 = performance.now();
+  const margin = marginFnOf(m.params, null);
+  const buildMs = performance.now() - t0;
+  const profile = familyOf(m.params).reachProfile(m.params);
+  const R = 1.2 * profile.maxReach;
+  const pts = new Float64Array(3 * 65536);
+  let seed = 12345;
+  const rnd = () => ((seed = (seed * 1103515245 + 12345) >>> 0) / 4294967296);
+  for (let i = 0; i < 65536; i++) {
+    pts[3 * i] = (rnd() * 2 - 1) * R;
+    pts[3 * i + 1] = (rnd() * 2 - 1) * R;
+    pts[3 * i + 2] = profile.zMin - 300 + rnd() * (profile.zMax - profile.zMin + 600);
+  }
+  let reached = 0;
+  for (let i = 0; i < 200_000; i++) margin(pts[3 * (i & 65535)], pts[3 * (i & 65535) + 1], pts[3 * (i & 65535) + 2]);
+  const t = performance.now();
+  for (let i = 0; i < N; i++) {
+    const k = 3 * (i & 65535);
+    if (margin(pts[k], pts[k + 1], pts[k + 2]) >= 0) reached++;
+  }
+  const s = (performance.now() - t) / 1000;
+  const rate = N / s;
+  console.log(
+    `  ${m.params.family.padEnd(12)} ${(rate / 1e6).toFixed(2).padStart(6)} M checks/s  (${((100 * reached) / N).toFixed(1)} % reached, region built in ${buildMs.toFixed(1)} ms)  target ≥ ${REACH_TARGET_PER_S / 1e6} M/s  ratio ${(rate / REACH_TARGET_PER_S).toFixed(2)}× ${rate >= REACH_TARGET_PER_S ? 'OK' : 'SLOW'}`,
+  );
+}
+
+// The object form used by callers that want {reached, marginMm}.
+const first = models[0];
+const check = makePointReach(first.params);
+const t = performance.now();
+let hits = 0;
+for (let i = 0; i < 1_000_000; i++) if (check({ x: (i % 1000) - 500, y: ((i * 7) % 1000) - 500, z: 500 }).reached) hits++;
+console.log(`\n  makePointReach object form (${first.params.family}): ${(1 / ((performance.now() - t) / 1000)).toFixed(2)} M checks/s (${hits} reached)`);
