@@ -219,4 +219,84 @@ describe('layout editor in Chromium', () => {
     await page.screenshot({ path: path.join(SCREENS, 'layout-editor-reviewer.png') });
     await page.close();
   });
+  it('draws a fence, an opening on it and an operator area by clicks; a save from elsewhere brings the conflict dialog', async () => {
+    const page = await e.browser.newPage({ viewport: { width: 1440, height: 1100 } });
+    await signInPage(page, e.server.url, PLANNER);
+    const { projectId } = await demoLayout(page);
+    const layoutId = await page.evaluate(async (pid) => {
+      const { floorPlans } = await (await fetch(`/api/projects/${pid}/floor-plans`)).json();
+      const { armModels } = await (await fetch('/api/arm-models')).json();
+      const content = { arms: [{ id: 'R1', armModelId: armModels[0].id, label: '', x: 2500, y: 2500, yaw: 0, mountHeight: 0 }], workPoints: [], zones: [], workHeights: [900] };
+      const r = await fetch(`/api/projects/${pid}/layouts`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: 'Zones drawn by clicks', floorPlanId: floorPlans[0]?.id ?? null, content }) });
+      return (await r.json()).layout.id as number;
+    }, projectId);
+    await openEditor(page, projectId, layoutId);
+    const svg = (await page.locator('svg[aria-label^="Layout "]').boundingBox())!;
+    const at = (fx: number, fy: number): [number, number] => [svg.x + svg.width * fx, svg.y + svg.height * fy];
+
+    // Fence: three corners, Enter finishes; it starts at 2000 mm and takes the typed height.
+    await page.getByRole('button', { name: 'Fence', exact: true }).click();
+    for (const [fx, fy] of [[0.3, 0.3], [0.7, 0.3], [0.7, 0.7]]) await page.mouse.click(...at(fx, fy));
+    await page.keyboard.press('Enter');
+    const height = page.getByLabel('Fence height (mm)');
+    expect(await height.inputValue()).toBe('2000');
+    await height.fill('1200');
+    await height.press('Tab');
+    // Below the 1400 mm of ISO 10218-2 for perimeter guards: the analysis says so.
+    await page.locator('[data-finding="fence-too-low:F1"]').waitFor();
+
+    // Opening: two clicks near the fence's first run, snapped onto it.
+    await page.getByRole('button', { name: 'Opening', exact: true }).click();
+    await page.mouse.click(...at(0.4, 0.305));
+    await page.mouse.click(...at(0.5, 0.295));
+    await page.locator('path.zone-line[data-zone="G1"]').waitFor({ state: 'attached' });
+
+    // Operator area: four corners, the last one double-clicked.
+    await page.getByRole('button', { name: 'Operator area', exact: true }).click();
+    for (const [fx, fy] of [[0.35, 0.45], [0.6, 0.45], [0.6, 0.6]]) await page.mouse.click(...at(fx, fy));
+    await page.mouse.dblclick(...at(0.35, 0.6));
+    await page.locator('path.zone-area[data-kind="operator"][data-zone="A1"]').waitFor({ state: 'attached' });
+    expect(await page.locator('text.zone-label[data-zone="A1"]').textContent()).toMatch(/OPERATOR AREA/);
+
+    const stored = async () =>
+      page.evaluate(async (id) => (await (await fetch(`/api/layouts/${id}`)).json()).layout as { version: number; content: { zones: Array<{ id: string; kind: string; points: number[][]; height?: number; fenceId?: string }>; arms: Array<{ x: number }> } }, layoutId);
+    await expect.poll(async () => (await stored()).content.zones.map((z) => z.id).sort(), { timeout: 10000 }).toEqual(['A1', 'F1', 'G1']);
+    const zones = (await stored()).content.zones;
+    const fence = zones.find((z) => z.id === 'F1')!;
+    const opening = zones.find((z) => z.id === 'G1')!;
+    expect(fence.height).toBe(1200);
+    expect(fence.points).toHaveLength(3);
+    expect(opening.fenceId).toBe('F1');
+    // Both ends lie on the fence's first run (horizontal on screen, so one plan y), between its corners.
+    expect(opening.points[0][1]).toBeCloseTo(fence.points[0][1], 0);
+    expect(opening.points[1][1]).toBeCloseTo(fence.points[0][1], 0);
+    expect(zones.find((z) => z.id === 'A1')!.points).toHaveLength(4);
+    await page.locator('[data-save-state="saved"]').waitFor();
+
+    // Someone else saves the layout; the next edit here meets a newer version.
+    const theirs = await page.evaluate(async (id) => {
+      const { layout } = await (await fetch(`/api/layouts/${id}`)).json();
+      const r = await fetch(`/api/layouts/${id}`, { method: 'PUT', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ version: layout.version, name: 'Zones drawn by clicks (edited elsewhere)' }) });
+      return r.status;
+    }, layoutId);
+    expect(theirs).toBe(200);
+    await page.keyboard.press('Escape');
+    await page.locator('g.arm-mark[data-arm="R1"] circle.arm-base').click();
+    await page.keyboard.press('ArrowRight');
+    const dialog = page.getByRole('dialog', { name: 'This layout was changed elsewhere' });
+    await dialog.waitFor();
+    expect(await page.locator('[data-layout-editor]').getAttribute('data-read-only')).toBe('true');
+    await dialog.getByRole('button', { name: 'Keep mine as a copy' }).click();
+    await page.waitForURL((u) => !u.pathname.endsWith(`/layouts/${layoutId}`) && /\/layouts\/\d+$/.test(u.pathname));
+    const copyId = Number(page.url().split('/').pop());
+    const copy = await page.evaluate(async (id) => (await (await fetch(`/api/layouts/${id}`)).json()).layout, copyId);
+    expect(copy.name).toMatch(/\(my copy\)$/);
+    expect(copy.content.arms[0].x).toBe(2510);
+    expect(copy.content.zones).toHaveLength(3);
+    // Theirs is untouched by my edit.
+    expect((await stored()).content.arms[0].x).toBe(2500);
+    await page.locator('[data-layout-editor]').waitFor();
+    await page.screenshot({ path: path.join(SCREENS, 'layout-editor-zones.png') });
+    await page.close();
+  });
 });
