@@ -5,7 +5,8 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { familyOf } from '../../shared/kinematics/families';
 import { makePointReach, marginFnOf } from '../../shared/kinematics/pointReach';
-import { ArmModelInput, type ArmParams } from '../../shared/schemas/armModel';
+import { scaraPlanRegion } from '../../shared/kinematics/scara';
+import { ArmModelInput, type ArmParams, type ScaraParams } from '../../shared/schemas/armModel';
 
 const PROFILE_TARGET_MS = 50;
 const REACH_TARGET_PER_S = 5e6;
@@ -37,6 +38,20 @@ for (const m of models) {
   console.log(
     `  ${m.params.family.padEnd(12)} ${m.name.padEnd(24)} ${ms.toFixed(2).padStart(7)} ms  (${profile.method}, ${verts} vertices, ±${profile.toleranceMm.toFixed(2)} mm)  target ≤ ${PROFILE_TARGET_MS} ms  ratio ${(PROFILE_TARGET_MS / ms).toFixed(1)}× ${ms <= PROFILE_TARGET_MS ? 'OK' : 'SLOW'}`,
   );
+}
+
+// A scara's side profile is a rectangle; its real work is the plan region over J1 × J2.
+for (const m of models.filter((x) => x.params.family === 'scara')) {
+  const params = m.params as ScaraParams;
+  for (let i = 0; i < 3; i++) scaraPlanRegion(params);
+  const times: number[] = [];
+  for (let i = 0; i < 15; i++) {
+    const t = performance.now();
+    scaraPlanRegion(params);
+    times.push(performance.now() - t);
+  }
+  const ms = median(times);
+  console.log(`  ${'scara plan'.padEnd(12)} ${m.name.padEnd(24)} ${ms.toFixed(2).padStart(7)} ms  (exact, 2R plan region)  target ≤ ${PROFILE_TARGET_MS} ms  ratio ${(PROFILE_TARGET_MS / ms).toFixed(1)}× ${ms <= PROFILE_TARGET_MS ? 'OK' : 'SLOW'}`);
 }
 
 console.log('\npoint reach (arm-frame points in a box of ±1.2 × max reach, z over the profile heights ± 300 mm)');
