@@ -10,3 +10,4 @@ export * from './geojson';
 export * from './clipper';
 export * from './boolean';
 export * from './distanceGrid';
+export * from './simplify';

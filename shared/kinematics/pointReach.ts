@@ -2,6 +2,7 @@ import { toRadians } from '../geometry/angles';
 import { clipOffset } from '../geometry/clipper';
 import { buildDistanceGrid, type DistanceGrid } from '../geometry/distanceGrid';
 import { polygonsBounds } from '../geometry/area';
+import { simplifyPolygons } from '../geometry/simplify';
 import type { Polygon2 } from '../geometry/types';
 import type { ArmParams, ScaraParams } from '../schemas/armModel';
 import { familyOf, reachProfileOf, stableKey } from './families';
@@ -78,21 +79,24 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
   const a0 = toRadians(range.min) - 1e-9;
   const a1 = toRadians(range.max) + 1e-9;
   const e = familyOf(model).lateralOffset(model);
-  const grid = buildDistanceGrid(profile.polygons);
+  // A sampled profile (chain) is a raster contour with many nearly collinear points: simplify it
+  // (Douglas–Peucker, 0.5 mm) and grow it by the same 0.5 mm so it still contains the original.
+  const polygons = profile.method === 'sampled' ? clipOffset(simplifyPolygons(profile.polygons, 0.5), 0.5, { join: 'miter' }) : profile.polygons;
+  const grid = buildDistanceGrid(polygons);
   const tiltable = model.family === 'articulated' || model.family === 'chain';
   const reachTool = model.toolLength ?? 0;
   let anyGrid: DistanceGrid | null = null;
   const anyGridOf = (): DistanceGrid => {
     if (!anyGrid) {
-      const grown = clipOffset(profile.polygons, reachTool, { join: 'round', arcToleranceMm: 0.25 });
+      const grown = clipOffset(polygons, reachTool, { join: 'round', arcToleranceMm: 0.25 });
       anyGrid = buildDistanceGrid(grown);
       anyBox = boxOf(grown);
     }
     return anyGrid;
   };
-  const hasNegative = profile.polygons.some((p) => p[0].some(([r]) => r < 0));
+  const hasNegative = polygons.some((p) => p[0].some(([r]) => r < 0));
   const boxOf = (polys: Polygon2[]): [number, number, number, number] => polygonsBounds(polys) ?? [0, 0, 0, 0];
-  const topBox = boxOf(profile.polygons);
+  const topBox = boxOf(polygons);
   let anyBox = topBox;
   /** Upper bound of the signed distance at (r, z): minus the distance to the region's bounding box when outside it. */
   const boxBound = (b: readonly number[], r: number, z: number): number => {

@@ -207,3 +207,21 @@ describe('clipping, snapping and GeoJSON', () => {
     expect(() => safeUnion([polygonsToGeoJSON(polys)])).not.toThrow();
   });
 });
+
+describe('Douglas–Peucker simplification', () => {
+  it('keeps every dropped vertex within eps of the kept ring, and the grown result contains the original', async () => {
+    const { simplifyRing } = await import('@shared/geometry/simplify');
+    // A wobbly circle: 720 vertices with ±0.3 mm ripple.
+    const ring: Array<[number, number]> = [];
+    for (let i = 0; i < 720; i++) {
+      const a = (i / 720) * 2 * Math.PI;
+      const r = 1000 + 0.3 * Math.sin(37 * a);
+      ring.push([r * Math.cos(a), r * Math.sin(a)]);
+    }
+    const s = simplifyRing(ring, 0.5);
+    expect(s.length).toBeLessThan(ring.length);
+    for (const [x, y] of ring) expect(-signedDistanceToPolygons(x, y, [[s]])).toBeLessThanOrEqual(0.5 + 1e-9);
+    const grown = clipOffset([[s]], 0.5, { join: 'miter' });
+    for (const [x, y] of ring) expect(signedDistanceToPolygons(x, y, grown)).toBeGreaterThanOrEqual(-0.011);
+  });
+});
