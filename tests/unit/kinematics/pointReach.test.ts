@@ -144,3 +144,32 @@ describe('the fast margin equals its plain definition', () => {
     });
   }
 });
+
+describe('chains through the registry', () => {
+  it('a chain whose reach plane is offset from J1 (lateral offset) reaches its forward samples, J1 limits included', () => {
+    const m = parseArmParams({
+      family: 'chain',
+      convention: 'standard',
+      joints: [
+        { type: 'revolute', a: 0, alpha: 90, d: 400, theta: 0, min: -90, max: 90 },
+        { type: 'revolute', a: 500, alpha: 0, d: 150, theta: 0, min: -30, max: 120 },
+        { type: 'revolute', a: 400, alpha: 0, d: 0, theta: 0, min: -150, max: 0 },
+      ],
+      tool: { x: 0, y: 0, z: 0 },
+    });
+    const check = makePointReach(m);
+    fc.assert(
+      fc.property(fc.tuple(...jointLimits(m).map((l) => fc.double({ min: l.min, max: l.max, noNaN: true }))), (q) => {
+        const f = forwardModel(m, q);
+        if (!f.ok) return;
+        expect(check({ x: f.tool.x, y: f.tool.y, z: f.tool.z }).reached).toBe(true);
+      }),
+      { numRuns: 1000 },
+    );
+    // Mirrored across the x axis the point would need J1 = 90° + 2·atan(150/r), beyond the J1 limit
+    // (or reaching over the top behind the axis, which this arm cannot do at that height).
+    const f = forwardModel(m, [-90, 30, -60]);
+    if (!f.ok) throw new Error(f.message);
+    expect(check({ x: f.tool.x, y: -f.tool.y, z: f.tool.z }).reached).toBe(false);
+  });
+});
