@@ -372,6 +372,30 @@ describe('joining', () => {
   });
 });
 
+describe('large files', () => {
+  it('a file read in pieces keeps every entity whole, POLYLINE vertices included', () => {
+    // Far more than one parsing piece (ENTITY_CHUNK_CHARS) of R12 polylines: each square must
+    // come back with its four corners and its area, wherever the pieces were cut.
+    const w = new DxfWriter('AC1009').layer('R', 1);
+    const n = 4000;
+    for (let i = 0; i < n; i++) {
+      const x = (i % 100) * 100;
+      const y = Math.floor(i / 100) * 100;
+      w.polyline('R', [[x, y], [x + 50, y], [x + 50, y + 50], [x, y + 50]], true);
+    }
+    const text = w.toString();
+    expect(text.length).toBeGreaterThan(4 * 250_000);
+    const r = importDxf(text);
+    const rings = polygonsOn(r, 'R');
+    expect(rings).toHaveLength(n);
+    for (const ring of rings) {
+      expect(ring).toHaveLength(5);
+      expect(d3Area(ring)).toBe(2500);
+    }
+    expect(r.layers[0].entityCount).toBe(n);
+  });
+});
+
 describe('output', () => {
   it('a file written by dxf-writer imports with its rectangle, circle and arc intact', async () => {
     const { default: Drawing } = await import('dxf-writer');

@@ -12,7 +12,19 @@ export interface GroupScan {
   lastLine: number;
   /** Names of the sections in file order. */
   sections: string[];
+  /**
+   * Where the file's one ENTITIES section lies (character offsets of line starts): its body
+   * from `start` to `end` (the 0/ENDSEC line), cut at `cuts` into pieces of about
+   * ENTITY_CHUNK_CHARS that each begin with a top-level entity. Null when the file has no
+   * ENTITIES section, more than one, or one without its ENDSEC.
+   */
+  entities: { start: number; end: number; cuts: number[] } | null;
 }
+
+/** Size of the pieces the ENTITIES section is parsed in (characters). */
+export const ENTITY_CHUNK_CHARS = 250_000;
+/** Code-0 groups that continue the entity before them (no piece may start with one). */
+const CONTINUATION = new Set(['VERTEX', 'SEQEND', 'ATTRIB', 'ENDSEC', 'EOF']);
 
 /** Types that mark structure rather than an entity of their own. */
 const STRUCTURAL = new Set(['BLOCK', 'ENDBLK', 'ENDSEC', 'SEQEND', 'VERTEX', 'EOF', 'SECTION']);
@@ -51,6 +63,12 @@ export function scanGroups(text: string): GroupScan {
   let lastCode0 = '';
   let lastWasCode0 = false;
   let hasEof = false;
+  let entitiesSeen = 0;
+  let inEntities = false; // inside the first ENTITIES section
+  let entStart = -1;
+  let entEnd = -1;
+  let lastCut = 0;
+  const cuts: number[] = [];
   let expectBlockName = false;
   let blockLine = 0;
   let blockName = '';
@@ -106,6 +124,10 @@ export function scanGroups(text: string): GroupScan {
       if (code === 2) {
         section = value;
         sections.push(value as string);
+        if (value === 'ENTITIES' && ++entitiesSeen === 1 && valueEnd0 !== -1) {
+          inEntities = true;
+          entStart = lastCut = valueEnd + 1;
+        }
       }
     }
     if (expectTableName) {
@@ -125,6 +147,15 @@ export function scanGroups(text: string): GroupScan {
 
     if (code === 0) {
       const v = value as string;
+      if (inEntities) {
+        if (v === 'ENDSEC' || v === 'EOF') {
+          inEntities = false;
+          if (v === 'ENDSEC') entEnd = pos;
+        } else if (polylineLine === 0 && !CONTINUATION.has(v) && pos - lastCut >= ENTITY_CHUNK_CHARS) {
+          cuts.push(pos);
+          lastCut = pos;
+        }
+      }
       // dxf-parser takes a block's name only before the block's first entity, and logs (past
       // any console silencing) when there is none; such a block could never be inserted.
       if (expectBlockName) {
@@ -205,6 +236,7 @@ export function scanGroups(text: string): GroupScan {
     endsAfterSection: !hasEof && lastWasCode0 && lastCode0 === 'ENDSEC',
     lastLine: Math.max(1, line - 1),
     sections,
+    entities: entitiesSeen === 1 && entEnd > entStart ? { start: entStart, end: entEnd, cuts } : null,
   };
 }
 

@@ -95,17 +95,32 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
     warnings.push('The file has no end marker (EOF); it was read up to its last complete section.');
   }
 
-  const dxf = parseDxfText(text, scan.lastLine);
+  // Header, tables and blocks first (the ENTITIES body cut out), then the entities in pieces,
+  // each drawn and dropped before the next is parsed: the parser's objects for a large file
+  // never all live at once. A file whose ENTITIES section is not plain is parsed whole.
+  const span = scan.entities;
+  const dxf = span
+    ? parseDxfText(text.slice(0, span.start) + text.slice(span.end), scan.lastLine, text)
+    : parseDxfText(text, scan.lastLine);
   const header = dxf.header && typeof dxf.header === 'object' ? dxf.header : undefined;
   const units = resolveUnits(header, opts.units);
   if (units.warning) warnings.push(units.warning);
 
-  const entities = Array.isArray(dxf.entities) ? dxf.entities : [];
   const builder = new PlanBuilder();
   const walk = newBlockWalk(dxf.blocks, chordTol);
   const root = scaling(units.mmPerUnit);
   const curves = { capped: 0 };
-  drawEntities(entities, { m: root, tol: localTolerance(root, chordTol), layer: '0', curves }, [], walk, builder);
+  const ctx = { m: root, tol: localTolerance(root, chordTol), layer: '0', curves };
+  if (span) {
+    const bounds = [span.start, ...span.cuts, span.end];
+    for (let i = 0; i + 1 < bounds.length; i++) {
+      const piece = `0\nSECTION\n2\nENTITIES\n${text.slice(bounds[i], bounds[i + 1])}0\nENDSEC\n0\nEOF\n`;
+      const part = parseDxfText(piece, scan.lastLine, text);
+      drawEntities(Array.isArray(part.entities) ? part.entities : [], ctx, [], walk, builder);
+    }
+  } else {
+    drawEntities(Array.isArray(dxf.entities) ? dxf.entities : [], ctx, [], walk, builder);
+  }
 
   const skipped = new Map(builder.skipped);
   for (const [type, n] of scan.entityTypes) {
@@ -165,7 +180,8 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
     units: units.units,
     unitsSource: units.unitsSource,
     insunits: units.insunits,
-    bounds: boundsOf(features),
+    // every feature reuses positions the builder placed (and measured)
+    bounds: { minX: builder.minX, minY: builder.minY, maxX: builder.maxX, maxY: builder.maxY },
     layers,
     geometry: { type: 'FeatureCollection', features },
     warnings,

@@ -1,12 +1,13 @@
 import type { Feature, Geometry } from 'geojson';
 import type { PlanFeatureProps } from '../../../../shared/schemas/floorPlan';
-import { toCcwRing, type OpenPath } from './planBuilder';
+import { closeCcwRing, type OpenPath, type Position2 } from './planBuilder';
 
 /**
  * Joins open paths of the same layer whose ends lie within `tol` mm of each other into chains
  * (ends matched through a hash grid of cell size tol, grouped by union–find). A chain that comes
  * back to where it started becomes a closed ring (Polygon); the others stay LineStrings. Chains
- * stop where more than two ends meet, so T-junctions are never guessed through.
+ * stop where more than two ends meet, so T-junctions are never guessed through. The paths'
+ * positions are reused in the output.
  */
 export function joinPaths(paths: readonly OpenPath[], tol: number): Array<Feature<Geometry, PlanFeatureProps>> {
   const n = paths.length;
@@ -17,10 +18,12 @@ export function joinPaths(paths: readonly OpenPath[], tol: number): Array<Featur
   const layerIndex = new Map<string, number>();
   for (let i = 0; i < n; i++) {
     const c = paths[i].coords;
-    ex[2 * i] = c[0];
-    ey[2 * i] = c[1];
-    ex[2 * i + 1] = c[c.length - 2];
-    ey[2 * i + 1] = c[c.length - 1];
+    const a = c[0];
+    const b = c[c.length - 1];
+    ex[2 * i] = a[0];
+    ey[2 * i] = a[1];
+    ex[2 * i + 1] = b[0];
+    ey[2 * i + 1] = b[1];
     let id = layerIndex.get(paths[i].layer);
     if (id === undefined) layerIndex.set(paths[i].layer, (id = layerIndex.size));
     layerIds[i] = id;
@@ -36,115 +39,128 @@ export function joinPaths(paths: readonly OpenPath[], tol: number): Array<Featur
     }
     return a;
   };
-  const cell = tol > 0 ? tol : 1e-6;
-  const grid = new Map<number, number[]>();
-  const key = (ix: number, iy: number) => (Math.imul(ix | 0, 73856093) ^ Math.imul(iy | 0, 19349663)) | 0;
+  const union = (a: number, b: number) => {
+    const ra = find(a);
+    const rb = find(b);
+    if (ra !== rb) parent[ra] = rb;
+  };
+
+  // hash grid of cell size 2·tol: heads of per-cell lists, linked through `next`. A point's
+  // partners within tol lie in its own cell or the neighbours on the side of the half it is in,
+  // so four cells are searched, not nine.
+  const cell = tol > 0 ? 2 * tol : 1e-6;
   const tol2 = tol * tol;
-  // A bucket keeps only distinct points: an end at exactly the point of one already there
-  // (duplicated drawings, arrays with zero spacing) is joined through it and not stored, so a
-  // pile of copies costs no pairwise comparisons.
+  // Cells are hashed into a table of 2^k lists; cells that share a list only cost a few more
+  // distance checks (every candidate's distance is checked), never a wrong join.
+  let size = 1024;
+  while (size < 4 * ends) size *= 2;
+  const mask = size - 1;
+  const heads = new Int32Array(size).fill(-1);
+  const next = new Int32Array(ends).fill(-1);
+  const key = (ix: number, iy: number) => (Math.imul(ix | 0, 73856093) ^ Math.imul(iy | 0, 19349663)) & mask;
   for (let e = 0; e < ends; e++) {
     const x = ex[e];
     const y = ey[e];
-    let twin = false;
-    const ix = Math.floor(x / cell);
-    const iy = Math.floor(y / cell);
+    const fx = x / cell;
+    const fy = y / cell;
+    const ix = Math.floor(fx);
+    const iy = Math.floor(fy);
+    const sx = fx - ix < 0.5 ? -1 : 1;
+    const sy = fy - iy < 0.5 ? -1 : 1;
     const lid = layerIds[e >> 1];
-    for (let dx = -1; dx <= 1; dx++) {
-      for (let dy = -1; dy <= 1; dy++) {
-        const bucket = grid.get(key(ix + dx, iy + dy));
-        if (!bucket) continue;
-        for (const o of bucket) {
-          if (layerIds[o >> 1] !== lid) continue;
-          const ddx = ex[o] - x;
-          const ddy = ey[o] - y;
-          if (ddx * ddx + ddy * ddy <= tol2) {
-            const ra = find(e);
-            const rb = find(o);
-            if (ra !== rb) parent[ra] = rb;
-            if (ddx === 0 && ddy === 0) twin = true;
+    // A list keeps only distinct points: an end at exactly the point of one already there
+    // (duplicated drawings, arrays with zero spacing) is joined through it and not stored, so a
+    // pile of copies costs no pairwise comparisons.
+    let twin = false;
+    for (let cx = 0; cx < 2; cx++) {
+      for (let cy = 0; cy < 2; cy++) {
+        let o = heads[key(ix + cx * sx, iy + cy * sy)];
+        while (o !== -1) {
+          if (layerIds[o >> 1] === lid) {
+            const ddx = ex[o] - x;
+            const ddy = ey[o] - y;
+            if (ddx * ddx + ddy * ddy <= tol2) {
+              union(e, o);
+              if (ddx === 0 && ddy === 0) twin = true;
+            }
           }
+          o = next[o];
         }
       }
     }
     if (twin) continue;
     const k = key(ix, iy);
-    const bucket = grid.get(k);
-    if (bucket) bucket.push(e);
-    else grid.set(k, [e]);
+    next[e] = heads[k];
+    heads[k] = e;
   }
 
-  // ends at each node
-  const members = new Map<number, number[]>();
+  // per node (root): how many ends meet there, and the first two of them
+  const degree = new Int32Array(ends);
+  const first = new Int32Array(ends).fill(-1);
+  const second = new Int32Array(ends).fill(-1);
+  const root = new Int32Array(ends);
   for (let e = 0; e < ends; e++) {
     const r = find(e);
-    const list = members.get(r);
-    if (list) list.push(e);
-    else members.set(r, [e]);
+    root[e] = r;
+    const d = degree[r]++;
+    if (d === 0) first[r] = e;
+    else if (d === 1) second[r] = e;
   }
-  const degree = (node: number) => members.get(node)!.length;
 
   const used = new Uint8Array(n);
   const out: Array<Feature<Geometry, PlanFeatureProps>> = [];
 
-  /** Walks a chain starting at end `e` (the chain leaves through path e>>1). */
+  const emit = (coords: Position2[], layer: string, parts: number, entity: string, closed: boolean) => {
+    const props: PlanFeatureProps = { layer, entity: parts === 1 ? entity : 'JOINED', closed };
+    if (parts > 1) props.parts = parts;
+    if (closed) {
+      // the ring's last point lies within tol of its first: close on the first
+      const ring = coords.length >= 2 ? coords.slice(0, -1) : coords;
+      if (ring.length >= 3) {
+        out.push({ type: 'Feature', properties: props, geometry: { type: 'Polygon', coordinates: [closeCcwRing(ring)] } });
+        return;
+      }
+      props.closed = false;
+    }
+    out.push({ type: 'Feature', properties: props, geometry: { type: 'LineString', coordinates: coords } });
+  };
+
+  /** Walks a chain leaving through end `startEnd` (of path startEnd >> 1). */
   const walk = (startEnd: number) => {
-    const startNode = find(startEnd);
-    const coords: number[] = [];
-    const kinds = new Set<string>();
+    const startNode = root[startEnd];
+    const p0 = startEnd >> 1;
+    let coords: Position2[] = [];
     let parts = 0;
     let e = startEnd;
     for (;;) {
       const p = e >> 1;
       used[p] = 1;
       parts++;
-      kinds.add(paths[p].entity);
       const c = paths[p].coords;
-      const forward = (e & 1) === 0;
-      const skipFirst = coords.length > 0 ? 1 : 0;
-      if (forward) {
-        for (let i = skipFirst * 2; i < c.length; i += 2) coords.push(c[i], c[i + 1]);
+      if (parts === 1 && (e & 1) === 0) {
+        coords = c.slice();
+      } else if ((e & 1) === 0) {
+        for (let i = 1; i < c.length; i++) coords.push(c[i]);
       } else {
-        for (let i = c.length - 2 - skipFirst * 2; i >= 0; i -= 2) coords.push(c[i], c[i + 1]);
+        for (let i = c.length - (parts === 1 ? 1 : 2); i >= 0; i--) coords.push(c[i]);
       }
       const other = e ^ 1;
-      const node = find(other);
+      const node = root[other];
       if (node === startNode) {
-        emit(coords, paths[p].layer, parts, kinds, true);
+        emit(coords, paths[p0].layer, parts, paths[p0].entity, true);
         return;
       }
-      if (degree(node) !== 2) break;
-      const [a, b] = members.get(node)!;
-      const next = a === other ? b : a;
-      if (used[next >> 1]) break;
-      e = next;
+      if (degree[node] !== 2) break;
+      const nextEnd = first[node] === other ? second[node] : first[node];
+      if (used[nextEnd >> 1]) break;
+      e = nextEnd;
     }
-    emit(coords, paths[startEnd >> 1].layer, parts, kinds, false);
-  };
-
-  const emit = (coords: number[], layer: string, parts: number, kinds: Set<string>, closed: boolean) => {
-    const entity = parts === 1 ? [...kinds][0] : 'JOINED';
-    const props: PlanFeatureProps = { layer, entity, closed };
-    if (parts > 1) props.parts = parts;
-    if (closed) {
-      // the ring's last point lies within tol of its first: close on the first
-      let c = coords;
-      if (c.length >= 4) c = c.slice(0, -2);
-      if (c.length >= 6) {
-        out.push({ type: 'Feature', properties: props, geometry: { type: 'Polygon', coordinates: [toCcwRing(c)] } });
-        return;
-      }
-      props.closed = false;
-    }
-    const line: Array<[number, number]> = [];
-    for (let i = 0; i < coords.length; i += 2) line.push([coords[i], coords[i + 1]]);
-    out.push({ type: 'Feature', properties: props, geometry: { type: 'LineString', coordinates: line } });
+    emit(coords, paths[p0].layer, parts, paths[p0].entity, false);
   };
 
   // open chains first: they start at nodes where one or more than two ends meet
   for (let e = 0; e < ends; e++) {
-    if (used[e >> 1]) continue;
-    if (degree(find(e)) !== 2) walk(e);
+    if (!used[e >> 1] && degree[root[e]] !== 2) walk(e);
   }
   // what is left lies on cycles
   for (let e = 0; e < ends; e += 2) {

@@ -234,9 +234,10 @@ const GENERIC =
 
 /**
  * Parses checked DXF text (see scanGroups) with dxf-parser, its console output silenced, and
- * turns every failure into a DxfImportError; `lastLine` is where a cut-off file ends.
+ * turns every failure into a DxfImportError; `lastLine` is where a cut-off file ends and
+ * `wholeFile` the file `text` was cut from (for line numbers).
  */
-export function parseDxfText(text: string, lastLine: number): ParsedDxf {
+export function parseDxfText(text: string, lastLine: number, wholeFile: string = text): ParsedDxf {
   const saved = CONSOLE_METHODS.map((m) => console[m]);
   const quiet = () => undefined;
   for (const m of CONSOLE_METHODS) console[m] = quiet;
@@ -244,7 +245,7 @@ export function parseDxfText(text: string, lastLine: number): ParsedDxf {
   try {
     dxf = createParser().parseSync(text);
   } catch (err) {
-    throw toImportError(err, text, lastLine);
+    throw toImportError(err, wholeFile, lastLine);
   } finally {
     CONSOLE_METHODS.forEach((m, i) => (console[m] = saved[i] as typeof console.log));
   }

@@ -2,13 +2,15 @@ import type { Feature, Geometry } from 'geojson';
 import type { PlanFeatureProps } from '../../../../shared/schemas/floorPlan';
 import { DxfImportError } from './errors';
 import { MAX_COORDINATE_MM, MAX_OUTPUT_POINTS, roundMm } from './limits';
-import { planX, planY, type Affine } from './transform';
+import type { Affine } from './transform';
 
-/** An open plan polyline waiting to be joined: flat [x0, y0, x1, y1, …] in plan mm. */
+export type Position2 = [number, number];
+
+/** An open plan polyline waiting to be joined: positions in plan mm. */
 export interface OpenPath {
   layer: string;
   entity: string;
-  coords: number[];
+  coords: Position2[];
 }
 
 /** Names an entity for messages: type, handle from the file, block it sits in. */
@@ -25,22 +27,24 @@ export function describeEntity(ref: EntityRef): string {
   return s;
 }
 
-/** Signed area of a flat ring [x0, y0, …] (shoelace formula); positive = counter-clockwise. */
-export function ringSignedArea(c: readonly number[]): number {
+/** Signed area of an open ring of positions (shoelace formula); positive = counter-clockwise. */
+export function ringSignedArea(ring: readonly Position2[]): number {
   let s = 0;
-  const n = c.length;
-  for (let i = 0; i < n; i += 2) {
-    const j = (i + 2) % n;
-    s += c[i] * c[j + 1] - c[j] * c[i + 1];
+  const n = ring.length;
+  for (let i = 0; i < n; i++) {
+    const a = ring[i];
+    const b = ring[i + 1 === n ? 0 : i + 1];
+    s += a[0] * b[1] - b[0] * a[1];
   }
   return s / 2;
 }
 
-/** Closed GeoJSON ring, counter-clockwise (RFC 7946 §3.1.6), from a flat open ring. */
-export function toCcwRing(flat: readonly number[]): Array<[number, number]> {
-  const ring: Array<[number, number]> = [];
-  for (let i = 0; i < flat.length; i += 2) ring.push([flat[i], flat[i + 1]]);
-  if (ringSignedArea(flat) < 0) ring.reverse();
+/**
+ * Closes an open ring in place into a GeoJSON ring, counter-clockwise (RFC 7946 §3.1.6): reversed
+ * when clockwise, the first position repeated (as a copy) at the end.
+ */
+export function closeCcwRing(ring: Position2[]): Position2[] {
+  if (ringSignedArea(ring) < 0) ring.reverse();
   ring.push([ring[0][0], ring[0][1]]);
   return ring;
 }
@@ -57,6 +61,11 @@ export class PlanBuilder {
   readonly skipped = new Map<string, number>();
   entities = 0;
   private points = 0;
+  /** Bounding box of every position added so far, mm. */
+  minX = Number.POSITIVE_INFINITY;
+  minY = Number.POSITIVE_INFINITY;
+  maxX = Number.NEGATIVE_INFINITY;
+  maxY = Number.NEGATIVE_INFINITY;
 
   /** Counts an entity that was not drawn; `reason` is shown in the warning. */
   skip(type: string, reason: string): void {
@@ -79,43 +88,67 @@ export class PlanBuilder {
     }
   }
 
-  private project(m: Affine, pts: readonly number[], ref: EntityRef): number[] {
-    const out: number[] = [];
+  private project(m: Affine, pts: readonly number[], ref: EntityRef): Position2[] {
+    const out: Position2[] = [];
     let px = Number.NaN;
     let py = Number.NaN;
+    const m0 = m[0];
+    const m1 = m[1];
+    const m2 = m[2];
+    const m3 = m[3];
+    const m4 = m[4];
+    const m5 = m[5];
+    const m6 = m[6];
+    const m7 = m[7];
+    let minX = this.minX;
+    let minY = this.minY;
+    let maxX = this.maxX;
+    let maxY = this.maxY;
     for (let i = 0; i < pts.length; i += 3) {
-      const X = planX(m, pts[i], pts[i + 1], pts[i + 2]);
-      const Y = planY(m, pts[i], pts[i + 1], pts[i + 2]);
+      const a = pts[i];
+      const b = pts[i + 1];
+      const c = pts[i + 2];
+      const X = m0 * a + m1 * b + m2 * c + m3;
+      const Y = m4 * a + m5 * b + m6 * c + m7;
       if (!(Math.abs(X) <= MAX_COORDINATE_MM) || !(Math.abs(Y) <= MAX_COORDINATE_MM)) badPoint(X, Y, ref);
       const x = roundMm(X);
       const y = roundMm(Y);
       if (x === px && y === py) continue;
-      out.push(x, y);
+      out.push([x, y]);
       px = x;
       py = y;
+      if (x < minX) minX = x;
+      if (x > maxX) maxX = x;
+      if (y < minY) minY = y;
+      if (y > maxY) maxY = y;
     }
+    this.minX = minX;
+    this.minY = minY;
+    this.maxX = maxX;
+    this.maxY = maxY;
     return out;
   }
 
   /** Adds what one entity draws: points (x, y, z triples) in the frame that `m` maps to plan mm. */
   path(ref: EntityRef, layer: string, closed: boolean, pts: readonly number[], m: Affine): void {
-    let c = this.project(m, pts, ref);
-    if (closed && c.length >= 4 && c[0] === c[c.length - 2] && c[1] === c[c.length - 1]) c = c.slice(0, -2);
-    if (closed && c.length >= 6) {
-      this.spend(c.length / 2 + 1);
+    const c = this.project(m, pts, ref);
+    const n = c.length;
+    if (closed && n >= 2 && c[0][0] === c[n - 1][0] && c[0][1] === c[n - 1][1]) c.pop();
+    if (closed && c.length >= 3) {
+      this.spend(c.length + 1);
       this.count(layer);
       this.features.push({
         type: 'Feature',
         properties: { layer, entity: ref.type, closed: true },
-        geometry: { type: 'Polygon', coordinates: [toCcwRing(c)] },
+        geometry: { type: 'Polygon', coordinates: [closeCcwRing(c)] },
       });
       return;
     }
-    if (c.length < 4) {
+    if (c.length < 2) {
       this.skip(ref.type, 'zero size');
       return;
     }
-    this.spend(c.length / 2);
+    this.spend(c.length);
     this.count(layer);
     this.open.push({ layer, entity: ref.type, coords: c });
   }
@@ -130,7 +163,7 @@ export class PlanBuilder {
     u: readonly [number, number, number],
     m: Affine,
   ): void {
-    const [x, y] = this.project(m, p, ref);
+    const [[x, y]] = this.project(m, p, ref);
     const dx = m[0] * d[0] + m[1] * d[1] + m[2] * d[2];
     const dy = m[4] * d[0] + m[5] * d[1] + m[6] * d[2];
     const ux = m[0] * u[0] + m[1] * u[1] + m[2] * u[2];

@@ -1,0 +1,173 @@
+// DXF import benchmark: a generated ~20 MB floor plan (≈200k entities, many block inserts),
+// importDxf against the bare dxf-parser parse of the same text (target ≤ 1.5×), and the peak
+// memory of an import measured in child processes (target ≤ 8× the file size).
+// Timing runs in a child process that alternates the two (full GC before each run); memory is
+// the peak RSS of fresh child processes, less that of one that only reads the file.
+// Run: npm run bench dxf   (or node --import tsx tests/bench/dxf.bench.ts)
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import DxfParser from 'dxf-parser';
+import { importDxf } from '../../backend/src/services/dxf/importDxf';
+import { DxfWriter } from '../../samples/make-samples';
+
+const TIME_TARGET = 1.5;
+const MEMORY_TARGET = 8;
+const self = fileURLToPath(import.meta.url);
+
+/** A large invented hall: wall grid, racks as block arrays, machines, columns, labels. */
+function bigPlan(): string {
+  const w = new DxfWriter().insunits(4);
+  w.layer('OUTLINE', 5).layer('WALLS', 8).layer('COLUMNS', 3).layer('RACKS', 4).layer('MACHINES', 6).layer('TEXT', 2);
+  w.block('COLUMN', [0, 0], (b) => b.polyline('0', [[-200, -200], [200, -200], [200, 200], [-200, 200]], true));
+  w.block('RACK', [0, 0], (b) => {
+    b.polyline('0', [[0, 0], [2700, 0], [2700, 1100], [0, 1100]], true);
+    b.line('0', [0, 550], [2700, 550]);
+  });
+  w.block('CELL', [500, 500], (b) => {
+    b.polyline('0', [[500, 500, 0.2], [3500, 500], [3500, 2500, 0.2], [500, 2500]], true);
+    b.circle('0', [2000, 1500], 400);
+    b.arc('0', [2000, 1500], 700, 0, 135);
+    b.insert('0', 'COLUMN', [600, 600], { xScale: 0.5, yScale: 0.5 });
+  });
+  const side = 400_000;
+  w.polyline('OUTLINE', [[0, 0], [side, 0], [side, side], [0, side]], true);
+  // wall segments on a 1 m grid: ≈120k LINEs
+  let n = 0;
+  for (let i = 0; i < 350 && n < 120_000; i++) {
+    for (let j = 0; j < 350 && n < 120_000; j++, n++) {
+      const x = i * 1000;
+      const y = j * 1000;
+      if ((i + j) % 2 === 0) w.line('WALLS', [x, y], [x + 1000, y]);
+      else w.line('WALLS', [x, y], [x, y + 1000]);
+    }
+  }
+  // 25k bulged polylines, 15k arcs, 10k circles
+  for (let k = 0; k < 25_000; k++) {
+    const x = (k % 500) * 800;
+    const y = 200_000 + Math.floor(k / 500) * 800;
+    w.polyline('MACHINES', [[x, y, 0.4], [x + 600, y], [x + 600, y + 400, -0.3], [x, y + 400]], true);
+  }
+  for (let k = 0; k < 15_000; k++) w.arc('MACHINES', [(k % 300) * 1300, 300_000 + Math.floor(k / 300) * 1300], 500, k % 360, (k % 360) + 120);
+  for (let k = 0; k < 10_000; k++) w.circle('MACHINES', [(k % 200) * 2000, 350_000 + Math.floor(k / 200) * 1000], 150 + (k % 7) * 20);
+  // 20k inserts: columns, rack arrays, nested cells
+  for (let k = 0; k < 12_000; k++) w.insert('COLUMNS', 'COLUMN', [(k % 120) * 3300, 100_000 + Math.floor(k / 120) * 1000]);
+  for (let k = 0; k < 5_000; k++) {
+    w.insert('RACKS', 'RACK', [(k % 50) * 8000, 150_000 + Math.floor(k / 50) * 500], { columns: 2, rows: 1, columnSpacing: 2800, rotation: k % 2 ? 90 : 0 });
+  }
+  for (let k = 0; k < 3_000; k++) w.insert('MACHINES', 'CELL', [(k % 100) * 4000, 60_000 + Math.floor(k / 100) * 1300], { rotation: (k * 7) % 360 });
+  for (let k = 0; k < 10_000; k++) w.text('TEXT', [(k % 100) * 4000, Math.floor(k / 100) * 600], 150, `Bay ${k}`);
+  return w.toString();
+}
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+}
+
+const gc = (globalThis as { gc?: () => void }).gc ?? (() => undefined);
+
+/**
+ * Child process: reads the file and does one job. 'timing' alternates parse and import
+ * (after one warm-up of each), with a full GC before every run so neither pays for the other's
+ * garbage; the others report the peak RSS of one job.
+ */
+function child(mode: string, file: string, rounds: number): void {
+  const text = readFileSync(file, 'utf8');
+  if (mode === 'timing') {
+    const run = (f: () => unknown) => {
+      gc();
+      const c0 = process.cpuUsage();
+      const t0 = performance.now();
+      f();
+      const wall = performance.now() - t0;
+      const c = process.cpuUsage(c0);
+      return { wall, cpu: (c.user + c.system) / 1000 };
+    };
+    const parse = () => new DxfParser().parseSync(text);
+    const imp = () => importDxf(text);
+    run(parse);
+    run(imp);
+    const out: Array<{ parse: { wall: number; cpu: number }; imp: { wall: number; cpu: number } }> = [];
+    for (let i = 0; i < rounds; i++) {
+      // alternate the order so drift in machine load hits both alike
+      if (i % 2 === 0) out.push({ parse: run(parse), imp: run(imp) });
+      else {
+        const b = run(imp);
+        out.push({ parse: run(parse), imp: b });
+      }
+    }
+    process.stdout.write(JSON.stringify(out));
+    return;
+  }
+  const before = process.memoryUsage().rss;
+  let keep: unknown;
+  if (mode === 'parser') keep = new DxfParser().parseSync(text);
+  else if (mode === 'import') keep = importDxf(text);
+  const peakKb = process.resourceUsage().maxRSS;
+  process.stdout.write(JSON.stringify({ before, peak: peakKb * 1024, kept: keep ? 1 : 0 }));
+}
+
+function spawnChild(mode: string, file: string, rounds = 0): string {
+  const r = spawnSync(process.execPath, ['--expose-gc', '--import', 'tsx', self, '--child', mode, file, String(rounds)], {
+    encoding: 'utf8',
+    maxBuffer: 1 << 24,
+  });
+  if (r.status !== 0) throw new Error(`child ${mode} failed: ${r.stderr}`);
+  return r.stdout;
+}
+
+function measure(mode: string, file: string): { before: number; peak: number } {
+  return JSON.parse(spawnChild(mode, file));
+}
+
+const mb = (b: number) => `${(b / 1024 / 1024).toFixed(1)} MB`;
+
+function main(): void {
+  const dir = mkdtempSync(path.join(os.tmpdir(), 'ringfence-dxf-bench-'));
+  try {
+    const file = path.join(dir, 'big-hall.dxf');
+    const t0 = performance.now();
+    writeFileSync(file, bigPlan());
+    const size = statSync(file).size;
+    const text = readFileSync(file, 'utf8');
+    console.log(`generated ${mb(size)} in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+
+    const result = importDxf(text);
+    console.log(
+      `  ${result.stats.entities.toLocaleString('en')} entities placed, ${result.stats.features.toLocaleString('en')} features, ${result.layers.length} layers`,
+    );
+    const rounds = Number(process.env.BENCH_ROUNDS ?? 5);
+    const runs: Array<{ parse: { wall: number; cpu: number }; imp: { wall: number; cpu: number } }> = JSON.parse(
+      spawnChild('timing', file, rounds),
+    );
+    const parseMs = median(runs.map((r) => r.parse.wall));
+    const importMs = median(runs.map((r) => r.imp.wall));
+    const ratio = median(runs.map((r) => r.imp.wall / r.parse.wall));
+    const cpuRatio = median(runs.map((r) => r.imp.cpu / r.parse.cpu));
+    console.log(`dxf-parser parseSync   ${parseMs.toFixed(0)} ms wall, ${median(runs.map((r) => r.parse.cpu)).toFixed(0)} ms CPU (median of ${rounds})`);
+    console.log(`importDxf              ${importMs.toFixed(0)} ms wall, ${median(runs.map((r) => r.imp.cpu)).toFixed(0)} ms CPU`);
+    console.log(`time ratio             ${ratio.toFixed(2)}× wall, ${cpuRatio.toFixed(2)}× CPU (median of pairs; target ≤ ${TIME_TARGET}×) ${ratio <= TIME_TARGET ? 'met' : 'MISSED'}`);
+    console.log(`  machine load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')} on ${os.cpus().length} cores`);
+
+    // peak memory, each in a fresh process; the baseline process only reads the file
+    const base = measure('baseline', file);
+    const parser = measure('parser', file);
+    const imp = measure('import', file);
+    const parserDelta = parser.peak - base.peak;
+    const importDelta = imp.peak - base.peak;
+    console.log(`peak RSS, file read only      ${mb(base.peak)}`);
+    console.log(`peak RSS, dxf-parser          ${mb(parser.peak)}  (+${mb(parserDelta)}, ${(parserDelta / size).toFixed(1)}× file)`);
+    console.log(`peak RSS, importDxf           ${mb(imp.peak)}  (+${mb(importDelta)}, ${(importDelta / size).toFixed(1)}× file)`);
+    const memRatio = importDelta / size;
+    console.log(`memory ratio           ${memRatio.toFixed(1)}×  (target ≤ ${MEMORY_TARGET}×) ${memRatio <= MEMORY_TARGET ? 'met' : 'MISSED'}`);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+const at = process.argv.indexOf('--child');
+if (at !== -1) child(process.argv[at + 1], process.argv[at + 2], Number(process.argv[at + 3]));
+else main();
