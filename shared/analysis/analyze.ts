@@ -1,23 +1,16 @@
 import { polygonsArea, polygonsBounds } from '../geometry/area';
-import { clipIntersect, clipUnion } from '../geometry/clipper';
-import { polygonsToGeoJSON } from '../geometry/geojson';
-import { pointInPolygons } from '../geometry/pointInPolygon';
+import { polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
 import type { Polygon2 } from '../geometry/types';
-import type { ArmPlacement, Zone } from '../schemas/layout';
-import { findingId, m2, m2Text, mm, SEVERITY_OF, sortFindings } from './messages';
-import { polylineDistanceToPolygons, polylineHitsPolygons, subtractOpenings } from './segments';
-import type { AnalysisInput, AnalysisResult, ArmReach, ArmReachFactory, Finding, FindingKind, SharedZone, StructureItem } from './types';
+import type { ArmPlacement, WorkPoint } from '../schemas/layout';
+import { armClearance, bboxOverlap, centroidOf, fenceFindings, intersect, makeFinding, MIN_AREA_MM2, type BBox } from './clearance';
+import { m2, m2Text, mm, sortFindings } from './messages';
+import { buildPointGrid, pointsNear, type PointGrid } from './pointGrid';
+import type { AnalysisInput, AnalysisResult, ArmReach, ArmReachFactory, Finding, PreparedFloor, SharedZone } from './types';
 
-/** Points farther than this outside an arm's maximum-reach circle get that circle's distance as margin, mm. */
+export { FENCE_CLEARANCE_MM, MIN_FENCE_HEIGHT_MM } from './clearance';
+
+/** Points farther than this outside an arm's maximum-reach circle are "far": no margin is listed for that arm, mm. */
 export const FAR_MM = 1000;
-/** Smallest overlap area that counts, mm² (below it is boolean-op noise). */
-const MIN_AREA_MM2 = 1;
-/** Kept between the restricted space and a fence before a clearance warning, mm (common practice: 120–200 mm). */
-export const FENCE_CLEARANCE_MM = 150;
-/** Lowest fixed perimeter guard, mm (ISO 10218-2). */
-export const MIN_FENCE_HEIGHT_MM = 1400;
-
-type BBox = [number, number, number, number];
 
 interface PlacedArm {
   arm: ArmPlacement;
@@ -28,43 +21,70 @@ interface PlacedArm {
   restricted: Polygon2[];
   bbox: BBox | null;
   bands: Map<number, Polygon2[]>;
-  below: Map<number, Polygon2[]>;
+  bandBoxes: Map<number, BBox | null>;
+  below: Map<number, Polygon2[] | null>;
+  geo: { restricted: AreaGeometry | null; bands: Map<number, AreaGeometry | null> };
+  clearance: { key: string; findings: Finding[] } | null;
 }
 
-/** clipIntersect, with an empty side giving an empty result (clipper refuses two empty inputs). */
-function intersect(a: Polygon2[], b: Polygon2[]): Polygon2[] {
-  return a.length && b.length ? clipIntersect(a, b) : [];
+interface Column {
+  armId: string;
+  near: Int32Array;
+  margins: Float64Array;
 }
 
-const bboxOverlap = (a: BBox | null, b: BBox | null) => !!a && !!b && a[0] <= b[2] && b[0] <= a[2] && a[1] <= b[3] && b[1] <= a[3];
+interface PairResult {
+  zone: SharedZone | null;
+  findings: Finding[];
+}
 
-function place(polys: Polygon2[], p: PlacedArm): Polygon2[] {
+function place(polys: Polygon2[], p: Pick<PlacedArm, 'arm' | 'cos' | 'sin'>): Polygon2[] {
   const { x, y } = p.arm;
   return polys.map((poly) => poly.map((ring) => ring.map(([u, v]) => [p.cos * u - p.sin * v + x, p.sin * u + p.cos * v + y] as [number, number])));
 }
 
 function armSignature(a: ArmPlacement): string {
-  return `${a.id}|${a.armModelId}|${a.x}|${a.y}|${a.yaw}|${a.mountHeight}|${a.restrict ? `${a.restrict.j1Min},${a.restrict.j1Max}` : ''}`;
+  return `${a.id}|${a.armModelId}|${a.x}|${a.y}|${a.yaw}|${a.mountHeight}|${a.restrict ? `${a.restrict.j1Min},${a.restrict.j1Max}` : ''}|${a.label}`;
 }
 
-function pointsFingerprint(points: AnalysisInput['workPoints']): string {
+/** FNV-1a over what the point checks read: ids, coordinates, approach, tag, assigned arm. */
+function pointsFingerprint(points: ReadonlyArray<WorkPoint>): string {
   let h = 2166136261;
   const mix = (n: number) => {
-    h ^= Math.round(n * 1000) | 0;
+    h ^= n | 0;
     h = Math.imul(h, 16777619);
   };
+  const mixStr = (s: string | undefined) => {
+    if (!s) return mix(7);
+    for (let i = 0; i < s.length; i++) mix(s.charCodeAt(i));
+  };
   for (const p of points) {
-    mix(p.x);
-    mix(p.y);
-    mix(p.z);
+    mix(Math.round(p.x * 1000));
+    mix(Math.round(p.y * 1000));
+    mix(Math.round(p.z * 1000));
     mix(p.approach === 'any' ? 1 : 0);
-    for (let i = 0; i < p.id.length; i++) mix(p.id.charCodeAt(i));
+    mixStr(p.id);
+    mixStr(p.tag);
+    mixStr(p.assignedArm);
   }
   return `${points.length}:${h >>> 0}`;
 }
 
+const floorIds = new WeakMap<object, number>();
+let nextFloorId = 1;
+function floorKey(floor: PreparedFloor | null): number {
+  if (!floor) return 0;
+  let id = floorIds.get(floor);
+  if (!id) floorIds.set(floor, (id = nextFloorId++));
+  return id;
+}
+
 export interface Analyzer {
-  /** Full analysis; cached per arm, pair and coverage column, so moving one arm recomputes only its parts. */
+  /**
+   * Full analysis, cached per arm, pair and coverage column, so that moving one arm recomputes only
+   * its regions, its pairs, its coverage column and the work points near it. The result's
+   * `coverage` object is kept by the analyzer and updated in place by the next call.
+   */
   analyze(input: Readonly<AnalysisInput>): AnalysisResult;
   /** How many arm regions, pairs and coverage columns the last call computed afresh (for tests and benchmarks). */
   lastStats(): { arms: number; pairs: number; columns: number };
@@ -72,14 +92,20 @@ export interface Analyzer {
 
 /**
  * Layout analysis (KINEMATICS.md "Analysis"): shared zones of every pair of restricted spaces,
- * coverage of every work point by every arm with signed margins, clearance of restricted spaces to
- * structure (height-aware), floor, fences, openings, operator areas and keep-outs. Pure; the same
- * code runs on the server and in the browser's worker.
+ * coverage of every work point by every arm with signed margins (arms more than FAR_MM beyond their
+ * reach are left out of a point's row), clearance of restricted spaces to structure (height-aware),
+ * floor, fences, openings, operator areas and keep-outs. Pure; the same code runs on the server and
+ * in the browser's worker.
  */
 export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
   const arms = new Map<string, PlacedArm>();
-  const pairs = new Map<string, { area: number; polys: Polygon2[]; byHeight: Array<{ height: number; areaM2: number }> } | { failed: string }>();
-  const columns = new Map<string, Float64Array>();
+  const pairs = new Map<string, PairResult>();
+  const columns = new Map<string, Column>();
+  let fp = '';
+  let grid: PointGrid | null = null;
+  let coverage: Record<string, Record<string, number>> = {};
+  let pointFindings: Array<Finding[] | null> = [];
+  let placedKey = '';
   let stats = { arms: 0, pairs: 0, columns: 0 };
 
   function placedArm(a: ArmPlacement, heights: ReadonlyArray<number>): PlacedArm {
@@ -88,59 +114,127 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     if (!p) {
       const reach = reachFor(a.armModelId, a.restrict);
       const yaw = (a.yaw * Math.PI) / 180;
-      p = { arm: a, sig, reach, cos: Math.cos(yaw), sin: Math.sin(yaw), restricted: [], bbox: null, bands: new Map(), below: new Map() };
-      p.restricted = place(reach.restricted, p);
-      p.bbox = polygonsBounds(p.restricted) as BBox | null;
+      const base = { arm: a, cos: Math.cos(yaw), sin: Math.sin(yaw) };
+      const restricted = place(reach.restricted, base);
+      p = { ...base, sig, reach, restricted, bbox: polygonsBounds(restricted) as BBox | null, bands: new Map(), bandBoxes: new Map(), below: new Map(), geo: { restricted: restricted.length ? polygonsToGeoJSON(restricted) : null, bands: new Map() }, clearance: null };
       arms.set(sig, p);
       stats.arms++;
     }
     for (const h of heights) {
-      if (!p.bands.has(h)) p.bands.set(h, place(p.reach.bandAt(h - a.mountHeight), p));
+      if (!p.bands.has(h)) {
+        const band = place(p.reach.bandAt(h - a.mountHeight), p);
+        p.bands.set(h, band);
+        p.bandBoxes.set(h, polygonsBounds(band) as BBox | null);
+        p.geo.bands.set(h, band.length ? polygonsToGeoJSON(band) : null);
+      }
     }
     return p;
   }
 
-  function regionBelow(p: PlacedArm, top: number): Polygon2[] | null {
+  function below(p: PlacedArm, top: number): Polygon2[] | null {
     const zTop = top - p.arm.mountHeight;
     if (zTop >= p.reach.zMax) return p.restricted;
     if (zTop <= p.reach.zMin) return null;
-    let r = p.below.get(zTop);
-    if (!r) {
-      r = place(p.reach.restrictedBelow(zTop), p);
-      p.below.set(zTop, r);
-    }
-    return r;
+    if (!p.below.has(zTop)) p.below.set(zTop, place(p.reach.restrictedBelow(zTop), p));
+    return p.below.get(zTop)!;
   }
 
-  function coverageColumn(p: PlacedArm, input: Readonly<AnalysisInput>, fp: string): Float64Array {
-    const key = `${p.sig}#${fp}`;
-    let col = columns.get(key);
-    if (col) return col;
-    const pts = input.workPoints;
-    col = new Float64Array(pts.length);
+  function column(p: PlacedArm, points: ReadonlyArray<WorkPoint>): Column {
+    const near = pointsNear(grid!, points, p.arm.x, p.arm.y, p.reach.maxReach + FAR_MM);
+    const margins = new Float64Array(near.length);
     const { x: bx, y: by, mountHeight } = p.arm;
-    const reach = p.reach;
-    // Beyond this distance from the base the exact test is skipped: the point is more than FAR_MM
-    // outside the circle of maximum reach, and its margin is given as that circle's (the true margin
-    // is at most this — the region lies inside the circle — and both say "far out of reach").
-    const far = reach.maxReach + FAR_MM;
-    for (let i = 0; i < pts.length; i++) {
-      const pt = pts[i];
+    for (let k = 0; k < near.length; k++) {
+      const pt = points[near[k]];
       const dx = pt.x - bx;
       const dy = pt.y - by;
-      const d2 = dx * dx + dy * dy;
-      if (d2 > far * far) {
-        // Outside the circle of maximum reach: the margin is at most this (the region lies within it).
-        col[i] = reach.maxReach - Math.sqrt(d2);
-        continue;
-      }
-      const u = p.cos * dx + p.sin * dy;
-      const v = -p.sin * dx + p.cos * dy;
-      col[i] = reach.margin(u, v, pt.z - mountHeight, pt.approach ?? 'top');
+      margins[k] = p.reach.margin(p.cos * dx + p.sin * dy, -p.sin * dx + p.cos * dy, pt.z - mountHeight, pt.approach ?? 'top');
     }
-    columns.set(key, col);
     stats.columns++;
-    return col;
+    return { armId: p.arm.id, near, margins };
+  }
+
+  function pointChecks(pt: WorkPoint, row: Record<string, number>, placedIds: Set<string>): Finding[] | null {
+    let best: string | null = null;
+    let bestM = -Infinity;
+    let reached = false;
+    for (const id in row) {
+      const m = row[id];
+      if (m >= 0) reached = true;
+      if (m > bestM) {
+        bestM = m;
+        best = id;
+      }
+    }
+    let out: Finding[] | null = null;
+    if (!reached && placedIds.size > 0) {
+      out = [makeFinding('unreached-point', [pt.id], {
+        arms: [], points: [pt.id], geometry: null, at: [pt.x, pt.y],
+        message: `Work point ${pt.id}${pt.tag ? ` (${pt.tag})` : ''} is reached by no arm${best ? `; nearest is ${best}, ${mm(-bestM)} mm short` : `; no arm comes within ${FAR_MM} mm of it`}.`,
+        data: best ? { shortMm: mm(-bestM), nearestArm: best } : undefined,
+      })];
+    }
+    if (pt.assignedArm && placedIds.has(pt.assignedArm)) {
+      const m = row[pt.assignedArm];
+      if (m === undefined || m < 0) {
+        (out ??= []).push(makeFinding('assigned-unreachable', [pt.id, pt.assignedArm], {
+          arms: [pt.assignedArm], points: [pt.id], geometry: null, at: [pt.x, pt.y],
+          message: `Work point ${pt.id} is assigned to ${pt.assignedArm}, which cannot reach it (${m === undefined ? `more than ${FAR_MM} mm` : `${mm(-m)} mm`} short).`,
+          data: m === undefined ? undefined : { shortMm: mm(-m) },
+        }));
+      }
+    }
+    return out;
+  }
+
+  function pairResult(first: PlacedArm, second: PlacedArm, heights: number[], points: ReadonlyArray<WorkPoint>): PairResult {
+    const ids = [first.arm.id, second.arm.id];
+    let polys: Polygon2[];
+    try {
+      polys = intersect(first.restricted, second.restricted);
+    } catch (err) {
+      return { zone: null, findings: [makeFinding('computation-failed', ['overlap', ...ids], { arms: ids, points: [], geometry: null, at: null, message: `Could not compute the overlap of ${ids.join('/')} (${err instanceof Error ? err.message : err}); check it by hand.` })] };
+    }
+    const area = polygonsArea(polys);
+    if (area < MIN_AREA_MM2) return { zone: null, findings: [] };
+    const byHeight = heights.map((h) => {
+      let a = 0;
+      if (!bboxOverlap(first.bandBoxes.get(h) ?? null, second.bandBoxes.get(h) ?? null)) return { height: h, areaM2: 0 };
+      try {
+        a = polygonsArea(intersect(first.bands.get(h)!, second.bands.get(h)!));
+      } catch {
+        a = NaN;
+      }
+      return { height: h, areaM2: m2(a) };
+    });
+    // Work points both arms reach (walk the shorter coverage column, look the other arm up in the row).
+    const ca = columns.get(first.sig)!;
+    const cb = columns.get(second.sig)!;
+    const [short, otherId] = ca.near.length <= cb.near.length ? [ca, second.arm.id] : [cb, first.arm.id];
+    const inside: string[] = [];
+    for (let k = 0; k < short.near.length; k++) {
+      if (short.margins[k] < 0) continue;
+      const pid = points[short.near[k]].id;
+      const m = coverage[pid][otherId];
+      if (m !== undefined && m >= 0) inside.push(pid);
+    }
+    const geometry = polygonsToGeoJSON(polys);
+    const zone: SharedZone = { arms: [ids[0], ids[1]], areaM2: m2(area), points: inside, geometry, byHeight };
+    const findings = [
+      makeFinding('shared-zone', ids, {
+        arms: ids, points: inside, geometry, at: centroidOf(polys),
+        message: `${ids[0]} and ${ids[1]} share ${m2Text(area)} m² of restricted space${inside.length ? ` containing ${inside.length} work point${inside.length === 1 ? '' : 's'}` : ''}: plan interlocks or zone-sharing logic.`,
+        data: { areaM2: m2(area) },
+      }),
+    ];
+    if (inside.length) {
+      findings.push(makeFinding('handover', ids, {
+        arms: ids, points: inside, geometry: null, at: null,
+        message: `${inside.length} work point${inside.length === 1 ? '' : 's'} can be served by both ${ids[0]} and ${ids[1]} (possible handover): ${inside.slice(0, 6).join(', ')}${inside.length > 6 ? ' …' : ''}.`,
+        data: { count: inside.length },
+      }));
+    }
+    stats.pairs++;
+    return { zone, findings };
   }
 
   return {
@@ -148,260 +242,111 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     analyze(input) {
       const t0 = typeof performance !== 'undefined' ? performance.now() : Date.now();
       stats = { arms: 0, pairs: 0, columns: 0 };
-      const findings: Finding[] = [];
-      const add = (kind: FindingKind, ids: string[], f: Omit<Finding, 'id' | 'kind' | 'severity'> & { severity?: Finding['severity'] }) =>
-        findings.push({ id: findingId(kind, ...ids), kind, severity: f.severity ?? SEVERITY_OF[kind], ...f });
       const heights = [...new Set(input.workHeights)].sort((a, b) => a - b);
+      const points = input.workPoints;
+      const small: Finding[] = [];
 
       const placed: PlacedArm[] = [];
       for (const a of input.arms) {
         try {
           placed.push(placedArm(a, heights));
         } catch (err) {
-          add('unknown-model', [a.id], {
+          small.push(makeFinding('unknown-model', [a.id], {
             arms: [a.id], points: [], geometry: null, at: [a.x, a.y],
             message: `${a.label || a.id}: its reach could not be computed (${err instanceof Error ? err.message : 'unknown arm model'}).`,
-          });
+          }));
         }
       }
-      const liveSigs = new Set(placed.map((p) => p.sig));
-      for (const k of arms.keys()) if (!liveSigs.has(k)) arms.delete(k);
+      const live = new Set(placed.map((p) => p.sig));
+      for (const k of arms.keys()) if (!live.has(k)) arms.delete(k);
+      const placedIds = new Set(placed.map((p) => p.arm.id));
 
-      // Coverage
-      const fp = pointsFingerprint(input.workPoints);
-      const cols = placed.map((p) => coverageColumn(p, input, fp));
-      const liveCols = new Set(placed.map((p) => `${p.sig}#${fp}`));
-      for (const k of columns.keys()) if (!liveCols.has(k)) columns.delete(k);
-      const coverage: AnalysisResult['coverage'] = {};
-      const handovers = new Map<string, string[]>();
-      input.workPoints.forEach((pt, i) => {
-        const row: Record<string, number> = {};
-        const reachedBy: string[] = [];
-        placed.forEach((p, j) => {
-          const m = cols[j][i];
-          row[p.arm.id] = Math.round(m * 10) / 10;
-          if (m >= 0) reachedBy.push(p.arm.id);
-        });
-        coverage[pt.id] = row;
-        if (reachedBy.length === 0 && placed.length > 0) {
-          const best = placed.reduce<{ id: string; m: number } | null>((b, p, j) => (b && b.m >= cols[j][i] ? b : { id: p.arm.id, m: cols[j][i] }), null);
-          add('unreached-point', [pt.id], {
-            arms: [], points: [pt.id], geometry: null, at: [pt.x, pt.y],
-            message: `Work point ${pt.id}${pt.tag ? ` (${pt.tag})` : ''} is reached by no arm${best ? `; nearest is ${best.id}, ${mm(-best.m)} mm short` : ''}.`,
-            data: best ? { shortMm: mm(-best.m), nearestArm: best.id } : undefined,
-          });
+      // Coverage: columns per arm over the points near it; rows updated in place.
+      const nextFp = pointsFingerprint(points);
+      let dirty: Uint8Array;
+      if (nextFp !== fp) {
+        fp = nextFp;
+        grid = buildPointGrid(points);
+        coverage = {};
+        for (const p of points) coverage[p.id] = {};
+        columns.clear();
+        pairs.clear();
+        pointFindings = new Array(points.length).fill(null);
+        dirty = new Uint8Array(points.length).fill(1);
+      } else {
+        dirty = new Uint8Array(points.length);
+      }
+      for (const [sig, col] of columns) {
+        if (live.has(sig)) continue;
+        for (let k = 0; k < col.near.length; k++) {
+          delete coverage[points[col.near[k]].id][col.armId];
+          dirty[col.near[k]] = 1;
         }
-        if (pt.assignedArm) {
-          const j = placed.findIndex((p) => p.arm.id === pt.assignedArm);
-          if (j >= 0 && cols[j][i] < 0) {
-            add('assigned-unreachable', [pt.id, pt.assignedArm], {
-              arms: [pt.assignedArm], points: [pt.id], geometry: null, at: [pt.x, pt.y],
-              message: `Work point ${pt.id} is assigned to ${pt.assignedArm}, which cannot reach it (${mm(-cols[j][i])} mm short).`,
-              data: { shortMm: mm(-cols[j][i]) },
-            });
-          }
+        columns.delete(sig);
+      }
+      // Adding or removing an arm changes which points are unreached or wrongly assigned anywhere.
+      const nextPlacedKey = [...placedIds].sort().join(',');
+      const idsChanged = nextPlacedKey !== placedKey;
+      placedKey = nextPlacedKey;
+      for (const p of placed) {
+        if (columns.has(p.sig)) continue;
+        const col = column(p, points);
+        columns.set(p.sig, col);
+        for (let k = 0; k < col.near.length; k++) {
+          coverage[points[col.near[k]].id][col.armId] = Math.round(col.margins[k] * 10) / 10;
+          dirty[col.near[k]] = 1;
         }
-        if (reachedBy.length >= 2) {
-          for (let a = 0; a < reachedBy.length; a++) {
-            for (let b = a + 1; b < reachedBy.length; b++) {
-              const key = `${reachedBy[a]}+${reachedBy[b]}`;
-              const list = handovers.get(key) ?? [];
-              list.push(pt.id);
-              handovers.set(key, list);
-            }
-          }
-        }
-      });
-      for (const [key, pts] of handovers) {
-        const [a, b] = key.split('+');
-        add('handover', [a, b], {
-          arms: [a, b], points: pts, geometry: null, at: null,
-          message: `${pts.length} work point${pts.length === 1 ? '' : 's'} can be served by both ${a} and ${b} (possible handover): ${pts.slice(0, 6).join(', ')}${pts.length > 6 ? ' …' : ''}.`,
-          data: { count: pts.length },
-        });
+      }
+      for (let i = 0; i < points.length; i++) {
+        if (dirty[i] || idsChanged) pointFindings[i] = pointChecks(points[i], coverage[points[i].id], placedIds);
       }
 
-      // Shared zones
+      // Shared zones (pairs cached by both arms' signatures, the heights and the points).
       const overlaps: SharedZone[] = [];
       const livePairs = new Set<string>();
-      const pointIndex = new Map(input.workPoints.map((p, i) => [p.id, i]));
       for (let i = 0; i < placed.length; i++) {
         for (let j = i + 1; j < placed.length; j++) {
           const A = placed[i];
           const B = placed[j];
-          const d = Math.hypot(A.arm.x - B.arm.x, A.arm.y - B.arm.y);
-          if (d > A.reach.maxReach + B.reach.maxReach || !bboxOverlap(A.bbox, B.bbox)) continue;
+          if (Math.hypot(A.arm.x - B.arm.x, A.arm.y - B.arm.y) > A.reach.maxReach + B.reach.maxReach || !bboxOverlap(A.bbox, B.bbox)) continue;
           const [first, second] = A.arm.id < B.arm.id ? [A, B] : [B, A];
           const key = `${first.sig}&${second.sig}&${heights.join(',')}`;
           livePairs.add(key);
           let r = pairs.get(key);
           if (!r) {
-            stats.pairs++;
-            try {
-              const polys = intersect(first.restricted, second.restricted);
-              const byHeight = heights.map((h) => ({ height: h, areaM2: m2(polygonsArea(intersect(first.bands.get(h)!, second.bands.get(h)!))) }));
-              r = { area: polygonsArea(polys), polys, byHeight };
-            } catch (err) {
-              r = { failed: err instanceof Error ? err.message : String(err) };
-            }
+            r = pairResult(first, second, heights, points);
             pairs.set(key, r);
           }
-          const ids = [first.arm.id, second.arm.id];
-          if ('failed' in r) {
-            add('computation-failed', ['overlap', ...ids], {
-              arms: ids, points: [], geometry: null, at: null,
-              message: `Could not compute the overlap of ${ids.join('/')} (${r.failed}); check it by hand.`,
-            });
-            continue;
-          }
-          if (r.area < MIN_AREA_MM2) continue;
-          const ci = placed.indexOf(first);
-          const cj = placed.indexOf(second);
-          const pts = input.workPoints.filter((p) => {
-            const k = pointIndex.get(p.id)!;
-            return cols[ci][k] >= 0 && cols[cj][k] >= 0;
-          }).map((p) => p.id);
-          const geometry = polygonsToGeoJSON(r.polys);
-          overlaps.push({ arms: [ids[0], ids[1]], areaM2: m2(r.area), points: pts, geometry, byHeight: r.byHeight });
-          add('shared-zone', ids, {
-            arms: ids, points: pts, geometry, at: centroidOf(r.polys),
-            message: `${ids[0]} and ${ids[1]} share ${m2Text(r.area)} m² of restricted space${pts.length ? ` containing ${pts.length} work point${pts.length === 1 ? '' : 's'}` : ''}: plan interlocks or zone-sharing logic.`,
-            data: { areaM2: m2(r.area) },
-          });
+          if (r.zone) overlaps.push(r.zone);
+          small.push(...r.findings);
         }
       }
       for (const k of pairs.keys()) if (!livePairs.has(k)) pairs.delete(k);
 
-      // Clearance: floor, structure
-      const floor = input.floor;
+      // Clearance per arm, cached while the arm, the floor and the zones stay the same.
+      const envKey = `${floorKey(input.floor)}|${JSON.stringify(input.zones)}`;
       for (const p of placed) {
-        const id = p.arm.id;
-        const name = p.arm.label || id;
-        if (floor && floor.boundary.length && !pointInPolygons(p.arm.x, p.arm.y, floor.boundary)) {
-          add('base-off-floor', [id], { arms: [id], points: [], geometry: null, at: [p.arm.x, p.arm.y], message: `${name}: its base stands outside the floor boundary.` });
+        if (p.clearance?.key !== envKey) {
+          p.clearance = { key: envKey, findings: armClearance({ arm: p.arm, restricted: p.restricted, bbox: p.bbox, below: (top) => below(p, top) }, input.floor, input.zones) };
         }
-        if (!floor) continue;
-        const hits = new Map<string, { items: StructureItem[]; polys: Polygon2[] }>();
-        for (const s of floor.structures) {
-          if (s.role === 'column' && s.polygons.length && pointInPolygons(p.arm.x, p.arm.y, s.polygons)) {
-            add('base-on-column', [id, s.id], { arms: [id], points: [], geometry: polygonsToGeoJSON(s.polygons), at: [p.arm.x, p.arm.y], message: `${name}: its base stands on a column (layer ${s.layer}).` });
-            continue;
-          }
-          if (!bboxOverlap(p.bbox, s.bbox)) continue;
-          const region = regionBelow(p, s.top);
-          if (!region) continue;
-          let hitPolys: Polygon2[] = [];
-          let hit = false;
-          try {
-            if (s.polygons.length) {
-              hitPolys = intersect(region, s.polygons);
-              hit = polygonsArea(hitPolys) >= MIN_AREA_MM2;
-            }
-            if (!hit) hit = s.lines.some((l) => polylineHitsPolygons(l, region));
-          } catch (err) {
-            add('computation-failed', ['structure', id, s.id], { arms: [id], points: [], geometry: null, at: null, message: `Could not check ${name} against ${s.layer} (${err instanceof Error ? err.message : err}).` });
-            continue;
-          }
-          if (!hit) continue;
-          const g = hits.get(s.layer) ?? { items: [], polys: [] };
-          g.items.push(s);
-          g.polys.push(...hitPolys);
-          hits.set(s.layer, g);
-        }
-        for (const [layer, g] of hits) {
-          const role = g.items[0].role;
-          const top = g.items[0].top;
-          const union = g.polys.length ? clipUnion(g.polys) : [];
-          add('reach-into-structure', [id, layer], {
-            arms: [id], points: [], geometry: union.length ? polygonsToGeoJSON(union) : null, at: union.length ? centroidOf(union) : [p.arm.x, p.arm.y],
-            message: `${name}: restricted space reaches into ${g.items.length} ${role}${g.items.length === 1 ? '' : 's'} on layer ${layer}${Number.isFinite(top) ? ` (up to ${mm(top)} mm high)` : ''}.`,
-            data: { items: g.items.length, areaM2: m2(polygonsArea(union)) },
-          });
-        }
+        small.push(...p.clearance.findings);
       }
+      small.push(...fenceFindings(input.zones));
 
-      // Zones
-      const fences = input.zones.filter((z) => z.kind === 'fence');
-      const openings = input.zones.filter((z) => z.kind === 'opening');
-      for (const f of fences) {
-        if ((f.height ?? 0) < MIN_FENCE_HEIGHT_MM) {
-          add('fence-too-low', [f.id], {
-            arms: [], points: [], geometry: null, at: f.points[0] as [number, number],
-            message: `Fence ${f.label || f.id} is ${mm(f.height ?? 0)} mm high; fixed perimeter guards are at least ${MIN_FENCE_HEIGHT_MM} mm (ISO 10218-2), more where ISO 13857 requires.`,
-          });
-        }
-      }
-      for (const p of placed) {
-        const id = p.arm.id;
-        const name = p.arm.label || id;
-        for (const f of fences) {
-          const cuts = openings.filter((o) => o.fenceId === f.id).map((o) => [o.points[0], o.points[1]] as const);
-          const solid = subtractOpenings(f.points as Array<[number, number]>, cuts as never);
-          const near = solid.some((l) => polylineBBoxNear(l, p.bbox, FENCE_CLEARANCE_MM));
-          if (!near) continue;
-          const dist = Math.min(...solid.map((l) => polylineDistanceToPolygons(l, p.restricted)));
-          if (dist === 0) {
-            add('reach-beyond-fence', [id, f.id], { arms: [id], points: [], geometry: null, at: [p.arm.x, p.arm.y], message: `${name}: restricted space crosses fence ${f.label || f.id}; a perimeter guard must stay outside the restricted space (ISO 10218-2).` });
-          } else if (dist < FENCE_CLEARANCE_MM) {
-            add('fence-clearance', [id, f.id], { arms: [id], points: [], geometry: null, at: [p.arm.x, p.arm.y], message: `${name}: only ${mm(dist)} mm between restricted space and fence ${f.label || f.id} (${FENCE_CLEARANCE_MM} mm kept as common practice).`, data: { distanceMm: mm(dist) } });
-          }
-        }
-        for (const o of openings) {
-          if (o.points.length === 2 && polylineHitsPolygons(o.points as Array<[number, number]>, p.restricted)) {
-            add('reach-through-opening', [id, o.id], { arms: [id], points: [], geometry: null, at: o.points[0] as [number, number], message: `${name}: restricted space reaches through access opening ${o.label || o.id}; safeguard it (interlocked door or light curtain at the ISO 13855 distance).` });
-          }
-        }
-        for (const z of input.zones) {
-          if (z.kind !== 'operator' && z.kind !== 'keepout') continue;
-          const poly: Polygon2[] = [[z.points.map(([x, y]) => [x, y] as [number, number])]];
-          let inter: Polygon2[];
-          try {
-            inter = intersect(p.restricted, poly);
-          } catch (err) {
-            add('computation-failed', ['zone', id, z.id], { arms: [id], points: [], geometry: null, at: null, message: `Could not check ${name} against zone ${z.id} (${err instanceof Error ? err.message : err}).` });
-            continue;
-          }
-          const area = polygonsArea(inter);
-          if (area < MIN_AREA_MM2) continue;
-          const kind: FindingKind = z.kind === 'operator' ? 'reach-into-operator-area' : 'reach-into-keepout';
-          add(kind, [id, z.id], {
-            arms: [id], points: [], geometry: polygonsToGeoJSON(inter), at: centroidOf(inter),
-            message: z.kind === 'operator'
-              ? `${name}: restricted space reaches ${m2Text(area)} m² into operator area ${z.label || z.id}; people there need safeguarding.`
-              : `${name}: restricted space reaches ${m2Text(area)} m² into keep-out ${z.label || z.id}.`,
-            data: { areaM2: m2(area) },
-          });
-        }
-      }
+      // Most severe first; point findings (all critical) in work-point order after the other critical ones.
+      sortFindings(small);
+      const findings: Finding[] = [];
+      let k = 0;
+      while (k < small.length && small[k].severity === 'critical') findings.push(small[k++]);
+      for (const pf of pointFindings) if (pf) findings.push(...pf);
+      while (k < small.length) findings.push(small[k++]);
 
       const regions: AnalysisResult['regions'] = {};
       for (const p of placed) {
-        regions[p.arm.id] = {
-          restricted: p.restricted.length ? polygonsToGeoJSON(p.restricted) : null,
-          bands: heights.map((h) => {
-            const b = p.bands.get(h)!;
-            return { height: h, geometry: b.length ? polygonsToGeoJSON(b) : null };
-          }),
-        };
+        regions[p.arm.id] = { restricted: p.geo.restricted, bands: heights.map((h) => ({ height: h, geometry: p.geo.bands.get(h) ?? null })) };
       }
       const t1 = typeof performance !== 'undefined' ? performance.now() : Date.now();
-      return { findings: sortFindings(findings), overlaps, coverage, regions, timingMs: Math.round((t1 - t0) * 100) / 100 };
+      return { findings, overlaps, coverage, regions, timingMs: Math.round((t1 - t0) * 100) / 100 };
     },
   };
 }
-
-function centroidOf(polys: Polygon2[]): [number, number] | null {
-  const b = polygonsBounds(polys);
-  return b ? [(b[0] + b[2]) / 2, (b[1] + b[3]) / 2] : null;
-}
-
-function polylineBBoxNear(line: Array<[number, number]>, bbox: BBox | null, pad: number): boolean {
-  if (!bbox) return false;
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (const [x, y] of line) {
-    minX = Math.min(minX, x); minY = Math.min(minY, y); maxX = Math.max(maxX, x); maxY = Math.max(maxY, y);
-  }
-  return minX <= bbox[2] + pad && bbox[0] - pad <= maxX && minY <= bbox[3] + pad && bbox[1] - pad <= maxY;
-}
-
-export type { Zone };

@@ -15,7 +15,23 @@ export function armReachFor(params: unknown, restrict: ArmPlacement['restrict'])
   let r = cache.get(key);
   if (!r) {
     const model = parseArmParams(params);
-    r = armReach(model, restrict ?? null);
+    const base = armReach(model, restrict ?? null);
+    // Bands and below-height regions depend only on the height: keep each one once built.
+    const bands = new Map<number, ReturnType<ArmReach['bandAt']>>();
+    const below = new Map<number, ReturnType<ArmReach['restrictedBelow']>>();
+    r = {
+      ...base,
+      bandAt: (z) => {
+        let b = bands.get(z);
+        if (!b) bands.set(z, (b = base.bandAt(z)));
+        return b;
+      },
+      restrictedBelow: (z) => {
+        let b = below.get(z);
+        if (!b) below.set(z, (b = base.restrictedBelow(z)));
+        return b;
+      },
+    };
     if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value as string);
     cache.set(key, r);
   }

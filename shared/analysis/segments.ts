@@ -3,16 +3,30 @@ import type { Polygon2 } from '../geometry/types';
 
 type P = readonly [number, number];
 
+function orient(px: number, py: number, qx: number, qy: number, rx: number, ry: number): number {
+  return (qx - px) * (ry - py) - (qy - py) * (rx - px);
+}
+
+function onSegment(px: number, py: number, qx: number, qy: number, rx: number, ry: number): boolean {
+  return Math.min(px, qx) <= rx && rx <= Math.max(px, qx) && Math.min(py, qy) <= ry && ry <= Math.max(py, qy);
+}
+
 /** True when segments ab and cd intersect or touch (orientation test, planar). */
 export function segmentsIntersect(a: P, b: P, c: P, d: P): boolean {
-  const o = (p: P, q: P, r: P) => (q[0] - p[0]) * (r[1] - p[1]) - (q[1] - p[1]) * (r[0] - p[0]);
-  const d1 = o(c, d, a);
-  const d2 = o(c, d, b);
-  const d3 = o(a, b, c);
-  const d4 = o(a, b, d);
+  // Bounding boxes first: most pairs in a clearance check are far apart.
+  if (Math.max(a[0], b[0]) < Math.min(c[0], d[0]) || Math.max(c[0], d[0]) < Math.min(a[0], b[0])) return false;
+  if (Math.max(a[1], b[1]) < Math.min(c[1], d[1]) || Math.max(c[1], d[1]) < Math.min(a[1], b[1])) return false;
+  const d1 = orient(c[0], c[1], d[0], d[1], a[0], a[1]);
+  const d2 = orient(c[0], c[1], d[0], d[1], b[0], b[1]);
+  const d3 = orient(a[0], a[1], b[0], b[1], c[0], c[1]);
+  const d4 = orient(a[0], a[1], b[0], b[1], d[0], d[1]);
   if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) return true;
-  const on = (p: P, q: P, r: P) => Math.min(p[0], q[0]) <= r[0] && r[0] <= Math.max(p[0], q[0]) && Math.min(p[1], q[1]) <= r[1] && r[1] <= Math.max(p[1], q[1]);
-  return (d1 === 0 && on(c, d, a)) || (d2 === 0 && on(c, d, b)) || (d3 === 0 && on(a, b, c)) || (d4 === 0 && on(a, b, d));
+  return (
+    (d1 === 0 && onSegment(c[0], c[1], d[0], d[1], a[0], a[1])) ||
+    (d2 === 0 && onSegment(c[0], c[1], d[0], d[1], b[0], b[1])) ||
+    (d3 === 0 && onSegment(a[0], a[1], b[0], b[1], c[0], c[1])) ||
+    (d4 === 0 && onSegment(a[0], a[1], b[0], b[1], d[0], d[1]))
+  );
 }
 
 /** Shortest distance between segments ab and cd, mm (0 when they cross). */

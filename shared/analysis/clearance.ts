@@ -1,0 +1,207 @@
+import { polygonsArea, polygonsBounds } from '../geometry/area';
+import { clipIntersect, clipUnion } from '../geometry/clipper';
+import { polygonsToGeoJSON } from '../geometry/geojson';
+import { pointInPolygons } from '../geometry/pointInPolygon';
+import type { Polygon2 } from '../geometry/types';
+import type { ArmPlacement, Zone } from '../schemas/layout';
+import { findingId, m2, m2Text, mm, SEVERITY_OF } from './messages';
+import { polylineDistanceToPolygons, polylineHitsPolygons, segmentsIntersect, subtractOpenings } from './segments';
+import type { Finding, FindingKind, PreparedFloor, StructureItem } from './types';
+
+/** Smallest overlap area that counts, mm² (below it is boolean-op noise). */
+export const MIN_AREA_MM2 = 1;
+/** Kept between the restricted space and a fence before a clearance warning, mm (common practice: 120–200 mm). */
+export const FENCE_CLEARANCE_MM = 150;
+/** Lowest fixed perimeter guard, mm (ISO 10218-2). */
+export const MIN_FENCE_HEIGHT_MM = 1400;
+
+export type BBox = [number, number, number, number];
+
+export const bboxOverlap = (a: BBox | null, b: BBox | null) => !!a && !!b && a[0] <= b[2] && b[0] <= a[2] && a[1] <= b[3] && b[1] <= a[3];
+
+/** clipIntersect, with an empty side giving an empty result (clipper refuses two empty inputs). */
+export function intersect(a: Polygon2[], b: Polygon2[]): Polygon2[] {
+  return a.length && b.length ? clipIntersect(a, b) : [];
+}
+
+export function centroidOf(polys: Polygon2[]): [number, number] | null {
+  const b = polygonsBounds(polys);
+  return b ? [(b[0] + b[2]) / 2, (b[1] + b[3]) / 2] : null;
+}
+
+export function makeFinding(kind: FindingKind, ids: string[], f: Omit<Finding, 'id' | 'kind' | 'severity'>): Finding {
+  return { id: findingId(kind, ...ids), kind, severity: SEVERITY_OF[kind], ...f };
+}
+
+/** What the clearance checks need of one placed arm (plan mm). */
+export interface ClearanceArm {
+  arm: ArmPlacement;
+  restricted: Polygon2[];
+  bbox: BBox | null;
+  /** Restricted space of the reach below a plan height (null when nothing reaches that low). */
+  below(top: number): Polygon2[] | null;
+}
+
+/** A region's edges as a flat list [ax, ay, bx, by, …], built once per region (regions are cached per arm). */
+const edgeCache = new WeakMap<Polygon2[], Float64Array>();
+function regionEdges(region: Polygon2[]): Float64Array {
+  let e = edgeCache.get(region);
+  if (!e) {
+    const out: number[] = [];
+    for (const poly of region) {
+      for (const ring of poly) {
+        for (let k = 0; k < ring.length; k++) {
+          const a = ring[k];
+          const b = ring[(k + 1) % ring.length];
+          out.push(a[0], a[1], b[0], b[1]);
+        }
+      }
+    }
+    e = Float64Array.from(out);
+    edgeCache.set(region, e);
+  }
+  return e;
+}
+
+/** True when any segment of the polyline crosses a region edge (region edges prefiltered by the item's box). */
+function crossesEdges(line: ReadonlyArray<readonly [number, number]>, closed: boolean, edges: Float64Array, box: BBox): boolean {
+  const n = closed ? line.length : line.length - 1;
+  for (let e = 0; e < edges.length; e += 4) {
+    const ax = edges[e], ay = edges[e + 1], bx = edges[e + 2], by = edges[e + 3];
+    if (Math.max(ax, bx) < box[0] || Math.min(ax, bx) > box[2] || Math.max(ay, by) < box[1] || Math.min(ay, by) > box[3]) continue;
+    for (let k = 0; k < n; k++) {
+      const c = line[k];
+      const d = line[(k + 1) % line.length];
+      if (segmentsIntersect([ax, ay], [bx, by], c, d)) return true;
+    }
+  }
+  return false;
+}
+
+/**
+ * True when a structure item enters the region. With no edge crossing, two simple shapes are either
+ * nested or apart, so one vertex each way settles it.
+ */
+function itemHits(s: StructureItem, region: Polygon2[]): boolean {
+  const edges = regionEdges(region);
+  for (const poly of s.polygons) {
+    for (const ring of poly) if (crossesEdges(ring, true, edges, s.bbox)) return true;
+    const v = poly[0]?.[0];
+    if (v && pointInPolygons(v[0], v[1], region)) return true;
+    const w = region[0]?.[0]?.[0];
+    if (w && pointInPolygons(w[0], w[1], [poly])) return true;
+  }
+  for (const l of s.lines) {
+    if (crossesEdges(l, false, edges, s.bbox)) return true;
+    if (l[0] && pointInPolygons(l[0][0], l[0][1], region)) return true;
+  }
+  return false;
+}
+
+/** Clearance findings of one arm: floor boundary, columns under the base, structure by height, fences, openings, operator areas, keep-outs. */
+export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, zones: ReadonlyArray<Zone>): Finding[] {
+  const out: Finding[] = [];
+  const id = p.arm.id;
+  const name = p.arm.label || id;
+  const at: [number, number] = [p.arm.x, p.arm.y];
+  if (floor && floor.boundary.length && !pointInPolygons(p.arm.x, p.arm.y, floor.boundary)) {
+    out.push(makeFinding('base-off-floor', [id], { arms: [id], points: [], geometry: null, at, message: `${name}: its base stands outside the floor boundary.` }));
+  }
+  if (floor) {
+    const hits = new Map<string, StructureItem[]>();
+    for (const s of floor.structures) {
+      if (s.role === 'column' && s.polygons.length && pointInPolygons(p.arm.x, p.arm.y, s.polygons)) {
+        out.push(makeFinding('base-on-column', [id, s.id], { arms: [id], points: [], geometry: polygonsToGeoJSON(s.polygons), at, message: `${name}: its base stands on a column (layer ${s.layer}).` }));
+        continue;
+      }
+      if (!bboxOverlap(p.bbox, s.bbox)) continue;
+      const region = p.below(s.top);
+      if (!region || !itemHits(s, region)) continue;
+      const list = hits.get(s.layer) ?? [];
+      list.push(s);
+      hits.set(s.layer, list);
+    }
+    for (const [layer, items] of hits) {
+      const { role, top } = items[0];
+      let union: Polygon2[] = [];
+      try {
+        const byTop = new Map<number, Polygon2[]>();
+        for (const s of items) byTop.set(s.top, [...(byTop.get(s.top) ?? []), ...s.polygons]);
+        const parts: Polygon2[] = [];
+        for (const [t, polys] of byTop) parts.push(...intersect(p.below(t) ?? [], polys));
+        // One clip per height already merges its items; only several heights need a union.
+        union = byTop.size > 1 && parts.length ? clipUnion(parts) : parts;
+      } catch (err) {
+        out.push(makeFinding('computation-failed', ['structure', id, layer], { arms: [id], points: [], geometry: null, at: null, message: `Could not measure ${name} against layer ${layer} (${err instanceof Error ? err.message : err}).` }));
+      }
+      out.push(makeFinding('reach-into-structure', [id, layer], {
+        arms: [id], points: [], geometry: union.length ? polygonsToGeoJSON(union) : null, at: union.length ? centroidOf(union) : at,
+        message: `${name}: restricted space reaches into ${items.length} ${role}${items.length === 1 ? '' : 's'} on layer ${layer}${Number.isFinite(top) ? ` (up to ${mm(top)} mm high)` : ''}.`,
+        data: { items: items.length, areaM2: m2(polygonsArea(union)) },
+      }));
+    }
+  }
+
+  const fences = zones.filter((z) => z.kind === 'fence');
+  const openings = zones.filter((z) => z.kind === 'opening');
+  for (const f of fences) {
+    const cuts = openings.filter((o) => o.fenceId === f.id).map((o) => [o.points[0], o.points[1]] as const);
+    const solid = subtractOpenings(f.points as Array<[number, number]>, cuts as never);
+    if (!solid.some((l) => polylineBBoxNear(l, p.bbox, FENCE_CLEARANCE_MM))) continue;
+    const dist = Math.min(...solid.map((l) => polylineDistanceToPolygons(l, p.restricted)));
+    const label = f.label || f.id;
+    if (dist === 0) {
+      out.push(makeFinding('reach-beyond-fence', [id, f.id], { arms: [id], points: [], geometry: null, at, message: `${name}: restricted space crosses fence ${label}; a perimeter guard must stay outside the restricted space (ISO 10218-2).` }));
+    } else if (dist < FENCE_CLEARANCE_MM) {
+      out.push(makeFinding('fence-clearance', [id, f.id], { arms: [id], points: [], geometry: null, at, message: `${name}: only ${mm(dist)} mm between restricted space and fence ${label} (${FENCE_CLEARANCE_MM} mm kept as common practice).`, data: { distanceMm: mm(dist) } }));
+    }
+  }
+  for (const o of openings) {
+    if (o.points.length === 2 && polylineHitsPolygons(o.points as Array<[number, number]>, p.restricted)) {
+      out.push(makeFinding('reach-through-opening', [id, o.id], { arms: [id], points: [], geometry: null, at: o.points[0] as [number, number], message: `${name}: restricted space reaches through access opening ${o.label || o.id}; safeguard it (interlocked door or light curtain at the ISO 13855 distance).` }));
+    }
+  }
+  for (const z of zones) {
+    if (z.kind !== 'operator' && z.kind !== 'keepout') continue;
+    const poly: Polygon2[] = [[z.points.map(([x, y]) => [x, y] as [number, number])]];
+    let inter: Polygon2[];
+    try {
+      inter = intersect(p.restricted, poly);
+    } catch (err) {
+      out.push(makeFinding('computation-failed', ['zone', id, z.id], { arms: [id], points: [], geometry: null, at: null, message: `Could not check ${name} against zone ${z.id} (${err instanceof Error ? err.message : err}).` }));
+      continue;
+    }
+    const area = polygonsArea(inter);
+    if (area < MIN_AREA_MM2) continue;
+    const operator = z.kind === 'operator';
+    out.push(makeFinding(operator ? 'reach-into-operator-area' : 'reach-into-keepout', [id, z.id], {
+      arms: [id], points: [], geometry: polygonsToGeoJSON(inter), at: centroidOf(inter),
+      message: operator
+        ? `${name}: restricted space reaches ${m2Text(area)} m² into operator area ${z.label || z.id}; people there need safeguarding.`
+        : `${name}: restricted space reaches ${m2Text(area)} m² into keep-out ${z.label || z.id}.`,
+      data: { areaM2: m2(area) },
+    }));
+  }
+  return out;
+}
+
+/** Fence height findings (no arm involved). */
+export function fenceFindings(zones: ReadonlyArray<Zone>): Finding[] {
+  return zones
+    .filter((z) => z.kind === 'fence' && (z.height ?? 0) < MIN_FENCE_HEIGHT_MM)
+    .map((f) =>
+      makeFinding('fence-too-low', [f.id], {
+        arms: [], points: [], geometry: null, at: f.points[0] as [number, number],
+        message: `Fence ${f.label || f.id} is ${mm(f.height ?? 0)} mm high; fixed perimeter guards are at least ${MIN_FENCE_HEIGHT_MM} mm (ISO 10218-2), more where ISO 13857 requires.`,
+      }),
+    );
+}
+
+function polylineBBoxNear(line: Array<[number, number]>, bbox: BBox | null, pad: number): boolean {
+  if (!bbox) return false;
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (const [x, y] of line) {
+    minX = Math.min(minX, x); minY = Math.min(minY, y); maxX = Math.max(maxX, x); maxY = Math.max(maxY, y);
+  }
+  return minX <= bbox[2] + pad && bbox[0] - pad <= maxX && minY <= bbox[3] + pad && bbox[1] - pad <= maxY;
+}

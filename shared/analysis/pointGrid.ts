@@ -1,0 +1,63 @@
+import type { WorkPoint } from '../schemas/layout';
+
+/** Uniform grid over work points (plan mm) for "points within radius R of (x, y)" queries. */
+export interface PointGrid {
+  cell: number;
+  minX: number;
+  minY: number;
+  cols: number;
+  rows: number;
+  /** Point indices by cell (CSR layout: start offsets + flat indices). */
+  start: Int32Array;
+  items: Int32Array;
+}
+
+/** Builds the grid once per set of work points (cell ≈ 1 m keeps a query to a few dozen cells). */
+export function buildPointGrid(points: ReadonlyArray<WorkPoint>, cell = 1000): PointGrid {
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (const p of points) {
+    if (p.x < minX) minX = p.x;
+    if (p.y < minY) minY = p.y;
+    if (p.x > maxX) maxX = p.x;
+    if (p.y > maxY) maxY = p.y;
+  }
+  if (!points.length) return { cell, minX: 0, minY: 0, cols: 1, rows: 1, start: new Int32Array(2), items: new Int32Array(0) };
+  // Keep the grid to at most ~1M cells for very spread-out points.
+  while (((maxX - minX) / cell + 1) * ((maxY - minY) / cell + 1) > 1e6) cell *= 2;
+  const cols = Math.floor((maxX - minX) / cell) + 1;
+  const rows = Math.floor((maxY - minY) / cell) + 1;
+  const count = new Int32Array(cols * rows + 1);
+  const cellOf = new Int32Array(points.length);
+  points.forEach((p, i) => {
+    const c = Math.floor((p.y - minY) / cell) * cols + Math.floor((p.x - minX) / cell);
+    cellOf[i] = c;
+    count[c + 1]++;
+  });
+  for (let i = 1; i < count.length; i++) count[i] += count[i - 1];
+  const items = new Int32Array(points.length);
+  const fill = count.slice(0, -1);
+  for (let i = 0; i < points.length; i++) items[fill[cellOf[i]]++] = i;
+  return { cell, minX, minY, cols, rows, start: count, items };
+}
+
+/** Indices of the points within `radius` of (x, y), ascending. */
+export function pointsNear(grid: PointGrid, points: ReadonlyArray<WorkPoint>, x: number, y: number, radius: number): Int32Array {
+  const c0 = Math.max(0, Math.floor((x - radius - grid.minX) / grid.cell));
+  const c1 = Math.min(grid.cols - 1, Math.floor((x + radius - grid.minX) / grid.cell));
+  const r0 = Math.max(0, Math.floor((y - radius - grid.minY) / grid.cell));
+  const r1 = Math.min(grid.rows - 1, Math.floor((y + radius - grid.minY) / grid.cell));
+  const out: number[] = [];
+  const r2 = radius * radius;
+  for (let r = r0; r <= r1; r++) {
+    for (let c = c0; c <= c1; c++) {
+      const cell = r * grid.cols + c;
+      for (let k = grid.start[cell]; k < grid.start[cell + 1]; k++) {
+        const i = grid.items[k];
+        const dx = points[i].x - x;
+        const dy = points[i].y - y;
+        if (dx * dx + dy * dy <= r2) out.push(i);
+      }
+    }
+  }
+  return Int32Array.from(out.sort((a, b) => a - b));
+}
