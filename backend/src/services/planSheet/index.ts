@@ -1,0 +1,8 @@
+/**
+ * Plan sheets: `renderPlanSheet(input, opts)` → PDF bytes; `loadLayoutSheetInput(layout)` builds the
+ * input of a layout's working copy; `layoutDxf(input)` → DXF text for CAD. Types in ./types.ts.
+ */
+export * from './types';
+export { renderPlanSheet, sheetScale } from './renderPlanSheet';
+export { loadLayoutSheetInput } from './loadLayoutSheetInput';
+export { CAUTIONS, DRAFT_MARK } from './sheetPages';
