@@ -1,3 +1,4 @@
+import { clipOffset } from './clipper';
 import { distanceToSegment } from './pointInPolygon';
 import type { Polygon2, Pt, Ring } from './types';
 
@@ -51,4 +52,14 @@ export function simplifyRing(ring: Readonly<Ring>, eps: number): Ring {
 /** Douglas–Peucker simplification of every ring of the polygons, mm (see simplifyRing). */
 export function simplifyPolygons(polygons: ReadonlyArray<Polygon2>, eps: number): Polygon2[] {
   return polygons.map((p) => p.map((r) => simplifyRing(r, eps)));
+}
+
+/**
+ * Outward simplification, mm: Douglas–Peucker at `eps`, then the result grown by `eps` (mitred
+ * offset, Clipper), so the region contains the original (to Clipper's integer grid) and lies
+ * within 2·eps outside it.
+ */
+export function simplifyPolygonsOutward(polygons: ReadonlyArray<Polygon2>, eps: number): Polygon2[] {
+  if (!(eps > 0) || !Number.isFinite(eps)) throw new Error('eps: expected a positive number');
+  return clipOffset(simplifyPolygons(polygons, eps), eps, { join: 'miter' });
 }

@@ -1,10 +1,10 @@
 import { toRadians } from '../geometry/angles';
 import { clipOffset } from '../geometry/clipper';
 import { buildDistanceGrid, type DistanceGrid } from '../geometry/distanceGrid';
-import { polygonsBounds } from '../geometry/area';
-import { simplifyPolygons } from '../geometry/simplify';
+import { simplifyPolygonsOutward } from '../geometry/simplify';
 import type { Polygon2 } from '../geometry/types';
 import type { ArmParams, ScaraParams } from '../schemas/armModel';
+import type { ReachProfile } from './types';
 import { familyOf, reachProfileOf, stableKey } from './families';
 import { bandPolygons, j1KinematicRange, restrictedBelowPolygons, restrictedSpacePolygons, toolDrop, type J1Restrict } from './planRegions';
 import { scaraPlanRegion } from './scara';
@@ -25,7 +25,9 @@ import { scaraPlanRegion } from './scara';
  * Margin: signed distance to the boundary in mm (negative outside). The J1-limit edges count as
  * arc lengths at the point's radius; inside both, the smaller of the two distances; outside one,
  * that (negative) distance; outside both, −√(a² + b²).
- * One check is a grid lookup plus a few edge distances (DistanceGrid), ~10⁷ checks/s.
+ * One check is a grid lookup plus a few edge distances (DistanceGrid); the second way to a bearing
+ * is looked up only when the grid's edge-free upper bound says it could win. A sampled (chain)
+ * outline is first simplified outward (see outlineSimplifyMm).
  */
 
 /** A point in the arm frame, mm; approach default 'top'. */
@@ -60,6 +62,18 @@ function combine(a: number, b: number): number {
   return a < b ? a : b;
 }
 
+/**
+ * Douglas–Peucker tolerance for a sampled (chain) outline, mm: half a raster cell (a sixth of the
+ * stated tolerance). The raster contour steps in diagonal zigzags of about a third of a cell; at
+ * half a cell they go, and the outward simplification keeps the margin's region between the
+ * profile's outline and one cell (a third of the stated tolerance) outside it, still containing
+ * every sample.
+ */
+function outlineSimplifyMm(profile: ReachProfile): number {
+  const cell = (profile as ReachProfile & { cellMm?: number }).cellMm;
+  return (cell !== undefined && cell > 0 ? cell : profile.toleranceMm / 3) / 2;
+}
+
 function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
   const drop = toolDrop(model);
   if (model.family === 'scara') {
@@ -79,9 +93,7 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
   const a0 = toRadians(range.min) - 1e-9;
   const a1 = toRadians(range.max) + 1e-9;
   const e = familyOf(model).lateralOffset(model);
-  // A sampled profile (chain) is a raster contour with many nearly collinear points: simplify it
-  // (Douglas–Peucker, 0.5 mm) and grow it by the same 0.5 mm so it still contains the original.
-  const polygons = profile.method === 'sampled' ? clipOffset(simplifyPolygons(profile.polygons, 0.5), 0.5, { join: 'miter' }) : profile.polygons;
+  const polygons = profile.method === 'sampled' ? simplifyPolygonsOutward(profile.polygons, outlineSimplifyMm(profile)) : profile.polygons;
   const grid = buildDistanceGrid(polygons);
   const tiltable = model.family === 'articulated' || model.family === 'chain';
   const reachTool = model.toolLength ?? 0;
@@ -90,20 +102,10 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
     if (!anyGrid) {
       const grown = clipOffset(polygons, reachTool, { join: 'round', arcToleranceMm: 0.25 });
       anyGrid = buildDistanceGrid(grown);
-      anyBox = boxOf(grown);
     }
     return anyGrid;
   };
   const hasNegative = polygons.some((p) => p[0].some(([r]) => r < 0));
-  const boxOf = (polys: Polygon2[]): [number, number, number, number] => polygonsBounds(polys) ?? [0, 0, 0, 0];
-  const topBox = boxOf(polygons);
-  let anyBox = topBox;
-  /** Upper bound of the signed distance at (r, z): minus the distance to the region's bounding box when outside it. */
-  const boxBound = (b: readonly number[], r: number, z: number): number => {
-    const dx = r < b[0] ? b[0] - r : r > b[2] ? r - b[2] : 0;
-    const dz = z < b[1] ? b[1] - z : z > b[3] ? z - b[3] : 0;
-    return dx === 0 && dz === 0 ? Infinity : -Math.sqrt(dx * dx + dz * dz);
-  };
   const e2 = e * e;
   const absE = Math.abs(e);
   const TWO_PI = 2 * Math.PI;
@@ -122,7 +124,6 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
   return (x, y, z, approach) => {
     const tilt = approach === 'any' && tiltable && reachTool > 0;
     const g = tilt ? anyGridOf() : grid;
-    const box = tilt ? anyBox : topBox;
     const zt = tilt ? z : z + drop;
     const rho2 = x * x + y * y;
     const rho = Math.sqrt(rho2);
@@ -142,10 +143,10 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
     const arcA = arcAt(bearing - shiftA, rho);
     if (!hasNegative) return combine(g.signedDistance(rho, zt), arcA);
     const arcB = arcAt(bearing - shiftB, rho);
-    // combine(d, arc) ≤ min(d, arc), and d is at most minus the distance to the profile's bounding
-    // box, so an option is looked up only when its upper bound can beat the other's margin.
-    const ubA = Math.min(arcA, boxBound(box, rho, zt));
-    const ubB = Math.min(arcB, boxBound(box, -rho, zt));
+    // combine(d, arc) ≤ min(d, arc), and the grid bounds d from above without visiting an edge, so
+    // an option is looked up only when its upper bound can beat the other's margin.
+    const ubA = Math.min(arcA, g.upperBound(rho, zt));
+    const ubB = Math.min(arcB, g.upperBound(-rho, zt));
     if (ubA >= ubB) {
       const mA = combine(g.signedDistance(rho, zt), arcA);
       if (ubB <= mA) return mA;

@@ -146,6 +146,39 @@ describe('point in polygon and signed distance', () => {
     // Far outside the grid the fallback is still exact.
     expect(grid.signedDistance(1e5, 0)).toBeCloseTo(signedDistanceToPolygons(1e5, 0, polys), 6);
   });
+
+  it('on a jagged outline of many short edges the grid stays exact, and its edge-free upper bound never undercuts the distance', () => {
+    // A raster-like staircase ring (1,600 vertices, 7 mm steps) around a wobbly circle, plus a
+    // hole; the brute-force signed distance (all edges) is the reference.
+    const ring: Array<[number, number]> = [];
+    for (let i = 0; i < 800; i++) {
+      const a = (i / 800) * 2 * Math.PI;
+      const r = 1500 + 120 * Math.sin(5 * a);
+      const x = Math.round((r * Math.cos(a)) / 7) * 7;
+      const y = Math.round((r * Math.sin(a)) / 7) * 7;
+      const last = ring[ring.length - 1];
+      if (last && last[0] !== x && last[1] !== y) ring.push([x, last[1]]);
+      if (!last || last[0] !== x || last[1] !== y) ring.push([x, y]);
+    }
+    const polys: Polygon2[] = [[ring, [[-200, -200], [-200, 200], [200, 200], [200, -200]]]];
+    const grid = buildDistanceGrid(polys);
+    expect(grid.edgeCount).toBeGreaterThan(1000);
+    fc.assert(
+      fc.property(fc.double({ min: -5000, max: 5000, noNaN: true }), fc.double({ min: -5000, max: 5000, noNaN: true }), (x, y) => {
+        const plain = signedDistanceToPolygons(x, y, polys);
+        expect(grid.signedDistance(x, y)).toBeCloseTo(plain, 9);
+        expect(grid.upperBound(x, y)).toBeGreaterThanOrEqual(plain - 1e-9);
+      }),
+      { numRuns: 3000 },
+    );
+    // Points close to the boundary, where the nearest edge changes every few millimetres.
+    for (let i = 0; i < 2000; i++) {
+      const a = i * 0.0031;
+      const r = 1500 + 120 * Math.sin(5 * a) + ((i % 21) - 10);
+      const [x, y] = [r * Math.cos(a), r * Math.sin(a)];
+      expect(grid.signedDistance(x, y)).toBeCloseTo(signedDistanceToPolygons(x, y, polys), 9);
+    }
+  });
 });
 
 describe('clipping, snapping and GeoJSON', () => {
@@ -223,5 +256,25 @@ describe('Douglas–Peucker simplification', () => {
     for (const [x, y] of ring) expect(-signedDistanceToPolygons(x, y, [[s]])).toBeLessThanOrEqual(0.5 + 1e-9);
     const grown = clipOffset([[s]], 0.5, { join: 'miter' });
     for (const [x, y] of ring) expect(signedDistanceToPolygons(x, y, grown)).toBeGreaterThanOrEqual(-0.011);
+  });
+
+  it('outward simplification contains the original and lies within 2·eps outside it', async () => {
+    const { simplifyPolygonsOutward } = await import('@shared/geometry/simplify');
+    // A staircase ring (5 mm steps) like a raster contour: diagonal zigzags DP at 3 mm removes.
+    const ring: Array<[number, number]> = [];
+    for (let i = 0; i < 400; i++) {
+      const a = (i / 400) * 2 * Math.PI;
+      const x = Math.round((800 * Math.cos(a)) / 5) * 5;
+      const y = Math.round((500 * Math.sin(a)) / 5) * 5;
+      const last = ring[ring.length - 1];
+      if (last && last[0] !== x && last[1] !== y) ring.push([x, last[1]]);
+      if (!last || last[0] !== x || last[1] !== y) ring.push([x, y]);
+    }
+    const eps = 3;
+    const out = simplifyPolygonsOutward([[ring]], eps);
+    expect(out[0][0].length).toBeLessThan(0.6 * ring.length);
+    for (const [x, y] of ring) expect(signedDistanceToPolygons(x, y, out)).toBeGreaterThanOrEqual(-0.011);
+    for (const [x, y] of out[0][0]) expect(-signedDistanceToPolygons(x, y, [[ring]])).toBeLessThanOrEqual(2 * eps + 0.011);
+    expect(() => simplifyPolygonsOutward([[ring]], 0)).toThrow(/eps/);
   });
 });

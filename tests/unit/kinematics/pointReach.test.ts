@@ -173,3 +173,45 @@ describe('chains through the registry', () => {
     expect(check({ x: f.tool.x, y: -f.tool.y, z: f.tool.z }).reached).toBe(false);
   });
 });
+
+describe('chain margins from the outward-simplified outline', () => {
+  // The margin region of a sampled profile contains the profile (so no margin is smaller than the
+  // plain one) and lies within one raster cell outside it (so none is larger by more than that).
+  // Signed distance is monotone under inclusion and moves by at most the boundaries' separation
+  // (plane geometry); the plain form is the brute-force distance to the profile's own polygons.
+  const combine = (a: number, b: number) => (a >= 0 && b >= 0 ? Math.min(a, b) : a < 0 && b < 0 ? -Math.hypot(a, b) : Math.min(a, b));
+  it('Demo Six-Axis 2000: plain ≤ fast ≤ plain + one cell for random points, J1 limits included', async () => {
+    const { demoSixAxis } = await import('./chainFixtures');
+    const { familyOf } = await import('@shared/kinematics/families');
+    const m = demoSixAxis();
+    // Its wrist sits a hair off the plane through J1: the bearing shift atan2(e, r) moves a J1-edge
+    // arc length by at most about |e|, which the comparison allows for.
+    const e = Math.abs(familyOf(m).lateralOffset(m));
+    expect(e).toBeLessThan(0.1);
+    const slack = e + 0.02;
+    const restrict = { j1Min: -100, j1Max: 140 };
+    const fast = marginFnOf(m, restrict);
+    const prof = reachProfileOf(m) as ReturnType<typeof reachProfileOf> & { cellMm: number };
+    expect(prof.method).toBe('sampled');
+    const range = j1KinematicRange(m, restrict);
+    const a0 = (range.min * Math.PI) / 180 - 1e-9;
+    const a1 = (range.max * Math.PI) / 180 + 1e-9;
+    const behind = prof.polygons.some((p) => p[0].some(([r]) => r < 0));
+    const R = prof.maxReach * 1.5;
+    fc.assert(
+      fc.property(fc.double({ min: -R, max: R, noNaN: true }), fc.double({ min: -R, max: R, noNaN: true }), fc.double({ min: prof.zMin - 800, max: prof.zMax + 800, noNaN: true }), (x, y, z) => {
+        const rho = Math.hypot(x, y);
+        if (rho < 1) return; // within the lateral offset of the J1 axis the bearing test is not used (see pointReach.ts)
+        const b = Math.atan2(y, x);
+        const arc = (ang: number) => rho * angularMargin(ang, a0, a1);
+        const mA = combine(signedDistanceToPolygons(rho, z, prof.polygons), arc(b));
+        const mB = combine(signedDistanceToPolygons(-rho, z, prof.polygons), arc(b - Math.PI));
+        const plain = behind ? Math.max(mA, mB) : mA;
+        const got = fast(x, y, z);
+        expect(got).toBeGreaterThanOrEqual(plain - slack);
+        expect(got).toBeLessThanOrEqual(plain + prof.cellMm + slack);
+      }),
+      { numRuns: 3000 },
+    );
+  });
+});
