@@ -19,6 +19,18 @@ export const POLICY = {
   'layout.read': ['admin', 'planner', 'reviewer'],
   'layout.write': ['admin', 'planner'],
   'kinematics.use': ['admin', 'planner', 'reviewer', 'client'],
+  /** Clients read only released revisions of their member projects (checked where loaded). */
+  'revision.read': ['admin', 'planner', 'reviewer', 'client'],
+  /** Unreleased revisions, comments, decisions and draft sheets: staff only. */
+  'revision.readDrafts': ['admin', 'planner', 'reviewer'],
+  'revision.submit': ['admin', 'planner'],
+  /** Reviewers only: admins manage people, they do not sign off safety reviews. */
+  'revision.decide': ['reviewer'],
+  'revision.release': ['admin', 'planner'],
+  'revision.acknowledge': ['client'],
+  'comment.write': ['admin', 'planner', 'reviewer'],
+  'mail.read': ['admin'],
+  'invite.manage': ['admin'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

@@ -11,6 +11,7 @@ import { createPassport } from './auth/passport';
 import { sameOriginGuard } from './auth/origin';
 import type { Config } from './config';
 import { featureRouters } from './features';
+import type { Mailer } from './services/mail/mailer';
 import { apiNotFound, errorMiddleware } from './http/errors';
 import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
@@ -26,6 +27,10 @@ export interface AppDeps {
   clientDir?: string;
   sessionSecret: string;
   log?: (msg: string, err?: unknown) => void;
+  /** Outgoing mail for review, release and invitation messages. */
+  mailer?: Mailer;
+  /** Clock for expiring things (invitations); defaults to the system clock. */
+  now?: () => Date;
 }
 
 export const DEFAULT_CLIENT_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../dist/client');
@@ -85,7 +90,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(authRouter(pp, { limit: config.loginRateLimit, windowMs: config.loginRateWindowMs }));
   api.use(projectsRouter(sequelize));
   api.use(usersRouter(sequelize, { bcryptCost: config.bcryptCost }));
-  for (const router of featureRouters({ config, sequelize })) api.use(router);
+  for (const router of featureRouters({ config, sequelize, mailer: deps.mailer, now: deps.now })) api.use(router);
   api.use(apiNotFound);
   api.use(errorMiddleware(log));
   app.use('/api', api);

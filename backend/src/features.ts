@@ -5,14 +5,25 @@ import { seedDemoCatalogue } from './db/demoCatalogue';
 import { seedDemoFloorPlan } from './db/demoFloorPlan';
 import { seedDemoLayout } from './db/demoLayout';
 import type { SeedStep } from './db/seed';
+import { adminAuditRouter } from './routes/adminAudit';
+import { adminMailRouter } from './routes/adminMail';
 import { armModelsRouter } from './routes/armModels';
+import { commentsRouter } from './routes/comments';
 import { floorPlansRouter } from './routes/floorPlans';
+import { invitationsRouter } from './routes/invitations';
 import { kinematicsRouter } from './routes/kinematics';
 import { layoutsRouter } from './routes/layouts';
+import { planSheetsRouter } from './routes/planSheets';
+import { revisionsRouter } from './routes/revisions';
+import type { Mailer } from './services/mail/mailer';
 
 export interface FeatureContext {
   config: Config;
   sequelize: Sequelize;
+  /** Outgoing mail (review, release, invitations); without it those mails are recorded as failed. */
+  mailer?: Mailer;
+  /** The clock of time-limited things (invitation expiry); tests move it. */
+  now?: () => Date;
 }
 
 /** API routers of the product's features, mounted under /api after the foundation routes. */
@@ -22,6 +33,12 @@ export function featureRouters(ctx: FeatureContext): Router[] {
     layoutsRouter(ctx.sequelize),
     armModelsRouter(ctx.sequelize),
     kinematicsRouter(),
+    planSheetsRouter(),
+    revisionsRouter(ctx),
+    commentsRouter(ctx),
+    invitationsRouter(ctx),
+    adminMailRouter(),
+    adminAuditRouter(),
   ];
 }
 

@@ -48,6 +48,7 @@ export async function startServer(
     pool,
     sessionSecret,
     clientDir: opts.clientDir,
+    mailer,
     log: opts.quiet ? () => {} : undefined,
   };
   const app = createApp(deps);

@@ -2,7 +2,8 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '@shared/schemas/user';
-import { ArmModel, FloorPlan, Layout } from '../../backend/src/models';
+import { ArmModel, FloorPlan, Invitation, Layout, ReviewComment } from '../../backend/src/models';
+import { buildReleasedRevision } from '../support/revisionFixtures';
 import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
 
@@ -17,6 +18,10 @@ interface Ctx {
   memberUserId: number;
   targetUserId: number;
   armModelId: number;
+  submittedRevisionId: number;
+  releasedRevisionId: number;
+  commentId: number;
+  invitationId: number;
 }
 
 interface Row {
@@ -103,6 +108,33 @@ const ROWS: Row[] = [
     body: () => ({ version: 1, name: 'Renamed layout' }),
     expect: { anon: 401, client: 403, reviewer: 403, planner: 200, admin: 200 },
   },
+  // Revisions: the submitted one belongs to a layout of the client's project; clients never see it.
+  { method: 'get', path: (c) => `/api/projects/${c.projectId}/revisions`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'get', path: (c) => `/api/layouts/${c.layoutId}/revisions`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'get', path: (c) => `/api/revisions/${c.submittedRevisionId}`, expect: { anon: 401, client: 404, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'get', path: (c) => `/api/revisions/${c.releasedRevisionId}`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'put', path: (c) => `/api/revisions/${c.submittedRevisionId}`, body: () => ({ letter: 'Z' }), expect: { anon: 401, client: 404, reviewer: 409, planner: 409, admin: 409 } },
+  { method: 'get', path: (c) => `/api/revisions/${c.releasedRevisionId}/plan-sheet.pdf`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'post', path: (c) => `/api/revisions/${c.submittedRevisionId}/comments`, body: () => ({ body: 'Role table note', point: { x: 1, y: 2 } }), expect: { anon: 401, client: 403, reviewer: 201, planner: 201, admin: 201 } },
+  { method: 'patch', path: (c) => `/api/comments/${c.commentId}`, body: () => ({ resolved: true }), expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'post', path: (c) => `/api/revisions/${c.submittedRevisionId}/decision`, body: () => ({ decision: 'request_changes' }), expect: { anon: 401, client: 403, reviewer: 400, planner: 403, admin: 403 } },
+  { method: 'post', path: (c) => `/api/revisions/${c.submittedRevisionId}/release`, expect: { anon: 401, client: 403, reviewer: 403, planner: 409, admin: 409 } },
+  { method: 'post', path: (c) => `/api/revisions/${c.releasedRevisionId}/release/retry-mail`, expect: { anon: 401, client: 403, reviewer: 403, planner: 409, admin: 409 } },
+  { method: 'post', path: (c) => `/api/revisions/${c.releasedRevisionId}/acknowledge`, expect: { anon: 401, client: 200, reviewer: 403, planner: 403, admin: 403 } },
+  { method: 'post', path: (c) => `/api/layouts/${c.layoutId}/revisions`, expect: { anon: 401, client: 403, reviewer: 403, planner: 409, admin: 409 } },
+  // Admin: audit log, mail outbox, invitations.
+  { method: 'get', path: () => '/api/admin/audit?action=revision.', expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 200 } },
+  { method: 'get', path: () => '/api/admin/mail', expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 200 } },
+  { method: 'get', path: () => '/api/admin/mail/2147483647', expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 404 } },
+  { method: 'get', path: () => '/api/invitations', expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 200 } },
+  {
+    method: 'post',
+    path: () => '/api/invitations',
+    body: () => ({ email: `inv-${Date.now()}-${Math.random().toString(36).slice(2)}@example.test`, role: 'reviewer' }),
+    expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 201 },
+  },
+  { method: 'delete', path: (c) => `/api/invitations/${c.invitationId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 204 } },
+  { method: 'get', path: () => '/api/invitations/token/not-a-real-token-at-all-000', expect: { anon: 404, client: 404, reviewer: 404, planner: 404, admin: 404 } },
   { method: 'delete', path: (c) => `/api/layouts/${c.layoutId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'delete', path: (c) => `/api/floor-plans/${c.floorPlanId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'delete', path: (c) => `/api/projects/${c.otherProjectId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
@@ -160,7 +192,14 @@ describe('role × route table', () => {
       createdBy: null,
     });
     const layout = await Layout.create({ projectId, floorPlanId: null, name: 'L', content: { arms: [], workPoints: [], zones: [], workHeights: [] }, createdBy: null });
+    const { submitted, released } = await buildReleasedRevision(projectId, layout.id);
+    const comment = await ReviewComment.create({ revisionId: submitted.id, authorId: null, findingId: null, pointX: 0, pointY: 0, body: 'Seed note' });
+    const invitation = await Invitation.create({ email: `rt-${who}-${process.pid}@example.test`, role: 'planner', projectId: null, tokenHash: `${who}`.padEnd(64, '0'), expiresAt: new Date(Date.now() + 3600e3), invitedBy: null, createdAt: new Date() });
     const ctx: Ctx = {
+      submittedRevisionId: submitted.id,
+      releasedRevisionId: released.id,
+      commentId: comment.id,
+      invitationId: invitation.id,
       floorPlanId: fp.id,
       layoutId: layout.id,
       projectId,

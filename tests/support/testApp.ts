@@ -8,6 +8,7 @@ import { inject } from 'vitest';
 import { createApp } from '../../backend/src/app';
 import { loadConfig, type Config } from '../../backend/src/config';
 import { createSequelize } from '../../backend/src/db/sequelize';
+import type { Mailer } from '../../backend/src/services/mail/mailer';
 import { TEMPLATE_DB } from './pgForTests';
 
 export interface TestDb {
@@ -53,12 +54,19 @@ export interface TestApp {
 }
 
 /** The app on a fresh database; call close() in afterAll. */
-export async function createTestApp(configOverrides: Record<string, string> = {}): Promise<TestApp> {
+export interface TestAppOptions {
+  /** Outgoing mail (e.g. createMailer against startFakeSmtp()). */
+  mailer?: Mailer;
+  /** The app's clock (invitation expiry). */
+  now?: () => Date;
+}
+
+export async function createTestApp(configOverrides: Record<string, string> = {}, options: TestAppOptions = {}): Promise<TestApp> {
   const db = await createTestDb();
   const config = testConfig(configOverrides);
   const sequelize = createSequelize(db.url, { pool: 5 });
   const pool = new pg.Pool({ connectionString: db.url, max: 3 });
-  const make = (c: Config) => createApp({ config: c, sequelize, pool, sessionSecret: 'test-secret-test-secret', clientDir: '/nonexistent', log: () => {} });
+  const make = (c: Config) => createApp({ config: c, sequelize, pool, sessionSecret: 'test-secret-test-secret', clientDir: '/nonexistent', log: () => {}, mailer: options.mailer, now: options.now });
   return {
     app: make(config),
     sequelize,

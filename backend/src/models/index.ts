@@ -1,14 +1,20 @@
 import type { Sequelize } from 'sequelize';
+import { Acknowledgement } from './Acknowledgement';
 import { ArmModel } from './ArmModel';
 import { AuditEvent } from './AuditEvent';
 import { FloorPlan } from './FloorPlan';
+import { Invitation } from './Invitation';
 import { Layout } from './Layout';
+import { MailDelivery } from './MailDelivery';
 import { MailMessage } from './MailMessage';
 import { Project } from './Project';
 import { ProjectMember } from './ProjectMember';
+import { ReviewComment } from './ReviewComment';
+import { Revision } from './Revision';
 import { User } from './User';
 
 export { ArmModel, AuditEvent, FloorPlan, Layout, MailMessage, Project, ProjectMember, User };
+export { Acknowledgement, Invitation, MailDelivery, ReviewComment, Revision };
 export { presentProject } from './Project';
 export { presentUser } from './User';
 
@@ -27,6 +33,11 @@ export function initModels(sequelize: Sequelize): void {
   ArmModel.initModel(sequelize);
   Layout.initModel(sequelize);
   MailMessage.initModel(sequelize);
+  Revision.initModel(sequelize);
+  ReviewComment.initModel(sequelize);
+  Acknowledgement.initModel(sequelize);
+  Invitation.initModel(sequelize);
+  MailDelivery.initModel(sequelize);
 
   Project.belongsTo(User, { as: 'creator', foreignKey: 'createdBy' });
   Project.belongsToMany(User, { as: 'members', through: ProjectMember, foreignKey: 'projectId', otherKey: 'userId' });

@@ -1,0 +1,281 @@
+// The review and release workflow through the API across roles, with mail over real SMTP to the local fake.
+import { createHash } from 'node:crypto';
+import type { Express } from 'express';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { AuditEvent, Layout, MailDelivery, MailMessage, Revision } from '../../backend/src/models';
+import { startFakeSmtp, type FakeSmtp } from '../../backend/src/services/mail/fakeSmtp';
+import { createMailer, type Mailer } from '../../backend/src/services/mail/mailer';
+import { rerenderReleased } from '../../backend/src/services/release';
+import { revisionLetter } from '../../backend/src/services/revisions';
+import { buildArmModel, buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
+import { createTestApp, signedIn, type TestApp } from '../support/testApp';
+
+const sha256 = (b: Buffer | string) => createHash('sha256').update(b).digest('hex');
+// An independent canonical form (keys sorted at every level) to check the stored checksum against.
+function sorted(v: unknown): unknown {
+  if (Array.isArray(v)) return v.map(sorted);
+  if (v && typeof v === 'object') return Object.fromEntries(Object.keys(v).sort().map((k) => [k, sorted((v as Record<string, unknown>)[k])]));
+  return v;
+}
+
+let t: TestApp;
+let smtp: FakeSmtp;
+// The app's transport: the fake's, or (to test failures) one pointed at a port nobody listens on.
+let inner: Mailer;
+const switchable: Mailer = { send: (m) => inner.send(m), close: () => inner.close() };
+const FROM = 'Ringfence <no-reply@ringfence.local>';
+
+beforeAll(async () => {
+  smtp = await startFakeSmtp();
+  inner = createMailer(smtp.url, FROM);
+  t = await createTestApp({}, { mailer: switchable });
+});
+afterAll(async () => {
+  inner.close();
+  await smtp.close();
+  await t.close();
+});
+
+function pdfGet(agent: ReturnType<typeof request.agent>, url: string) {
+  return agent
+    .get(url)
+    .buffer(true)
+    .parse((res, cb) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+}
+
+const content = (modelId: number, r1: [number, number]) => ({
+  arms: [
+    { id: 'R1', armModelId: modelId, label: 'Picker 1', x: r1[0], y: r1[1], yaw: 0, mountHeight: 0 },
+    { id: 'R2', armModelId: modelId, label: 'Picker 2', x: 4800, y: 3000, yaw: 180, mountHeight: 0 },
+  ],
+  workPoints: [{ id: 'P1', x: 4400, y: 3000, z: 100, approach: 'any', tag: 'infeed' }],
+  zones: [],
+  workHeights: [100],
+});
+
+describe('revision letters', () => {
+  it('run A … Z, AA … AZ, BA …, ZZ, AAA (bijective base 26, as drawing revisions and spreadsheet columns — common practice)', () => {
+    expect([0, 1, 25, 26, 27, 51, 52, 701, 702].map(revisionLetter)).toEqual(['A', 'B', 'Z', 'AA', 'AB', 'AZ', 'BA', 'ZZ', 'AAA']);
+    expect(() => revisionLetter(-1)).toThrow(/index/);
+  });
+});
+
+describe('review and release workflow', () => {
+  it('submit → request changes → resubmit (B) → approve → release → client downloads and acknowledges', async () => {
+    const planner = await buildUser({ role: 'planner' });
+    const reviewer = await buildUser({ role: 'reviewer' });
+    const admin = await buildUser({ role: 'admin' });
+    const client = await buildUser({ role: 'client' });
+    const otherClient = await buildUser({ role: 'client' });
+    const model = await buildArmModel();
+    const project = await buildProject({ members: [client, planner] });
+    const other = await buildProject({ members: [otherClient] });
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: null, name: 'End-of-line cell', content: content(model.id, [4000, 3000]), createdBy: planner.id });
+    const otherLayout = await Layout.create({ projectId: other.id, floorPlanId: null, name: 'Other cell', content: content(model.id, [4000, 3000]), createdBy: null });
+
+    const P = await signedIn(t.app, planner.email, TEST_PASSWORD);
+    const R = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
+    const A = await signedIn(t.app, admin.email, TEST_PASSWORD);
+    const C = await signedIn(t.app, client.email, TEST_PASSWORD);
+    const C2 = await signedIn(t.app, otherClient.email, TEST_PASSWORD);
+    const anon = request.agent(t.app);
+
+    // Submit: planners (and admins) only.
+    expect((await anon.post(`/api/layouts/${layout.id}/revisions`)).status).toBe(401);
+    expect((await R.post(`/api/layouts/${layout.id}/revisions`)).status).toBe(403);
+    expect((await C.post(`/api/layouts/${layout.id}/revisions`)).status).toBe(403);
+    const subA = await P.post(`/api/layouts/${layout.id}/revisions`);
+    expect(subA.status).toBe(201);
+    const revA = subA.body.revision;
+    expect(revA).toMatchObject({ letter: 'A', state: 'submitted', layoutName: 'End-of-line cell' });
+    const sharedZone = revA.snapshot.analysis.findings.find((f: { id: string }) => f.id === 'shared-zone:R1+R2');
+    expect(sharedZone).toBeTruthy();
+    // The checksum covers the canonical JSON of the snapshot as stored.
+    const rowA = await Revision.findByPk(revA.id);
+    expect(rowA!.checksum).toBe(sha256(JSON.stringify(sorted(rowA!.snapshot))));
+    expect(rowA!.checksum).toBe(revA.checksum);
+    // Only one open revision per layout.
+    expect((await P.post(`/api/layouts/${layout.id}/revisions`)).status).toBe(409);
+
+    // Reviewers were told, over SMTP.
+    const toReviewers = await MailMessage.findOne({ where: { subject: `${project.name}: revision A of End-of-line cell submitted for review` } });
+    expect(toReviewers!.to).toContain(reviewer.email);
+    expect(toReviewers!.text).toContain(`/projects/${project.id}/revisions/${revA.id}`);
+
+    // Immutable: every attempt to change it is a conflict, and the database refuses it too.
+    for (const m of ['put', 'patch', 'delete'] as const) expect((await P[m](`/api/revisions/${revA.id}`).send({ letter: 'Z' })).status).toBe(409);
+    await expect(Revision.update({ snapshot: { tampered: true } }, { where: { id: revA.id } })).rejects.toThrow(/immutable/);
+    expect((await Revision.findByPk(revA.id))!.checksum).toBe(revA.checksum);
+
+    // Comments: on a finding (stable id) and on a spot.
+    expect((await C.post(`/api/revisions/${revA.id}/comments`).send({ body: 'x' })).status).toBe(403);
+    expect((await R.post(`/api/revisions/${revA.id}/comments`).send({ body: 'No such', findingId: 'shared-zone:R8+R9' })).status).toBe(400);
+    const onFinding = await R.post(`/api/revisions/${revA.id}/comments`).send({ body: 'Pickers share too much of the infeed; separate them.', findingId: 'shared-zone:R1+R2' });
+    expect(onFinding.status).toBe(201);
+    const onSpot = await R.post(`/api/revisions/${revA.id}/comments`).send({ body: 'Leave a walkway here.', point: { x: 6000, y: 2500 } });
+    expect(onSpot.body.comment.point).toEqual({ x: 6000, y: 2500 });
+    expect((await P.patch(`/api/comments/${onSpot.body.comment.id}`).send({ resolved: true })).body.comment.resolved).toBe(true);
+
+    // Decision: reviewers only (admins may not decide); a comment is required to send it back.
+    for (const who of [P, A, C]) expect((await who.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'approve' })).status).toBe(403);
+    expect((await R.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'request_changes', comment: '  ' })).status).toBe(400);
+    const back = await R.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'request_changes', comment: 'Move picker 1 away from picker 2.' });
+    expect(back.status).toBe(200);
+    expect(back.body.revision).toMatchObject({ state: 'changes_requested', decisionComment: 'Move picker 1 away from picker 2.' });
+    expect((await R.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'approve' })).status).toBe(409);
+    const toPlanner = await MailMessage.findOne({ where: { subject: `${project.name}: revision A of End-of-line cell needs changes` } });
+    expect(toPlanner!.to).toEqual([planner.email]);
+    expect(toPlanner!.text).toContain('Move picker 1 away');
+    // A changes-requested revision cannot be released.
+    expect((await P.post(`/api/revisions/${revA.id}/release`)).status).toBe(409);
+
+    // The planner moves R1 by (−3000, −4000) mm and resubmits: revision B.
+    const live = await P.get(`/api/layouts/${layout.id}`);
+    expect((await P.put(`/api/layouts/${layout.id}`).send({ version: live.body.layout.version, content: content(model.id, [1000, -1000]) })).status).toBe(200);
+    const subB = await P.post(`/api/layouts/${layout.id}/revisions`);
+    expect(subB.status).toBe(201);
+    const revB = subB.body.revision;
+    expect(revB.letter).toBe('B');
+    // Diff against A: a 3-4-5 right triangle gives 5000 mm exactly (Pythagoras).
+    expect(revB.diff.previous).toEqual({ id: revA.id, letter: 'A' });
+    expect(revB.diff.arms.moved).toHaveLength(1);
+    expect(revB.diff.arms.moved[0]).toMatchObject({ id: 'R1', from: [4000, 3000], to: [1000, -1000] });
+    expect(revB.diff.arms.moved[0].distance).toBeCloseTo(5000, 9);
+    expect(revB.diff.findings.removed.map((f: { id: string }) => f.id)).toContain('shared-zone:R1+R2');
+    // A's comment on the finding is B's history.
+    expect(revB.history.map((c: { body: string; revisionLetter: string }) => [c.revisionLetter, c.body])).toEqual([['A', 'Pickers share too much of the infeed; separate them.']]);
+    // A is still as it was frozen.
+    expect((await P.get(`/api/revisions/${revA.id}`)).body.revision.snapshot.layout.content.arms[0]).toMatchObject({ x: 4000, y: 3000 });
+
+    const approved = await R.post(`/api/revisions/${revB.id}/decision`).send({ decision: 'approve', comment: '' });
+    expect(approved.body.revision.state).toBe('approved');
+
+    // Clients see nothing before release.
+    expect((await C.get(`/api/projects/${project.id}/revisions`)).body.revisions).toEqual([]);
+    expect((await C.get(`/api/revisions/${revB.id}`)).status).toBe(404);
+    expect((await pdfGet(C, `/api/revisions/${revB.id}/plan-sheet.pdf`)).status).toBe(404);
+    expect((await C.get(`/api/layouts/${layout.id}/revisions`)).status).toBe(403);
+
+    // Release: planners only, approved only.
+    for (const who of [R, C]) expect((await who.post(`/api/revisions/${revB.id}/release`)).status).toBe(403);
+    const rel = await P.post(`/api/revisions/${revB.id}/release`);
+    expect(rel.status).toBe(200);
+    expect(rel.body.revision.state).toBe('released');
+    expect(rel.body.mail).toMatchObject({ status: 'sent', attempts: 1, to: [client.email] });
+    expect((await P.post(`/api/revisions/${revB.id}/release`)).status).toBe(409);
+    const rowB = await Revision.findByPk(revB.id);
+    expect(rowB!.planSheet!.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    expect(rowB!.planSheetChecksum).toBe(sha256(rowB!.planSheet!));
+    // Re-rendering from the frozen snapshot with the stored release date gives the same bytes.
+    expect(sha256(await rerenderReleased(rowB!))).toBe(rowB!.planSheetChecksum);
+
+    // The client's mail travelled over SMTP with the sheet attached, byte-identical.
+    const toClient = await MailMessage.findOne({ where: { subject: `${project.name}: plan sheet, revision B released` } });
+    expect(toClient!.to).toEqual([client.email]);
+    expect(toClient!.attachments).toHaveLength(1);
+    expect(toClient!.attachments[0]).toMatchObject({ contentType: 'application/pdf', size: rowB!.planSheet!.length, checksum: rowB!.planSheetChecksum });
+
+    // The client lists only the released revision, downloads the stored sheet, and never sees drafts or comments.
+    const list = (await C.get(`/api/projects/${project.id}/revisions`)).body.revisions;
+    expect(list.map((r: { letter: string }) => r.letter)).toEqual(['B']);
+    const detail = (await C.get(`/api/revisions/${revB.id}`)).body.revision;
+    expect(detail).not.toHaveProperty('comments');
+    expect(detail).not.toHaveProperty('snapshot');
+    expect(detail).not.toHaveProperty('decisionComment');
+    const dl = await pdfGet(C, `/api/revisions/${revB.id}/plan-sheet.pdf?download=1`);
+    expect(dl.status).toBe(200);
+    expect(dl.headers['content-type']).toBe('application/pdf');
+    expect(dl.headers['content-disposition']).toMatch(/^attachment/);
+    expect(sha256(dl.body as Buffer)).toBe(rowB!.planSheetChecksum);
+    expect((await C.get(`/api/revisions/${revA.id}`)).status).toBe(404);
+    expect((await pdfGet(C, `/api/revisions/${revA.id}/plan-sheet.pdf`)).status).toBe(404);
+    // Another project's client: nothing, whatever id is tried.
+    expect((await C2.get(`/api/revisions/${revB.id}`)).status).toBe(404);
+    expect((await pdfGet(C2, `/api/revisions/${revB.id}/plan-sheet.pdf`)).status).toBe(404);
+    expect((await C2.get(`/api/projects/${project.id}/revisions`)).status).toBe(404);
+    const otherRev = await P.post(`/api/layouts/${otherLayout.id}/revisions`);
+    expect((await C.get(`/api/revisions/${otherRev.body.revision.id}`)).status).toBe(404);
+
+    // Staff get a fresh DRAFT of an unreleased revision (not the stored sheet).
+    const draft = await pdfGet(R, `/api/revisions/${revA.id}/plan-sheet.pdf`);
+    expect(draft.status).toBe(200);
+    expect((draft.body as Buffer).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    expect(draft.headers['content-disposition']).toMatch(/DRAFT/);
+
+    // Released revisions' comments are read-only.
+    expect((await R.post(`/api/revisions/${revB.id}/comments`).send({ body: 'Late note' })).status).toBe(409);
+
+    // Acknowledge: clients only; staff see who and when.
+    expect((await P.post(`/api/revisions/${revB.id}/acknowledge`)).status).toBe(403);
+    expect((await C2.post(`/api/revisions/${revB.id}/acknowledge`)).status).toBe(404);
+    const ack = await C.post(`/api/revisions/${revB.id}/acknowledge`);
+    expect(ack.status).toBe(200);
+    const seen = (await R.get(`/api/revisions/${revB.id}`)).body.revision.acknowledgements;
+    expect(seen).toEqual([{ user: { id: client.id, name: client.name }, at: ack.body.acknowledgement.at }]);
+    expect((await C.get(`/api/revisions/${revB.id}`)).body.revision.acknowledgedAt).toBe(ack.body.acknowledgement.at);
+
+    // Every step wrote an audit event.
+    const actions = (await AuditEvent.findAll({ where: { entity: ['revision', 'comment'] }, order: [['id', 'ASC']] })).map((e) => e.action);
+    for (const a of ['revision.submit', 'comment.create', 'comment.resolve', 'revision.request_changes', 'revision.approve', 'revision.release', 'revision.acknowledge']) expect(actions).toContain(a);
+  });
+
+  it('a reviewer cannot decide a revision they submitted', async () => {
+    const reviewer = await buildUser({ role: 'reviewer' });
+    const model = await buildArmModel();
+    const project = await buildProject();
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: null, name: 'Own cell', content: content(model.id, [4000, 3000]), createdBy: null });
+    const planner = await buildUser({ role: 'planner' });
+    const P = await signedIn(t.app, planner.email, TEST_PASSWORD);
+    const rev = (await P.post(`/api/layouts/${layout.id}/revisions`)).body.revision;
+    // The submitter later became a reviewer (a role change), which must not let them sign off their own work.
+    await Revision.sequelize!.query('UPDATE revisions SET "submittedBy" = :u WHERE id = :id', { replacements: { u: reviewer.id, id: rev.id } });
+    const R = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
+    const res = await R.post(`/api/revisions/${rev.id}/decision`).send({ decision: 'approve' });
+    expect(res.status).toBe(403);
+    expect(res.body.error.message).toMatch(/you submitted/i);
+  });
+
+  it('a mail failure never loses the release: it is recorded and retry-mail sends it', async () => {
+    const planner = await buildUser({ role: 'planner' });
+    const reviewer = await buildUser({ role: 'reviewer' });
+    const client = await buildUser({ role: 'client' });
+    const model = await buildArmModel();
+    const project = await buildProject({ members: [client] });
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: null, name: 'Retry cell', content: content(model.id, [4000, 3000]), createdBy: null });
+    const P = await signedIn(t.app, planner.email, TEST_PASSWORD);
+    const R = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
+    const rev = (await P.post(`/api/layouts/${layout.id}/revisions`)).body.revision;
+    await R.post(`/api/revisions/${rev.id}/decision`).send({ decision: 'approve' });
+
+    const good = inner;
+    inner = createMailer('smtp://127.0.0.1:1', FROM); // nothing listens on port 1: a real connection failure
+    try {
+      const rel = await P.post(`/api/revisions/${rev.id}/release`);
+      expect(rel.status).toBe(200);
+      expect(rel.body.revision.state).toBe('released');
+      expect(rel.body.mail.status).toBe('failed');
+      expect(rel.body.mail.error).toBeTruthy();
+    } finally {
+      inner.close();
+      inner = good;
+    }
+    const row = await Revision.findByPk(rev.id);
+    expect(row!.state).toBe('released');
+    expect(row!.planSheetChecksum).toBe(sha256(row!.planSheet!));
+    const failed = await MailDelivery.findOne({ where: { revisionId: rev.id, kind: 'release' } });
+    expect(failed).toMatchObject({ status: 'failed', attempts: 1 });
+    expect((await R.post(`/api/revisions/${rev.id}/release/retry-mail`)).status).toBe(403);
+    const retry = await P.post(`/api/revisions/${rev.id}/release/retry-mail`);
+    expect(retry.body.mail).toMatchObject({ status: 'sent', attempts: 2, to: [client.email] });
+    expect((await P.post(`/api/revisions/${rev.id}/release/retry-mail`)).status).toBe(409);
+    const msg = await MailMessage.findOne({ where: { subject: `${project.name}: plan sheet, revision A released` } });
+    expect(msg!.attachments[0].checksum).toBe(row!.planSheetChecksum);
+  });
+});
+
+export type { Express };
