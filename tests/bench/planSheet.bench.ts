@@ -14,7 +14,7 @@ async function measure(name: string, input: ReturnType<typeof gridSheetInput>, o
   const opts = { size: 'A3' as const, draft: true, createdAt: new Date('2025-03-01T09:00:00Z') };
   await renderPlanSheet(input, opts); // warm-up (font bytes read, code compiled)
   const times: number[] = [];
-  let pdf = Buffer.alloc(0);
+  let pdf: Buffer = Buffer.alloc(0);
   for (let i = 0; i < RUNS; i++) {
     const t0 = performance.now();
     pdf = await renderPlanSheet(input, opts);

@@ -6,3 +6,4 @@ export * from './types';
 export { renderPlanSheet, sheetScale } from './renderPlanSheet';
 export { loadLayoutSheetInput } from './loadLayoutSheetInput';
 export { CAUTIONS, DRAFT_MARK } from './sheetPages';
+export { layoutDxf, DXF_LAYERS, DXF_BASE_RADIUS_MM, DXF_POINT_RADIUS_MM } from './layoutDxf';
