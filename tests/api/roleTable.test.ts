@@ -135,6 +135,8 @@ const ROWS: Row[] = [
   },
   { method: 'delete', path: (c) => `/api/invitations/${c.invitationId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 204 } },
   { method: 'get', path: () => '/api/invitations/token/not-a-real-token-at-all-000', expect: { anon: 404, client: 404, reviewer: 404, planner: 404, admin: 404 } },
+  { method: 'get', path: (c) => `/api/layouts/${c.layoutId}/plan-sheet.pdf?sheets=plan`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'get', path: (c) => `/api/layouts/${c.layoutId}/layout.dxf`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
   { method: 'delete', path: (c) => `/api/layouts/${c.layoutId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'delete', path: (c) => `/api/floor-plans/${c.floorPlanId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'delete', path: (c) => `/api/projects/${c.otherProjectId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
