@@ -203,20 +203,59 @@ function chainSamplingRanges(params: ChainParams): AxisRange[] {
   });
 }
 
-/** Sampled side reach profile of a chain's tool point (Halton sampling + raster + d3-contour), arm-frame (r, z), mm. */
+/**
+ * Sampled side reach profile of a chain's tool point (Halton sampling + raster + d3-contour),
+ * arm-frame (r, z), mm. The joints that sampling holds fixed cost no trigonometry per pose: idle
+ * trailing joints are folded into the tool point (the product of DH transforms split after the last
+ * moving joint), and J1 at kinematic 0 is applied as one constant transform.
+ */
 export function chainSampledProfile(params: ChainParams, opts: { toleranceMm?: number; maxSamples?: number } = {}): SampledReachProfile {
-  const evaluator = new DhPointEvaluator(params.convention, chainDhJoints(params), params.tool);
+  const ranges = chainSamplingRanges(params);
+  const dh = chainDhJoints(params);
   const jointsP = params.joints;
   const n = jointsP.length;
+  const moving = n - chainIdleTrailingJoints(params);
+  let tool = params.tool;
+  if (moving < n) {
+    const tail = new DhPointEvaluator(params.convention, dh.slice(moving), params.tool);
+    const qt = Float64Array.from(jointsP.slice(moving), (j, i) => chainJointVariable(j, ranges[moving + i].min));
+    const t = new Float64Array(3);
+    tail.point(qt, t);
+    tool = { x: t[0], y: t[1], z: t[2] };
+  }
+  // J1 (held fixed by the sampling ranges): θ and d constant, so its transform is constant.
+  const j1 = dh[0];
+  const q1 = chainJointVariable(jointsP[0], ranges[0].min);
+  const th1 = j1.kind === 'prismatic' ? j1.theta : j1.theta + q1;
+  const d1 = j1.kind === 'prismatic' ? j1.d + q1 : j1.d;
+  const ct = Math.cos(th1), st = Math.sin(th1), ca = Math.cos(j1.alpha), sa = Math.sin(j1.alpha), a1 = j1.a;
+  const standard = params.convention === 'standard';
+  const inner = new DhPointEvaluator(params.convention, dh.slice(1, moving), tool);
   const scale = Float64Array.from(jointsP, (j) => (j.direction ?? 1) * (j.type === 'revolute' ? DEG : 1));
   const bias = Float64Array.from(jointsP, (j) => (j.zeroOffset ?? 0) * (j.type === 'revolute' ? DEG : 1));
-  const qk = new Float64Array(n);
+  const qk = new Float64Array(Math.max(0, moving - 1));
   const pointFn = (q: Float64Array, out: Float64Array): boolean => {
-    for (let i = 0; i < n; i++) qk[i] = scale[i] * q[i] + bias[i];
-    evaluator.point(qk, out);
+    for (let i = 1; i < moving; i++) qk[i - 1] = scale[i] * q[i] + bias[i];
+    inner.point(qk, out);
+    const x = out[0], y = out[1], z = out[2];
+    if (standard) {
+      // Rx(α), then Tz(d)·Tx(a), then Rz(θ) (as DhPointEvaluator)
+      const y1 = ca * y - sa * z;
+      const x2 = x + a1;
+      out[0] = ct * x2 - st * y1;
+      out[1] = st * x2 + ct * y1;
+      out[2] = sa * y + ca * z + d1;
+    } else {
+      // Tz(d), then Rz(θ), then Tx(a), then Rx(α)
+      const z1 = z + d1;
+      const y2 = st * x + ct * y;
+      out[0] = ct * x - st * y + a1;
+      out[1] = ca * y2 - sa * z1;
+      out[2] = sa * y2 + ca * z1;
+    }
     return true;
   };
-  return sampleProfile(pointFn, chainSamplingRanges(params), opts);
+  return sampleProfile(pointFn, ranges, opts);
 }
 
 /** Mean side offset y of the tool point from the plane through J1 at kinematic 0, mm (mean over 1024 Halton poses). */

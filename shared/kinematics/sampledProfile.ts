@@ -176,26 +176,35 @@ class SampleStore {
 
 const PAD_CELLS = 4;
 
-/** 3×3 square dilation (max) or erosion (min) of a binary raster, as a row pass then a column pass. */
+/** 3×3 square dilation (max) or erosion (min) of a binary raster, as a row pass then a column pass (border cells repeat their own value outward). */
 function morph3(src: Uint8Array, w: number, h: number, dilate: boolean, tmp: Uint8Array, out: Uint8Array): Uint8Array {
   for (let j = 0; j < h; j++) {
     const row = j * w;
-    for (let i = 0; i < w; i++) {
-      const c = src[row + i];
-      const l = i > 0 ? src[row + i - 1] : c;
-      const r = i < w - 1 ? src[row + i + 1] : c;
-      tmp[row + i] = dilate ? c | l | r : c & l & r;
+    if (w === 1) {
+      tmp[row] = src[row];
+      continue;
+    }
+    const end = row + w - 1;
+    if (dilate) {
+      tmp[row] = src[row] | src[row + 1];
+      for (let c = row + 1; c < end; c++) tmp[c] = src[c - 1] | src[c] | src[c + 1];
+      tmp[end] = src[end - 1] | src[end];
+    } else {
+      tmp[row] = src[row] & src[row + 1];
+      for (let c = row + 1; c < end; c++) tmp[c] = src[c - 1] & src[c] & src[c + 1];
+      tmp[end] = src[end - 1] & src[end];
     }
   }
-  for (let j = 0; j < h; j++) {
-    const row = j * w;
-    for (let i = 0; i < w; i++) {
-      const c = tmp[row + i];
-      const u = j > 0 ? tmp[row - w + i] : c;
-      const d = j < h - 1 ? tmp[row + w + i] : c;
-      out[row + i] = dilate ? c | u | d : c & u & d;
-    }
+  if (h === 1) {
+    out.set(tmp.subarray(0, w));
+    return out;
   }
+  const last = (h - 1) * w;
+  for (let i = 0; i < w; i++) {
+    out[i] = dilate ? tmp[i] | tmp[i + w] : tmp[i] & tmp[i + w];
+    out[last + i] = dilate ? tmp[last + i] | tmp[last - w + i] : tmp[last + i] & tmp[last - w + i];
+  }
+  for (let c = w; c < last; c++) out[c] = dilate ? tmp[c - w] | tmp[c] | tmp[c + w] : tmp[c - w] & tmp[c] & tmp[c + w];
   return out;
 }
 
@@ -219,7 +228,6 @@ class Raster {
   stamp = new Uint16Array(0);
   rep = new Int32Array(0);
   private readonly sheets: Sheet[] = [];
-  private lo = 0;
 
   constructor(readonly cell: number, private readonly store: SampleStore) {}
 
@@ -283,77 +291,102 @@ class Raster {
   private fillSheet({ nodes, n0, n1 }: Sheet): void {
     const { rz, side } = this.store;
     const { r0, z0, cell } = this;
+    const halfCell = cell / 2;
     // r = sign(x)·ρ jumps by 2|y| where x changes sign off the plane through J1: never fill across it
-    const jumps = (...ss: number[]): boolean => {
-      let pos = false, neg = false, off = false;
-      for (const s of ss) {
-        if (rz[2 * s] >= 0) pos = true;
-        else neg = true;
-        if (Math.abs(side[s]) > cell / 2) off = true;
-      }
-      return pos && neg && off;
+    const jumps2 = (s: number, t: number): boolean =>
+      rz[2 * s] >= 0 !== rz[2 * t] >= 0 && (Math.abs(side[s]) > halfCell || Math.abs(side[t]) > halfCell);
+    const jumps4 = (s: number, t: number, u: number, v: number): boolean => {
+      const p = (rz[2 * s] >= 0 ? 1 : 0) + (rz[2 * t] >= 0 ? 1 : 0) + (rz[2 * u] >= 0 ? 1 : 0) + (rz[2 * v] >= 0 ? 1 : 0);
+      if (p === 0 || p === 4) return false;
+      return Math.abs(side[s]) > halfCell || Math.abs(side[t]) > halfCell || Math.abs(side[u]) > halfCell || Math.abs(side[v]) > halfCell;
     };
-    const gx = (s: number) => (rz[2 * s] - r0) / cell;
-    const gy = (s: number) => (rz[2 * s + 1] - z0) / cell;
+    // Grid coordinates of every node, once (a node is shared by up to four lattice cells).
+    const gx = new Float64Array(nodes.length);
+    const gy = new Float64Array(nodes.length);
+    for (let m = 0; m < nodes.length; m++) {
+      const s = nodes[m];
+      if (s < 0) continue;
+      gx[m] = (rz[2 * s] - r0) / cell;
+      gy[m] = (rz[2 * s + 1] - z0) / cell;
+    }
     if (n1 === 1) {
       for (let a = 0; a + 1 < n0; a++) {
         const s = nodes[a], t = nodes[a + 1];
-        if (s >= 0 && t >= 0 && !jumps(s, t)) this.fillSegment(gx(s), gy(s), gx(t), gy(t));
+        if (s >= 0 && t >= 0 && !jumps2(s, t)) this.fillSegment(gx[a], gy[a], gx[a + 1], gy[a + 1]);
       }
       return;
     }
     for (let a = 0; a + 1 < n0; a++) {
       for (let b = 0; b + 1 < n1; b++) {
-        const s00 = nodes[a * n1 + b], s10 = nodes[(a + 1) * n1 + b];
-        const s01 = nodes[a * n1 + b + 1], s11 = nodes[(a + 1) * n1 + b + 1];
-        if (s00 >= 0 && s10 >= 0 && !jumps(s00, s10)) this.fillSegment(gx(s00), gy(s00), gx(s10), gy(s10));
-        if (s00 >= 0 && s01 >= 0 && !jumps(s00, s01)) this.fillSegment(gx(s00), gy(s00), gx(s01), gy(s01));
-        if (s00 < 0 || s10 < 0 || s01 < 0 || s11 < 0 || jumps(s00, s10, s01, s11)) continue;
-        this.fillTriangle(gx(s00), gy(s00), gx(s10), gy(s10), gx(s11), gy(s11));
-        this.fillTriangle(gx(s00), gy(s00), gx(s11), gy(s11), gx(s01), gy(s01));
+        const m00 = a * n1 + b, m10 = m00 + n1, m01 = m00 + 1, m11 = m10 + 1;
+        const s00 = nodes[m00], s10 = nodes[m10];
+        const s01 = nodes[m01], s11 = nodes[m11];
+        if (s00 >= 0 && s10 >= 0 && !jumps2(s00, s10)) this.fillSegment(gx[m00], gy[m00], gx[m10], gy[m10]);
+        if (s00 >= 0 && s01 >= 0 && !jumps2(s00, s01)) this.fillSegment(gx[m00], gy[m00], gx[m01], gy[m01]);
+        if (s00 < 0 || s10 < 0 || s01 < 0 || s11 < 0 || jumps4(s00, s10, s01, s11)) continue;
+        this.fillTriangle(gx[m00], gy[m00], gx[m10], gy[m10], gx[m11], gy[m11]);
+        this.fillTriangle(gx[m00], gy[m00], gx[m11], gy[m11], gx[m01], gy[m01]);
       }
-    }
-  }
-
-  private fillCell(i: number, j: number): void {
-    if (i >= PAD_CELLS && j >= PAD_CELLS && i < this.w - PAD_CELLS && j < this.h - PAD_CELLS) {
-      const c = j * this.w + i;
-      if (this.stamp[c] === 0) this.stamp[c] = 1;
     }
   }
 
   /** Fills the cells whose centres lie in a triangle (grid units); lattice edges are drawn as segments apart. */
   private fillTriangle(ax: number, ay: number, bx: number, by: number, cx: number, cy: number): void {
-    const jLo = Math.ceil(Math.min(ay, by, cy) - 0.5);
-    const jHi = Math.floor(Math.max(ay, by, cy) - 0.5);
+    const { w, h, stamp } = this;
+    const jLo = Math.max(PAD_CELLS, Math.ceil(Math.min(ay, by, cy) - 0.5));
+    const jHi = Math.min(h - PAD_CELLS - 1, Math.floor(Math.max(ay, by, cy) - 0.5));
     for (let j = jLo; j <= jHi; j++) {
       const yc = j + 0.5;
-      this.lo = Infinity;
+      // Where the row through yc meets each edge (a horizontal edge counts with both ends).
+      let lo = Infinity;
       let hi = -Infinity;
-      hi = this.spanEdge(ax, ay, bx, by, yc, hi);
-      hi = this.spanEdge(bx, by, cx, cy, yc, hi);
-      hi = this.spanEdge(cx, cy, ax, ay, yc, hi);
-      const iHi = Math.floor(hi - 0.5);
-      for (let i = Math.ceil(this.lo - 0.5); i <= iHi; i++) this.fillCell(i, j);
+      if ((ay <= yc && yc <= by) || (by <= yc && yc <= ay)) {
+        if (ay === by) {
+          lo = Math.min(lo, ax, bx);
+          hi = Math.max(hi, ax, bx);
+        } else {
+          const x = ax + ((yc - ay) * (bx - ax)) / (by - ay);
+          if (x < lo) lo = x;
+          if (x > hi) hi = x;
+        }
+      }
+      if ((by <= yc && yc <= cy) || (cy <= yc && yc <= by)) {
+        if (by === cy) {
+          lo = Math.min(lo, bx, cx);
+          hi = Math.max(hi, bx, cx);
+        } else {
+          const x = bx + ((yc - by) * (cx - bx)) / (cy - by);
+          if (x < lo) lo = x;
+          if (x > hi) hi = x;
+        }
+      }
+      if ((cy <= yc && yc <= ay) || (ay <= yc && yc <= cy)) {
+        if (cy === ay) {
+          lo = Math.min(lo, cx, ax);
+          hi = Math.max(hi, cx, ax);
+        } else {
+          const x = cx + ((yc - cy) * (ax - cx)) / (ay - cy);
+          if (x < lo) lo = x;
+          if (x > hi) hi = x;
+        }
+      }
+      const iLo = Math.max(PAD_CELLS, Math.ceil(lo - 0.5));
+      const iHi = Math.min(w - PAD_CELLS - 1, Math.floor(hi - 0.5));
+      // Sheets are filled right after layOut, while every stamp is 0 or 1: a plain fill keeps them.
+      for (let c = j * w + iLo, end = j * w + iHi; c <= end; c++) stamp[c] = 1;
     }
-  }
-
-  /** Where the row through yc meets an edge: lowers this.lo, returns the raised upper end. */
-  private spanEdge(x1: number, y1: number, x2: number, y2: number, yc: number, hi: number): number {
-    if ((y1 <= yc && yc <= y2) || (y2 <= yc && yc <= y1)) {
-      const a = y1 === y2 ? Math.min(x1, x2) : x1 + ((yc - y1) * (x2 - x1)) / (y2 - y1);
-      const b = y1 === y2 ? Math.max(x1, x2) : a;
-      if (a < this.lo) this.lo = a;
-      if (b > hi) return b;
-    }
-    return hi;
   }
 
   /** Fills the cells a segment (grid units) passes through, in steps of at most half a cell. */
   private fillSegment(x1: number, y1: number, x2: number, y2: number): void {
+    const { w, h, stamp } = this;
     const steps = Math.ceil(2 * Math.max(Math.abs(x2 - x1), Math.abs(y2 - y1))) + 1;
+    const dx = x2 - x1, dy = y2 - y1;
     for (let t = 0; t <= steps; t++) {
-      this.fillCell(Math.floor(x1 + ((x2 - x1) * t) / steps), Math.floor(y1 + ((y2 - y1) * t) / steps));
+      const i = Math.floor(x1 + (dx * t) / steps);
+      const j = Math.floor(y1 + (dy * t) / steps);
+      if (i < PAD_CELLS || j < PAD_CELLS || i >= w - PAD_CELLS || j >= h - PAD_CELLS) continue;
+      stamp[j * w + i] = 1; // every stamp is 0 or 1 while sheets are filled (see fillTriangle)
     }
   }
 
