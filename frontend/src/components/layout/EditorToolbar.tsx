@@ -27,6 +27,8 @@ export interface EditorToolbarProps {
   onRedo(): void;
   save: SaveState;
   onRetrySave(): void;
+  /** Opens the plan sheet export (shown to everyone who may read the layout). */
+  onExportSheet?(): void;
 }
 
 /** The row above the plan: add arm, drawing tools, undo/redo, save state, key help. */
@@ -86,6 +88,11 @@ export function EditorToolbar(p: EditorToolbarProps) {
         {p.readOnly && <span className="px-1 text-xs font-bold text-ink-muted">Read only — findings are shown as the planner sees them.</span>}
         <div className="ml-auto flex items-center gap-2">
           <SaveIndicator save={p.save} onRetry={p.onRetrySave} />
+          {p.onExportSheet && (
+            <Button size="sm" onClick={p.onExportSheet}>
+              Export plan sheet
+            </Button>
+          )}
           <Button size="sm" variant="quiet" aria-expanded={help} onClick={() => setHelp((h) => !h)}>
             Keys
           </Button>

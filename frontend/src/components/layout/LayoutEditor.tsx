@@ -13,6 +13,7 @@ import { PlanView } from '../../plan/PlanView';
 import type { PlanCanvas } from '../../plan/planTypes';
 import { screenToPlan, type PlanBounds } from '../../plan/viewTransform';
 import { layerStylesFor } from '../floorPlan/layerRoles';
+import { PlanSheetDialog } from '../planSheet/PlanSheetDialog';
 import { ArmInspector } from './ArmInspector';
 import { ConflictDialog } from './ConflictDialog';
 import { EditorToolbar } from './EditorToolbar';
@@ -223,6 +224,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
   const panelEdit = useCallback((next: LayoutContent, label: string) => edit(next, label), [edit]);
   const modelList = useMemo(() => armModels.map((m) => ({ id: m.id, name: m.name, maxReach: m.maxReach })), [armModels]);
   const undoLabel = ed.history.label;
+  const [sheetOpen, setSheetOpen] = useState(false);
   const redoLabel = ed.history.future[0]?.label ?? '';
 
   return (
@@ -244,7 +246,9 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
         onRedo={ed.redo}
         save={ed.save}
         onRetrySave={() => void ed.saveNow()}
+        onExportSheet={() => setSheetOpen(true)}
       />
+      <PlanSheetDialog open={sheetOpen} onClose={() => setSheetOpen(false)} layoutId={layout.id} layoutName={layout.name} />
       <div className="rounded-control border border-rule bg-paper-raised px-3 py-2">
         <WorkHeightsEditor content={content} readOnly={readOnly} onEdit={edit} bandHeight={bandHeight} onBandHeight={setBandHeight} />
       </div>

@@ -1,0 +1,53 @@
+import { useEffect, useRef, useState } from 'react';
+import * as pdfjs from 'pdfjs-dist';
+import workerUrl from 'pdfjs-dist/build/pdf.worker.min.mjs?url';
+
+pdfjs.GlobalWorkerOptions.workerSrc = workerUrl;
+
+/** Page 1 of a PDF drawn into a canvas by pdfjs-dist (the browser's own copy of the sheet). */
+export function SheetPreview({ pdf, width = 640 }: { pdf: Blob; width?: number }) {
+  const canvas = useRef<HTMLCanvasElement>(null);
+  const [state, setState] = useState<'rendering' | 'done' | 'error'>('rendering');
+  const [pages, setPages] = useState(0);
+
+  useEffect(() => {
+    let cancelled = false;
+    let task: ReturnType<typeof pdfjs.getDocument> | null = null;
+    setState('rendering');
+    void (async () => {
+      try {
+        task = pdfjs.getDocument({ data: new Uint8Array(await pdf.arrayBuffer()) });
+        const doc = await task.promise;
+        if (cancelled) return;
+        setPages(doc.numPages);
+        const page = await doc.getPage(1);
+        const base = page.getViewport({ scale: 1 });
+        const ratio = window.devicePixelRatio || 1;
+        const viewport = page.getViewport({ scale: (width / base.width) * ratio });
+        const c = canvas.current;
+        if (!c || cancelled) return;
+        c.width = Math.floor(viewport.width);
+        c.height = Math.floor(viewport.height);
+        c.style.width = `${width}px`;
+        c.style.height = `${Math.floor(viewport.height / ratio)}px`;
+        await page.render({ canvas: c, viewport }).promise;
+        if (!cancelled) setState('done');
+      } catch {
+        if (!cancelled) setState('error');
+      }
+    })();
+    return () => {
+      cancelled = true;
+      void task?.destroy();
+    };
+  }, [pdf, width]);
+
+  return (
+    <figure className="flex flex-col gap-1">
+      <canvas ref={canvas} aria-label="Preview of sheet 1" data-preview-state={state} className="rounded-control border border-rule bg-white" />
+      <figcaption className="text-xs text-ink-muted">
+        {state === 'rendering' ? 'Drawing the preview…' : state === 'error' ? 'The preview could not be drawn; the file can still be downloaded.' : `Sheet 1 of ${pages}`}
+      </figcaption>
+    </figure>
+  );
+}
