@@ -1,0 +1,119 @@
+import { useState, type FormEvent } from 'react';
+import type { Finding } from '@shared/analysis/types';
+import type { ReviewCommentDto } from '../../api/revisions';
+import { formatDateTime } from '../../lib/format';
+import { cn } from '../../lib/cn';
+import { Button } from '../Button';
+import { PLANNING_CAUTION, SeverityIcon } from '../layout/FindingsPanel';
+
+export interface FindingCommentsProps {
+  findings: readonly Finding[];
+  comments: readonly ReviewCommentDto[];
+  /** Comments of earlier revisions, matched to findings by their stable id. */
+  history: readonly ReviewCommentDto[];
+  selectedId: string | null;
+  onSelect(f: Finding): void;
+  /** Absent when comments are read-only (released, or the role may not comment). */
+  onComment?: (findingId: string, body: string) => Promise<unknown>;
+  onResolve?: (c: ReviewCommentDto) => void;
+}
+
+/** One comment line: author, time, body, resolve toggle. */
+export function CommentItem({ c, onResolve, label }: { c: ReviewCommentDto; onResolve?: (c: ReviewCommentDto) => void; label?: string }) {
+  return (
+    <li className={cn('rounded-control border border-rule bg-paper px-2.5 py-1.5 text-sm', c.resolved && 'opacity-70')} data-comment={c.id}>
+      <div className="flex items-baseline gap-2 text-xs text-ink-muted">
+        {label && <span className="font-bold text-ink">{label}</span>}
+        <span className="font-bold">{c.author?.name ?? 'Former user'}</span>
+        <span>{formatDateTime(c.createdAt)}</span>
+        {c.resolved && <span className="font-bold text-accent">resolved</span>}
+        {onResolve && (
+          <button type="button" className="ml-auto font-bold text-accent underline underline-offset-2" onClick={() => onResolve(c)}>
+            {c.resolved ? 'Reopen' : 'Mark resolved'}
+          </button>
+        )}
+      </div>
+      <p className="mt-0.5 whitespace-pre-wrap">{c.body}</p>
+    </li>
+  );
+}
+
+function CommentBox({ findingId, onComment }: { findingId: string; onComment: (id: string, body: string) => Promise<unknown> }) {
+  const [body, setBody] = useState('');
+  const [busy, setBusy] = useState(false);
+  async function submit(e: FormEvent) {
+    e.preventDefault();
+    if (!body.trim()) return;
+    setBusy(true);
+    try {
+      await onComment(findingId, body.trim());
+      setBody('');
+    } finally {
+      setBusy(false);
+    }
+  }
+  return (
+    <form onSubmit={submit} className="mt-1.5 flex items-start gap-2">
+      <label className="sr-only" htmlFor={`c-${findingId}`}>
+        Comment on {findingId}
+      </label>
+      <textarea
+        id={`c-${findingId}`}
+        rows={2}
+        value={body}
+        onChange={(e) => setBody(e.target.value)}
+        placeholder="Comment on this finding…"
+        className="min-h-9 flex-1 rounded-control border border-rule-strong bg-paper-raised px-2 py-1 text-sm"
+      />
+      <Button type="submit" size="sm" busy={busy} disabled={!body.trim()}>
+        Comment
+      </Button>
+    </form>
+  );
+}
+
+/** The revision's findings, each with its comments, a comment box, and what was said about it in earlier revisions. */
+export function FindingComments({ findings, comments, history, selectedId, onSelect, onComment, onResolve }: FindingCommentsProps) {
+  return (
+    <section aria-labelledby="review-findings" className="flex flex-col gap-2">
+      <h2 id="review-findings" className="text-sm font-bold">
+        Findings ({findings.length})
+      </h2>
+      <p className="text-xs text-ink-muted">{PLANNING_CAUTION}</p>
+      {findings.length === 0 && <p className="text-sm text-ink-muted">This revision has no findings.</p>}
+      <ul className="flex flex-col gap-2">
+        {findings.map((f) => {
+          const mine = comments.filter((c) => c.findingId === f.id);
+          const before = history.filter((c) => c.findingId === f.id);
+          return (
+            <li key={f.id} data-finding={f.id} className={cn('rounded-control border bg-paper-raised p-2.5', selectedId === f.id ? 'border-accent' : 'border-rule')}>
+              <button type="button" onClick={() => onSelect(f)} className="flex w-full items-start gap-2 text-left text-sm">
+                <SeverityIcon severity={f.severity} className="mt-0.5" />
+                <span className="flex-1">{f.message}</span>
+                <code className="text-[0.6875rem] text-ink-faint">{f.id}</code>
+              </button>
+              {before.length > 0 && (
+                <details className="mt-1.5" open>
+                  <summary className="cursor-pointer text-xs font-bold text-ink-muted">Said in earlier revisions ({before.length})</summary>
+                  <ul className="mt-1 flex flex-col gap-1" aria-label={`Earlier comments on ${f.id}`}>
+                    {before.map((c) => (
+                      <CommentItem key={c.id} c={c} label={`Rev. ${c.revisionLetter ?? '?'}`} />
+                    ))}
+                  </ul>
+                </details>
+              )}
+              {mine.length > 0 && (
+                <ul className="mt-1.5 flex flex-col gap-1" aria-label={`Comments on ${f.id}`}>
+                  {mine.map((c) => (
+                    <CommentItem key={c.id} c={c} onResolve={onResolve} />
+                  ))}
+                </ul>
+              )}
+              {onComment && <CommentBox findingId={f.id} onComment={onComment} />}
+            </li>
+          );
+        })}
+      </ul>
+    </section>
+  );
+}
