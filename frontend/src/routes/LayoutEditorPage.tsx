@@ -8,6 +8,7 @@ import { floorPlanDetailQuery } from '../api/floorPlans';
 import { useLayout } from '../api/layouts';
 import { useProject } from '../api/projects';
 import { LayoutEditor } from '../components/layout/LayoutEditor';
+import { SubmitRevisionButton } from '../components/review/SubmitRevisionButton';
 import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import NotFoundPage from './NotFoundPage';
@@ -73,6 +74,7 @@ function LayoutEditorLoader({ projectId, layoutId }: { projectId: number; layout
         }
         title={l.name}
         lead={`Layout · ${plan.data ? `on ${plan.data.fileName}` : 'no floor plan'} · ${l.content.arms.length} arms, ${l.content.workPoints.length} work points, ${l.content.zones.length} zones`}
+        actions={can(user.role, 'revision.submit') ? <SubmitRevisionButton projectId={projectId} layoutId={l.id} /> : undefined}
       />
       <LayoutEditor layout={l} floorPlan={floorPlanId !== null ? (plan.data ?? null) : null} armModels={models.data} readOnly={readOnly} />
     </>

@@ -18,4 +18,7 @@ export const NAV: NavItem[] = [
   { label: 'Projects', to: '/projects', requires: 'project.read' },
   { label: 'Arm catalogue', to: '/catalogue', requires: 'armModel.read' },
   { label: 'People', to: '/admin/users', requires: 'user.manage' },
+  { label: 'Invitations', to: '/admin/invitations', requires: 'invite.manage' },
+  { label: 'Audit log', to: '/admin/audit', requires: 'audit.read' },
+  { label: 'Mail outbox', to: '/admin/mail', requires: 'mail.read' },
 ];

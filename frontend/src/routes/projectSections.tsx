@@ -5,6 +5,7 @@ import { FloorPlanSection } from '../components/floorPlan/FloorPlanSection';
 import { LayoutsSection } from '../components/layout/LayoutsSection';
 import { ProjectDetails } from '../components/project/ProjectDetails';
 import { ProjectMembers } from '../components/project/ProjectMembers';
+import { RevisionsSection } from '../components/review/RevisionsSection';
 
 /** One section of the project page: its anchor id, heading and content. */
 export interface ProjectSection {
@@ -39,6 +40,13 @@ export const PROJECT_SECTIONS: ProjectSection[] = [
     lead: 'Working copies that place arms, work points and zones on a floor plan, with their findings.',
     requires: 'layout.read',
     Component: LayoutsSection,
+  },
+  {
+    id: 'revisions',
+    title: 'Revisions',
+    lead: 'Frozen snapshots of layouts sent for sign-off, and the plan sheets released to the client.',
+    requires: 'revision.read',
+    Component: RevisionsSection,
   },
   {
     id: 'members',

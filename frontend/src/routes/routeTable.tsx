@@ -25,6 +25,12 @@ export const routes: RouteObject[] = [
     HydrateFallback: () => <LoadingNotice className="px-8" />,
   },
   {
+    path: '/invite/:token',
+    lazy: page(() => import('./InvitePage')),
+    errorElement: <RouteError />,
+    HydrateFallback: () => <LoadingNotice className="px-8" />,
+  },
+  {
     path: '/',
     element: (
       <RequireAuth>
@@ -43,7 +49,11 @@ export const routes: RouteObject[] = [
           { path: 'projects/:id', lazy: page(() => import('./ProjectPage')) },
           { path: 'projects/:id/floor-plans/:planId', lazy: page(() => import('./FloorPlanPage')) },
           { path: 'projects/:id/layouts/:layoutId', lazy: page(() => import('./LayoutEditorPage')) },
+          { path: 'projects/:id/revisions/:revisionId', lazy: page(() => import('./ReviewPage')) },
           { path: 'admin/users', lazy: page(() => import('./AdminUsersPage')) },
+          { path: 'admin/invitations', lazy: page(() => import('./InvitePeoplePage')) },
+          { path: 'admin/audit', lazy: page(() => import('./AdminAuditPage')) },
+          { path: 'admin/mail', lazy: page(() => import('./AdminMailPage')) },
           { path: 'catalogue', lazy: page(() => import('./CataloguePage')) },
           { path: 'catalogue/new', lazy: page(() => import('./ArmModelNewPage')) },
           { path: 'catalogue/:id', lazy: page(() => import('./ArmModelPage')) },
