@@ -10,7 +10,8 @@ import { DEMO_FLOOR_PLAN_FILE } from '../../backend/src/db/demoFloorPlan';
 import { readDemoLayout } from '../../backend/src/db/demoLayout';
 import { ArmModel, FloorPlan, Layout } from '../../backend/src/models';
 import { importDxf } from '../../backend/src/services/dxf';
-import { CAUTIONS, loadLayoutSheetInput, renderPlanSheet } from '../../backend/src/services/planSheet';
+import { CAUTIONS, DRAFT_MARK, loadLayoutSheetInput, renderPlanSheet } from '../../backend/src/services/planSheet';
+import { LATO_RANGES, latoHas, sheetText } from '../../backend/src/services/planSheet/fonts';
 import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
 
@@ -208,5 +209,24 @@ describe('plan sheet PDF', () => {
     expect((await cl.get(`/api/layouts/${pairLayoutId}/layout.dxf`)).status).toBe(403);
     const anon = await (await import('supertest')).default(t.app).get(`/api/layouts/${pairLayoutId}/plan-sheet.pdf`);
     expect(anon.status).toBe(401);
+  });
+
+  it("keeps to Lato's glyphs: the charset table matches the font's cmap as fontconfig reads it", () => {
+    // fontconfig's fc-query reads the TTF's cmap independently of jsPDF (fontconfig documentation, %{charset}).
+    for (const style of ['400Regular/Lato_400Regular.ttf', '700Bold/Lato_700Bold.ttf']) {
+      const file = path.resolve('node_modules/@expo-google-fonts/lato', style);
+      const r = spawnSync('fc-query', ['-f', '%{charset}', file], { encoding: 'utf8' });
+      expect(r.status, r.stderr).toBe(0);
+      const ranges = r.stdout.trim().split(/\s+/).map((part) => {
+        const [a, b] = part.split('-').map((h) => parseInt(h, 16));
+        return [a, b ?? a];
+      });
+      expect(ranges).toEqual(LATO_RANGES.map(([a, b]) => [a, b]));
+    }
+    for (const text of [...CAUTIONS, DRAFT_MARK, 'Reach band at 900 mm', 'Area m²', 'Yaw °', '−12', '×']) {
+      for (const ch of text) expect(latoHas(ch.codePointAt(0)!), `${text}: ${ch}`).toBe(true);
+    }
+    for (const missing of ['✓', '✗', '→', '↑']) expect(latoHas(missing.codePointAt(0)!)).toBe(false);
+    expect(sheetText('ok ✓ → done')).toBe('ok ? ? done');
   });
 });
