@@ -4,6 +4,7 @@ import type { Finding } from '@shared/analysis/types';
 import { can } from '@shared/policy';
 import { useSessionUser } from '../api/auth';
 import { isApiError } from '../api/client';
+import { useProject } from '../api/projects';
 import { useAddComment, useResolveComment, useRevision, type ReviewCommentDto } from '../api/revisions';
 import { Button } from '../components/Button';
 import { ErrorNotice, LoadingNotice } from '../components/Notice';
@@ -36,6 +37,7 @@ export default function ReviewPage() {
 function ReviewLoader({ projectId, revisionId }: { projectId: number; revisionId: number }) {
   const user = useSessionUser();
   const rev = useRevision(revisionId);
+  const project = useProject(projectId);
   const addComment = useAddComment(revisionId);
   const resolve = useResolveComment();
   const [selected, setSelected] = useState<Finding | null>(null);
@@ -62,7 +64,7 @@ function ReviewLoader({ projectId, revisionId }: { projectId: number; revisionId
         <span className="flex gap-1.5">
           <Link to="/projects" className="hover:text-ink">Projects</Link>
           <span aria-hidden>/</span>
-          <Link to={`/projects/${projectId}#revisions`} className="hover:text-ink">{r.snapshot?.project.name ?? 'Project'}</Link>
+          <Link to={`/projects/${projectId}#revisions`} className="hover:text-ink">{project.data?.name ?? r.snapshot?.project.name ?? 'Project'}</Link>
         </span>
       }
       title={`${r.layoutName} — revision ${r.letter}`}

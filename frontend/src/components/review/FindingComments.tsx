@@ -89,8 +89,10 @@ export function FindingComments({ findings, comments, history, selectedId, onSel
             <li key={f.id} data-finding={f.id} className={cn('rounded-control border bg-paper-raised p-2.5', selectedId === f.id ? 'border-accent' : 'border-rule')}>
               <button type="button" onClick={() => onSelect(f)} className="flex w-full items-start gap-2 text-left text-sm">
                 <SeverityIcon severity={f.severity} className="mt-0.5" />
-                <span className="flex-1">{f.message}</span>
-                <code className="text-[0.6875rem] text-ink-faint">{f.id}</code>
+                <span className="flex-1">
+                  {f.message}
+                  <code className="mt-0.5 block text-[0.6875rem] text-ink-faint">{f.id}</code>
+                </span>
               </button>
               {before.length > 0 && (
                 <details className="mt-1.5" open>
