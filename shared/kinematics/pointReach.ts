@@ -129,24 +129,33 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
     const rho = Math.sqrt(rho2);
     // On the J1 axis every bearing is the same point: no J1 edge applies there.
     if (rho < 1e-9) return g.signedDistance(0, zt);
-    const bearing = Math.atan2(y, x);
     // Profiles carry the plan distance from the J1 axis as |r| (a chain's includes its lateral
-    // offset); the in-plane radius rIn only sets the bearing shift atan2(e, rIn).
-    let shiftA = 0;
-    let shiftB = Math.PI;
+    // offset); the in-plane radius rIn only sets the bearing shift atan2(e, ±rIn). The shifted
+    // bearing is one atan2 of the point turned back by the shift: atan2(y, x) − atan2(v, u) =
+    // atan2(y·u − x·v, x·u + y·v).
+    let rIn = rho;
     if (e !== 0) {
       if (rho2 < e2) return combine(g.signedDistance(0, zt), rho - absE);
-      const rIn = Math.sqrt(rho2 - e2);
-      shiftA = Math.atan2(e, rIn);
-      shiftB = Math.atan2(e, -rIn);
+      rIn = Math.sqrt(rho2 - e2);
     }
-    const arcA = arcAt(bearing - shiftA, rho);
+    const arcA = arcAt(e === 0 ? Math.atan2(y, x) : Math.atan2(y * rIn - x * e, x * rIn + y * e), rho);
     if (!hasNegative) return combine(g.signedDistance(rho, zt), arcA);
-    const arcB = arcAt(bearing - shiftB, rho);
     // combine(d, arc) ≤ min(d, arc), and the grid bounds d from above without visiting an edge, so
-    // an option is looked up only when its upper bound can beat the other's margin.
+    // an option is looked up (or even its arc computed) only when its upper bound can beat the
+    // other's margin.
+    const gB = g.upperBound(-rho, zt);
     const ubA = Math.min(arcA, g.upperBound(rho, zt));
-    const ubB = Math.min(arcB, g.upperBound(-rho, zt));
+    if (ubA >= gB) {
+      const mA = combine(g.signedDistance(rho, zt), arcA);
+      if (gB <= mA) return mA;
+      // the way behind the J1 axis: bearing turned by 180°, or by atan2(e, −rIn)
+      const arcB = arcAt(e === 0 ? Math.atan2(y, x) - Math.PI : Math.atan2(-y * rIn - x * e, -x * rIn + y * e), rho);
+      if (arcB <= mA) return mA;
+      const mB = combine(g.signedDistance(-rho, zt), arcB);
+      return mA > mB ? mA : mB;
+    }
+    const arcB = arcAt(e === 0 ? Math.atan2(y, x) - Math.PI : Math.atan2(-y * rIn - x * e, -x * rIn + y * e), rho);
+    const ubB = Math.min(arcB, gB);
     if (ubA >= ubB) {
       const mA = combine(g.signedDistance(rho, zt), arcA);
       if (ubB <= mA) return mA;
