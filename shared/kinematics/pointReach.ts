@@ -74,6 +74,9 @@ function outlineSimplifyMm(profile: ReachProfile): number {
   return (cell !== undefined && cell > 0 ? cell : profile.toleranceMm / 3) / 2;
 }
 
+/** Margin region (polygons and distance grid) of each cached reach profile. */
+const regionCache = new WeakMap<ReachProfile, { polygons: Polygon2[]; grid: DistanceGrid }>();
+
 function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
   const drop = toolDrop(model);
   if (model.family === 'scara') {
@@ -93,8 +96,14 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
   const a0 = toRadians(range.min) - 1e-9;
   const a1 = toRadians(range.max) + 1e-9;
   const e = familyOf(model).lateralOffset(model);
-  const polygons = profile.method === 'sampled' ? simplifyPolygonsOutward(profile.polygons, outlineSimplifyMm(profile)) : profile.polygons;
-  const grid = buildDistanceGrid(polygons);
+  // The region and its grid depend on the profile alone, not on the restricting limits: shared.
+  let region = regionCache.get(profile);
+  if (!region) {
+    const polys = profile.method === 'sampled' ? simplifyPolygonsOutward(profile.polygons, outlineSimplifyMm(profile)) : profile.polygons;
+    region = { polygons: polys, grid: buildDistanceGrid(polys) };
+    regionCache.set(profile, region);
+  }
+  const { polygons, grid } = region;
   const tiltable = model.family === 'articulated' || model.family === 'chain';
   const reachTool = model.toolLength ?? 0;
   let anyGrid: DistanceGrid | null = null;
