@@ -343,17 +343,20 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
   };
   /** Signed distance is 1-Lipschitz: at most its value at the cell centre plus the distance to it. */
   const upperBound = (x: number, y: number): number => {
-    for (const L of [fine, coarse]) {
-      const fx = (x - L.gx0) * L.invCell;
-      const fy = (y - L.gy0) * L.invCell;
-      if (!(fx >= 0 && fy >= 0 && fx < L.nx && fy < L.ny)) continue;
-      const ix = fx | 0;
-      const iy = fy | 0;
-      const ox = fx - ix - 0.5;
-      const oy = fy - iy - 0.5;
-      return L.sdc[iy * L.nx + ix] + Math.sqrt(ox * ox + oy * oy) * L.cell * (1 + 1e-12) + 1e-9;
+    let L = fine;
+    let fx = (x - L.gx0) * L.invCell;
+    let fy = (y - L.gy0) * L.invCell;
+    if (!(fx >= 0 && fy >= 0 && fx < L.nx && fy < L.ny)) {
+      L = coarse;
+      fx = (x - L.gx0) * L.invCell;
+      fy = (y - L.gy0) * L.invCell;
+      if (!(fx >= 0 && fy >= 0 && fx < L.nx && fy < L.ny)) return Infinity;
     }
-    return Infinity;
+    const ix = fx | 0;
+    const iy = fy | 0;
+    const ox = fx - ix - 0.5;
+    const oy = fy - iy - 0.5;
+    return L.sdc[iy * L.nx + ix] + Math.sqrt(ox * ox + oy * oy) * L.cell * (1 + 1e-12) + 1e-9;
   };
   return {
     signedDistance,
