@@ -14,7 +14,6 @@ import { invitationsRouter } from './routes/invitations';
 import { kinematicsRouter } from './routes/kinematics';
 import { layoutsRouter } from './routes/layouts';
 import { planSheetsRouter } from './routes/planSheets';
-import { planSheetsRouter } from './routes/planSheets';
 import { revisionsRouter } from './routes/revisions';
 import type { Mailer } from './services/mail/mailer';
 
@@ -34,7 +33,6 @@ export function featureRouters(ctx: FeatureContext): Router[] {
     layoutsRouter(ctx.sequelize),
     armModelsRouter(ctx.sequelize),
     kinematicsRouter(),
-    planSheetsRouter(),
     planSheetsRouter(),
     revisionsRouter(ctx),
     commentsRouter(ctx),
