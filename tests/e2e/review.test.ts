@@ -122,6 +122,11 @@ describe('review and release in Chromium', () => {
     const [download] = await Promise.all([client.waitForEvent('download'), client.getByRole('link', { name: 'Download the plan sheet (PDF)' }).click()]);
     const bytes = await readFile((await download.path())!);
     expect(createHash('sha256').update(bytes).digest('hex')).toBe(stored!.planSheetChecksum);
+    // The sheet is drawn in the page, sheet by sheet.
+    await client.locator('[data-sheet-state="done"]').waitFor();
+    await expect.poll(() => client.locator('[data-sheet-state]').textContent()).toMatch(/Sheet 1 of \d+/);
+    await client.getByRole('button', { name: 'Next sheet' }).click();
+    await expect.poll(() => client.locator('[data-sheet-state]').textContent()).toMatch(/Sheet 2 of/);
     await client.getByRole('button', { name: 'Acknowledge receipt' }).click();
     await client.locator('[data-acknowledged]').waitFor();
     await shot(client, '4-client-acknowledged');

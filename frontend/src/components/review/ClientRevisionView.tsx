@@ -3,6 +3,7 @@ import { formatDateTime } from '../../lib/format';
 import { Button } from '../Button';
 import { ErrorNotice } from '../Notice';
 import { PLANNING_CAUTION } from '../layout/FindingsPanel';
+import { SheetViewer } from '../planSheet/SheetViewer';
 
 /** The client's view of a released revision: the plan sheet in the page, download, release date, acknowledge receipt. */
 export function ClientRevisionView({ revision }: { revision: RevisionDetailDto }) {
@@ -29,11 +30,7 @@ export function ClientRevisionView({ revision }: { revision: RevisionDetailDto }
         </div>
       </div>
       {ack.isError && <ErrorNotice error={ack.error} />}
-      <object data={planSheetUrl(revision.id)} type="application/pdf" aria-label={`Plan sheet, revision ${revision.letter}`} className="h-[75vh] w-full rounded-control border border-rule bg-paper-sunk">
-        <p className="p-4 text-sm">
-          This browser does not show PDFs in the page. <a href={planSheetUrl(revision.id, true)} className="font-bold text-accent underline">Download it</a>.
-        </p>
-      </object>
+      <SheetViewer url={planSheetUrl(revision.id)} label={`Plan sheet, revision ${revision.letter}`} />
       <p className="text-xs text-ink-muted">{PLANNING_CAUTION}</p>
     </div>
   );

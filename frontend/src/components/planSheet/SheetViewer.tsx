@@ -1,0 +1,101 @@
+import { useEffect, useRef, useState } from 'react';
+import * as pdfjs from 'pdfjs-dist';
+import workerUrl from 'pdfjs-dist/build/pdf.worker.min.mjs?url';
+import { Button } from '../Button';
+
+pdfjs.GlobalWorkerOptions.workerSrc = workerUrl;
+
+type Doc = Awaited<ReturnType<typeof pdfjs.getDocument>['promise']>;
+
+/**
+ * A stored plan sheet shown in the page, sheet by sheet, drawn by pdfjs-dist (so it looks the same
+ * in every browser, with or without a PDF plug-in). Fetches the PDF from `url` with the session.
+ */
+export function SheetViewer({ url, label }: { url: string; label: string }) {
+  const canvas = useRef<HTMLCanvasElement>(null);
+  const frame = useRef<HTMLDivElement>(null);
+  const [doc, setDoc] = useState<Doc | null>(null);
+  const [page, setPage] = useState(1);
+  const [state, setState] = useState<'loading' | 'rendering' | 'done' | 'error'>('loading');
+
+  useEffect(() => {
+    let cancelled = false;
+    let task: ReturnType<typeof pdfjs.getDocument> | null = null;
+    setState('loading');
+    void (async () => {
+      try {
+        const res = await fetch(url, { credentials: 'same-origin' });
+        if (!res.ok) throw new Error(`HTTP ${res.status}`);
+        task = pdfjs.getDocument({ data: new Uint8Array(await res.arrayBuffer()) });
+        const d = await task.promise;
+        if (!cancelled) {
+          setDoc(d);
+          setPage(1);
+        }
+      } catch {
+        if (!cancelled) setState('error');
+      }
+    })();
+    return () => {
+      cancelled = true;
+      void task?.destroy();
+    };
+  }, [url]);
+
+  useEffect(() => {
+    if (!doc) return;
+    let cancelled = false;
+    setState('rendering');
+    void (async () => {
+      try {
+        const p = await doc.getPage(page);
+        // The frame has 12 px padding and a 1 px border on each side.
+        const width = Math.min((frame.current?.clientWidth ?? 1126) - 26, 1400);
+        const base = p.getViewport({ scale: 1 });
+        const ratio = window.devicePixelRatio || 1;
+        const viewport = p.getViewport({ scale: (width / base.width) * ratio });
+        const c = canvas.current;
+        if (!c || cancelled) return;
+        c.width = Math.floor(viewport.width);
+        c.height = Math.floor(viewport.height);
+        c.style.width = `${width}px`;
+        c.style.height = `${Math.floor(viewport.height / ratio)}px`;
+        await p.render({ canvas: c, viewport }).promise;
+        if (!cancelled) setState('done');
+      } catch {
+        if (!cancelled) setState('error');
+      }
+    })();
+    return () => {
+      cancelled = true;
+    };
+  }, [doc, page]);
+
+  const pages = doc?.numPages ?? 0;
+  const go = (n: number) => setPage(Math.min(Math.max(1, n), pages || 1));
+  return (
+    <section
+      ref={frame}
+      aria-label={label}
+      tabIndex={0}
+      onKeyDown={(e) => {
+        if (e.key === 'ArrowRight' || e.key === 'PageDown') go(page + 1);
+        if (e.key === 'ArrowLeft' || e.key === 'PageUp') go(page - 1);
+      }}
+      className="flex flex-col gap-2 rounded-control border border-rule bg-paper-sunk p-3 focus-visible:outline-2 focus-visible:outline-accent"
+    >
+      <div className="flex items-center gap-2 text-sm">
+        <Button onClick={() => go(page - 1)} disabled={page <= 1 || !doc}>
+          Previous sheet
+        </Button>
+        <Button onClick={() => go(page + 1)} disabled={page >= pages || !doc}>
+          Next sheet
+        </Button>
+        <span className="text-ink-muted" data-sheet-state={state}>
+          {state === 'loading' ? 'Loading the plan sheet…' : state === 'error' ? 'The sheet could not be shown here; download it instead.' : `Sheet ${page} of ${pages}`}
+        </span>
+      </div>
+      <canvas ref={canvas} aria-label={`${label}, sheet ${page}`} className="rounded-control border border-rule bg-white" />
+    </section>
+  );
+}
