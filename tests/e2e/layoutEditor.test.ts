@@ -299,4 +299,59 @@ describe('layout editor in Chromium', () => {
     await page.screenshot({ path: path.join(SCREENS, 'layout-editor-zones.png') });
     await page.close();
   });
+
+  it('adds a work point by clicking the plan, imports the demo CSV of work points and shows the coverage matrix', async () => {
+    const page = await e.browser.newPage({ viewport: { width: 1440, height: 1300 } });
+    await signInPage(page, e.server.url, PLANNER);
+    const { projectId } = await demoLayout(page);
+    const layoutId = await page.evaluate(async (pid) => {
+      const { floorPlans } = await (await fetch(`/api/projects/${pid}/floor-plans`)).json();
+      const { armModels } = await (await fetch('/api/arm-models')).json();
+      const id = (n: string) => armModels.find((m: { name: string }) => m.name === n).id;
+      // Arms named R1–R4 as in samples/work-points/fernhill-line3.csv (its assignedArm column)
+      const content = {
+        arms: [
+          { id: 'R1', armModelId: id('Demo SCARA 600'), label: '', x: 11200, y: 7300, yaw: -90, mountHeight: 400 },
+          { id: 'R2', armModelId: id('Demo SCARA 600'), label: '', x: 14600, y: 7300, yaw: -90, mountHeight: 400 },
+          { id: 'R3', armModelId: id('Demo Articulated 1400'), label: '', x: 18100, y: 3300, yaw: 0, mountHeight: 0 },
+          { id: 'R4', armModelId: id('Demo Palletizer 3100'), label: '', x: 20200, y: 8300, yaw: 90, mountHeight: 0 },
+        ],
+        workPoints: [],
+        zones: [],
+        workHeights: [900],
+      };
+      const r = await fetch(`/api/projects/${pid}/layouts`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: 'Points by CSV', floorPlanId: floorPlans[0]?.id ?? null, content }) });
+      return (await r.json()).layout.id as number;
+    }, projectId);
+    await openEditor(page, projectId, layoutId);
+
+    // The point tool: one click on the plan adds P1 at the first work height.
+    await page.getByRole('button', { name: 'Work point', exact: true }).click();
+    const svg = (await page.locator('svg[aria-label^="Layout "]').boundingBox())!;
+    await page.mouse.click(svg.x + svg.width * 0.5, svg.y + svg.height * 0.5);
+    await page.keyboard.press('Escape');
+    await page.getByRole('tab', { name: 'Work points' }).click();
+    const table = page.getByRole('table', { name: 'Work points' });
+    await table.getByText('P1', { exact: true }).first().waitFor();
+
+    // CSV import (replace all) from the demo sample: 34 points.
+    await page.getByRole('button', { name: 'Import CSV…' }).click();
+    await page.locator('input[type="file"]').setInputFiles(path.resolve('samples/work-points/fernhill-line3.csv'));
+    await page.getByRole('table', { name: 'Preview of the rows to import' }).waitFor();
+    await page.locator('input[name="import-mode"][value="replace"]').check();
+    await page.getByRole('button', { name: /^Import 34 points/ }).click();
+    // (the table draws only the rows in view) — the import is saved with the layout by autosave
+    await expect
+      .poll(async () => page.evaluate(async (id) => (await (await fetch(`/api/layouts/${id}`)).json()).layout.content.workPoints.length, layoutId), { timeout: 15_000 })
+      .toBe(34);
+
+    // The coverage matrix: 34 rows × 4 arms from the worker's analysis.
+    await page.getByRole('tab', { name: 'Coverage' }).click();
+    const matrix = page.getByRole('img', { name: /^Coverage of 34 work points by 4 arms/ });
+    await matrix.waitFor({ state: 'attached' });
+    await page.screenshot({ path: path.join(SCREENS, 'layout-editor-coverage.png'), fullPage: true });
+    await expect.poll(async () => (await matrix.boundingBox())?.height ?? 0).toBeGreaterThan(50);
+    expect((await matrix.boundingBox())!.width).toBeGreaterThan(100);
+    await page.close();
+  });
 });

@@ -48,6 +48,14 @@ export function addArm(content: LayoutContent, armModelId: number, at: XY, yaw =
   return { content: { ...content, arms: [...content.arms, arm] }, id };
 }
 
+/** Adds a work point at a plan point (mm) and height z (mm), top approach, with the next free id P1, P2 …. */
+export function addWorkPoint(content: LayoutContent, at: XY, z: number): { content: LayoutContent; id: string } {
+  if (!Number.isFinite(z)) throw new Error('z must be a finite number');
+  const id = nextFreeId('P', content.workPoints.map((p) => p.id));
+  const point = { id, x: roundMm(at[0]), y: roundMm(at[1]), z: roundMm(z), approach: 'top' as const, tag: '' };
+  return { content: { ...content, workPoints: [...content.workPoints, point] }, id };
+}
+
 /** Moves an arm's base to a plan point, mm. */
 export function moveArm(content: LayoutContent, id: string, x: number, y: number): LayoutContent {
   return withArm(content, id, (a) => ({ ...a, x: roundMm(x), y: roundMm(y) }));

@@ -1,3 +1,4 @@
+import { FAR_MM } from '@shared/analysis/analyze';
 import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { axisBottom, scaleLinear, select } from 'd3';
 import { cn } from '../../lib/cn';
@@ -143,11 +144,13 @@ export function CoverageMatrix({ content, analysis, onSelect, selected }: Layout
     const id = matrix.ids[row];
     if (col === null) {
       const best = matrix.best[row];
+      if (best === -Infinity) return `${id}: every arm is more than ${FAR_MM} mm short — reached by no arm`;
       return Number.isNaN(best) ? `${id}: not analysed` : `${id}: best ${fmt(best)} mm${best < 0 ? ' — reached by no arm' : ''}`;
     }
     const arm = armIds[col];
     const m = matrix.margins[row * armIds.length + col];
     const name = armLabel.get(arm) ? `${arm} (${armLabel.get(arm)})` : arm;
+    if (m === -Infinity) return `${id} · ${name}: more than ${FAR_MM} mm short`;
     return Number.isNaN(m) ? `${id} · ${name}: not analysed` : `${id} · ${name}: ${fmt(m)} mm ${m < 0 ? 'short' : 'to spare'}`;
   }
 

@@ -6,7 +6,7 @@ import type { ArmModelDto } from '../../api/armModels';
 import type { FloorPlanDto } from '../../api/floorPlans';
 import { useCreateLayout } from '../../api/layouts';
 import { commandForKey } from '../../editor/editorKeys';
-import { addArm, addZone, duplicateArm, moveArm, moveZoneVertex, nudgeArm, removeArm, removeZone, rotateArm, roundMm, setArmYaw } from '../../editor/layoutEdits';
+import { addArm, addWorkPoint, addZone, duplicateArm, moveArm, moveZoneVertex, nudgeArm, removeArm, removeZone, rotateArm, roundMm, setArmYaw } from '../../editor/layoutEdits';
 import { useAnalysisWorker } from '../../editor/useAnalysisWorker';
 import { useLayoutEditor } from '../../editor/useLayoutEditor';
 import { PlanView } from '../../plan/PlanView';
@@ -19,7 +19,7 @@ import { ConflictDialog } from './ConflictDialog';
 import { EditorToolbar } from './EditorToolbar';
 import { FindingsPanel } from './FindingsPanel';
 import { LayoutPanels } from './LayoutPanels';
-import { createLayoutScene, type EditorTool, type LayoutScene } from './layoutScene';
+import { createLayoutScene, type EditorTool, type LayoutScene, type ShapeTool } from './layoutScene';
 import type { LayoutSelection } from './panelTypes';
 import { WorkHeightsEditor } from './WorkHeightsEditor';
 import { ZoneInspector } from './ZoneInspector';
@@ -99,7 +99,14 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
     onArmTurned: (id: string, yaw: number) => edit(setArmYaw(contentRef.current, id, yaw), `Turn ${id}`, `turn:${id}`),
     onVertexMoved: (zoneId: string, index: number, to: [number, number]) =>
       edit(moveZoneVertex(contentRef.current, zoneId, index, to), `Move corner of ${zoneId}`, `vertex:${zoneId}:${index}`),
-    onShapeDrawn: (kind: Exclude<EditorTool, 'select'>, points: Array<[number, number]>) => {
+    onPointPlaced: (at: [number, number]) => {
+      const z = contentRef.current.workHeights[0] ?? 0;
+      const r = addWorkPoint(contentRef.current, at, z);
+      edit(r.content, `Add work point ${r.id}`);
+      setSelection({ kind: 'point', id: r.id });
+      setHint(`Work point ${r.id} added at z = ${z} mm; edit it in the Work points tab.`);
+    },
+    onShapeDrawn: (kind: ShapeTool, points: Array<[number, number]>) => {
       try {
         const r = addZone(contentRef.current, kind, points, kind === 'fence' ? { height: NEW_FENCE_HEIGHT_MM } : {});
         edit(r.content, `Draw ${ZONE_WORD[kind]} ${r.id}`);
@@ -125,6 +132,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
       onArmTurned: (...a) => handlers.current.onArmTurned(...a),
       onVertexMoved: (...a) => handlers.current.onVertexMoved(...a),
       onShapeDrawn: (...a) => handlers.current.onShapeDrawn(...a),
+      onPointPlaced: (p) => handlers.current.onPointPlaced(p),
       onHint: (t) => setHint(t),
     });
     scene.current = s;

@@ -43,12 +43,12 @@ export function buildCoverageMatrix(
     let best = -Infinity;
     for (let c = 0; c < k; c++) {
       const m = row[armIds[c]];
-      if (typeof m === 'number' && !Number.isNaN(m)) {
-        raw[r * k + c] = m;
-        if (m > best) best = m;
-      }
+      // An analysed point's row leaves out arms far beyond their reach (FAR_MM): −∞ = "far out of reach".
+      const v = typeof m === 'number' && !Number.isNaN(m) ? m : -Infinity;
+      raw[r * k + c] = v;
+      if (v > best) best = v;
     }
-    if (best > -Infinity) rawBest[r] = best;
+    rawBest[r] = k > 0 ? best : NaN;
   }
   const order = sortedRowOrder(rawBest, raw, k, armIds, sort);
   const margins = new Float64Array(n * k);
@@ -64,7 +64,7 @@ export function buildCoverageMatrix(
     for (let c = 0; c < k; c++) {
       const m = raw[src * k + c];
       margins[r * k + c] = m;
-      if (Math.abs(m) > maxAbs) maxAbs = Math.abs(m);
+      if (Number.isFinite(m) && Math.abs(m) > maxAbs) maxAbs = Math.abs(m);
     }
   }
   return { ids, armIds: [...armIds], margins, best, unreached, maxAbs };

@@ -30,7 +30,9 @@ import {
 type XY = [number, number];
 type G = Selection<SVGGElement, unknown, null, undefined>;
 
-export type EditorTool = 'select' | 'fence' | 'keepout' | 'operator' | 'opening';
+export type EditorTool = 'select' | 'point' | 'fence' | 'keepout' | 'operator' | 'opening';
+/** Tools that draw a zone. */
+export type ShapeTool = Exclude<EditorTool, 'select' | 'point'>;
 
 export interface SceneState {
   content: LayoutContent;
@@ -52,7 +54,9 @@ export interface SceneCallbacks {
   onArmMoved(id: string, x: number, y: number): void;
   onArmTurned(id: string, yaw: number): void;
   onVertexMoved(zoneId: string, index: number, to: XY): void;
-  onShapeDrawn(kind: Exclude<EditorTool, 'select'>, points: XY[]): void;
+  onShapeDrawn(kind: ShapeTool, points: XY[]): void;
+  /** The point tool clicked the plan at p (mm). */
+  onPointPlaced(p: XY): void;
   /** A line for the status bar while drawing (or null). */
   onHint(text: string | null): void;
 }
@@ -379,6 +383,9 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
       case 'opening':
         cb.onHint(n === 0 ? 'Click on a fence where the opening starts.' : 'Click on the fence where the opening ends.');
         break;
+      case 'point':
+        cb.onHint('Click the plan to add a work point at the first work height; Esc returns to Select.');
+        break;
       default:
         cb.onHint(null);
     }
@@ -396,6 +403,10 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
     }
     const p = toPlan(e);
     const k = canvas.view().transform.k || 1;
+    if (state.tool === 'point') {
+      cb.onPointPlaced([roundMm(p[0]), roundMm(p[1])]);
+      return;
+    }
     if (state.tool === 'opening') {
       const near = nearestFence(state.content, p);
       if (!near || near.distance > FENCE_PICK_PX / k) {
@@ -423,7 +434,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
   }
 
   function onDblClick(e: MouseEvent): void {
-    if (!state || state.readOnly || state.tool === 'select' || state.tool === 'opening') return;
+    if (!state || state.readOnly || state.tool === 'select' || state.tool === 'opening' || state.tool === 'point') return;
     e.preventDefault();
     finishDraw();
   }
@@ -435,7 +446,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
   }
 
   function finishDraw(): void {
-    if (!state || state.tool === 'select') return;
+    if (!state || state.tool === 'select' || state.tool === 'point') return;
     const need = state.tool === 'fence' ? 2 : state.tool === 'opening' ? 2 : 3;
     if (draft.length < need) {
       cb.onHint(`Needs at least ${need} points; keep clicking, or Esc to cancel.`);

@@ -43,7 +43,7 @@ export function ReviewPlan({ snapshot, selectedFinding, pins, draftPin, onPick }
   useEffect(() => {
     if (!canvas) return;
     const noop = () => {};
-    const s = createLayoutScene(canvas, canvas.svg, { onSelect: noop, onDragPose: noop, onArmMoved: noop, onArmTurned: noop, onVertexMoved: noop, onShapeDrawn: noop, onHint: noop });
+    const s = createLayoutScene(canvas, canvas.svg, { onSelect: noop, onDragPose: noop, onArmMoved: noop, onArmTurned: noop, onVertexMoved: noop, onShapeDrawn: noop, onPointPlaced: noop, onHint: noop });
     scene.current = s;
     return () => {
       s.destroy();
