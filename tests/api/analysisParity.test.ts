@@ -1,0 +1,46 @@
+// The editor's Web Worker session and the server give the same analysis of the seeded demo layout
+// (the same shared code on the same stored models, floor plan and content).
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { armReachFor } from '@shared/analysis/armReach';
+import type { LayoutContent } from '@shared/schemas/layout';
+import { seedDemoIfEmpty } from '../../backend/src/db/seed';
+import { featureSeedSteps } from '../../backend/src/features';
+import { ArmModel, FloorPlan, Layout } from '../../backend/src/models';
+import { analyzeLayout } from '../../backend/src/services/layoutAnalysis';
+import { createAnalysisSession } from '../../frontend/src/workers/analysisSession';
+import type { FloorLayer } from '@shared/analysis/floor';
+import { createTestApp, type TestApp } from '../support/testApp';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+  await seedDemoIfEmpty(t.sequelize, { bcryptCost: 4, steps: featureSeedSteps() });
+});
+afterAll(async () => t.close());
+
+describe('server and worker analyses', () => {
+  it('are identical for the demo layout, and stay identical after an arm moves', async () => {
+    const layout = (await Layout.findOne({ where: { name: 'Fernhill line 3 — cell layout' } }))!;
+    const content = layout.content as LayoutContent;
+    const models = await ArmModel.findAll();
+    const plan = (await FloorPlan.findByPk(layout.floorPlanId!))!;
+
+    const session = createAnalysisSession(armReachFor);
+    session.receive({ type: 'models', models: models.map((m) => ({ id: m.id, params: m.params })) });
+    session.receive({ type: 'floor', floor: { geometry: plan.geometry, layers: plan.layers as FloorLayer[] } });
+    session.receive({ type: 'content', seq: 1, content });
+    const worker = session.run()!.analysis;
+    const server = await analyzeLayout(layout);
+
+    const strip = (r: typeof server) => ({ findings: r.findings, overlaps: r.overlaps, coverage: JSON.parse(JSON.stringify(r.coverage)), regions: r.regions });
+    expect(strip(worker)).toEqual(strip(server));
+    expect(server.findings.length).toBeGreaterThan(3);
+
+    // Move R2 in the worker (as a drag would), then commit the same move on the server.
+    const moved = { ...content, arms: content.arms.map((a) => (a.id === 'R2' ? { ...a, x: a.x + 400 } : a)) };
+    session.receive({ type: 'drag', seq: 2, pose: { armId: 'R2', x: moved.arms[1].x, y: moved.arms[1].y, yaw: moved.arms[1].yaw } });
+    const during = session.run()!.analysis;
+    const after = await analyzeLayout(layout, moved);
+    expect(strip(during)).toEqual(strip(after));
+  });
+});
