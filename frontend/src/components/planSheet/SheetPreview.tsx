@@ -1,8 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
-import * as pdfjs from 'pdfjs-dist';
-import workerUrl from 'pdfjs-dist/build/pdf.worker.min.mjs?url';
-
-pdfjs.GlobalWorkerOptions.workerSrc = workerUrl;
+import { drawPdfPage, pdfjs } from './pdfCanvas';
 
 /** Page 1 of a PDF drawn into a canvas by pdfjs-dist (the browser's own copy of the sheet). */
 export function SheetPreview({ pdf, width = 640 }: { pdf: Blob; width?: number }) {
@@ -20,17 +17,9 @@ export function SheetPreview({ pdf, width = 640 }: { pdf: Blob; width?: number }
         const doc = await task.promise;
         if (cancelled) return;
         setPages(doc.numPages);
-        const page = await doc.getPage(1);
-        const base = page.getViewport({ scale: 1 });
-        const ratio = window.devicePixelRatio || 1;
-        const viewport = page.getViewport({ scale: (width / base.width) * ratio });
         const c = canvas.current;
         if (!c || cancelled) return;
-        c.width = Math.floor(viewport.width);
-        c.height = Math.floor(viewport.height);
-        c.style.width = `${width}px`;
-        c.style.height = `${Math.floor(viewport.height / ratio)}px`;
-        await page.render({ canvas: c, viewport }).promise;
+        await drawPdfPage(doc, 1, c, width);
         if (!cancelled) setState('done');
       } catch {
         if (!cancelled) setState('error');

@@ -1,11 +1,6 @@
 import { useEffect, useRef, useState } from 'react';
-import * as pdfjs from 'pdfjs-dist';
-import workerUrl from 'pdfjs-dist/build/pdf.worker.min.mjs?url';
 import { Button } from '../Button';
-
-pdfjs.GlobalWorkerOptions.workerSrc = workerUrl;
-
-type Doc = Awaited<ReturnType<typeof pdfjs.getDocument>['promise']>;
+import { drawPdfPage, pdfjs, type PdfDocument as Doc } from './pdfCanvas';
 
 /**
  * A stored plan sheet shown in the page, sheet by sheet, drawn by pdfjs-dist (so it looks the same
@@ -48,19 +43,11 @@ export function SheetViewer({ url, label }: { url: string; label: string }) {
     setState('rendering');
     void (async () => {
       try {
-        const p = await doc.getPage(page);
         // The frame has 12 px padding and a 1 px border on each side.
         const width = Math.min((frame.current?.clientWidth ?? 1126) - 26, 1400);
-        const base = p.getViewport({ scale: 1 });
-        const ratio = window.devicePixelRatio || 1;
-        const viewport = p.getViewport({ scale: (width / base.width) * ratio });
         const c = canvas.current;
         if (!c || cancelled) return;
-        c.width = Math.floor(viewport.width);
-        c.height = Math.floor(viewport.height);
-        c.style.width = `${width}px`;
-        c.style.height = `${Math.floor(viewport.height / ratio)}px`;
-        await p.render({ canvas: c, viewport }).promise;
+        await drawPdfPage(doc, page, c, width);
         if (!cancelled) setState('done');
       } catch {
         if (!cancelled) setState('error');
