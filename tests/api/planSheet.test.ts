@@ -15,21 +15,7 @@ import { LATO_RANGES, latoHas, sheetText } from '../../backend/src/services/plan
 import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
 
-// pdfjs-dist 6 calls Promise.withResolvers, which Node 20 lacks (it arrived in Node 22).
-const P = Promise as unknown as { withResolvers?: () => unknown };
-P.withResolvers ??= () => {
-  let resolve!: (v: unknown) => void, reject!: (e: unknown) => void;
-  const promise = new Promise((a, b) => ((resolve = a), (reject = b)));
-  return { promise, resolve, reject };
-};
-// …and ArrayBuffer.prototype.transferToFixedLength (also Node 22), used while building operator lists.
-const AB = ArrayBuffer.prototype as unknown as { transferToFixedLength?: (n?: number) => ArrayBuffer };
-AB.transferToFixedLength ??= function (this: ArrayBuffer, n?: number) {
-  const len = n ?? this.byteLength;
-  const out = new ArrayBuffer(len);
-  new Uint8Array(out).set(new Uint8Array(this, 0, Math.min(len, this.byteLength)));
-  return out;
-};
+// pdfjs-dist 5.6 (the line that supports Node 20.19) reads the PDF back, legacy build for Node.
 const pdfjs = await import('pdfjs-dist/legacy/build/pdf.mjs');
 
 const MM_TO_PT = 72 / 25.4; // PDF user space unit is 1/72 inch (ISO 32000-1 §8.3.2.3)
