@@ -12,12 +12,7 @@ import { ConfirmDialog } from '../components/ConfirmDialog';
 import { ErrorNotice, LoadingNotice, StatusNote } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import NotFoundPage from './NotFoundPage';
-
-function parseId(raw: string | undefined): number | null {
-  if (!raw || !/^[1-9]\d*$/.test(raw)) return null;
-  const id = Number(raw);
-  return Number.isSafeInteger(id) ? id : null;
-}
+import { parseId } from '../lib/routeId';
 
 /** One arm model: its parameters, side reach profile and pose panel; editable when it is one's own. */
 export default function ArmModelPage() {

@@ -17,12 +17,7 @@ import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import { PlanView } from '../plan/PlanView';
 import NotFoundPage from './NotFoundPage';
-
-function parseId(raw: string | undefined): number | null {
-  if (!raw || !/^[1-9]\d*$/.test(raw)) return null;
-  const id = Number(raw);
-  return Number.isSafeInteger(id) ? id : null;
-}
+import { parseId } from '../lib/routeId';
 
 /** One floor plan of a project: import notes, drawing unit, layer roles, preview, download, delete. */
 export default function FloorPlanPage() {

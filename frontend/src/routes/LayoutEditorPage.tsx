@@ -12,12 +12,7 @@ import { SubmitRevisionButton } from '../components/review/SubmitRevisionButton'
 import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import NotFoundPage from './NotFoundPage';
-
-function parseId(raw: string | undefined): number | null {
-  if (!raw || !/^[1-9]\d*$/.test(raw)) return null;
-  const id = Number(raw);
-  return Number.isSafeInteger(id) ? id : null;
-}
+import { parseId } from '../lib/routeId';
 
 /** `/projects/:id/layouts/:layoutId` — the layout editor (read-only for reviewers). */
 export default function LayoutEditorPage() {

@@ -10,12 +10,7 @@ import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import { PROJECT_SECTIONS } from './projectSections';
 import NotFoundPage from './NotFoundPage';
-
-function parseId(raw: string | undefined): number | null {
-  if (!raw || !/^[1-9]\d*$/.test(raw)) return null;
-  const id = Number(raw);
-  return Number.isSafeInteger(id) ? id : null;
-}
+import { parseId } from '../lib/routeId';
 
 /** One project: its sections (details, members, and what later pages add) and deletion. */
 export default function ProjectPage() {

@@ -16,12 +16,7 @@ import { ReviewPlan } from '../components/review/ReviewPlan';
 import { RevisionDiffPanel } from '../components/review/RevisionDiffPanel';
 import { RevisionStateBadge } from '../components/review/RevisionStateBadge';
 import NotFoundPage from './NotFoundPage';
-
-function parseId(raw: string | undefined): number | null {
-  if (!raw || !/^[1-9]\d*$/.test(raw)) return null;
-  const id = Number(raw);
-  return Number.isSafeInteger(id) ? id : null;
-}
+import { parseId } from '../lib/routeId';
 
 const mm = new Intl.NumberFormat(undefined, { maximumFractionDigits: 0 });
 
