@@ -5,6 +5,7 @@ import type { ArmPlacement, WorkPoint } from '../schemas/layout';
 import { armClearance, bboxOverlap, centroidOf, fenceFindings, intersect, makeFinding, MIN_AREA_MM2, type BBox } from './clearance';
 import { m2, m2Text, mm, sortFindings } from './messages';
 import { buildPointGrid, pointsNear, type PointGrid } from './pointGrid';
+import { isReached, roundMargin, shortfallText } from './reached';
 import type { AnalysisInput, AnalysisResult, ArmReach, ArmReachFactory, Finding, PreparedFloor, SharedZone } from './types';
 
 export { FENCE_CLEARANCE_MM, MIN_FENCE_HEIGHT_MM } from './clearance';
@@ -159,7 +160,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     let reached = false;
     for (const id in row) {
       const m = row[id];
-      if (m >= 0) reached = true;
+      if (isReached(m)) reached = true;
       if (m > bestM) {
         bestM = m;
         best = id;
@@ -169,16 +170,16 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     if (!reached && placedIds.size > 0) {
       out = [makeFinding('unreached-point', [pt.id], {
         arms: [], points: [pt.id], geometry: null, at: [pt.x, pt.y],
-        message: `Work point ${pt.id}${pt.tag ? ` (${pt.tag})` : ''} is reached by no arm${best ? `; nearest is ${best}, ${mm(-bestM)} mm short` : `; no arm comes within ${FAR_MM} mm of it`}.`,
+        message: `Work point ${pt.id}${pt.tag ? ` (${pt.tag})` : ''} is reached by no arm${best ? `; nearest is ${best}, ${shortfallText(-bestM)} mm short` : `; no arm comes within ${FAR_MM} mm of it`}.`,
         data: best ? { shortMm: mm(-bestM), nearestArm: best } : undefined,
       })];
     }
     if (pt.assignedArm && placedIds.has(pt.assignedArm)) {
       const m = row[pt.assignedArm];
-      if (m === undefined || m < 0) {
+      if (m === undefined || !isReached(m)) {
         (out ??= []).push(makeFinding('assigned-unreachable', [pt.id, pt.assignedArm], {
           arms: [pt.assignedArm], points: [pt.id], geometry: null, at: [pt.x, pt.y],
-          message: `Work point ${pt.id} is assigned to ${pt.assignedArm}, which cannot reach it (${m === undefined ? `more than ${FAR_MM} mm` : `${mm(-m)} mm`} short).`,
+          message: `Work point ${pt.id} is assigned to ${pt.assignedArm}, which cannot reach it (${m === undefined ? `more than ${FAR_MM} mm` : `${shortfallText(-m)} mm`} short).`,
           data: m === undefined ? undefined : { shortMm: mm(-m) },
         }));
       }
@@ -212,10 +213,10 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     const [short, otherId] = ca.near.length <= cb.near.length ? [ca, second.arm.id] : [cb, first.arm.id];
     const inside: string[] = [];
     for (let k = 0; k < short.near.length; k++) {
-      if (short.margins[k] < 0) continue;
+      if (!isReached(short.margins[k])) continue;
       const pid = points[short.near[k]].id;
       const m = coverage[pid][otherId];
-      if (m !== undefined && m >= 0) inside.push(pid);
+      if (m !== undefined && isReached(m)) inside.push(pid);
     }
     const geometry = polygonsToGeoJSON(polys);
     const zone: SharedZone = { arms: [ids[0], ids[1]], areaM2: m2(area), points: inside, geometry, byHeight };
@@ -293,7 +294,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
         const col = column(p, points);
         columns.set(p.sig, col);
         for (let k = 0; k < col.near.length; k++) {
-          coverage[points[col.near[k]].id][col.armId] = Math.round(col.margins[k] * 10) / 10;
+          coverage[points[col.near[k]].id][col.armId] = roundMargin(col.margins[k]);
           dirty[col.near[k]] = 1;
         }
       }

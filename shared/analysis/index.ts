@@ -1,4 +1,5 @@
 export * from './types';
 export * from './floor';
 export * from './analyze';
-export { findingId, sortFindings } from './messages';
+export { findingId, parseFindingId, sortFindings } from './messages';
+export { isReached, roundMargin } from './reached';

@@ -5,6 +5,16 @@ export function findingId(kind: FindingKind, ...ids: string[]): string {
   return `${kind}:${ids.join('+')}`;
 }
 
+/** The kind and the ids of a finding id made by `findingId`, or null when the text is not one. */
+export function parseFindingId(id: string): { kind: FindingKind; ids: string[] } | null {
+  const colon = id.indexOf(':');
+  if (colon <= 0) return null;
+  const kind = id.slice(0, colon);
+  if (!Object.prototype.hasOwnProperty.call(SEVERITY_OF, kind)) return null;
+  const rest = id.slice(colon + 1);
+  return { kind: kind as FindingKind, ids: rest ? rest.split('+') : [] };
+}
+
 export const SEVERITY_OF: Record<FindingKind, Severity> = {
   'unreached-point': 'critical',
   'assigned-unreachable': 'critical',

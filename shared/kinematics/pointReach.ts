@@ -53,6 +53,15 @@ export interface ReachPlacement {
   restrict?: J1Restrict | null;
 }
 
+/**
+ * The one rule for "reached": a signed margin (mm) of zero or more. It lives here, where margins
+ * are defined, because the kinematics layer may not import the analysis; `shared/analysis`
+ * re-exports it, and the editor, the plan sheet and the CSV use it from there.
+ */
+export function isReached(marginMm: number): boolean {
+  return marginMm >= 0;
+}
+
 /** Hot-loop form: margin only (mm, ≥ 0 reached) of an arm-frame point. */
 export type MarginFn = (x: number, y: number, z: number, approach?: 'top' | 'any') => number;
 
@@ -201,7 +210,7 @@ export function makePointReach(model: ArmParams, restrict?: J1Restrict | null): 
   const margin = marginFnOf(model, restrict);
   return (p) => {
     const m = margin(p.x, p.y, p.z, p.approach);
-    return { reached: m >= 0, marginMm: m };
+    return { reached: isReached(m), marginMm: m };
   };
 }
 
@@ -213,7 +222,7 @@ export function pointReach(model: ArmParams, placement: Readonly<ReachPlacement>
   const dx = point.x - placement.x;
   const dy = point.y - placement.y;
   const m = marginFnOf(model, placement.restrict)(c * dx + s * dy, -s * dx + c * dy, point.z - placement.mountHeight, point.approach);
-  return { reached: m >= 0, marginMm: m };
+  return { reached: isReached(m), marginMm: m };
 }
 
 /**

@@ -1,5 +1,6 @@
 import type { jsPDF } from 'jspdf';
 import type { Geometry, Position } from 'geojson';
+import { isReached } from '@shared/analysis/reached';
 import { geoJSONToPolygons } from '@shared/geometry/geojson';
 import type { Polygon2 } from '@shared/geometry/types';
 import type { Zone } from '@shared/schemas/layout';
@@ -207,7 +208,7 @@ function drawPoints(doc: jsPDF, input: PlanSheetInput, toPaper: ToPaper): void {
   for (const p of pts) {
     const [x, y] = toPaper(p.x, p.y);
     const margins = Object.values(cov[p.id] ?? {});
-    const reached = margins.some((m) => m > 0);
+    const reached = margins.some(isReached);
     const c: Rgb = reached ? INK : SHARED;
     doc.setDrawColor(c[0], c[1], c[2]);
     doc.setLineWidth(0.2);

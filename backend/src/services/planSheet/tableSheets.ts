@@ -1,3 +1,4 @@
+import { isReached } from '@shared/analysis/reached';
 import type { Severity } from '@shared/analysis/types';
 import type { ArmSummary } from './armSummary';
 import type { SheetPages } from './sheetPages';
@@ -91,7 +92,7 @@ export function drawCoverage(pages: SheetPages, input: PlanSheetInput, arms: Arm
     const cols: Column[] = [...lead, ...g.map((a) => ({ title: a.arm.id, width: armW, align: 'right' as const })), tail];
     const rows: Row[] = points.map((p) => {
       const m = input.analysis.coverage[p.id] ?? {};
-      const reachedBy = arms.filter((a) => (m[a.arm.id] ?? -Infinity) > 0).length;
+      const reachedBy = arms.filter((a) => isReached(m[a.arm.id] ?? -Infinity)).length;
       return {
         fill: reachedBy === 0 ? NOT_REACHED_ROW : undefined,
         cells: [
@@ -102,7 +103,7 @@ export function drawCoverage(pages: SheetPages, input: PlanSheetInput, arms: Arm
           ...g.map((a) => {
             const v = m[a.arm.id];
             if (v === undefined || !Number.isFinite(v)) return { text: '—', colour: [150, 150, 150] as [number, number, number] };
-            return v > 0 ? { text: signed(v), colour: [20, 100, 50] as [number, number, number] } : { text: signed(v), colour: [150, 150, 150] as [number, number, number] };
+            return isReached(v) ? { text: signed(v), colour: [20, 100, 50] as [number, number, number] } : { text: signed(v), colour: [150, 150, 150] as [number, number, number] };
           }),
           reachedBy === 0 ? { text: 'not reached', bold: true, colour: [170, 30, 30] as [number, number, number] } : `${reachedBy} arm${reachedBy === 1 ? '' : 's'}`,
         ],

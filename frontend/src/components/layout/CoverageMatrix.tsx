@@ -1,4 +1,5 @@
 import { FAR_MM } from '@shared/analysis/analyze';
+import { isReached } from '@shared/analysis/reached';
 import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { axisBottom, scaleLinear, select } from 'd3';
 import { cn } from '../../lib/cn';
@@ -93,7 +94,7 @@ export function CoverageMatrix({ content, analysis, onSelect, selected }: Layout
     for (let r = first; r < last; r++) {
       const y = r * ROW_HEIGHT - scrollTop;
       const best = matrix.best[r];
-      const short = best < 0;
+      const short = !Number.isNaN(best) && !isReached(best);
       if (r === selectedRow) {
         ctx.fillStyle = '#e3f1ef';
         ctx.fillRect(0, y, LABEL_WIDTH, ROW_HEIGHT);
@@ -145,13 +146,13 @@ export function CoverageMatrix({ content, analysis, onSelect, selected }: Layout
     if (col === null) {
       const best = matrix.best[row];
       if (best === -Infinity) return `${id}: every arm is more than ${FAR_MM} mm short — reached by no arm`;
-      return Number.isNaN(best) ? `${id}: not analysed` : `${id}: best ${fmt(best)} mm${best < 0 ? ' — reached by no arm' : ''}`;
+      return Number.isNaN(best) ? `${id}: not analysed` : `${id}: best ${fmt(best)} mm${!isReached(best) ? ' — reached by no arm' : ''}`;
     }
     const arm = armIds[col];
     const m = matrix.margins[row * armIds.length + col];
     const name = armLabel.get(arm) ? `${arm} (${armLabel.get(arm)})` : arm;
     if (m === -Infinity) return `${id} · ${name}: more than ${FAR_MM} mm short`;
-    return Number.isNaN(m) ? `${id} · ${name}: not analysed` : `${id} · ${name}: ${fmt(m)} mm ${m < 0 ? 'short' : 'to spare'}`;
+    return Number.isNaN(m) ? `${id} · ${name}: not analysed` : `${id} · ${name}: ${fmt(m)} mm ${!isReached(m) ? 'short' : 'to spare'}`;
   }
 
   const empty = armIds.length === 0 ? 'Place an arm to see which points it reaches.' : rows === 0 ? 'Add work points to see their coverage.' : null;

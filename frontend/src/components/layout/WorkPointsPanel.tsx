@@ -1,3 +1,4 @@
+import { isReached } from '@shared/analysis/reached';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { getCoreRowModel, getSortedRowModel, useReactTable, type ColumnDef, type SortingState, flexRender } from '@tanstack/react-table';
 import type { WorkPoint } from '@shared/schemas/layout';
@@ -124,7 +125,7 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
   const last = Math.min(tableRows.length, Math.ceil((scrollTop + VIEW_HEIGHT) / ROW_HEIGHT) + OVERSCAN);
   const visibleIds = tableRows.map((r) => r.id);
   const allChecked = visibleIds.length > 0 && visibleIds.every((id) => checked.has(id));
-  const unreached = rows.filter((r) => r.best !== null && r.best < 0).length;
+  const unreached = rows.filter((r) => r.best !== null && !isReached(r.best)).length;
 
   const add = () => {
     const p = newWorkPoint(points);
@@ -230,7 +231,7 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
             {tableRows.slice(first, last).map((row, i) => {
               const id = row.id;
               const isSelected = selected?.kind === 'point' && selected.id === id;
-              const short = row.original.best !== null && row.original.best < 0;
+              const short = row.original.best !== null && !isReached(row.original.best);
               return (
                 <tr
                   key={id}

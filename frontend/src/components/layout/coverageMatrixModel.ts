@@ -1,5 +1,6 @@
 import { interpolateRgb, scaleDiverging, type ScaleDiverging } from 'd3';
 import type { AnalysisResult } from '@shared/analysis/types';
+import { isReached } from '@shared/analysis/reached';
 import type { WorkPoint } from '@shared/schemas/layout';
 
 /** Row orders of the coverage matrix. */
@@ -60,7 +61,7 @@ export function buildCoverageMatrix(
     const src = order[r];
     ids[r] = points[src].id;
     best[r] = rawBest[src];
-    if (rawBest[src] < 0) unreached++;
+    if (!Number.isNaN(rawBest[src]) && !isReached(rawBest[src])) unreached++;
     for (let c = 0; c < k; c++) {
       const m = raw[src * k + c];
       margins[r * k + c] = m;

@@ -4,6 +4,7 @@
  * labels, handles; screen px). d3 joins only; no state and no event handling here.
  */
 import type { Selection } from 'd3';
+import { isReached } from '@shared/analysis/reached';
 import type { AreaGeometry } from '@shared/geometry/geojson';
 import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
 import { geometryPath } from '../../plan/pathData';
@@ -183,7 +184,7 @@ export function drawWorkPoints(layer: G, content: LayoutContent, coverage: Recor
   let sel = '';
   for (const p of content.workPoints) {
     const row = coverage?.[p.id];
-    const reached = !row || content.arms.length === 0 || Object.values(row).some((m) => m >= 0);
+    const reached = !row || content.arms.length === 0 || Object.values(row).some(isReached);
     const d = `M${p.x - s},${p.y - s}L${p.x + s},${p.y + s}M${p.x - s},${p.y + s}L${p.x + s},${p.y - s}`;
     if (p.id === selectedPoint) sel += d;
     else if (reached) ok += d;

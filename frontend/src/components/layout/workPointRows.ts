@@ -1,5 +1,6 @@
 import { WorkPoint } from '@shared/schemas/layout';
 import type { AnalysisResult } from '@shared/analysis/types';
+import { isReached } from '@shared/analysis/reached';
 import { parseNumberCell } from './workPointsCsv';
 
 /** What the analysis says about one point: best margin (mm, positive = reached) and who reaches it. */
@@ -7,7 +8,7 @@ export interface PointCoverage {
   /** Largest margin over the layout's arms, mm; null when the point was not analysed or there are no arms. */
   best: number | null;
   bestArm: string | null;
-  /** Arms with margin ≥ 0, best first. */
+  /** Arms that reach the point (`isReached`), best first. */
   reachedBy: string[];
 }
 
@@ -29,7 +30,7 @@ export function pointCoverage(row: Record<string, number> | undefined, armIds: R
       best = m;
       bestArm = a;
     }
-    if (m >= 0) reached.push([a, m]);
+    if (isReached(m)) reached.push([a, m]);
   }
   reached.sort((p, q) => q[1] - p[1] || (p[0] < q[0] ? -1 : 1));
   return { best, bestArm, reachedBy: reached.map(([a]) => a) };
@@ -121,6 +122,6 @@ export function filterWorkPointRows(rows: ReadonlyArray<WorkPointRow>, text: str
   if (!words.length) return rows.slice();
   return rows.filter((r) => {
     const hay = [r.point.id, r.point.tag, r.point.approach, r.point.assignedArm ?? '', ...r.reachedBy].join(' ').toLowerCase();
-    return words.every((w) => (w === 'unreached' ? r.best !== null && r.best < 0 : hay.includes(w)));
+    return words.every((w) => (w === 'unreached' ? r.best !== null && !isReached(r.best) : hay.includes(w)));
   });
 }
