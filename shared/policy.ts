@@ -19,6 +19,7 @@ export const POLICY = {
   'layout.read': ['admin', 'planner', 'reviewer'],
   'layout.write': ['admin', 'planner'],
   'kinematics.use': ['admin', 'planner', 'reviewer', 'client'],
+  'safeguarding.use': ['admin', 'planner', 'reviewer', 'client'],
   /** Clients read only released revisions of their member projects (checked where loaded). */
   'revision.read': ['admin', 'planner', 'reviewer', 'client'],
   /** Unreleased revisions, comments, decisions and draft sheets: staff only. */

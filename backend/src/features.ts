@@ -15,6 +15,7 @@ import { kinematicsRouter } from './routes/kinematics';
 import { layoutsRouter } from './routes/layouts';
 import { planSheetsRouter } from './routes/planSheets';
 import { revisionsRouter } from './routes/revisions';
+import { safeguardingRouter } from './routes/safeguarding';
 import type { Mailer } from './services/mail/mailer';
 
 export interface FeatureContext {
@@ -33,6 +34,7 @@ export function featureRouters(ctx: FeatureContext): Router[] {
     layoutsRouter(ctx.sequelize),
     armModelsRouter(ctx.sequelize),
     kinematicsRouter(),
+    safeguardingRouter(),
     planSheetsRouter(),
     revisionsRouter(ctx),
     commentsRouter(ctx),

@@ -166,6 +166,24 @@ const ROWS: Row[] = [
     body: (c) => ({ model: { id: c.armModelId } }),
     expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 },
   },
+  {
+    method: 'post',
+    path: () => '/api/safeguarding/separation',
+    body: () => ({ device: 'light-curtain', resolutionMm: 14, responseTimeS: 0.02, stopTimeS: 0.18 }),
+    expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 },
+  },
+  {
+    method: 'post',
+    path: () => '/api/safeguarding/reach-over',
+    body: () => ({ hazardHeightMm: 2400, structureHeightMm: 1400 }),
+    expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 },
+  },
+  {
+    method: 'post',
+    path: () => '/api/safeguarding/reach-through',
+    body: () => ({ openingMm: 20, shape: 'square' }),
+    expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 },
+  },
   { method: 'delete', path: (c) => `/api/arm-models/${c.armModelId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'post', path: () => '/api/auth/logout', expect: { anon: 401, client: 204, reviewer: 204, planner: 204, admin: 204 } },
 ];
