@@ -92,7 +92,7 @@ export interface Analyzer {
 }
 
 /**
- * Layout analysis (KINEMATICS.md "Analysis"): shared zones of every pair of restricted spaces,
+ * Layout analysis (docs/analysis.md "The checks"): shared zones of every pair of restricted spaces,
  * coverage of every work point by every arm with signed margins (arms more than FAR_MM beyond their
  * reach are left out of a point's row), clearance of restricted spaces to structure (height-aware),
  * floor, fences, openings, operator areas and keep-outs. Pure; the same code runs on the server and

@@ -13,7 +13,7 @@ import { scaraPlanRegion } from './scara';
  * Plan regions of an arm in its ARM frame (origin on the J1 axis at the base plate, x along J1's
  * kinematic zero), planar mm, as polygons or GeoJSON. `placeRegion` puts them on the plan.
  *
- * Reading of the spaces (documented choice):
+ * Reading of the spaces (documented choice, docs/kinematics.md "Plan regions"):
  * - Reach band at height z (the TOOL POINT's height): the profile is of the flange/wrist point and
  *   the tool points straight down by toolLength (scara/articulated/linkage), so the profile is
  *   sliced at z + toolLength; a chain's profile is of its tool point and is sliced at z. The radial

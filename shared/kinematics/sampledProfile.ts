@@ -2,7 +2,7 @@
  * Sampled side reach profile: the region of the (r, z) half-plane swept by a point of an arm
  * when every axis but J1 moves over its range, found by sampling the joint space.
  *
- * Method (KINEMATICS.md, "chain"):
+ * Method (docs/kinematics.md, "Sampled profiles"):
  * 1. sample the box of axis ranges: its 2^k corners and a Halton sweep (low-discrepancy; the
  *    radical inverse in the first primes is written here, stepped incrementally);
  * 2. map each sample to (r, z): the point is turned by −bearing (the reach plane's bearing, 0

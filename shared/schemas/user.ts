@@ -1,6 +1,6 @@
 import { z } from 'zod';
 
-/** The four roles of PRODUCT.md; the order is not a hierarchy. */
+/** The four roles (docs/product.md "Roles"); the order is not a hierarchy. */
 export const ROLES = ['admin', 'planner', 'reviewer', 'client'] as const;
 export const Role = z.enum(ROLES);
 export type Role = z.infer<typeof Role>;

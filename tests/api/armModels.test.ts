@@ -247,7 +247,7 @@ describe('kinematics endpoints', () => {
     const { agent } = await planner();
     const res = await agent.post('/api/kinematics/forward').send({ model: threeR(), joints: [45, 30, -60] });
     expect(res.status).toBe(200);
-    // Siciliano et al. §2.9.3 with d1 added to z: θ = (45°, 30°, −60°) → (551.1, 551.1, 350.0) mm [derived, REFERENCES.md].
+    // Siciliano et al. §2.9.3 with d1 added to z: θ = (45°, 30°, −60°) → (551.1, 551.1, 350.0) mm [derived, docs/sources.md].
     expect(res.body.tool.x).toBeCloseTo(551.1, 1);
     expect(res.body.tool.y).toBeCloseTo(551.1, 1);
     expect(res.body.tool.z).toBeCloseTo(350.0, 6);
@@ -316,7 +316,7 @@ describe('kinematics endpoints', () => {
     const { agent } = await planner();
     const res = await agent.post('/api/kinematics/forward').send({ model: articulated3R(), joints: [45, 30, -60] });
     expect(res.status).toBe(200);
-    // Siciliano et al. §2.9.3 with d1 = 300 added to z: θ = (45°, 30°, −60°) → (551.1, 551.1, 350.0) mm [derived, REFERENCES.md].
+    // Siciliano et al. §2.9.3 with d1 = 300 added to z: θ = (45°, 30°, −60°) → (551.1, 551.1, 350.0) mm [derived, docs/sources.md].
     expect(res.body.wrist.x).toBeCloseTo(551.1, 1);
     expect(res.body.wrist.y).toBeCloseTo(551.1, 1);
     expect(res.body.wrist.z).toBeCloseTo(350.0, 6);
@@ -346,7 +346,7 @@ describe('kinematics endpoints', () => {
     expect(atShoulder.height).toBe(300);
     // At the shoulder height the profile (annulus 100 … 900 mm about the shoulder, Spong et al.) is
     // cut at r ∈ ±[100, 900]; over J1 = −45 … 45° that is a 90° sector in front and one turned 180°
-    // behind: 2 × (π/2)/2 × (900² − 100²) = 1 256 637 mm² (annular sector area [derived, REFERENCES.md]).
+    // behind: 2 × (π/2)/2 × (900² − 100²) = 1 256 637 mm² (annular sector area [derived, docs/sources.md]).
     // The band errs outward (outer arcs circumscribed), so it may be a little larger, never smaller.
     const expected = (Math.PI / 2) * (900 ** 2 - 100 ** 2);
     const area = geoArea(atShoulder.geometry);

@@ -146,7 +146,7 @@ describe('demo floor plan', () => {
     const demo = plans.find((p) => p.fileName === 'fernhill-hall.dxf');
     expect(demo).toBeDefined();
     expect(demo!.units).toBe('mm');
-    // the demo hall is about 24 m × 16 m (PRODUCT.md demo scenario)
+    // the demo hall is about 24 m × 16 m (docs/product.md "Demo scenario")
     expect(demo!.bounds.maxX - demo!.bounds.minX).toBeGreaterThan(20000);
     expect(demo!.bounds.maxY - demo!.bounds.minY).toBeGreaterThan(14000);
   });

@@ -86,7 +86,7 @@ describe('arm catalogue in Chromium', () => {
     await page.getByLabel('Kinematic family').selectOption('linkage');
     await page.getByTestId('max-reach').waitFor();
     // Default drive: crank 300, coupler 1160, rocker 320, ground 1150 mm: s + l = 1460 ≤ p + q = 1470 with the
-    // crank shortest → crank-rocker (Grashof condition, REFERENCES.md four-bar section) [derived].
+    // crank shortest → crank-rocker (Grashof condition, docs/sources.md "Four-bar linkage") [derived].
     await expect.poll(() => page.getByTestId('grashof-class').textContent()).toMatch(/^crank-rocker/);
     // A coupler of 1100 mm makes s + l = 1450 > 1420: no link turns fully.
     await page.getByLabel('Coupler (mm)').fill('1100');

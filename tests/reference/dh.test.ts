@@ -1,5 +1,5 @@
 // Chain forward kinematics against published worked examples (sources named beside each check,
-// as in the project's reference list).
+// as listed in docs/sources.md).
 import { describe, expect, it } from 'vitest';
 import { chainFamily, chainParamsSchema, type ChainParams } from '@shared/kinematics/chain';
 

@@ -18,27 +18,27 @@ function pose(p: ReturnType<typeof fourBarPose>) {
 
 describe('four-bar against Norton, Design of Machinery, ch. 4', () => {
   it('Example 4-1 (a=2, b=7, c=9, d=6, θ2=30°): open θ3 = 88.84°, θ4 = 117.29°', () => {
-    // Source: Norton, Example 4-1 — value from memory, reproduced by derivation (REFERENCES.md [mem]).
+    // Source: Norton, Example 4-1 — value from memory, reproduced by derivation (docs/sources.md [mem]).
     const p = pose(fourBarPose(norton, 30, 'open'));
     expect(p.theta3Deg).toBeCloseTo(88.84, 2);
     expect(p.theta4Deg).toBeCloseTo(117.29, 2);
   });
 
   it('crossed branch θ3 = −115.21°, θ4 = −143.66°', () => {
-    // Source: same linkage, crossed circuit — derived from the law of cosines (REFERENCES.md [derived]).
+    // Source: same linkage, crossed circuit — derived from the law of cosines (docs/sources.md [derived]).
     const p = pose(fourBarPose(norton, 30, 'crossed'));
     expect(p.theta3Deg).toBeCloseTo(-115.21, 2);
     expect(p.theta4Deg).toBeCloseTo(-143.66, 1);
   });
 
   it('transmission angle μ = 28.45° at θ2 = 30°', () => {
-    // Source: transmission angle of Example 4-1 — derived (REFERENCES.md [derived]).
+    // Source: transmission angle of Example 4-1 — derived (docs/sources.md [derived]).
     expect(transmissionAngle(norton, 30)).toBeCloseTo(28.45, 2);
     expect(pose(fourBarPose(norton, 30, 'open')).transmissionDeg).toBeCloseTo(28.45, 2);
   });
 
   it('law of cosines route and Freudenstein half-angle form agree over many input angles and linkages', () => {
-    // Source: Freudenstein's equation, Norton ch. 4 form (REFERENCES.md [pub]) as an independent route.
+    // Source: Freudenstein's equation, Norton ch. 4 form (docs/sources.md [pub]) as an independent route.
     const linkages: FourBarLinks[] = [norton, { a: 3, b: 8, c: 6, d: 7 }, { a: 150, b: 1250, c: 150, d: 1250.5 }, { a: 5, b: 3, c: 4, d: 7 }];
     let compared = 0;
     for (const links of linkages) {
@@ -62,7 +62,7 @@ describe('four-bar against Norton, Design of Machinery, ch. 4', () => {
   });
 
   it('Grashof classes: s + l vs p + q and which link is shortest', () => {
-    // Source: Grashof condition, Norton ch. 2 (REFERENCES.md [pub]); Example 4-1 is a crank-rocker.
+    // Source: Grashof condition, Norton ch. 2 (docs/sources.md [pub]); Example 4-1 is a crank-rocker.
     expect(grashofClass(norton).kind).toBe('crank-rocker');
     expect(grashofClass({ a: 4, b: 7, c: 8, d: 2 }).kind).toBe('double-crank');
     expect(grashofClass({ a: 7, b: 2, c: 9, d: 6 }).kind).toBe('double-rocker');
@@ -72,7 +72,7 @@ describe('four-bar against Norton, Design of Machinery, ch. 4', () => {
   });
 
   it('assembly ranges: a crank-rocker turns fully, a triple rocker stops at its toggle angles', () => {
-    // Source: assembly condition |b − c| ≤ f ≤ b + c with the law of cosines for f (REFERENCES.md [pub]).
+    // Source: assembly condition |b − c| ≤ f ≤ b + c with the law of cosines for f (docs/sources.md [pub]).
     expect(assemblyRanges(norton)).toEqual([[-180, 180]]);
     const tripleRocker = { a: 5, b: 3, c: 4, d: 7 };
     const r = assemblyRanges(tripleRocker);

@@ -12,7 +12,7 @@ function lensArea(r: number, R: number, d: number): number {
 
 describe('geometry against published values', () => {
   it('shoelace formula: pentagon (3,4),(5,11),(12,8),(9,5),(5,6) has area 30', () => {
-    // Source: shoelace formula worked example, REFERENCES.md "Geometry" [pub, derived].
+    // Source: shoelace formula worked example, docs/sources.md "Geometry" [pub, derived].
     const ring: Array<[number, number]> = [[3, 4], [5, 11], [12, 8], [9, 5], [5, 6]];
     expect(Math.abs(ringArea(ring))).toBeCloseTo(30, 12);
     expect(ringArea([...ring].reverse())).toBeCloseTo(-ringArea(ring), 12);
@@ -20,7 +20,7 @@ describe('geometry against published values', () => {
   });
 
   it('annular sector formula A = (θ/2)(R² − r²): R = 1.8, r = 0.4, θ = 340° → 9.1385', () => {
-    // Source: annular sector area formula, REFERENCES.md "Geometry" [derived].
+    // Source: annular sector area formula, docs/sources.md "Geometry" [derived].
     expect(sectorArea(0.4, 1.8, 340)).toBeCloseTo(9.1385, 4);
     // The discretised polygon (in mm, scaled ×1000) errs outward but stays within 0.1 %.
     const poly = annularSector({ cx: 0, cy: 0, rInner: 400, rOuter: 1800, startDeg: 10, endDeg: 350, toleranceMm: 0.5 });

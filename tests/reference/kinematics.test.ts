@@ -15,7 +15,7 @@ function tool(f: ReturnType<typeof scaraForward>) {
 
 describe('forward kinematics against textbook closed forms', () => {
   it('planar 2R, l1 = l2 = 1 (1000 mm), θ = (30°, 45°) → (1.12484, 1.46593)', () => {
-    // Source: Spong, Hutchinson & Vidyasagar, planar elbow arm; Siciliano et al. §2.9 (REFERENCES.md, values [derived]).
+    // Source: Spong, Hutchinson & Vidyasagar, planar elbow arm; Siciliano et al. §2.9 (docs/sources.md, values [derived]).
     const p = parseArmParams({ family: 'scara', innerLink: 1000, outerLink: 1000, strokeMin: 0, strokeMax: 100, axes: free }) as ScaraParams;
     const f = tool(scaraForward(p, [30, 45, 0]));
     expect(f.wrist.x).toBeCloseTo(1124.84, 2);
@@ -23,7 +23,7 @@ describe('forward kinematics against textbook closed forms', () => {
   });
 
   it('planar 2R, l = (0.5, 0.4) m, θ = (0°, 90°) → (0.5, 0.4)', () => {
-    // Source: same closed form (REFERENCES.md [derived]).
+    // Source: same closed form (docs/sources.md [derived]).
     const p = parseArmParams({ family: 'scara', innerLink: 500, outerLink: 400, strokeMin: 0, strokeMax: 100, axes: free }) as ScaraParams;
     const f = tool(scaraForward(p, [0, 90, 50]));
     expect(f.wrist.x).toBeCloseTo(500, 9);
@@ -32,7 +32,7 @@ describe('forward kinematics against textbook closed forms', () => {
   });
 
   it('planar 2R reach annulus |l1 − l2| … l1 + l2 with unlimited θ2', () => {
-    // Source: Spong et al. / Siciliano et al. §2.9 (REFERENCES.md [pub]).
+    // Source: Spong et al. / Siciliano et al. §2.9 (docs/sources.md [pub]).
     const p = parseArmParams({ family: 'scara', innerLink: 500, outerLink: 400, strokeMin: 0, strokeMax: 100, axes: free }) as ScaraParams;
     const [lo, hi] = scaraRadialRange(p);
     expect(lo).toBeCloseTo(100, 9);
@@ -40,7 +40,7 @@ describe('forward kinematics against textbook closed forms', () => {
   });
 
   it('anthropomorphic 3R with base height: d1 = 300, a2 = 500, a3 = 400, θ = (45°, 30°, −60°) → (551.1, 551.1, 350.0) mm', () => {
-    // Source: Siciliano et al. §2.9.3 anthropomorphic arm with d1 added to z (REFERENCES.md, value [derived]).
+    // Source: Siciliano et al. §2.9.3 anthropomorphic arm with d1 added to z (docs/sources.md, value [derived]).
     const p = parseArmParams({ family: 'articulated', shoulderHeight: 300, shoulderOffset: 0, upperArm: 500, forearm: 400, axes: [ax(-180, 180), ax(-180, 180), ax(-180, 180)] }) as ArticulatedParams;
     const f = articulatedForward(p, [45, 30, -60]);
     if (!f.ok) throw new Error(f.message);

@@ -8,7 +8,7 @@ const ROLE_CLASS: Record<Role, string> = {
   client: 'text-role-client border-role-client/50',
 };
 
-/** Human labels of the roles of PRODUCT.md. */
+/** Human labels of the roles (docs/product.md "Roles"). */
 export const ROLE_LABEL: Record<Role, string> = {
   admin: 'Admin',
   planner: 'Planner',

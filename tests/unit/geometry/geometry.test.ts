@@ -90,7 +90,7 @@ describe('arc discretisation errs outward', () => {
 
 describe('annular sectors', () => {
   it('polygon area matches (θ/2)(R² − r²) to 0.1 % (0.2 mm chords) and never falls below it', () => {
-    // Source: annular sector area formula, REFERENCES.md "Geometry" [derived].
+    // Source: annular sector area formula, docs/sources.md "Geometry" [derived].
     fc.assert(
       fc.property(
         fc.double({ min: 0, max: 800, noNaN: true }),

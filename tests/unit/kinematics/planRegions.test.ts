@@ -21,7 +21,7 @@ const full = [ax(-180, 180), ax(-180, 180)];
 
 describe('reach bands and spaces', () => {
   it('band of a full-circle scara matches the annular sector formula to 0.1 % (0.25 mm chords)', () => {
-    // Source: annular sector area A = (θ/2)(R² − r²) (REFERENCES.md "Geometry" [derived]).
+    // Source: annular sector area A = (θ/2)(R² − r²) (docs/sources.md "Geometry" [derived]).
     const s = parseArmParams({ family: 'scara', innerLink: 400, outerLink: 250, strokeMin: 0, strokeMax: 300, toolLength: 50, axes: full });
     const band = bandPolygons(s, 100, null, 0.25);
     const exact = sectorArea(150, 650, 360);
@@ -32,7 +32,7 @@ describe('reach bands and spaces', () => {
   });
 
   it('restricted J1 band of an articulated arm matches (θ/2)(R² − r²) over its slice to 0.1 %', () => {
-    // Source: annular sector area formula (REFERENCES.md [derived]); θ = 90° from restricting limits −30…60°.
+    // Source: annular sector area formula (docs/sources.md [derived]); θ = 90° from restricting limits −30…60°.
     const a = articulatedSets[0];
     const zTool = a.shoulderHeight - a.toolLength;
     const slice = profileSliceAt(reachProfileOf(a), a.shoulderHeight);
@@ -69,7 +69,7 @@ describe('reach bands and spaces', () => {
   });
 
   it('maximum ⊇ restricted ⊇ band, and the space grows by payload (and tool for articulated arms)', () => {
-    // Source: ISO 10218 spaces, maximum ⊇ restricted ⊇ operating (REFERENCES.md [pub]).
+    // Source: ISO 10218 spaces, maximum ⊇ restricted ⊇ operating (docs/sources.md [pub]).
     for (const m of [articulatedSets[0], linkageSets[0], scaraSets[0]]) {
       const max = maximumSpacePolygons(m);
       const restricted = restrictedSpacePolygons(m, { j1Min: -40, j1Max: 40 });

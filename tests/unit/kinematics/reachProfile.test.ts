@@ -89,7 +89,7 @@ describe('scara plan region', () => {
   });
 
   it('a 2R with full J1 and J2 ranges gives the annulus |a1 − a2| … a1 + a2 (area to 0.1 % with 0.25 mm chords)', () => {
-    // Source: planar 2R reach annulus, Spong, Hutchinson & Vidyasagar (REFERENCES.md [pub]).
+    // Source: planar 2R reach annulus, Spong, Hutchinson & Vidyasagar (docs/sources.md [pub]).
     const p = { ...scaraSets[0], axes: [{ min: -180, max: 180, zeroOffset: 0, direction: 1 as const }, { min: -180, max: 180, zeroOffset: 0, direction: 1 as const }] };
     const region = scaraPlanRegion(p, undefined, 0.25);
     const exact = sectorArea(50, 600, 360);

@@ -5,7 +5,7 @@ import { withOpacity } from './pdfPaths';
 import type { Column } from './table';
 import type { PlanSheetInput, SheetKind, SheetSize } from './types';
 
-/** The cautions every page carries (PRODUCT.md "Cautions", in the product's wording). */
+/** The cautions every page carries (docs/product.md "Cautions", in the product's wording). */
 export const CAUTIONS: readonly string[] = [
   'Reach regions, distances and margins on this sheet are planning estimates from nominal kinematics and catalogue axis limits.',
   "Regions follow the tool point and payload only; the arm's own links, cables and dress pack are not included.",

@@ -13,7 +13,7 @@ const SEVERITY_WASH: Record<Severity, string> = {
   info: 'bg-finding-info-wash',
 };
 
-/** The caution every findings list carries (PRODUCT.md "Cautions the product always shows"). */
+/** The caution every findings list carries (docs/product.md "Cautions"). */
 export const PLANNING_CAUTION =
   'Planning estimates only: reach regions, shared zones and distances here come from nominal kinematics and the values entered. ' +
   'They are no substitute for the risk assessment (ISO 12100), the robot-system safety requirements of ISO 10218-2 or the arm maker’s stopping data. ' +
