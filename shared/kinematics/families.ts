@@ -9,6 +9,7 @@ import {
   type LinkageParams,
   type ScaraParams,
 } from '../schemas/armModel';
+import { canonicalJson } from '../canonicalJson';
 import { articulatedAxes, articulatedForward, articulatedJ1Range, articulatedReachProfile } from './articulated';
 import { chainFamily, type ChainParams } from './chain';
 import { linkageAxes, linkageFeasibility, linkageForward, linkageJ1Range, linkageReachProfile } from './linkage';
@@ -115,22 +116,12 @@ export function forwardModel(model: ArmParams, joints: readonly number[]): Forwa
   return familyOf(model).forward(model, joints);
 }
 
-/** JSON with object keys sorted, so equal parameter sets give equal keys whatever their key order. */
-export function stableKey(value: unknown): string {
-  return JSON.stringify(value, (_k, v: unknown) => {
-    if (v && typeof v === 'object' && !Array.isArray(v)) {
-      return Object.fromEntries(Object.keys(v as object).sort().map((k) => [k, (v as Record<string, unknown>)[k]]));
-    }
-    return v;
-  });
-}
-
 const PROFILE_CACHE_SIZE = 64;
 const profileCache = new Map<string, ReachProfile>();
 
-/** Side reach profile of any family, computed once per distinct parameter set (small LRU keyed by stable JSON), mm. */
+/** Side reach profile of any family, computed once per distinct parameter set (small LRU keyed by canonical JSON), mm. */
 export function reachProfileOf(model: ArmParams, opts: { toleranceMm?: number } = {}): ReachProfile {
-  const key = `${opts.toleranceMm ?? ''}|${stableKey(model)}`;
+  const key = `${opts.toleranceMm ?? ''}|${canonicalJson(model)}`;
   const hit = profileCache.get(key);
   if (hit) {
     profileCache.delete(key);

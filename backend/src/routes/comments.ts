@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { allow, currentUser } from '../auth/guards';
-import type { FeatureContext } from '../features';
+import type { FeatureContext } from '../featureContext';
 import { badRequest, conflict, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
 import { ReviewComment, User } from '../models';

@@ -2,26 +2,20 @@ import { Router, type Request } from 'express';
 import { z } from 'zod';
 import { can } from '@shared/policy';
 import { allow, currentUser } from '../auth/guards';
-import type { FeatureContext } from '../features';
+import type { FeatureContext } from '../featureContext';
 import { conflict, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
 import { Revision } from '../models';
+import { loadVisibleLayout } from '../services/layouts';
+import { mailContextFor } from '../services/mailContext';
 import { acknowledgeRevision, planSheetFor, releaseRevision, retryReleaseMail } from '../services/release';
-import type { MailContext } from '../services/reviewMail';
 import { decideRevision, loadVisibleRevision, presentRevisionDetail, presentRevisions, submitRevision } from '../services/revisions';
 import { loadVisibleProject } from '../services/projectAccess';
-import { loadVisibleLayout } from './layouts';
 
 const DecisionInput = z.object({
   decision: z.enum(['approve', 'request_changes'], { error: 'Choose approve or request changes' }),
   comment: z.string().max(10_000, 'Use at most 10 000 characters').default(''),
 });
-
-/** The mail context of a request: the configured public URL, or the request's own origin. */
-export function mailContextFor(ctx: FeatureContext, req: Request): MailContext {
-  const base = ctx.config.publicUrl ?? `${req.protocol}://${req.get('host') ?? '127.0.0.1'}`;
-  return { mailer: ctx.mailer, baseUrl: base.replace(/\/+$/, '') };
-}
 
 /** Revisions: submit (planner), decide (reviewer), release (planner), plan sheet, acknowledge (client). */
 export function revisionsRouter(ctx: FeatureContext): Router {
