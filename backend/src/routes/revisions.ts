@@ -87,7 +87,7 @@ export function revisionsRouter(ctx: FeatureContext): Router {
     const rev = await loadVisibleRevision(user, idParam(req.params.id, 'Revision'));
     if (rev.state !== 'released' && !can(user.role, 'revision.readDrafts')) throw notFound('Revision');
     const { pdf, draft } = await planSheetFor(rev, now());
-    const snapName = String((rev.snapshot as { project?: { name?: string } }).project?.name ?? 'plan-sheet').replace(/[^A-Za-z0-9._-]+/g, '-');
+    const snapName = rev.snapshot.project.name.replace(/[^A-Za-z0-9._-]+/g, '-');
     const name = `${snapName}-revision-${rev.letter}${draft ? '-DRAFT' : ''}.pdf`;
     res.set('Content-Type', 'application/pdf');
     res.set('Content-Disposition', `${req.query.download ? 'attachment' : 'inline'}; filename="${name}"`);
