@@ -1,4 +1,5 @@
-import { armReach, parseArmParams, stableKey } from '../kinematics';
+import { canonicalJson as stableKey } from '../canonicalJson';
+import { armReach, parseArmParams } from '../kinematics';
 import type { ArmPlacement } from '../schemas/layout';
 import type { ArmReach } from './types';
 

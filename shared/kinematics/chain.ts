@@ -20,82 +20,21 @@
  * otherwise the origin of the last joint frame (before the tool offset).
  * Failures carry `axis` numbered from 1 (1 = J1).
  *
+ * The parameter schema lives in schemas/armModel.ts (chainParamsSchema).
+ *
  * Reach profile: sampled (sampledProfile.ts) for the tool point with J1 at kinematic 0;
  * r = sign(x)·√(x²+y²), and the lateral offset is the mean y of those samples (see lateralOffset).
  */
-import { z } from 'zod';
+import { chainJointSchema, chainParamsSchema, type ChainJoint, type ChainParams } from '../schemas/armModel';
 import { DhPointEvaluator, chainTransforms, dhRowsAt, mat4Translation, type DhJoint, type Mat4 } from './dh';
 import { HaltonSequence, sampleProfile, type AxisRange, type SampledReachProfile } from './sampledProfile';
 import type { AxisInfo, FamilyModule, ForwardResult, Frame, Vec3 } from './types';
 
+export { chainJointSchema, chainParamsSchema, type ChainJoint, type ChainParams };
+
 const DEG = Math.PI / 180;
 /** Allowance on axis limits for values typed or computed at the limit (deg or mm). */
 const LIMIT_EPS = 1e-9;
-const MAX_LENGTH_MM = 100_000;
-const MAX_ANGLE_DEG = 720;
-
-const num = (what: string) => z.number({ error: `${what} must be a finite number` });
-const length = (what: string) =>
-  num(what).refine((v) => Math.abs(v) <= MAX_LENGTH_MM, { message: `${what} must be within ±${MAX_LENGTH_MM} mm` });
-const angle = (what: string) =>
-  num(what).refine((v) => Math.abs(v) <= MAX_ANGLE_DEG, { message: `${what} must be within ±${MAX_ANGLE_DEG}°` });
-const nonNegative = (what: string) => num(what).nonnegative({ message: `${what} must not be negative` });
-const positive = (what: string) => num(what).positive({ message: `${what} must be greater than 0` });
-
-export const chainJointSchema = z
-  .object({
-    type: z.enum(['revolute', 'prismatic'], { error: 'type must be revolute or prismatic' }),
-    a: length('a'),
-    alpha: angle('alpha'),
-    d: length('d'),
-    theta: angle('theta'),
-    min: length('min'),
-    max: length('max'),
-    zeroOffset: length('zeroOffset').optional(),
-    direction: z.union([z.literal(1), z.literal(-1)], { error: 'direction must be 1 or -1' }).optional(),
-  })
-  .superRefine((j, ctx) => {
-    if (j.min >= j.max) ctx.addIssue({ code: 'custom', path: ['max'], message: 'max must be greater than min' });
-    if (j.type === 'revolute') {
-      if (Math.abs(j.min) > MAX_ANGLE_DEG) ctx.addIssue({ code: 'custom', path: ['min'], message: `min must be within ±${MAX_ANGLE_DEG}°` });
-      if (Math.abs(j.max) > MAX_ANGLE_DEG) ctx.addIssue({ code: 'custom', path: ['max'], message: `max must be within ±${MAX_ANGLE_DEG}°` });
-    }
-  });
-export type ChainJoint = z.infer<typeof chainJointSchema>;
-
-export const chainParamsSchema = z
-  .object({
-    family: z.literal('chain', { error: "family must be 'chain'" }),
-    convention: z.enum(['standard', 'modified'], { error: 'convention must be standard or modified' }),
-    joints: z
-      .array(chainJointSchema, { error: 'joints must be a list' })
-      .min(1, { message: 'Add at least one joint' })
-      .max(8, { message: 'At most 8 joints' }),
-    tool: z.object({ x: length('tool x'), y: length('tool y'), z: length('tool z') }, { error: 'tool must be {x, y, z} in mm' }),
-    toolLength: nonNegative('toolLength').optional(),
-    payloadRadius: nonNegative('payloadRadius').optional(),
-    stopTimeS: positive('stopTimeS').optional(),
-    stopDistanceMm: nonNegative('stopDistanceMm').optional(),
-    maxSpeedMmS: positive('maxSpeedMmS').optional(),
-    payloadKg: nonNegative('payloadKg').optional(),
-  })
-  .superRefine((p, ctx) => {
-    const first = p.joints[0];
-    if (!first) return;
-    if (first.type !== 'revolute') {
-      ctx.addIssue({ code: 'custom', path: ['joints', 0, 'type'], message: 'Joint 1 must be revolute about the vertical base axis' });
-    }
-    if (p.convention === 'modified') {
-      const turns = first.alpha / 360;
-      if (Math.abs(turns - Math.round(turns)) > 1e-12) {
-        ctx.addIssue({ code: 'custom', path: ['joints', 0, 'alpha'], message: 'Joint 1 axis must be vertical: alpha of row 1 must be 0' });
-      }
-      if (first.a !== 0) {
-        ctx.addIssue({ code: 'custom', path: ['joints', 0, 'a'], message: 'Joint 1 axis must pass through the base origin: a of row 1 must be 0' });
-      }
-    }
-  });
-export type ChainParams = z.infer<typeof chainParamsSchema>;
 
 /** Constant DH part of each joint, radians and mm (the joint variable is added to θ or d). */
 export function chainDhJoints(params: ChainParams): DhJoint[] {

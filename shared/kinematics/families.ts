@@ -1,4 +1,5 @@
 import {
+  ArmModelInput,
   armParamsSchema,
   articulatedParamsSchema,
   linkageParamsSchema,
@@ -8,9 +9,10 @@ import {
   type LinkageParams,
   type ScaraParams,
 } from '../schemas/armModel';
+import { canonicalJson } from '../canonicalJson';
 import { articulatedAxes, articulatedForward, articulatedJ1Range, articulatedReachProfile } from './articulated';
 import { chainFamily, type ChainParams } from './chain';
-import { linkageAxes, linkageForward, linkageJ1Range, linkageReachProfile } from './linkage';
+import { linkageAxes, linkageFeasibility, linkageForward, linkageJ1Range, linkageReachProfile } from './linkage';
 import { scaraAxes, scaraForward, scaraJ1Range, scaraReachProfile } from './scara';
 import type { FamilyModule, ForwardResult, ReachProfile } from './types';
 
@@ -64,9 +66,45 @@ export function familyOf<M extends ArmParams>(model: M): FamilyModule<M> {
   return fam as unknown as FamilyModule<M>;
 }
 
-/** Validates raw parameter JSON (defaults applied); throws a short message naming the first bad field. */
+/** A problem with parameters that only the kinematics can see, at a field path of the parameters. */
+export interface ArmParamsIssue {
+  path: Array<string | number>;
+  message: string;
+}
+
+/**
+ * Checks the schema cannot make (it imports no kinematics): a linkage's four-bar must assemble, and
+ * keep the upper arm–forearm angle within interiorAngle, somewhere in the J2/J3 motor ranges.
+ * Skipped while the schema's own linkage checks fail (interior angle order, ground link), as those
+ * come first.
+ */
+export function armParamsFeasibilityIssues(p: Readonly<ArmParams>): ArmParamsIssue[] {
+  if (p.family !== 'linkage') return [];
+  if (!(p.interiorAngle.min < p.interiorAngle.max)) return [];
+  const fb = p.fourBar;
+  if (fb && (Math.abs(fb.ground - p.upperArm) > 1 || Math.abs(fb.groundAngle) > 0.5)) return [];
+  if (p.axes.length !== 3) return [];
+  const verdict = linkageFeasibility(p);
+  if (verdict === 'not-assemblable') {
+    return [{ path: ['fourBar'], message: 'The four-bar does not assemble anywhere in the J2/J3 motor ranges: check the link lengths, the branch and the axis limits' }];
+  }
+  if (verdict === 'interior-angle') {
+    return [{ path: ['interiorAngle'], message: 'No pose in the motor ranges keeps the upper arm–forearm angle within interiorAngle: widen it or check the axis limits' }];
+  }
+  return [];
+}
+
+/** The arm parameter schema with the kinematic checks added (what the server and the model form validate with). */
+export const feasibleArmParamsSchema = armParamsSchema.superRefine((p, ctx) => {
+  for (const issue of armParamsFeasibilityIssues(p)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+});
+
+/** A create or update of an arm model (name + parameters), with the kinematic checks added. */
+export const FeasibleArmModelInput = ArmModelInput.extend({ params: feasibleArmParamsSchema });
+
+/** Validates raw parameter JSON (defaults applied, kinematic checks made); throws a short message naming the first bad field. */
 export function parseArmParams(raw: unknown): ArmParams {
-  const r = armParamsSchema.safeParse(raw);
+  const r = feasibleArmParamsSchema.safeParse(raw);
   if (r.success) return r.data;
   const first = r.error.issues[0];
   const where = first && first.path.length ? first.path.join('.') : 'model';
@@ -78,22 +116,12 @@ export function forwardModel(model: ArmParams, joints: readonly number[]): Forwa
   return familyOf(model).forward(model, joints);
 }
 
-/** JSON with object keys sorted, so equal parameter sets give equal keys whatever their key order. */
-export function stableKey(value: unknown): string {
-  return JSON.stringify(value, (_k, v: unknown) => {
-    if (v && typeof v === 'object' && !Array.isArray(v)) {
-      return Object.fromEntries(Object.keys(v as object).sort().map((k) => [k, (v as Record<string, unknown>)[k]]));
-    }
-    return v;
-  });
-}
-
 const PROFILE_CACHE_SIZE = 64;
 const profileCache = new Map<string, ReachProfile>();
 
-/** Side reach profile of any family, computed once per distinct parameter set (small LRU keyed by stable JSON), mm. */
+/** Side reach profile of any family, computed once per distinct parameter set (small LRU keyed by canonical JSON), mm. */
 export function reachProfileOf(model: ArmParams, opts: { toleranceMm?: number } = {}): ReachProfile {
-  const key = `${opts.toleranceMm ?? ''}|${stableKey(model)}`;
+  const key = `${opts.toleranceMm ?? ''}|${canonicalJson(model)}`;
   const hit = profileCache.get(key);
   if (hit) {
     profileCache.delete(key);

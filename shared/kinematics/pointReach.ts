@@ -1,3 +1,4 @@
+import { canonicalJson } from '../canonicalJson';
 import { toRadians } from '../geometry/angles';
 import { clipOffset } from '../geometry/clipper';
 import { buildDistanceGrid, type DistanceGrid } from '../geometry/distanceGrid';
@@ -5,7 +6,7 @@ import { simplifyPolygonsOutward } from '../geometry/simplify';
 import type { Polygon2 } from '../geometry/types';
 import type { ArmParams, ScaraParams } from '../schemas/armModel';
 import type { ReachProfile } from './types';
-import { familyOf, reachProfileOf, stableKey } from './families';
+import { familyOf, reachProfileOf } from './families';
 import { bandPolygons, j1KinematicRange, restrictedBelowPolygons, restrictedSpacePolygons, toolDrop, type J1Restrict } from './planRegions';
 import { scaraPlanRegion } from './scara';
 
@@ -238,7 +239,7 @@ export function armReach(model: ArmParams, restrict?: J1Restrict | null) {
   const margin = marginFnOf(model, restrict);
   const payload = model.payloadRadius ?? 0;
   return {
-    key: stableKey({ model, restrict: restrict ?? null }),
+    key: canonicalJson({ model, restrict: restrict ?? null }),
     maxReach,
     zMin: profile.zMin - toolDrop(model) - payload,
     zMax: profile.zMax + payload,

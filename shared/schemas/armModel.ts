@@ -1,38 +1,23 @@
 import { z } from 'zod';
-import { chainParamsSchema } from '../kinematics/chain';
-import { linkageFeasibility } from '../kinematics/linkage';
+import { degrees, lengthMm, MAX_ANGLE_DEG, nonNegativeMm, nonNegativeNumber, positiveMm, positiveNumber } from './fields';
 
 /**
  * Arm model parameters: a discriminated union on `family` (lengths mm, angles degrees).
  * Common to scara / articulated / linkage: `toolLength` (default 0; the tool points straight down
  * from the flange), `payloadRadius` (default 0), optional stopping data, and `axes` for the
  * revolute axes: controller angle → kinematic angle = direction · angle + zeroOffset.
- * The chain family brings its own schema (DH table, see kinematics/chain.ts).
+ * The chain family is a DH table (see kinematics/chain.ts for its conventions).
  * Messages name what to change; `superRefine` issues carry the field path.
+ * Whether a linkage's four-bar assembles needs the kinematics: `parseArmParams` and
+ * `feasibleArmParamsSchema` in shared/kinematics add that check.
  */
-
-const MAX_LENGTH_MM = 100_000;
-const MAX_ANGLE_DEG = 720;
-
-const num = (what: string) =>
-  z
-    .number({ error: `${what} must be a number` })
-    .refine(Number.isFinite, { message: `${what} must be a finite number` })
-    .refine((v) => Math.abs(v) <= MAX_LENGTH_MM, { message: `${what} must be within ±${MAX_LENGTH_MM} mm` });
-const positive = (what: string) => num(what).refine((v) => v > 0, { message: `${what} must be greater than 0` });
-const nonNegative = (what: string) => num(what).refine((v) => v >= 0, { message: `${what} must not be negative` });
-const angle = (what: string) =>
-  z
-    .number({ error: `${what} must be a number` })
-    .refine(Number.isFinite, { message: `${what} must be a finite number` })
-    .refine((v) => Math.abs(v) <= MAX_ANGLE_DEG, { message: `${what} must be within ±${MAX_ANGLE_DEG}°` });
 
 /** One revolute axis: limits in controller degrees and the controller → kinematic mapping. */
 export const axisSchema = z
   .object({
-    min: angle('min'),
-    max: angle('max'),
-    zeroOffset: angle('zeroOffset').default(0),
+    min: degrees('min'),
+    max: degrees('max'),
+    zeroOffset: degrees('zeroOffset').default(0),
     direction: z.union([z.literal(1), z.literal(-1)], { error: 'direction must be 1 or -1' }).default(1),
   })
   .superRefine((a, ctx) => {
@@ -42,12 +27,12 @@ export const axisSchema = z
 export type AxisParams = z.infer<typeof axisSchema>;
 
 const commonFields = {
-  toolLength: nonNegative('toolLength').default(0),
-  payloadRadius: nonNegative('payloadRadius').default(0),
-  stopTimeS: z.number({ error: 'stopTimeS must be a number' }).positive({ message: 'stopTimeS must be greater than 0' }).max(60).optional(),
-  stopDistanceMm: nonNegative('stopDistanceMm').optional(),
-  maxSpeedMmS: positive('maxSpeedMmS').optional(),
-  payloadKg: z.number({ error: 'payloadKg must be a number' }).nonnegative({ message: 'payloadKg must not be negative' }).max(100_000).optional(),
+  toolLength: nonNegativeMm('toolLength').default(0),
+  payloadRadius: nonNegativeMm('payloadRadius').default(0),
+  stopTimeS: positiveNumber('stopTimeS').max(60).optional(),
+  stopDistanceMm: nonNegativeMm('stopDistanceMm').optional(),
+  maxSpeedMmS: positiveMm('maxSpeedMmS').optional(),
+  payloadKg: nonNegativeNumber('payloadKg').max(100_000).optional(),
 };
 
 const axes = (count: number, labels: string) =>
@@ -56,10 +41,10 @@ const axes = (count: number, labels: string) =>
 export const scaraParamsSchema = z
   .object({
     family: z.literal('scara', { error: "family must be 'scara'" }),
-    innerLink: positive('innerLink'),
-    outerLink: positive('outerLink'),
-    strokeMin: num('strokeMin'),
-    strokeMax: num('strokeMax'),
+    innerLink: positiveMm('innerLink'),
+    outerLink: positiveMm('outerLink'),
+    strokeMin: lengthMm('strokeMin'),
+    strokeMax: lengthMm('strokeMax'),
     axes: axes(2, 'J1, J2'),
     ...commonFields,
   })
@@ -69,11 +54,11 @@ export const scaraParamsSchema = z
 export type ScaraParams = z.infer<typeof scaraParamsSchema>;
 
 const armFields = {
-  shoulderHeight: num('shoulderHeight'),
-  shoulderOffset: nonNegative('shoulderOffset'),
-  upperArm: positive('upperArm'),
-  forearm: positive('forearm'),
-  elbowOffset: num('elbowOffset').default(0),
+  shoulderHeight: lengthMm('shoulderHeight'),
+  shoulderOffset: nonNegativeMm('shoulderOffset'),
+  upperArm: positiveMm('upperArm'),
+  forearm: positiveMm('forearm'),
+  elbowOffset: lengthMm('elbowOffset').default(0),
 };
 
 export const articulatedParamsSchema = z.object({
@@ -85,13 +70,13 @@ export const articulatedParamsSchema = z.object({
 export type ArticulatedParams = z.infer<typeof articulatedParamsSchema>;
 
 export const fourBarParamsSchema = z.object({
-  ground: positive('ground'),
-  crank: positive('crank'),
-  coupler: positive('coupler'),
-  rocker: positive('rocker'),
-  groundAngle: angle('groundAngle').default(0),
+  ground: positiveMm('ground'),
+  crank: positiveMm('crank'),
+  coupler: positiveMm('coupler'),
+  rocker: positiveMm('rocker'),
+  groundAngle: degrees('groundAngle').default(0),
   branch: z.enum(['open', 'crossed'], { error: "branch must be 'open' or 'crossed'" }).default('open'),
-  rockerToForearm: angle('rockerToForearm').default(0),
+  rockerToForearm: degrees('rockerToForearm').default(0),
 });
 export type FourBarParams = z.infer<typeof fourBarParamsSchema>;
 
@@ -100,10 +85,10 @@ export const linkageParamsSchema = z
     family: z.literal('linkage', { error: "family must be 'linkage'" }),
     ...armFields,
     flangeOffset: z
-      .object({ horizontal: num('flangeOffset.horizontal').default(0), vertical: num('flangeOffset.vertical').default(0) })
+      .object({ horizontal: lengthMm('flangeOffset.horizontal').default(0), vertical: lengthMm('flangeOffset.vertical').default(0) })
       .default({ horizontal: 0, vertical: 0 }),
     fourBar: fourBarParamsSchema.nullable(),
-    interiorAngle: z.object({ min: angle('interiorAngle.min'), max: angle('interiorAngle.max') }),
+    interiorAngle: z.object({ min: degrees('interiorAngle.min'), max: degrees('interiorAngle.max') }),
     axes: axes(3, 'J1, J2 motor, J3 motor'),
     ...commonFields,
   })
@@ -134,26 +119,70 @@ export const linkageParamsSchema = z
         return;
       }
     }
-    if (p.axes.length !== 3) return;
-    const verdict = linkageFeasibility(p);
-    if (verdict === 'not-assemblable') {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['fourBar'],
-        message: 'The four-bar does not assemble anywhere in the J2/J3 motor ranges: check the link lengths, the branch and the axis limits',
-      });
-    } else if (verdict === 'interior-angle') {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['interiorAngle'],
-        message: 'No pose in the motor ranges keeps the upper arm–forearm angle within interiorAngle: widen it or check the axis limits',
-      });
-    }
   });
 export type LinkageParams = z.infer<typeof linkageParamsSchema>;
 
-export { chainParamsSchema };
-export type { ChainParams } from '../kinematics/chain';
+/** Messages of the chain family name a value that is not a number as "not a finite number". */
+const notFinite = (what: string) => `${what} must be a finite number`;
+const chainLength = (what: string) => lengthMm(what, notFinite(what));
+const chainAngle = (what: string) => degrees(what, notFinite(what));
+
+/** One DH row: constant a, alpha, d, theta and the joint limits in controller units (deg or mm). */
+export const chainJointSchema = z
+  .object({
+    type: z.enum(['revolute', 'prismatic'], { error: 'type must be revolute or prismatic' }),
+    a: chainLength('a'),
+    alpha: chainAngle('alpha'),
+    d: chainLength('d'),
+    theta: chainAngle('theta'),
+    min: chainLength('min'),
+    max: chainLength('max'),
+    zeroOffset: chainLength('zeroOffset').optional(),
+    direction: z.union([z.literal(1), z.literal(-1)], { error: 'direction must be 1 or -1' }).optional(),
+  })
+  .superRefine((j, ctx) => {
+    if (j.min >= j.max) ctx.addIssue({ code: 'custom', path: ['max'], message: 'max must be greater than min' });
+    if (j.type === 'revolute') {
+      if (Math.abs(j.min) > MAX_ANGLE_DEG) ctx.addIssue({ code: 'custom', path: ['min'], message: `min must be within ±${MAX_ANGLE_DEG}°` });
+      if (Math.abs(j.max) > MAX_ANGLE_DEG) ctx.addIssue({ code: 'custom', path: ['max'], message: `max must be within ±${MAX_ANGLE_DEG}°` });
+    }
+  });
+export type ChainJoint = z.infer<typeof chainJointSchema>;
+
+/** The chain family: a DH table (standard or modified), the tool point in the last frame, mm. */
+export const chainParamsSchema = z
+  .object({
+    family: z.literal('chain', { error: "family must be 'chain'" }),
+    convention: z.enum(['standard', 'modified'], { error: 'convention must be standard or modified' }),
+    joints: z
+      .array(chainJointSchema, { error: 'joints must be a list' })
+      .min(1, { message: 'Add at least one joint' })
+      .max(8, { message: 'At most 8 joints' }),
+    tool: z.object({ x: chainLength('tool x'), y: chainLength('tool y'), z: chainLength('tool z') }, { error: 'tool must be {x, y, z} in mm' }),
+    toolLength: nonNegativeNumber('toolLength', notFinite('toolLength')).optional(),
+    payloadRadius: nonNegativeNumber('payloadRadius', notFinite('payloadRadius')).optional(),
+    stopTimeS: positiveNumber('stopTimeS', notFinite('stopTimeS')).optional(),
+    stopDistanceMm: nonNegativeNumber('stopDistanceMm', notFinite('stopDistanceMm')).optional(),
+    maxSpeedMmS: positiveNumber('maxSpeedMmS', notFinite('maxSpeedMmS')).optional(),
+    payloadKg: nonNegativeNumber('payloadKg', notFinite('payloadKg')).optional(),
+  })
+  .superRefine((p, ctx) => {
+    const first = p.joints[0];
+    if (!first) return;
+    if (first.type !== 'revolute') {
+      ctx.addIssue({ code: 'custom', path: ['joints', 0, 'type'], message: 'Joint 1 must be revolute about the vertical base axis' });
+    }
+    if (p.convention === 'modified') {
+      const turns = first.alpha / 360;
+      if (Math.abs(turns - Math.round(turns)) > 1e-12) {
+        ctx.addIssue({ code: 'custom', path: ['joints', 0, 'alpha'], message: 'Joint 1 axis must be vertical: alpha of row 1 must be 0' });
+      }
+      if (first.a !== 0) {
+        ctx.addIssue({ code: 'custom', path: ['joints', 0, 'a'], message: 'Joint 1 axis must pass through the base origin: a of row 1 must be 0' });
+      }
+    }
+  });
+export type ChainParams = z.infer<typeof chainParamsSchema>;
 
 /** Parameters of any arm model family, discriminated on `family`. */
 export const armParamsSchema = z.discriminatedUnion('family', [scaraParamsSchema, articulatedParamsSchema, linkageParamsSchema, chainParamsSchema], {

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { FeatureCollection, Geometry } from 'geojson';
+import { finiteNumber, MAX_LENGTH_MM } from './fields';
 
 /**
  * Drawing units a floor plan can be read in: every $INSUNITS code 1–24 of the DXF reference
@@ -115,11 +116,9 @@ export const DEFAULT_ROLE_HEIGHT: Record<LayerRole, number | null> = {
 export const LayerPatch = z.object({
   name: z.string().min(1, 'Name the layer').max(255),
   role: LayerRole.optional(),
-  height: z
-    .number({ message: 'Enter a height in mm' })
-    .finite()
+  height: finiteNumber('height', 'Enter a height in mm')
     .positive('Height must be above the floor')
-    .max(100_000, 'Height must be at most 100 m')
+    .max(MAX_LENGTH_MM, 'Height must be at most 100 m')
     .nullable()
     .optional(),
 });

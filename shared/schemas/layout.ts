@@ -1,27 +1,27 @@
 import { z } from 'zod';
+import { finiteNumber, positiveId } from './fields';
 
-const finite = (what: string) => z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be finite`);
 const Id = z
   .string()
   .trim()
   .min(1, 'Give it an id')
   .max(24, 'Use at most 24 characters')
   .regex(/^[A-Za-z0-9_.-]+$/, 'Use letters, digits, _ . or - only');
-const PlanXY = z.tuple([finite('x'), finite('y')]);
+const PlanXY = z.tuple([finiteNumber('x'), finiteNumber('y')]);
 
 /** One arm placed on a layout: plan position (mm), yaw (deg CCW from +x), mount height (mm). */
 export const ArmPlacement = z
   .object({
     id: Id,
-    armModelId: z.number().int().positive('Choose an arm model'),
+    armModelId: positiveId('Choose an arm model'),
     label: z.string().trim().max(60).default(''),
-    x: finite('x'),
-    y: finite('y'),
-    yaw: finite('Yaw'),
-    mountHeight: finite('Mount height').default(0),
+    x: finiteNumber('x'),
+    y: finiteNumber('y'),
+    yaw: finiteNumber('Yaw'),
+    mountHeight: finiteNumber('Mount height').default(0),
     /** Restricting J1 limits (controller degrees) set by mechanical stops or safety-rated soft limits. */
     restrict: z
-      .object({ j1Min: finite('J1 min'), j1Max: finite('J1 max') })
+      .object({ j1Min: finiteNumber('J1 min'), j1Max: finiteNumber('J1 max') })
       .refine((r) => r.j1Min < r.j1Max, { message: 'J1 min must be below J1 max', path: ['j1Max'] })
       .optional(),
   })
@@ -32,9 +32,9 @@ export type ArmPlacement = z.infer<typeof ArmPlacement>;
 export const WorkPoint = z
   .object({
     id: Id,
-    x: finite('x'),
-    y: finite('y'),
-    z: finite('z'),
+    x: finiteNumber('x'),
+    y: finiteNumber('y'),
+    z: finiteNumber('z'),
     approach: z.enum(['top', 'any']).default('top'),
     tag: z.string().trim().max(60).default(''),
     assignedArm: Id.optional(),
@@ -50,7 +50,7 @@ export const Zone = z
     label: z.string().trim().max(60).default(''),
     points: z.array(PlanXY).max(2000, 'At most 2000 points'),
     /** Fence height (mm above floor); required for fences. */
-    height: finite('Height').positive('Height must be above 0').optional(),
+    height: finiteNumber('Height').positive('Height must be above 0').optional(),
     /** For an opening: the fence it is cut into. */
     fenceId: Id.optional(),
   })
@@ -86,7 +86,7 @@ export const LayoutContent = z
     arms: z.array(ArmPlacement).max(500).default([]),
     workPoints: z.array(WorkPoint).max(200_000).default([]),
     zones: z.array(Zone).max(2000).default([]),
-    workHeights: z.array(finite('Work height')).max(20).default([]),
+    workHeights: z.array(finiteNumber('Work height')).max(20).default([]),
   })
   .strict()
   .superRefine((c, ctx) => {
@@ -110,14 +110,14 @@ export type LayoutContent = z.infer<typeof LayoutContent>;
 
 export const LayoutCreateInput = z.object({
   name: z.string().trim().min(1, 'Name the layout').max(160),
-  floorPlanId: z.number().int().positive().nullable().default(null),
+  floorPlanId: positiveId().nullable().default(null),
   content: LayoutContent.default({ arms: [], workPoints: [], zones: [], workHeights: [] }),
 });
 
 export const LayoutUpdateInput = z.object({
-  version: z.number().int().positive('Send the version you edited'),
+  version: positiveId('Send the version you edited'),
   name: z.string().trim().min(1, 'Name the layout').max(160).optional(),
-  floorPlanId: z.number().int().positive().nullable().optional(),
+  floorPlanId: positiveId().nullable().optional(),
   content: LayoutContent.optional(),
 });
 

@@ -3,6 +3,7 @@ import { createHash } from 'node:crypto';
 import type { Express } from 'express';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { RevisionDiff, RevisionSnapshot } from '@shared/schemas/revision';
 import { AuditEvent, Layout, MailDelivery, MailMessage, Revision } from '../../backend/src/models';
 import { startFakeSmtp, type FakeSmtp } from '../../backend/src/services/mail/fakeSmtp';
 import { createMailer, type Mailer } from '../../backend/src/services/mail/mailer';
@@ -99,6 +100,8 @@ describe('review and release workflow', () => {
     const rowA = await Revision.findByPk(revA.id);
     expect(rowA!.checksum).toBe(sha256(JSON.stringify(sorted(rowA!.snapshot))));
     expect(rowA!.checksum).toBe(revA.checksum);
+    // The stored snapshot has the shape the shared schema (and so the review page) expects.
+    expect(RevisionSnapshot.safeParse(rowA!.snapshot).error?.issues ?? []).toEqual([]);
     // Only one open revision per layout.
     expect((await P.post(`/api/layouts/${layout.id}/revisions`)).status).toBe(409);
 
@@ -109,7 +112,7 @@ describe('review and release workflow', () => {
 
     // Immutable: every attempt to change it is a conflict, and the database refuses it too.
     for (const m of ['put', 'patch', 'delete'] as const) expect((await P[m](`/api/revisions/${revA.id}`).send({ letter: 'Z' })).status).toBe(409);
-    await expect(Revision.update({ snapshot: { tampered: true } }, { where: { id: revA.id } })).rejects.toThrow(/immutable/);
+    await expect(Revision.update({ snapshot: { ...rowA!.snapshot, layout: { ...rowA!.snapshot.layout, name: 'tampered' } } }, { where: { id: revA.id } })).rejects.toThrow(/immutable/);
     expect((await Revision.findByPk(revA.id))!.checksum).toBe(revA.checksum);
 
     // Comments: on a finding (stable id) and on a spot.
@@ -142,6 +145,7 @@ describe('review and release workflow', () => {
     const revB = subB.body.revision;
     expect(revB.letter).toBe('B');
     // Diff against A: a 3-4-5 right triangle gives 5000 mm exactly (Pythagoras).
+    expect(RevisionDiff.safeParse(revB.diff).error?.issues ?? []).toEqual([]);
     expect(revB.diff.previous).toEqual({ id: revA.id, letter: 'A' });
     expect(revB.diff.arms.moved).toHaveLength(1);
     expect(revB.diff.arms.moved[0]).toMatchObject({ id: 'R1', from: [4000, 3000], to: [1000, -1000] });

@@ -11,14 +11,14 @@ export async function buildReleasedRevision(projectId: number, layoutId: number)
   const snapshot = await buildSnapshot(layout);
   const at = new Date('2026-11-02T09:00:00Z');
   const released = await Revision.create({
-    layoutId, projectId, letter: 'A', snapshot: snapshot as unknown as Record<string, unknown>, checksum: snapshotChecksum(snapshot),
+    layoutId, projectId, letter: 'A', snapshot, checksum: snapshotChecksum(snapshot),
     state: 'released', submittedBy: null, submittedAt: at, decidedAt: at, releasedAt: at, sheetCreatedAt: at,
   });
   const pdf = await renderPlanSheet(await loadRevisionSheetInput(released), { size: 'A3', draft: false, createdAt: at });
   await released.update({ planSheet: pdf, planSheetChecksum: createHash('sha256').update(pdf).digest('hex') });
   await MailDelivery.create({ kind: 'release', revisionId: released.id, to: [], subject: 'fixture', status: 'sent', createdAt: at });
   const submitted = await Revision.create({
-    layoutId, projectId, letter: 'B', snapshot: snapshot as unknown as Record<string, unknown>, checksum: snapshotChecksum(snapshot),
+    layoutId, projectId, letter: 'B', snapshot, checksum: snapshotChecksum(snapshot),
     state: 'submitted', submittedBy: null, submittedAt: at,
   });
   return { released, submitted };

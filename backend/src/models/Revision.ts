@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { RevisionSnapshot } from '@shared/schemas/revision';
 
 export const REVISION_STATES = ['submitted', 'changes_requested', 'approved', 'released'] as const;
 export type RevisionState = (typeof REVISION_STATES)[number];
@@ -12,7 +13,8 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
   declare layoutId: number;
   declare projectId: number;
   declare letter: string;
-  declare snapshot: Record<string, unknown>;
+  /** Frozen when the revision is submitted (shared/schemas/revision.ts); JSON as written. */
+  declare snapshot: RevisionSnapshot;
   /** sha256 of the canonical JSON of `snapshot`, hex. */
   declare checksum: string;
   declare state: RevisionState;

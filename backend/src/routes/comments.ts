@@ -1,12 +1,12 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { allow, currentUser } from '../auth/guards';
-import type { FeatureContext } from '../features';
+import type { FeatureContext } from '../featureContext';
 import { badRequest, conflict, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
 import { ReviewComment, User } from '../models';
 import { audit } from '../services/audit/audit';
-import { loadVisibleRevision, presentComment, type RevisionSnapshot } from '../services/revisions';
+import { loadVisibleRevision, presentComment } from '../services/revisions';
 
 const finite = z.number().refine(Number.isFinite, 'must be finite');
 const CommentInput = z
@@ -31,7 +31,7 @@ export function commentsRouter(ctx: FeatureContext): Router {
     const input = parseOr400(CommentInput, req.body, 'The comment');
     if (rev.state === 'released') throw conflict(`Revision ${rev.letter} is released; its comments are read-only.`);
     if (input.findingId) {
-      const findings = (rev.snapshot as unknown as RevisionSnapshot).analysis.findings;
+      const findings = rev.snapshot.analysis.findings;
       if (!findings.some((f) => f.id === input.findingId)) throw badRequest(`Revision ${rev.letter} has no finding ${input.findingId}.`, { findingId: 'No such finding on this revision' });
     }
     const c = await ctx.sequelize.transaction(async (transaction) => {

@@ -3,11 +3,11 @@ import { Op } from 'sequelize';
 import { z } from 'zod';
 import { Email, Password, Role } from '@shared/schemas/user';
 import { allow, currentUser } from '../auth/guards';
-import type { FeatureContext } from '../features';
+import type { FeatureContext } from '../featureContext';
 import { idParam, parseOr400 } from '../http/validate';
 import { Invitation, Project, User } from '../models';
+import { mailContextFor } from '../services/mailContext';
 import { acceptInvitation, createInvitation, findByToken, invitationGone, revokeInvitation } from '../services/invitations';
-import { mailContextFor } from './revisions';
 
 const InvitationInput = z.object({ email: Email, role: Role, projectId: z.number().int().positive().nullable().optional() }).strict();
 const AcceptInput = z.object({ name: z.string().trim().min(1, 'Enter your name').max(120), password: Password }).strict();

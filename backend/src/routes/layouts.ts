@@ -1,37 +1,14 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
-import { LayoutContent, LayoutCreateInput, LayoutUpdateInput, type LayoutDto } from '@shared/schemas/layout';
-import type { SessionUser } from '../auth/passport';
+import { LayoutContent, LayoutCreateInput, LayoutUpdateInput } from '@shared/schemas/layout';
 import { allow, currentUser } from '../auth/guards';
 import { badRequest, conflict, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
 import { ArmModel, FloorPlan, Layout } from '../models';
 import { audit } from '../services/audit/audit';
 import { analyzeLayout } from '../services/layoutAnalysis';
+import { loadVisibleLayout, presentLayout } from '../services/layouts';
 import { loadVisibleProject } from '../services/projectAccess';
-
-export function presentLayout(l: Layout): LayoutDto {
-  return {
-    id: l.id,
-    projectId: l.projectId,
-    floorPlanId: l.floorPlanId,
-    name: l.name,
-    content: l.content as LayoutContent,
-    version: l.version,
-    createdAt: l.createdAt.toISOString(),
-    updatedAt: l.updatedAt.toISOString(),
-  };
-}
-
-/** Loads a layout whose project the user may see, or 404. */
-export async function loadVisibleLayout(user: SessionUser, id: number): Promise<Layout> {
-  const layout = await Layout.findByPk(id);
-  if (!layout) throw notFound('Layout');
-  await loadVisibleProject(user, layout.projectId).catch(() => {
-    throw notFound('Layout');
-  });
-  return layout;
-}
 
 /** Checks references the schema cannot: arm models exist, the floor plan is in the same project. */
 async function checkReferences(projectId: number, floorPlanId: number | null | undefined, content: LayoutContent | undefined) {

@@ -2,8 +2,8 @@ import { Router } from 'express';
 import { allow, currentUser } from '../auth/guards';
 import { badRequest } from '../http/errors';
 import { idParam } from '../http/validate';
+import { loadVisibleLayout } from '../services/layouts';
 import { layoutDxf, loadLayoutSheetInput, renderPlanSheet, SCALE_SERIES, SHEET_KINDS, SHEET_SIZES, type PlanSheetOptions, type SheetKind, type SheetScale, type SheetSize } from '../services/planSheet';
-import { loadVisibleLayout } from './layouts';
 
 const one = (v: unknown, name: string): string | undefined => {
   if (v === undefined) return undefined;
@@ -12,7 +12,7 @@ const one = (v: unknown, name: string): string | undefined => {
 };
 
 /** Reads size, scale and sheets from the query string (400 naming the option when one is bad). */
-export function planSheetQuery(q: Record<string, unknown>): Pick<PlanSheetOptions, 'size' | 'scale' | 'sheets'> {
+function planSheetQuery(q: Record<string, unknown>): Pick<PlanSheetOptions, 'size' | 'scale' | 'sheets'> {
   const size = (one(q.size, 'size') ?? 'A3').toUpperCase();
   if (!(SHEET_SIZES as readonly string[]).includes(size)) throw badRequest(`size must be one of ${SHEET_SIZES.join(', ')}.`, { size: `Use one of ${SHEET_SIZES.join(', ')}` });
   const rawScale = one(q.scale, 'scale');

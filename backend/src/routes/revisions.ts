@@ -2,26 +2,20 @@ import { Router, type Request } from 'express';
 import { z } from 'zod';
 import { can } from '@shared/policy';
 import { allow, currentUser } from '../auth/guards';
-import type { FeatureContext } from '../features';
+import type { FeatureContext } from '../featureContext';
 import { conflict, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
 import { Revision } from '../models';
+import { loadVisibleLayout } from '../services/layouts';
+import { mailContextFor } from '../services/mailContext';
 import { acknowledgeRevision, planSheetFor, releaseRevision, retryReleaseMail } from '../services/release';
-import type { MailContext } from '../services/reviewMail';
 import { decideRevision, loadVisibleRevision, presentRevisionDetail, presentRevisions, submitRevision } from '../services/revisions';
 import { loadVisibleProject } from '../services/projectAccess';
-import { loadVisibleLayout } from './layouts';
 
 const DecisionInput = z.object({
   decision: z.enum(['approve', 'request_changes'], { error: 'Choose approve or request changes' }),
   comment: z.string().max(10_000, 'Use at most 10 000 characters').default(''),
 });
-
-/** The mail context of a request: the configured public URL, or the request's own origin. */
-export function mailContextFor(ctx: FeatureContext, req: Request): MailContext {
-  const base = ctx.config.publicUrl ?? `${req.protocol}://${req.get('host') ?? '127.0.0.1'}`;
-  return { mailer: ctx.mailer, baseUrl: base.replace(/\/+$/, '') };
-}
 
 /** Revisions: submit (planner), decide (reviewer), release (planner), plan sheet, acknowledge (client). */
 export function revisionsRouter(ctx: FeatureContext): Router {
@@ -93,7 +87,7 @@ export function revisionsRouter(ctx: FeatureContext): Router {
     const rev = await loadVisibleRevision(user, idParam(req.params.id, 'Revision'));
     if (rev.state !== 'released' && !can(user.role, 'revision.readDrafts')) throw notFound('Revision');
     const { pdf, draft } = await planSheetFor(rev, now());
-    const snapName = String((rev.snapshot as { project?: { name?: string } }).project?.name ?? 'plan-sheet').replace(/[^A-Za-z0-9._-]+/g, '-');
+    const snapName = rev.snapshot.project.name.replace(/[^A-Za-z0-9._-]+/g, '-');
     const name = `${snapName}-revision-${rev.letter}${draft ? '-DRAFT' : ''}.pdf`;
     res.set('Content-Type', 'application/pdf');
     res.set('Content-Disposition', `${req.query.download ? 'attachment' : 'inline'}; filename="${name}"`);

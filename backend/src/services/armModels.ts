@@ -1,17 +1,21 @@
+import type { z } from 'zod';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { familyOf, forwardModel, reachProfileOf } from '@shared/kinematics/families';
+import { familyOf, FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel, reachProfileOf } from '@shared/kinematics/families';
 import { bandAt } from '@shared/kinematics/planRegions';
 import type { AreaGeometry } from '@shared/geometry/geojson';
 import type { AxisInfo, ReachProfile } from '@shared/kinematics/types';
-import { armParamsSchema, ArmModelInput, type ArmParams } from '@shared/schemas/armModel';
+import type { ArmParams } from '@shared/schemas/armModel';
 import { fieldErrors } from '@shared/schemas/errors';
 import { badRequest, notFound } from '../http/errors';
 import { ArmModel } from '../models';
 
-/** Parameters of any arm model family (lengths mm, angles deg): the shared discriminated union. */
-export const ArmModelParams = armParamsSchema;
+/** Parameters of any arm model family (lengths mm, angles deg): the shared discriminated union plus the kinematic checks. */
+export const ArmModelParams = feasibleArmParamsSchema;
 export type ArmModelParams = ArmParams;
-export { ArmModelInput, forwardModel };
+/** What a create or update sends (name + parameters), checked as ArmModelParams. */
+export const ArmModelInput = FeasibleArmModelInput;
+export type ArmModelInput = z.infer<typeof FeasibleArmModelInput>;
+export { forwardModel };
 
 /** Axes of a model in controller units (deg / mm). */
 export const axesOf = (params: ArmModelParams): AxisInfo[] => familyOf(params).axes(params);

@@ -13,7 +13,7 @@ import { audit } from './audit/audit';
 import { renderPlanSheet } from './planSheet';
 import type { PlanSheetInput, PlanSheetOptions } from './planSheet/types';
 import { attemptDelivery, recordDelivery, releasedMail, type MailContext } from './reviewMail';
-import { loadRevisionSheetInput, type RevisionSnapshot } from './revisions';
+import { loadRevisionSheetInput } from './revisions';
 
 /** Paper size of released sheets. */
 export const RELEASE_SHEET_SIZE = 'A3' as const;
@@ -35,7 +35,7 @@ async function clientEmails(projectId: number): Promise<string[]> {
 }
 
 function facts(rev: Revision) {
-  const snap = rev.snapshot as unknown as RevisionSnapshot;
+  const snap = rev.snapshot;
   return { projectName: snap.project.name, projectId: rev.projectId, revisionId: rev.id, layoutName: snap.layout.name, letter: rev.letter };
 }
 

@@ -1,6 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { AnalysisResult, Finding } from '@shared/analysis/types';
-import type { LayoutContent } from '@shared/schemas/layout';
+import type { RevisionDiff, RevisionSnapshot } from '@shared/schemas/revision';
 import { api } from './client';
 import { layoutKeys } from './queryKeys';
 
@@ -48,24 +47,9 @@ export interface ReviewCommentDto {
   createdAt: string;
 }
 
-export interface RevisionSnapshotDto {
-  project: { id: number; name: string; clientName: string | null; siteName: string | null };
-  layout: { id: number; name: string; version: number; content: LayoutContent };
-  floorPlan: { id: number; fileName: string; units: string; geometry: GeoJSON.FeatureCollection; layers: Array<{ name: string; role: string; height: number | null; entityCount?: number; color?: string }>; bounds: { minX: number; minY: number; maxX: number; maxY: number } } | null;
-  models: Array<{ id: number; name: string; family: string; params: Record<string, unknown> }>;
-  analysis: AnalysisResult;
-}
-
-type FindingBrief = Pick<Finding, 'id' | 'severity' | 'message'>;
-export interface RevisionDiffDto {
-  previous: { id: number; letter: string } | null;
-  arms: {
-    added: Array<{ id: string; x: number; y: number }>;
-    removed: Array<{ id: string; x: number; y: number }>;
-    moved: Array<{ id: string; from: [number, number]; to: [number, number]; distance: number; yawChange: number }>;
-  };
-  findings: { added: FindingBrief[]; removed: FindingBrief[] };
-}
+/** The frozen snapshot and the comparison with the revision before, as the shared schema describes them. */
+export type RevisionSnapshotDto = RevisionSnapshot;
+export type RevisionDiffDto = RevisionDiff;
 
 export interface RevisionDetailDto extends RevisionSummaryDto {
   snapshot?: RevisionSnapshotDto;

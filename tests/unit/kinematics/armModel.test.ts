@@ -3,14 +3,15 @@ import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { fieldErrors } from '@shared/schemas/errors';
 import { ArmModelInput, armParamsSchema } from '@shared/schemas/armModel';
-import { reachProfileOf } from '@shared/kinematics/families';
+import { feasibleArmParamsSchema, parseArmParams, reachProfileOf } from '@shared/kinematics/families';
 import { palletizerFourBar } from './fixtures';
 
 const scara = { family: 'scara', innerLink: 325, outerLink: 275, strokeMin: 0, strokeMax: 200, axes: [{ min: -140, max: 140 }, { min: -145, max: 145 }] };
 const articulated = { family: 'articulated', shoulderHeight: 450, shoulderOffset: 150, upperArm: 610, forearm: 660, axes: [{ min: -170, max: 170 }, { min: -60, max: 150 }, { min: -200, max: 70 }] };
 
+// The parameters as the server and the model form check them: the schema plus the kinematic checks.
 function errorsOf(raw: unknown): Record<string, string> {
-  const r = armParamsSchema.safeParse(raw);
+  const r = feasibleArmParamsSchema.safeParse(raw);
   expect(r.success).toBe(false);
   return r.success ? {} : fieldErrors(r.error.issues);
 }
@@ -42,6 +43,9 @@ describe('arm model schema', () => {
     // Coupler far too short to bridge crank and rocker across the 1350 mm ground.
     const broken = { ...palletizerFourBar, fourBar: { ...palletizerFourBar.fourBar, coupler: 300 } };
     expect(errorsOf(broken).fourBar).toMatch(/does not assemble/);
+    expect(() => parseArmParams(broken)).toThrow(/^fourBar: The four-bar does not assemble/);
+    // The schema alone (zod only, no kinematics) leaves assembly to the kinematic check.
+    expect(armParamsSchema.safeParse(broken).success).toBe(true);
     const wrongGround = { ...palletizerFourBar, fourBar: { ...palletizerFourBar.fourBar, ground: 900 } };
     expect(errorsOf(wrongGround)['fourBar.ground']).toMatch(/upperArm/);
     const tight = { ...palletizerFourBar, interiorAngle: { min: 170, max: 175 } };

@@ -2,13 +2,15 @@
  * The shared kinematics core as the catalogue pages use it: the arm model schema (the same the
  * server validates with), forward kinematics and the side reach profile, computed in the browser.
  */
-import { familyOf, forwardModel, reachProfileOf } from '@shared/kinematics/families';
+import type { z } from 'zod';
+import { familyOf, FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel, reachProfileOf } from '@shared/kinematics/families';
 import type { AxisInfo, ForwardResult, ReachProfile } from '@shared/kinematics/types';
-import { armParamsSchema, ArmModelInput, type ArmParams } from '@shared/schemas/armModel';
+import type { ArmParams } from '@shared/schemas/armModel';
 
-export const ArmModelParams = armParamsSchema;
+export const ArmModelParams = feasibleArmParamsSchema;
 export type ArmModelParams = ArmParams;
-export { ArmModelInput };
+export const ArmModelInput = FeasibleArmModelInput;
+export type ArmModelInput = z.infer<typeof FeasibleArmModelInput>;
 
 /** The kinematic families the editor offers, with their labels, in the order shown. */
 export const FAMILY_LABELS: Record<string, string> = {

@@ -1,0 +1,100 @@
+/** Revisions and review comments as the API shows them (staff see everything, clients the released summary). */
+import { Op } from 'sequelize';
+import { can } from '@shared/policy';
+import type { SessionUser } from '../../auth/passport';
+import { Acknowledgement, MailDelivery, ReviewComment, Revision, User } from '../../models';
+import { diffSnapshots } from './diff';
+
+/** Display names of users by id (people removed since keep their id). */
+export async function namesOf(ids: Array<number | null | undefined>): Promise<Map<number, string>> {
+  const wanted = [...new Set(ids.filter((i): i is number => typeof i === 'number'))];
+  if (!wanted.length) return new Map();
+  const users = await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] });
+  return new Map(users.map((u) => [u.id, u.name]));
+}
+
+const person = (names: Map<number, string>, id: number | null | undefined) => (id == null ? null : { id, name: names.get(id) ?? 'Former user' });
+const iso = (d: Date | null | undefined) => (d ? d.toISOString() : null);
+
+/** The list/summary shape of revisions for staff (or the reduced one for clients). */
+export async function presentRevisions(user: SessionUser, revs: Revision[]) {
+  const ids = revs.map((r) => r.id);
+  const acks = ids.length ? await Acknowledgement.findAll({ where: { revisionId: ids }, order: [['at', 'ASC']] }) : [];
+  const names = await namesOf([...revs.flatMap((r) => [r.submittedBy, r.decidedBy, r.releasedBy]), ...acks.map((a) => a.userId)]);
+  const staff = can(user.role, 'revision.readDrafts');
+  return revs.map((r) => {
+    const snap = r.snapshot;
+    const mine = acks.filter((a) => a.revisionId === r.id);
+    const base = {
+      id: r.id,
+      layoutId: r.layoutId,
+      projectId: r.projectId,
+      layoutName: snap.layout.name,
+      letter: r.letter,
+      state: r.state,
+      releasedAt: iso(r.releasedAt),
+      planSheetChecksum: r.planSheetChecksum ?? null,
+    };
+    if (!staff) {
+      const own = mine.find((a) => a.userId === user.id);
+      return { ...base, acknowledgedAt: iso(own?.at) };
+    }
+    return {
+      ...base,
+      checksum: r.checksum,
+      submittedBy: person(names, r.submittedBy),
+      submittedAt: r.submittedAt.toISOString(),
+      decidedBy: person(names, r.decidedBy),
+      decidedAt: iso(r.decidedAt),
+      decisionComment: r.decisionComment ?? null,
+      releasedBy: person(names, r.releasedBy),
+      counts: { arms: snap.layout.content.arms.length, findings: snap.analysis.findings.length },
+      acknowledgements: mine.map((a) => ({ user: person(names, a.userId)!, at: a.at.toISOString() })),
+    };
+  });
+}
+
+/** A comment as the API shows it. */
+export function presentComment(c: ReviewComment, names: Map<number, string>, letter?: string) {
+  return {
+    id: c.id,
+    revisionId: c.revisionId,
+    ...(letter ? { revisionLetter: letter } : {}),
+    author: person(names, c.authorId),
+    findingId: c.findingId,
+    point: c.pointX != null && c.pointY != null ? { x: c.pointX, y: c.pointY } : null,
+    body: c.body,
+    resolved: c.resolved,
+    resolvedBy: person(names, c.resolvedBy),
+    resolvedAt: iso(c.resolvedAt),
+    createdAt: c.createdAt.toISOString(),
+  };
+}
+
+/** The whole revision for the review page (staff), or the client's reduced view. */
+export async function presentRevisionDetail(user: SessionUser, rev: Revision) {
+  const [summary] = await presentRevisions(user, [rev]);
+  if (!can(user.role, 'revision.readDrafts')) return summary;
+  const snap = rev.snapshot;
+  const earlier = await Revision.findAll({
+    where: { layoutId: rev.layoutId, id: { [Op.lt]: rev.id } },
+    attributes: ['id', 'letter', 'snapshot'],
+    order: [['id', 'DESC']],
+  });
+  const prev = earlier[0] ?? null;
+  const comments = await ReviewComment.findAll({ where: { revisionId: rev.id }, order: [['createdAt', 'ASC'], ['id', 'ASC']] });
+  const older = earlier.length
+    ? await ReviewComment.findAll({ where: { revisionId: earlier.map((e) => e.id), findingId: { [Op.ne]: null } }, order: [['createdAt', 'ASC'], ['id', 'ASC']] })
+    : [];
+  const letters = new Map(earlier.map((e) => [e.id, e.letter]));
+  const names = await namesOf([...comments, ...older].flatMap((c) => [c.authorId, c.resolvedBy]));
+  const deliveries = await MailDelivery.findAll({ where: { revisionId: rev.id }, order: [['id', 'ASC']] });
+  return {
+    ...summary,
+    snapshot: snap,
+    comments: comments.map((c) => presentComment(c, names)),
+    history: older.map((c) => presentComment(c, names, letters.get(c.revisionId))),
+    diff: diffSnapshots(prev ? prev.snapshot : null, snap, prev ? { id: prev.id, letter: prev.letter } : null),
+    mail: deliveries.map((d) => ({ id: d.id, kind: d.kind, to: d.to, subject: d.subject, status: d.status, error: d.error, attempts: d.attempts, lastAttemptAt: iso(d.lastAttemptAt) })),
+  };
+}

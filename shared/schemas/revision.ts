@@ -1,0 +1,119 @@
+import { z } from 'zod';
+import type { FeatureCollection, MultiPolygon, Polygon } from 'geojson';
+import { LayerRole } from './floorPlan';
+import { LayoutContent } from './layout';
+
+/**
+ * A revision's frozen snapshot and its comparison with the revision before, as stored (JSONB) and
+ * as the review page receives them. Plan frame, mm; angles in degrees.
+ *
+ * The analysis part repeats the shape of the analysis result (shared/analysis/types.ts) in zod, as
+ * schemas import nothing but zod; the server assigns one to the other in both directions (building
+ * a snapshot, drawing a sheet from one), so the compiler keeps them the same.
+ */
+
+const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/** A Polygon or MultiPolygon (GeoJSON), plan mm. */
+const AreaGeometry = z.custom<Polygon | MultiPolygon>(
+  (v) => isObject(v) && (v.type === 'Polygon' || v.type === 'MultiPolygon') && Array.isArray(v.coordinates),
+  { message: 'Expected a GeoJSON Polygon or MultiPolygon' },
+);
+
+/** The floor plan's features (GeoJSON FeatureCollection), plan mm. */
+const PlanGeometry = z.custom<FeatureCollection>((v) => isObject(v) && v.type === 'FeatureCollection' && Array.isArray(v.features), {
+  message: 'Expected a GeoJSON FeatureCollection',
+});
+
+/** The kinds of finding the analysis makes (the same list as FINDING_KINDS of the analysis). */
+const FINDING_KIND_NAMES = [
+  'unreached-point',
+  'assigned-unreachable',
+  'handover',
+  'shared-zone',
+  'reach-into-structure',
+  'base-off-floor',
+  'base-on-column',
+  'reach-beyond-fence',
+  'reach-through-opening',
+  'fence-clearance',
+  'fence-too-low',
+  'reach-into-operator-area',
+  'reach-into-keepout',
+  'unknown-model',
+  'computation-failed',
+] as const;
+
+const PlanXY = z.tuple([z.number(), z.number()]);
+
+/** One finding of the analysis; `id` is stable across revisions (kind + the ids involved). */
+export const SnapshotFinding = z.object({
+  id: z.string(),
+  kind: z.enum(FINDING_KIND_NAMES),
+  severity: z.enum(['info', 'warning', 'critical']),
+  arms: z.array(z.string()),
+  points: z.array(z.string()),
+  geometry: AreaGeometry.nullable(),
+  at: PlanXY.nullable(),
+  message: z.string(),
+  data: z.record(z.string(), z.union([z.number(), z.string()])).optional(),
+});
+
+/** The analysis result frozen with the layout (areas m², distances and margins mm). */
+export const SnapshotAnalysis = z.object({
+  findings: z.array(SnapshotFinding),
+  overlaps: z.array(
+    z.object({
+      arms: z.tuple([z.string(), z.string()]),
+      areaM2: z.number(),
+      points: z.array(z.string()),
+      geometry: AreaGeometry.nullable(),
+      byHeight: z.array(z.object({ height: z.number(), areaM2: z.number() })),
+    }),
+  ),
+  /** pointId → armId → margin mm (positive = reached). */
+  coverage: z.record(z.string(), z.record(z.string(), z.number())),
+  regions: z.record(
+    z.string(),
+    z.object({ restricted: AreaGeometry.nullable(), bands: z.array(z.object({ height: z.number(), geometry: AreaGeometry.nullable() })) }),
+  ),
+  timingMs: z.number(),
+});
+
+const Bounds = z.object({ minX: z.number(), minY: z.number(), maxX: z.number(), maxY: z.number() });
+
+/** Everything a revision shows, frozen when it was submitted: project, layout, floor plan, arm models, analysis. */
+export const RevisionSnapshot = z.object({
+  project: z.object({ id: z.number().int(), name: z.string(), clientName: z.string().nullable(), siteName: z.string().nullable() }),
+  layout: z.object({ id: z.number().int(), name: z.string(), version: z.number().int(), content: LayoutContent }),
+  floorPlan: z
+    .object({
+      id: z.number().int(),
+      fileName: z.string(),
+      units: z.string(),
+      geometry: PlanGeometry,
+      layers: z.array(z.object({ name: z.string(), role: LayerRole, height: z.number().nullable(), entityCount: z.number().optional(), color: z.string().optional() })),
+      bounds: Bounds,
+    })
+    .nullable(),
+  /** The arm models the arms use, parameters as stored (lengths mm, angles deg). */
+  models: z.array(z.object({ id: z.number().int(), name: z.string(), family: z.string(), params: z.record(z.string(), z.unknown()) })),
+  analysis: SnapshotAnalysis,
+});
+export type RevisionSnapshot = z.infer<typeof RevisionSnapshot>;
+
+const ArmAt = z.object({ id: z.string(), x: z.number(), y: z.number() });
+const FindingBrief = SnapshotFinding.pick({ id: true, severity: true, message: true });
+
+/** What changed since the revision before: arms added, removed and moved, findings new and gone (by id). */
+export const RevisionDiff = z.object({
+  previous: z.object({ id: z.number().int(), letter: z.string() }).nullable(),
+  arms: z.object({
+    added: z.array(ArmAt),
+    removed: z.array(ArmAt),
+    /** distance = plan distance between the two base positions, mm; yaw change in degrees (±180). */
+    moved: z.array(z.object({ id: z.string(), from: PlanXY, to: PlanXY, distance: z.number(), yawChange: z.number() })),
+  }),
+  findings: z.object({ added: z.array(FindingBrief), removed: z.array(FindingBrief) }),
+});
+export type RevisionDiff = z.infer<typeof RevisionDiff>;
