@@ -17,7 +17,8 @@ const env: NodeJS.ProcessEnv = { ...process.env, NO_COLOR: '1', FORCE_COLOR: '0'
 
 console.log('[test] starting a throwaway PostgreSQL…');
 const { local, cleanup } = await startTestPg();
-let code = 1;
+// Set by the try block; if it throws, the error ends the run before `code` is read.
+let code: number;
 try {
   env.TEST_PG_ADMIN_URL = local.adminUrl;
   console.log('[test] building the web client for the end-to-end suite…');

@@ -4,8 +4,8 @@ import {
   getFilteredRowModel,
   getSortedRowModel,
   useReactTable,
-  type ColumnDef,
   type SortingState,
+  type TableOptions,
 } from '@tanstack/react-table';
 import { useState, type ReactNode } from 'react';
 import { cn } from '../lib/cn';
@@ -14,8 +14,8 @@ export interface DataTableProps<Row> {
   /** Accessible name of the table, e.g. "Projects". */
   label: string;
   data: Row[];
-  // `any` for the value type: columns of one table hold values of different types.
-  columns: ColumnDef<Row, any>[];
+  /** The columns as useReactTable takes them (each column holds values of its own type). */
+  columns: TableOptions<Row>['columns'];
   /** Text of the filter box's label; no filter box when omitted. */
   filterLabel?: string;
   filterPlaceholder?: string;
@@ -46,6 +46,7 @@ export function DataTable<Row>({
 }: DataTableProps<Row>) {
   const [sorting, setSorting] = useState<SortingState>(initialSorting);
   const [globalFilter, setGlobalFilter] = useState('');
+  // eslint-disable-next-line react-hooks/incompatible-library -- the table is read afresh on every render and never passed to a memo, which is what this library needs
   const table = useReactTable({
     data,
     columns,

@@ -31,7 +31,12 @@ export function useAnalysisWorker(input: {
   const pendingPose = useRef<DragPose | null>(null);
   const [view, setView] = useState<LiveAnalysis['view']>(null);
   const [error, setError] = useState<string | null>(null);
+  // Busy with a drag pose (or not yet answered at all), as the worker's answers tell.
   const [busy, setBusy] = useState(true);
+  // The content (and models) last posted, and those the shown result was computed from: an edit is
+  // being analysed while they differ.
+  const sent = useRef<{ seq: number; content: LayoutContent; models: WorkerArmModel[] } | null>(null);
+  const [answered, setAnswered] = useState<{ content: LayoutContent; models: WorkerArmModel[] } | null>(null);
 
   const post = useCallback((msg: ToWorker) => worker.current?.postMessage(msg), []);
 
@@ -43,6 +48,8 @@ export function useAnalysisWorker(input: {
       if (msg.seq < shown.current) return;
       shown.current = msg.seq;
       setBusy(msg.seq < seq.current);
+      const last = sent.current;
+      if (last && msg.seq >= last.seq) setAnswered({ content: last.content, models: last.models });
       if (msg.type === 'error') {
         setError(msg.message);
         return;
@@ -53,6 +60,8 @@ export function useAnalysisWorker(input: {
     w.onerror = (event) => {
       setError(event.message || 'The analysis could not start in this browser.');
       setBusy(false);
+      const last = sent.current;
+      if (last) setAnswered({ content: last.content, models: last.models });
     };
     return () => {
       w.terminate();
@@ -77,7 +86,7 @@ export function useAnalysisWorker(input: {
     frame.current = null;
     pendingPose.current = null;
     seq.current += 1;
-    setBusy(true);
+    sent.current = { seq: seq.current, content, models };
     post({ type: 'content', seq: seq.current, content });
   }, [content, models, post]);
 
@@ -95,5 +104,6 @@ export function useAnalysisWorker(input: {
     [post],
   );
 
-  return { view, error, busy, postDrag };
+  const editPending = models !== null && (answered?.content !== content || answered.models !== models);
+  return { view, error, busy: busy || editPending, postDrag };
 }

@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useLayoutEffect, useRef, useState } from 'react';
 import type { FeatureCollection, Geometry } from 'geojson';
 import { cn } from '../lib/cn';
 import { createPlanCanvas, type LayerStyles, type PlanBounds, type PlanCanvas, type PlanFeatureLike, type PlanPoint } from './planCanvas';
@@ -41,8 +41,12 @@ export function PlanView({ geometry, layerStyles, bounds, onCursor, onCanvas, la
   const onCursorRef = useRef(onCursor);
   const onCanvasRef = useRef(onCanvas);
   const [gridOn, setGridOn] = useState(grid);
-  onCursorRef.current = onCursor;
-  onCanvasRef.current = onCanvas;
+  // The canvas lives across renders and calls back through these, so they hold the latest props;
+  // a layout effect runs before the effects below and before any pointer event of the new render.
+  useLayoutEffect(() => {
+    onCursorRef.current = onCursor;
+    onCanvasRef.current = onCanvas;
+  });
 
   // Order matters: this effect creates the canvas before the effects below feed it.
   useEffect(() => {
@@ -73,10 +77,12 @@ export function PlanView({ geometry, layerStyles, bounds, onCursor, onCanvas, la
     canvasRef.current?.setLayerStyles(layerStyles);
   }, [layerStyles, geometry]);
 
-  const b = bounds ?? null;
+  // Fitted again when the extent's numbers change, not when an equal bounds object arrives.
+  const hasBounds = bounds != null;
+  const { minX = 0, minY = 0, maxX = 0, maxY = 0 } = bounds ?? {};
   useEffect(() => {
-    canvasRef.current?.setBounds(b ? { minX: b.minX, minY: b.minY, maxX: b.maxX, maxY: b.maxY } : null);
-  }, [b?.minX, b?.minY, b?.maxX, b?.maxY]); // eslint-disable-line react-hooks/exhaustive-deps
+    canvasRef.current?.setBounds(hasBounds ? { minX, minY, maxX, maxY } : null);
+  }, [hasBounds, minX, minY, maxX, maxY]);
 
   useEffect(() => {
     canvasRef.current?.setGrid(gridOn);

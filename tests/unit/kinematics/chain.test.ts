@@ -111,8 +111,11 @@ describe('chain forward() non-answers', () => {
   });
 });
 
+/** Chain parameters as plain JSON, so a test can write the wrong values the schema must reject. */
+type LooseChain = { joints: Record<string, unknown>[]; tool: Record<string, unknown>; [key: string]: unknown };
+
 describe('chainParamsSchema', () => {
-  const good = () => structuredClone(demoSixAxis()) as Record<string, any>;
+  const good = () => structuredClone(demoSixAxis()) as LooseChain;
   const errorsOf = (v: unknown) => {
     const r = chainParamsSchema.safeParse(v);
     expect(r.success).toBe(false);
@@ -153,10 +156,10 @@ describe('chainParamsSchema', () => {
     prismaticFirst.joints[0].type = 'prismatic';
     expect(errorsOf(prismaticFirst)).toHaveProperty(['joints.0.type']);
 
-    const tilted = structuredClone(modifiedChain) as Record<string, any>;
+    const tilted = structuredClone(modifiedChain) as LooseChain;
     tilted.joints[0].alpha = 90;
     expect(errorsOf(tilted)).toHaveProperty(['joints.0.alpha']);
-    const shifted = structuredClone(modifiedChain) as Record<string, any>;
+    const shifted = structuredClone(modifiedChain) as LooseChain;
     shifted.joints[0].a = 50;
     expect(errorsOf(shifted)).toHaveProperty(['joints.0.a']);
 

@@ -223,10 +223,7 @@ export function scanGroups(text: string): GroupScan {
     }
 
     line += 2;
-    if (valueEnd0 === -1) {
-      pos = len;
-      break;
-    }
+    if (valueEnd0 === -1) break; // the last value ran to the end of the text
     pos = valueEnd + 1;
   }
 

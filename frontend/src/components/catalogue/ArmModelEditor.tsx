@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useEffect, useMemo, useRef, type ReactNode } from 'react';
+import { useEffect, useEffectEvent, useMemo, type ReactNode } from 'react';
 import { useForm, useWatch, type FieldValues, type Path } from 'react-hook-form';
 import { applyServerErrors } from '../../lib/serverErrors';
 import { Button } from '../Button';
@@ -65,10 +65,10 @@ export function ArmModelEditor({ initial, readOnly, submitLabel, onSubmit, onCha
   const params = useWatch({ control, name: 'params' });
   const family = (params as { family?: string } | undefined)?.family ?? initial.params.family;
   const live = useLiveProfile(params);
-  const onChangeRef = useRef(onChange);
-  onChangeRef.current = onChange;
+  // Told when the form turns dirty, not when the parent passes a new callback.
+  const onFirstEdit = useEffectEvent(() => onChange?.());
   useEffect(() => {
-    if (isDirty) onChangeRef.current?.();
+    if (isDirty) onFirstEdit();
   }, [isDirty]);
   const pose = usePose(live.params);
   const profileView = useMemo(

@@ -1,4 +1,4 @@
-import { useMemo, useRef } from 'react';
+import { useMemo, useState } from 'react';
 import type { ReachProfile } from '@shared/kinematics/types';
 import { ArmModelParams, profileOf } from './modelCore';
 import { useDebouncedValue } from './useDebouncedValue';
@@ -22,23 +22,32 @@ export interface LiveProfile {
  */
 export function useLiveProfile(values: unknown): LiveProfile {
   const key = useDebouncedValue(JSON.stringify(values ?? null), PROFILE_DEBOUNCE_MS);
-  const last = useRef<{ params: ArmModelParams; profile: ReachProfile } | null>(null);
+  const computed = useMemo(() => computeProfile(key), [key]);
+  // The last profile that could be computed, kept for when the input stops parsing or computing.
+  const [lastGood, setLastGood] = useState<GoodProfile | null>(null);
+  if (computed.kind === 'good' && computed.good !== lastGood) setLastGood(computed.good);
   return useMemo((): LiveProfile => {
-    const parsed = ArmModelParams.safeParse(JSON.parse(key));
-    if (!parsed.success) {
-      return { params: last.current?.params ?? null, profile: last.current?.profile ?? null, stale: last.current !== null, failure: null };
-    }
-    try {
-      const profile = profileOf(parsed.data);
-      last.current = { params: parsed.data, profile };
-      return { params: parsed.data, profile, stale: false, failure: null };
-    } catch (error) {
-      return {
-        params: last.current?.params ?? null,
-        profile: last.current?.profile ?? null,
-        stale: true,
-        failure: error instanceof Error ? error.message : 'The profile could not be computed.',
-      };
-    }
-  }, [key]);
+    if (computed.kind === 'good') return { ...computed.good, stale: false, failure: null };
+    const shown = { params: lastGood?.params ?? null, profile: lastGood?.profile ?? null };
+    if (computed.kind === 'invalid') return { ...shown, stale: lastGood !== null, failure: null };
+    return { ...shown, stale: true, failure: computed.failure };
+  }, [computed, lastGood]);
+}
+
+interface GoodProfile {
+  params: ArmModelParams;
+  profile: ReachProfile;
+}
+
+type Computed = { kind: 'good'; good: GoodProfile } | { kind: 'invalid' } | { kind: 'failed'; failure: string };
+
+/** The profile of the form's values as JSON text: computed, not parsing, or failing with a reason. */
+function computeProfile(json: string): Computed {
+  const parsed = ArmModelParams.safeParse(JSON.parse(json));
+  if (!parsed.success) return { kind: 'invalid' };
+  try {
+    return { kind: 'good', good: { params: parsed.data, profile: profileOf(parsed.data) } };
+  } catch (error) {
+    return { kind: 'failed', failure: error instanceof Error ? error.message : 'The profile could not be computed.' };
+  }
 }

@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useMemo, useState } from 'react';
 import type { AxisInfo, ForwardResult } from '@shared/kinematics/types';
 import { axesOf, forwardOf, type ArmModelParams } from './modelCore';
 import type { PoseView } from './profileDrawing';
@@ -23,12 +23,9 @@ export interface PoseState {
 export function usePose(params: ArmModelParams | null): PoseState {
   const axes = useMemo(() => (params ? axesOf(params) : []), [params]);
   const [joints, setJoints] = useState<number[]>(() => axes.map(startValue));
-  const lastGood = useRef<Array<[number, number]> | null>(null);
-
-  // A different axis count is a different arm: start again from the start pose.
-  useEffect(() => {
-    setJoints((old) => (old.length === axes.length ? old : axes.map(startValue)));
-  }, [axes]);
+  // A different axis count is a different arm: start again from the start pose (adjusted while
+  // rendering, so no frame shows the old joints against the new axes).
+  if (joints.length !== axes.length) setJoints(axes.map(startValue));
 
   const result = useMemo(() => {
     if (!params || joints.length !== axes.length) return null;
@@ -39,15 +36,15 @@ export function usePose(params: ArmModelParams | null): PoseState {
     }
   }, [params, joints, axes.length]);
 
+  const points = useMemo(() => (result?.ok ? sideViewPoints(result.frames) : null), [result]);
+  // The last pose that could be drawn, shown greyed while the current one fails.
+  const [lastGood, setLastGood] = useState<Array<[number, number]> | null>(null);
+  if (points && points !== lastGood) setLastGood(points);
   const view = useMemo((): PoseView | null => {
-    if (result?.ok) {
-      const points = sideViewPoints(result.frames);
-      lastGood.current = points;
-      return { points, ok: true };
-    }
-    if (result && lastGood.current) return { points: lastGood.current, ok: false };
+    if (points) return { points, ok: true };
+    if (result && lastGood) return { points: lastGood, ok: false };
     return null;
-  }, [result]);
+  }, [points, result, lastGood]);
 
   return {
     axes,

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import type { ImportLayer, LayerPatch, LayerRole } from '@shared/schemas/floorPlan';
 import { LayerPatch as LayerPatchSchema } from '@shared/schemas/floorPlan';
 import { cn } from '../../lib/cn';
@@ -60,10 +60,13 @@ function LayerRow({
 }) {
   const [height, setHeight] = useState(layer.height == null ? '' : String(layer.height));
   const [heightError, setHeightError] = useState<string | null>(null);
-  useEffect(() => {
+  // A saved height (or another's change) replaces what the box holds.
+  const [shownHeight, setShownHeight] = useState(layer.height);
+  if (layer.height !== shownHeight) {
+    setShownHeight(layer.height);
     setHeight(layer.height == null ? '' : String(layer.height));
     setHeightError(null);
-  }, [layer.height]);
+  }
 
   function commitHeight() {
     if (!onChange) return;

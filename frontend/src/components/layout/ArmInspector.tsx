@@ -1,4 +1,4 @@
-import { useEffect, useState, type FormEvent } from 'react';
+import { useState, type FormEvent } from 'react';
 import type { ArmPlacement, LayoutContent } from '@shared/schemas/layout';
 import { armFormValues, parseArmForm, type ArmField, type ArmFormErrors, type ArmFormValues } from '../../editor/armForm';
 import { duplicateArm, normalizeYaw, removeArm, updateArm } from '../../editor/layoutEdits';
@@ -27,11 +27,14 @@ const FIELD_LABEL: Record<Exclude<ArmField, 'label'>, { label: string; unit: str
 export function ArmInspector({ arm, content, armModels, readOnly, onEdit, onSelectArm }: ArmInspectorProps) {
   const [values, setValues] = useState<ArmFormValues>(() => armFormValues(arm));
   const [errors, setErrors] = useState<ArmFormErrors>({});
-  // A drag, a key nudge or an undo changes the arm under the form: show its new values.
-  useEffect(() => {
+  // A drag, a key nudge or an undo changes the arm under the form: show its new values (adjusted
+  // while rendering, so the form never shows the old arm's values for a frame).
+  const [shownArm, setShownArm] = useState(arm);
+  if (arm !== shownArm) {
+    setShownArm(arm);
     setValues(armFormValues(arm));
     setErrors({});
-  }, [arm]);
+  }
 
   function apply(next: ArmFormValues = values) {
     const r = parseArmForm(arm, next);

@@ -1,6 +1,6 @@
 import { FAR_MM } from '@shared/analysis/analyze';
 import { isReached } from '@shared/analysis/reached';
-import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useEffectEvent, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { axisBottom, scaleLinear, select } from 'd3';
 import { cn } from '../../lib/cn';
 import type { LayoutPanelProps } from './panelTypes';
@@ -44,11 +44,10 @@ export function CoverageMatrix({ content, analysis, onSelect, selected }: Layout
   // An arm that left the layout cannot stay the sort key.
   const liveSort: CoverageSort = sort.by === 'arm' && !armIds.includes(sort.arm) ? SORTS[0].sort : sort;
   const sortKey = liveSort.by === 'arm' ? `arm:${liveSort.arm}` : liveSort.by === 'layout' ? 'layout' : liveSort.dir === 'asc' ? 'worst' : 'best';
+  // liveSort is the sort state itself or a module constant, so it changes only when the sort does.
   const matrix = useMemo(
     () => buildCoverageMatrix(content.workPoints, armIds, analysis?.coverage ?? null, liveSort),
-    // liveSort is fully described by sortKey.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-    [content.workPoints, armIds, analysis, sortKey],
+    [content.workPoints, armIds, analysis, liveSort],
   );
   const span = marginScaleSpan(matrix.maxAbs);
   const colour = useMemo(() => marginColourScale(span), [span]);
@@ -60,6 +59,8 @@ export function CoverageMatrix({ content, analysis, onSelect, selected }: Layout
   const scroller = useRef<HTMLDivElement>(null);
   // The scroller's inner height (less borders and a horizontal scroll bar) fixes the canvas height.
   const [viewHeight, setViewHeight] = useState(VIEW_HEIGHT - 2);
+  // The scroller exists only while there are rows and arms: measure it again when it appears.
+  const hasBody = rows > 0 && armIds.length > 0;
   useLayoutEffect(() => {
     const el = scroller.current;
     if (!el) return;
@@ -68,7 +69,7 @@ export function CoverageMatrix({ content, analysis, onSelect, selected }: Layout
     const ro = new ResizeObserver(measure);
     ro.observe(el);
     return () => ro.disconnect();
-  }, [rows > 0 && armIds.length > 0]);
+  }, [hasBody]);
   const canvasHeight = Math.max(0, Math.min(bodyHeight, viewHeight - HEADER_HEIGHT));
 
   const canvas = useRef<HTMLCanvasElement>(null);
@@ -126,13 +127,16 @@ export function CoverageMatrix({ content, analysis, onSelect, selected }: Layout
     }
   }, [matrix, colour, scrollTop, canvasHeight, width, cellWidth, rows, armIds.length, selectedRow, hover]);
 
-  // Bring a point selected elsewhere into view.
-  useEffect(() => {
+  // Bring a point selected elsewhere into view: when the selection changes, not when a sort or a
+  // resize moves its row, so the row and height are read as they are at that moment.
+  const bringSelectedIntoView = useEffectEvent(() => {
     const el = scroller.current;
     if (!el || selectedRow < 0) return;
     const top = selectedRow * ROW_HEIGHT;
     if (top < el.scrollTop || top + ROW_HEIGHT > el.scrollTop + canvasHeight) el.scrollTop = Math.max(0, top - canvasHeight / 3);
-    // eslint-disable-next-line react-hooks/exhaustive-deps
+  });
+  useEffect(() => {
+    bringSelectedIntoView();
   }, [selected?.id, selected?.kind]);
 
   const pick = (event: React.MouseEvent<HTMLCanvasElement>) => {

@@ -22,6 +22,7 @@ export interface WorkPointCellProps {
  */
 export function WorkPointCell({ pointId, field, text, readOnly, options, align = 'left', onCommit }: WorkPointCellProps) {
   const [editing, setEditing] = useState(false);
+  // What the box holds while editing; it starts from `text` each time the box opens.
   const [draft, setDraft] = useState(text);
   const [error, setError] = useState<string | null>(null);
   const inputRef = useRef<HTMLInputElement & HTMLSelectElement>(null);
@@ -29,9 +30,6 @@ export function WorkPointCell({ pointId, field, text, readOnly, options, align =
   useEffect(() => {
     if (editing) inputRef.current?.focus();
   }, [editing]);
-  useEffect(() => {
-    if (!editing) setDraft(text);
-  }, [text, editing]);
 
   const label = `${field === 'assignedArm' ? 'assigned arm' : field} of ${pointId}`;
   if (readOnly || !editing) {

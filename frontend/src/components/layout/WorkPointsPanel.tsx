@@ -1,5 +1,5 @@
 import { isReached } from '@shared/analysis/reached';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useEffectEvent, useMemo, useRef, useState } from 'react';
 import { getCoreRowModel, getSortedRowModel, useReactTable, type ColumnDef, type SortingState, flexRender } from '@tanstack/react-table';
 import type { WorkPoint } from '@shared/schemas/layout';
 import { Button } from '../Button';
@@ -50,15 +50,19 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
     setChecked((c) => ([...c].every((id) => ids.has(id)) ? c : new Set([...c].filter((id) => ids.has(id)))));
   }, [points]);
 
-  const commit = (id: string, field: EditableField, raw: string): string | null => {
-    const outcome = editWorkPoint(points, id, field, raw, armIds);
-    if (!outcome.ok) return outcome.message;
-    onEdit({ ...content, workPoints: outcome.points }, `Edit ${field === 'assignedArm' ? 'assigned arm' : field} of work point ${id}`);
-    if (outcome.point.id !== id && selected?.kind === 'point' && selected.id === id) onSelect({ kind: 'point', id: outcome.point.id });
-    return null;
-  };
+  // The cells commit through this, so the columns are rebuilt whenever what it closes over changes.
+  const commit = useCallback(
+    (id: string, field: EditableField, raw: string): string | null => {
+      const outcome = editWorkPoint(points, id, field, raw, armIds);
+      if (!outcome.ok) return outcome.message;
+      onEdit({ ...content, workPoints: outcome.points }, `Edit ${field === 'assignedArm' ? 'assigned arm' : field} of work point ${id}`);
+      if (outcome.point.id !== id && selected?.kind === 'point' && selected.id === id) onSelect({ kind: 'point', id: outcome.point.id });
+      return null;
+    },
+    [points, armIds, onEdit, content, selected, onSelect],
+  );
 
-  const columns = useMemo<ColumnDef<WorkPointRow, any>[]>(() => {
+  const columns = useMemo<ColumnDef<WorkPointRow, unknown>[]>(() => {
     const cell = (field: EditableField, text: (p: WorkPoint) => string, opts: { options?: typeof armOptions; align?: 'right' } = {}) =>
       ({ row }: { row: { original: WorkPointRow } }) => (
         <WorkPointCell
@@ -93,10 +97,9 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
         cell: ({ row }) => (row.original.best === null ? <span className="text-ink-faint">—</span> : row.original.reachedBy.length ? row.original.reachedBy.join(', ') : <span className="font-bold text-finding-critical">no arm</span>),
       },
     ];
-    // commit closes over the current content; rebuild the columns with it.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [armOptions, readOnly, content, armIds, selected]);
+  }, [armOptions, readOnly, commit]);
 
+  // eslint-disable-next-line react-hooks/incompatible-library -- the table is read afresh on every render and never passed to a memo, which is what this library needs
   const table = useReactTable({
     data: filtered,
     columns,
@@ -108,8 +111,9 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
   });
   const tableRows = table.getRowModel().rows;
 
-  // Bring the selected point into view when it was picked elsewhere (plan, matrix, findings).
-  useEffect(() => {
+  // Bring the selected point into view when it was picked elsewhere (plan, matrix, findings): only
+  // when the selection changes, not on every edit, so the rows are read as they are at that moment.
+  const bringSelectedIntoView = useEffectEvent(() => {
     if (selected?.kind !== 'point' || !scroller.current) return;
     const i = tableRows.findIndex((r) => r.id === selected.id);
     if (i < 0) return;
@@ -117,8 +121,9 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
     const top = i * ROW_HEIGHT;
     const head = 36;
     if (top < el.scrollTop || top + ROW_HEIGHT > el.scrollTop + el.clientHeight - head) el.scrollTop = Math.max(0, top - el.clientHeight / 3);
-    // Only when the selection changes, not on every edit.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
+  });
+  useEffect(() => {
+    bringSelectedIntoView();
   }, [selected?.kind, selected?.id]);
 
   const first = Math.max(0, Math.floor(scrollTop / ROW_HEIGHT) - OVERSCAN);

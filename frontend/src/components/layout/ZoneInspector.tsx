@@ -28,11 +28,14 @@ export function ZoneInspector({ zone, content, readOnly, focusHeight, onEdit, on
   const [height, setHeight] = useState(zone.height !== undefined ? String(zone.height) : '');
   const [error, setError] = useState<string | undefined>();
   const heightRef = useRef<HTMLInputElement>(null);
-  useEffect(() => {
+  // An edit, a drag or an undo changes the zone under the form: show its new values.
+  const [shownZone, setShownZone] = useState(zone);
+  if (zone !== shownZone) {
+    setShownZone(zone);
     setLabel(zone.label);
     setHeight(zone.height !== undefined ? String(zone.height) : '');
     setError(undefined);
-  }, [zone]);
+  }
   useEffect(() => {
     if (focusHeight) heightRef.current?.select();
   }, [focusHeight, zone.id]);

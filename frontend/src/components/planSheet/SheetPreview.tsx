@@ -4,25 +4,24 @@ import { drawPdfPage, pdfjs } from './pdfCanvas';
 /** Page 1 of a PDF drawn into a canvas by pdfjs-dist (the browser's own copy of the sheet). */
 export function SheetPreview({ pdf, width = 640 }: { pdf: Blob; width?: number }) {
   const canvas = useRef<HTMLCanvasElement>(null);
-  const [state, setState] = useState<'rendering' | 'done' | 'error'>('rendering');
-  const [pages, setPages] = useState(0);
+  // How the last drawing ended, with what it drew; one of another pdf or width is still being drawn.
+  const [drawn, setDrawn] = useState<{ pdf: Blob; width: number; pages: number | null } | null>(null);
+  const state = drawn?.pdf !== pdf || drawn.width !== width ? 'rendering' : drawn.pages === null ? 'error' : 'done';
+  const pages = drawn?.pages ?? 0;
 
   useEffect(() => {
     let cancelled = false;
     let task: ReturnType<typeof pdfjs.getDocument> | null = null;
-    setState('rendering');
     void (async () => {
       try {
         task = pdfjs.getDocument({ data: new Uint8Array(await pdf.arrayBuffer()) });
         const doc = await task.promise;
-        if (cancelled) return;
-        setPages(doc.numPages);
         const c = canvas.current;
         if (!c || cancelled) return;
         await drawPdfPage(doc, 1, c, width);
-        if (!cancelled) setState('done');
+        if (!cancelled) setDrawn({ pdf, width, pages: doc.numPages });
       } catch {
-        if (!cancelled) setState('error');
+        if (!cancelled) setDrawn({ pdf, width, pages: null });
       }
     })();
     return () => {

@@ -9,14 +9,18 @@ import { drawPdfPage, pdfjs, type PdfDocument as Doc } from './pdfCanvas';
 export function SheetViewer({ url, label }: { url: string; label: string }) {
   const canvas = useRef<HTMLCanvasElement>(null);
   const frame = useRef<HTMLDivElement>(null);
-  const [doc, setDoc] = useState<Doc | null>(null);
+  // The document of a url (null when it could not be loaded) and the last page drawn from it: the
+  // state shown follows from which url and page they belong to.
+  const [loaded, setLoaded] = useState<{ url: string; doc: Doc | null } | null>(null);
   const [page, setPage] = useState(1);
-  const [state, setState] = useState<'loading' | 'rendering' | 'done' | 'error'>('loading');
+  const [drawn, setDrawn] = useState<{ doc: Doc; page: number; ok: boolean } | null>(null);
+  const doc = loaded?.url === url ? loaded.doc : null;
+  const state: 'loading' | 'rendering' | 'done' | 'error' =
+    loaded?.url !== url ? 'loading' : !doc ? 'error' : drawn?.doc !== doc || drawn.page !== page ? 'rendering' : drawn.ok ? 'done' : 'error';
 
   useEffect(() => {
     let cancelled = false;
     let task: ReturnType<typeof pdfjs.getDocument> | null = null;
-    setState('loading');
     void (async () => {
       try {
         const res = await fetch(url, { credentials: 'same-origin' });
@@ -24,11 +28,11 @@ export function SheetViewer({ url, label }: { url: string; label: string }) {
         task = pdfjs.getDocument({ data: new Uint8Array(await res.arrayBuffer()) });
         const d = await task.promise;
         if (!cancelled) {
-          setDoc(d);
+          setLoaded({ url, doc: d });
           setPage(1);
         }
       } catch {
-        if (!cancelled) setState('error');
+        if (!cancelled) setLoaded({ url, doc: null });
       }
     })();
     return () => {
@@ -40,7 +44,6 @@ export function SheetViewer({ url, label }: { url: string; label: string }) {
   useEffect(() => {
     if (!doc) return;
     let cancelled = false;
-    setState('rendering');
     void (async () => {
       try {
         // The frame has 12 px padding and a 1 px border on each side.
@@ -48,9 +51,9 @@ export function SheetViewer({ url, label }: { url: string; label: string }) {
         const c = canvas.current;
         if (!c || cancelled) return;
         await drawPdfPage(doc, page, c, width);
-        if (!cancelled) setState('done');
+        if (!cancelled) setDrawn({ doc, page, ok: true });
       } catch {
-        if (!cancelled) setState('error');
+        if (!cancelled) setDrawn({ doc, page, ok: false });
       }
     })();
     return () => {
