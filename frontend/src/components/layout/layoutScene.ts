@@ -8,6 +8,7 @@
 import { select, type Selection } from 'd3';
 import type { AreaGeometry } from '@shared/geometry/geojson';
 import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
+import { ZONE_STYLES } from '@shared/style/zoneStyles';
 import { moveZoneVertex, nearestFence, nearestOnPolyline, normalizeYaw, roundMm } from '../../editor/layoutEdits';
 import type { PlanCanvas, PlanViewState } from '../../plan/planTypes';
 import type { AnalysisView, DragPose } from '../../workers/analysisProtocol';
@@ -197,7 +198,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
         return `translate(${x},${y})`;
       })
       .style('cursor', s.readOnly ? 'pointer' : 'grab');
-    const colour = (a: ArmPlacement) => (a.id === selectedArm ? SCENE_COLOURS.selected : SCENE_COLOURS.reach);
+    const colour = (a: ArmPlacement) => (a.id === selectedArm ? SCENE_COLOURS.selected : ZONE_STYLES.armBase.screen.colour);
     const tip = (a: ArmPlacement): XY => {
       const t = (a.yaw * Math.PI) / 180;
       return [Math.cos(t) * TICK_PX, -Math.sin(t) * TICK_PX];
@@ -214,7 +215,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
       .select('circle.arm-base')
       .style('fill', SCENE_COLOURS.paper)
       .style('stroke', colour)
-      .style('stroke-width', (a) => (a.id === selectedArm || s.highlightArms.has(a.id) ? 3 : 2));
+      .style('stroke-width', (a) => (a.id === selectedArm || s.highlightArms.has(a.id) ? ZONE_STYLES.armBase.screen.widthEmphasis : ZONE_STYLES.armBase.screen.width));
     marks.select('circle.arm-axis').style('fill', colour);
     marks
       .select('text.arm-label')
