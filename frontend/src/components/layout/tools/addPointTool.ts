@@ -1,4 +1,4 @@
-/** The add-point tool: a click on the plan places a work point there (whole mm). */
+/** The add-point tool: a click on the plan places a work point there (rounded to 0.1 mm). */
 import { roundMm } from '../../../editor/layoutEdits';
 import type { Tool, ToolHost, ToolPointer } from './tool';
 

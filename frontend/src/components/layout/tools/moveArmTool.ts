@@ -4,7 +4,7 @@ import { roundMm } from '../../../editor/layoutEdits';
 import type { XY } from '../sceneTypes';
 import type { Tool, ToolHost, ToolPointer } from './tool';
 
-/** Where a dragged base goes: the pointer plus the offset it was grabbed at, rounded to whole mm (plan mm). */
+/** Where a dragged base goes: the pointer plus the offset it was grabbed at, rounded to 0.1 mm (plan mm). */
 export function draggedBase(offset: Readonly<XY>, pointer: Readonly<XY>): XY {
   return [roundMm(pointer[0] + offset[0]), roundMm(pointer[1] + offset[1])];
 }
