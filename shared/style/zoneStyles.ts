@@ -126,6 +126,7 @@ export const ZONE_STYLES = {
   },
   fence: {
     legend: 'Guard fence (h = height, mm)',
+    // Still different: ink-blue #1c2230 on screen, near-black on paper.
     screen: { colour: FENCE_SCREEN, width: 4.5, label: { colour: FENCE_SCREEN, weight: 400 } },
     paper: { colour: FENCE_BLACK, width: 0.7, label: FENCE_BLACK },
     dxf: { layer: 'RF_FENCES', aci: ACI.white, lineType: 'CONTINUOUS' },
@@ -154,13 +155,13 @@ export const ZONE_STYLES = {
       fillOpacity: 0.16,
       label: { colour: 'var(--color-zone-operator, #c27c0e)', weight: 700 },
     },
-    // Still different: a dash on screen, a dash-dot on paper.
+    // Still different: amber #c27c0e with a dash on screen, darker amber with a dash-dot on paper.
     paper: { colour: [150, 110, 10], width: 0.3, dash: [2.4, 0.8, 0.4, 0.8], fill: { colour: [214, 160, 20], opacity: 0.18 }, label: [120, 86, 6] },
     dxf: { layer: 'RF_ZONES', aci: ACI.yellow, lineType: 'CONTINUOUS' },
   },
   keepout: {
     legend: 'Keep-out',
-    // Still different: single hatch on screen, cross-hatch on paper.
+    // Still different: slate #5f6472 single-hatched on screen, grey cross-hatched on paper.
     screen: {
       colour: 'var(--color-zone-keepout, #5f6472)',
       width: 1.5,
@@ -179,6 +180,7 @@ export const ZONE_STYLES = {
   },
   pointUnreached: {
     legend: 'Work point (red = no arm reaches it)',
+    // Still different: the critical-finding red on screen, the shared-zone red on paper.
     screen: { colour: 'var(--color-finding-critical)', width: 2 },
     paper: { colour: SHARED_RED, width: 0.2 },
     dxf: { layer: 'RF_POINTS', aci: ACI.magenta, lineType: 'CONTINUOUS' },
