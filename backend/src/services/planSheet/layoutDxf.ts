@@ -1,19 +1,21 @@
 import Drawing from 'dxf-writer';
 import { geoJSONToPolygons } from '@shared/geometry/geojson';
 import type { Polygon2 } from '@shared/geometry/types';
+import { ZONE_STYLES, type DxfLook } from '@shared/style/zoneStyles';
 import { summarizeArms } from './armSummary';
 import type { PlanSheetInput } from './types';
 
 /** Layer names of the exported layout (CAD side). */
 export const DXF_LAYERS = {
-  arms: 'RF_ARMS',
-  maxSpace: 'RF_MAX_SPACE',
-  restricted: 'RF_RESTRICTED',
-  band: (h: number) => `RF_BAND_${Math.round(h)}`,
-  shared: 'RF_SHARED',
-  points: 'RF_POINTS',
-  fences: 'RF_FENCES',
-  zones: 'RF_ZONES',
+  arms: ZONE_STYLES.armBase.dxf.layer,
+  maxSpace: ZONE_STYLES.maxSpace.dxf.layer,
+  restricted: ZONE_STYLES.restricted.dxf.layer,
+  band: (h: number) => `${ZONE_STYLES.band.dxf.layer}_${Math.round(h)}`,
+  shared: ZONE_STYLES.shared.dxf.layer,
+  points: ZONE_STYLES.pointReached.dxf.layer,
+  fences: ZONE_STYLES.fence.dxf.layer,
+  /** Openings, operator areas and keep-outs share one layer. */
+  zones: ZONE_STYLES.keepout.dxf.layer,
 } as const;
 
 /** Radius of the arm-base circle, plan mm. */
@@ -37,14 +39,15 @@ export function layoutDxf(input: PlanSheetInput): string {
   const d = new Drawing();
   d.setUnits('Millimeters');
   const content = input.layout.content;
-  d.addLayer(DXF_LAYERS.arms, Drawing.ACI.BLUE, 'CONTINUOUS');
-  d.addLayer(DXF_LAYERS.maxSpace, Drawing.ACI.CYAN, 'DASHED');
-  d.addLayer(DXF_LAYERS.restricted, Drawing.ACI.BLUE, 'CONTINUOUS');
-  for (const h of content.workHeights) d.addLayer(DXF_LAYERS.band(h), Drawing.ACI.GREEN, 'CONTINUOUS');
-  d.addLayer(DXF_LAYERS.shared, Drawing.ACI.RED, 'CONTINUOUS');
-  d.addLayer(DXF_LAYERS.points, Drawing.ACI.MAGENTA, 'CONTINUOUS');
-  d.addLayer(DXF_LAYERS.fences, Drawing.ACI.WHITE, 'CONTINUOUS');
-  d.addLayer(DXF_LAYERS.zones, Drawing.ACI.YELLOW, 'CONTINUOUS');
+  const layer = (name: string, look: DxfLook) => d.addLayer(name, look.aci, look.lineType);
+  layer(DXF_LAYERS.arms, ZONE_STYLES.armBase.dxf);
+  layer(DXF_LAYERS.maxSpace, ZONE_STYLES.maxSpace.dxf);
+  layer(DXF_LAYERS.restricted, ZONE_STYLES.restricted.dxf);
+  for (const h of content.workHeights) layer(DXF_LAYERS.band(h), ZONE_STYLES.band.dxf);
+  layer(DXF_LAYERS.shared, ZONE_STYLES.shared.dxf);
+  layer(DXF_LAYERS.points, ZONE_STYLES.pointReached.dxf);
+  layer(DXF_LAYERS.fences, ZONE_STYLES.fence.dxf);
+  layer(DXF_LAYERS.zones, ZONE_STYLES.keepout.dxf);
 
   const arms = summarizeArms({ models: input.models, analysis: input.analysis, content });
   d.setActiveLayer(DXF_LAYERS.arms);
@@ -71,7 +74,7 @@ export function layoutDxf(input: PlanSheetInput): string {
     d.drawText(round(p.x), round(p.y), TEXT_MM / 2, 0, p.id);
   }
   for (const z of content.zones) {
-    d.setActiveLayer(z.kind === 'fence' ? DXF_LAYERS.fences : DXF_LAYERS.zones);
+    d.setActiveLayer(ZONE_STYLES[z.kind].dxf.layer);
     const pts = z.points.map(([x, y]) => [round(x), round(y)] as [number, number]);
     d.drawPolyline(pts, z.kind === 'keepout' || z.kind === 'operator');
     const [x, y] = pts[0];

@@ -4,6 +4,7 @@ import { isReached } from '@shared/analysis/reached';
 import { geoJSONToPolygons } from '@shared/geometry/geojson';
 import type { Polygon2 } from '@shared/geometry/types';
 import type { Zone } from '@shared/schemas/layout';
+import { ZONE_STYLES } from '@shared/style/zoneStyles';
 import type { ArmSummary } from './armSummary';
 import { sheetText } from './fonts';
 import { drawingArea, planToPaper, type Box, type Extent, type PageFrame } from './paper';
@@ -16,10 +17,8 @@ export const ARM_COLOURS: readonly Rgb[] = [
 ];
 const INK: Rgb = [28, 34, 48];
 const GREY: Rgb = [120, 124, 132];
-const SHARED: Rgb = [196, 40, 40];
-const FENCE: Rgb = [20, 20, 20];
-const OPERATOR: Rgb = [214, 160, 20];
-const KEEPOUT: Rgb = [110, 110, 110];
+const { armBase: ARM_BASE, maxSpace: MAX_SPACE, restricted: RESTRICTED, band: BAND, shared: SHARED, fence: FENCE, opening: OPENING, operator: OPERATOR, keepout: KEEPOUT } = ZONE_STYLES;
+const { pointReached: POINT_REACHED, pointUnreached: POINT_UNREACHED } = ZONE_STYLES;
 /** Radius of an arm's base symbol on paper, mm. */
 export const BASE_SYMBOL_RADIUS_MM = 2;
 /** Work-point labels are left off past this many points (the coverage sheet lists them all). */
@@ -128,72 +127,71 @@ function centroid(points: ReadonlyArray<[number, number]>): [number, number] {
 function drawZones(doc: jsPDF, zones: ReadonlyArray<Zone>, toPaper: ToPaper): void {
   for (const z of zones.filter((z0) => z0.kind === 'operator')) {
     const poly: Polygon2[] = [[z.points.map(([x, y]) => [x, y] as [number, number])]];
-    fillPolygons(doc, poly, toPaper, OPERATOR, 0.18);
-    strokePolygons(doc, poly, toPaper, [150, 110, 10], 0.3, [2.4, 0.8, 0.4, 0.8]);
+    fillPolygons(doc, poly, toPaper, OPERATOR.paper.fill.colour, OPERATOR.paper.fill.opacity);
+    strokePolygons(doc, poly, toPaper, OPERATOR.paper.colour, OPERATOR.paper.width, [...OPERATOR.paper.dash]);
     const [cx, cy] = toPaper(...centroid(z.points));
-    label(doc, `${z.id} operator area${z.label ? ` — ${z.label}` : ''}`, cx, cy, 6, [120, 86, 6], true, 'center');
+    label(doc, `${z.id} operator area${z.label ? ` — ${z.label}` : ''}`, cx, cy, 6, OPERATOR.paper.label, true, 'center');
   }
   for (const z of zones.filter((z0) => z0.kind === 'keepout')) {
     const poly: Polygon2[] = [[z.points.map(([x, y]) => [x, y] as [number, number])]];
-    hatchPolygons(doc, poly, toPaper, KEEPOUT, 2.2, 45, 0.1);
-    hatchPolygons(doc, poly, toPaper, KEEPOUT, 2.2, -45, 0.1);
-    strokePolygons(doc, poly, toPaper, KEEPOUT, 0.35);
+    for (const angle of KEEPOUT.paper.hatch.angles) hatchPolygons(doc, poly, toPaper, KEEPOUT.paper.colour, KEEPOUT.paper.hatch.spacing, angle, KEEPOUT.paper.hatch.width);
+    strokePolygons(doc, poly, toPaper, KEEPOUT.paper.colour, KEEPOUT.paper.width);
     const [cx, cy] = toPaper(...centroid(z.points));
-    label(doc, `${z.id} keep-out${z.label ? ` — ${z.label}` : ''}`, cx, cy, 6, [70, 70, 70], true, 'center');
+    label(doc, `${z.id} keep-out${z.label ? ` — ${z.label}` : ''}`, cx, cy, 6, KEEPOUT.paper.label, true, 'center');
   }
   for (const z of zones.filter((z0) => z0.kind === 'fence')) {
-    doc.setDrawColor(FENCE[0], FENCE[1], FENCE[2]);
-    doc.setLineWidth(0.7);
+    doc.setDrawColor(...FENCE.paper.colour);
+    doc.setLineWidth(FENCE.paper.width);
     addLinePath(doc, z.points, toPaper);
     doc.stroke();
     // Post marks at the corners.
     for (const [x, y] of z.points) {
       const [px, py] = toPaper(x, y);
-      doc.setFillColor(FENCE[0], FENCE[1], FENCE[2]);
+      doc.setFillColor(...FENCE.paper.colour);
       doc.rect(px - 0.6, py - 0.6, 1.2, 1.2, 'F');
     }
     const [mx, my] = toPaper(...longestSegmentMid(z.points));
-    label(doc, `${z.id}${z.label ? ` ${z.label}` : ''} fence h ${Math.round(z.height ?? 0)}`, mx, my - 1.4, 5.5, FENCE, true, 'center');
+    label(doc, `${z.id}${z.label ? ` ${z.label}` : ''} fence h ${Math.round(z.height ?? 0)}`, mx, my - 1.4, 5.5, FENCE.paper.label, true, 'center');
   }
   for (const z of zones.filter((z0) => z0.kind === 'opening')) {
     const [a, b] = z.points;
     const [ax, ay] = toPaper(a[0], a[1]);
     const [bx, by] = toPaper(b[0], b[1]);
     // The gap: paper-white over the fence line, then the jambs across it.
-    doc.setDrawColor(255, 255, 255);
-    doc.setLineWidth(1.1);
+    doc.setDrawColor(...OPENING.paper.gap.colour);
+    doc.setLineWidth(OPENING.paper.gap.width);
     doc.line(ax, ay, bx, by);
     const len = Math.hypot(bx - ax, by - ay) || 1;
     const nx = -(by - ay) / len, ny = (bx - ax) / len;
-    doc.setDrawColor(FENCE[0], FENCE[1], FENCE[2]);
-    doc.setLineWidth(0.35);
+    doc.setDrawColor(...OPENING.paper.colour);
+    doc.setLineWidth(OPENING.paper.width);
     doc.line(ax - nx * 1.5, ay - ny * 1.5, ax + nx * 1.5, ay + ny * 1.5);
     doc.line(bx - nx * 1.5, by - ny * 1.5, bx + nx * 1.5, by + ny * 1.5);
-    doc.setLineDashPattern([0.8, 0.6], 0);
-    doc.setLineWidth(0.15);
+    doc.setLineDashPattern([...OPENING.paper.gap.centreDash], 0);
+    doc.setLineWidth(OPENING.paper.gap.centreWidth);
     doc.line(ax, ay, bx, by);
     doc.setLineDashPattern([], 0);
-    label(doc, `${z.id} opening${z.label ? ` ${z.label}` : ''}`, (ax + bx) / 2 + nx * 3, (ay + by) / 2 + ny * 3 + 1, 5.5, FENCE, false, 'center');
+    label(doc, `${z.id} opening${z.label ? ` ${z.label}` : ''}`, (ax + bx) / 2 + nx * 3, (ay + by) / 2 + ny * 3 + 1, 5.5, OPENING.paper.label, false, 'center');
   }
 }
 
 function drawArms(doc: jsPDF, arms: ArmSummary[], toPaper: ToPaper): void {
   arms.forEach((a, i) => {
     const c = ARM_COLOURS[i % ARM_COLOURS.length];
-    if (a.restricted.length) fillPolygons(doc, a.restricted, toPaper, c, 0.1);
+    if (a.restricted.length) fillPolygons(doc, a.restricted, toPaper, c, RESTRICTED.paper.fill.opacity);
   });
   arms.forEach((a, i) => {
     const c = ARM_COLOURS[i % ARM_COLOURS.length];
-    if (a.maxSpace.length) strokePolygons(doc, a.maxSpace, toPaper, c, 0.25, [1.6, 1]);
-    if (a.restricted.length) strokePolygons(doc, a.restricted, toPaper, c, 0.3);
-    if (a.band?.polygons.length) strokePolygons(doc, a.band.polygons, toPaper, c, 0.18, [0.4, 0.6]);
+    if (a.maxSpace.length) strokePolygons(doc, a.maxSpace, toPaper, c, MAX_SPACE.paper.width, [...MAX_SPACE.paper.dash]);
+    if (a.restricted.length) strokePolygons(doc, a.restricted, toPaper, c, RESTRICTED.paper.width);
+    if (a.band?.polygons.length) strokePolygons(doc, a.band.polygons, toPaper, c, BAND.paper.width, [...BAND.paper.dash]);
   });
   arms.forEach((a, i) => {
     const c = ARM_COLOURS[i % ARM_COLOURS.length];
     const [x, y] = toPaper(a.arm.x, a.arm.y);
     doc.setFillColor(255, 255, 255);
     doc.setDrawColor(c[0], c[1], c[2]);
-    doc.setLineWidth(0.35);
+    doc.setLineWidth(ARM_BASE.paper.width);
     doc.circle(x, y, BASE_SYMBOL_RADIUS_MM, 'FD');
     const t = (a.arm.yaw * Math.PI) / 180;
     doc.line(x, y, x + Math.cos(t) * BASE_SYMBOL_RADIUS_MM * 1.9, y - Math.sin(t) * BASE_SYMBOL_RADIUS_MM * 1.9);
@@ -209,9 +207,10 @@ function drawPoints(doc: jsPDF, input: PlanSheetInput, toPaper: ToPaper): void {
     const [x, y] = toPaper(p.x, p.y);
     const margins = Object.values(cov[p.id] ?? {});
     const reached = margins.some(isReached);
-    const c: Rgb = reached ? INK : SHARED;
+    const look = (reached ? POINT_REACHED : POINT_UNREACHED).paper;
+    const c: Rgb = look.colour;
     doc.setDrawColor(c[0], c[1], c[2]);
-    doc.setLineWidth(0.2);
+    doc.setLineWidth(look.width);
     doc.line(x - 0.9, y - 0.9, x + 0.9, y + 0.9);
     doc.line(x - 0.9, y + 0.9, x + 0.9, y - 0.9);
     if (withLabels) label(doc, p.id, x + 1.1, y - 0.9, 4.5, c);
@@ -273,50 +272,49 @@ function drawLegend(doc: jsPDF, box: Box, arms: ArmSummary[], firstHeight: numbe
     doc.setLineWidth(0.25);
     doc.setFillColor(255, 255, 255);
     doc.circle(sx + 5, sy, BASE_SYMBOL_RADIUS_MM * 0.8, 'FD');
-  }, 'Arm base (tick = yaw 0 of J1)');
-  row((sx, sy) => strokePolygons(doc, sw(sx, sy), id, INK, 0.25, [1.6, 1]), 'Maximum space (all J1 limits)');
+  }, ARM_BASE.legend);
+  row((sx, sy) => strokePolygons(doc, sw(sx, sy), id, MAX_SPACE.paper.legendColour, MAX_SPACE.paper.width, [...MAX_SPACE.paper.dash]), MAX_SPACE.legend);
   row((sx, sy) => {
-    fillPolygons(doc, sw(sx, sy), id, ARM_COLOURS[0], 0.1);
-    strokePolygons(doc, sw(sx, sy), id, ARM_COLOURS[0], 0.3);
-  }, 'Restricted space (restricting limits)');
-  row((sx, sy) => strokePolygons(doc, sw(sx, sy), id, INK, 0.18, [0.4, 0.6]), firstHeight === undefined ? 'Reach band (no work height set)' : `Reach band at ${Math.round(firstHeight)} mm`);
+    fillPolygons(doc, sw(sx, sy), id, ARM_COLOURS[0], RESTRICTED.paper.fill.opacity);
+    strokePolygons(doc, sw(sx, sy), id, ARM_COLOURS[0], RESTRICTED.paper.width);
+  }, RESTRICTED.legend);
+  row((sx, sy) => strokePolygons(doc, sw(sx, sy), id, BAND.paper.legendColour, BAND.paper.width, [...BAND.paper.dash]), firstHeight === undefined ? `${BAND.legend} (no work height set)` : `${BAND.legend} at ${Math.round(firstHeight)} mm`);
   row((sx, sy) => {
-    hatchPolygons(doc, sw(sx, sy), id, SHARED, 1.2, 45, 0.15);
-    strokePolygons(doc, sw(sx, sy), id, SHARED, 0.3);
-  }, 'Shared zone (two arms overlap)');
+    for (const angle of SHARED.paper.hatch.angles) hatchPolygons(doc, sw(sx, sy), id, SHARED.paper.colour, SHARED.paper.hatch.legendSpacing, angle, SHARED.paper.hatch.width);
+    strokePolygons(doc, sw(sx, sy), id, SHARED.paper.colour, SHARED.paper.width);
+  }, SHARED.legend);
   row((sx, sy) => {
-    doc.setDrawColor(FENCE[0], FENCE[1], FENCE[2]);
-    doc.setLineWidth(0.7);
+    doc.setDrawColor(...FENCE.paper.colour);
+    doc.setLineWidth(FENCE.paper.width);
     doc.line(sx, sy, sx + 10, sy);
-  }, 'Guard fence (h = height, mm)');
+  }, FENCE.legend);
   row((sx, sy) => {
-    doc.setDrawColor(FENCE[0], FENCE[1], FENCE[2]);
-    doc.setLineWidth(0.35);
+    doc.setDrawColor(...OPENING.paper.colour);
+    doc.setLineWidth(OPENING.paper.width);
     doc.line(sx + 2, sy - 1.4, sx + 2, sy + 1.4);
     doc.line(sx + 8, sy - 1.4, sx + 8, sy + 1.4);
-    doc.setLineWidth(0.15);
-    doc.setLineDashPattern([0.8, 0.6], 0);
+    doc.setLineWidth(OPENING.paper.gap.centreWidth);
+    doc.setLineDashPattern([...OPENING.paper.gap.centreDash], 0);
     doc.line(sx + 2, sy, sx + 8, sy);
     doc.setLineDashPattern([], 0);
-  }, 'Access opening');
+  }, OPENING.legend);
   row((sx, sy) => {
-    fillPolygons(doc, sw(sx, sy), id, OPERATOR, 0.18);
-    strokePolygons(doc, sw(sx, sy), id, [150, 110, 10], 0.3, [2.4, 0.8, 0.4, 0.8]);
-  }, 'Operator area');
+    fillPolygons(doc, sw(sx, sy), id, OPERATOR.paper.fill.colour, OPERATOR.paper.fill.opacity);
+    strokePolygons(doc, sw(sx, sy), id, OPERATOR.paper.colour, OPERATOR.paper.width, [...OPERATOR.paper.dash]);
+  }, OPERATOR.legend);
   row((sx, sy) => {
-    hatchPolygons(doc, sw(sx, sy), id, KEEPOUT, 1.2, 45, 0.1);
-    hatchPolygons(doc, sw(sx, sy), id, KEEPOUT, 1.2, -45, 0.1);
-    strokePolygons(doc, sw(sx, sy), id, KEEPOUT, 0.35);
-  }, 'Keep-out');
+    for (const angle of KEEPOUT.paper.hatch.angles) hatchPolygons(doc, sw(sx, sy), id, KEEPOUT.paper.colour, KEEPOUT.paper.hatch.legendSpacing, angle, KEEPOUT.paper.hatch.width);
+    strokePolygons(doc, sw(sx, sy), id, KEEPOUT.paper.colour, KEEPOUT.paper.width);
+  }, KEEPOUT.legend);
   row((sx, sy) => {
-    doc.setDrawColor(INK[0], INK[1], INK[2]);
-    doc.setLineWidth(0.2);
+    doc.setDrawColor(...POINT_REACHED.paper.colour);
+    doc.setLineWidth(POINT_REACHED.paper.width);
     doc.line(sx + 4, sy - 0.9, sx + 6, sy + 0.9);
     doc.line(sx + 4, sy + 0.9, sx + 6, sy - 0.9);
-    doc.setDrawColor(SHARED[0], SHARED[1], SHARED[2]);
+    doc.setDrawColor(...POINT_UNREACHED.paper.colour);
     doc.line(sx + 7.5, sy - 0.9, sx + 9.5, sy + 0.9);
     doc.line(sx + 7.5, sy + 0.9, sx + 9.5, sy - 0.9);
-  }, 'Work point (red = no arm reaches it)');
+  }, POINT_REACHED.legend);
   y += 1;
   // Arm colour key.
   const perCol = Math.ceil(arms.length / 2);
@@ -348,8 +346,8 @@ export function drawPlan(doc: jsPDF, frame: PageFrame, input: PlanSheetInput, ar
   for (const s of input.analysis.overlaps) {
     const polys = geoJSONToPolygons(s.geometry);
     if (!polys.length) continue;
-    hatchPolygons(doc, polys, toPaper, SHARED, 1.4, 45, 0.15);
-    strokePolygons(doc, polys, toPaper, SHARED, 0.3);
+    for (const angle of SHARED.paper.hatch.angles) hatchPolygons(doc, polys, toPaper, SHARED.paper.colour, SHARED.paper.hatch.spacing, angle, SHARED.paper.hatch.width);
+    strokePolygons(doc, polys, toPaper, SHARED.paper.colour, SHARED.paper.width);
   }
   drawZones(doc, input.layout.content.zones, toPaper);
   drawPoints(doc, input, toPaper);

@@ -7,6 +7,7 @@ import type { Selection } from 'd3';
 import { isReached } from '@shared/analysis/reached';
 import type { AreaGeometry } from '@shared/geometry/geojson';
 import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
+import { ZONE_STYLES, type MarkKind, type ScreenLook } from '@shared/style/zoneStyles';
 import { geometryPath } from '../../plan/pathData';
 import type { PlanViewState } from '../../plan/planTypes';
 import type { AnalysisView } from '../../workers/analysisProtocol';
@@ -14,20 +15,15 @@ import type { AnalysisView } from '../../workers/analysisProtocol';
 type G = Selection<SVGGElement, unknown, null, undefined>;
 type XY = [number, number];
 
-/** Colours of the editor's drawing: theme tokens where styles.css has them, with a fallback. */
+/** Colours of the editor's own marks (selection, finding, paper); zone kinds are styled by ZONE_STYLES. */
 export const SCENE_COLOURS = {
-  reach: 'var(--color-reach)',
-  shared: 'var(--color-shared-zone)',
-  fence: 'var(--color-zone-fence, #1c2230)',
-  keepout: 'var(--color-zone-keepout, #5f6472)',
-  operator: 'var(--color-zone-operator, #c27c0e)',
-  opening: 'var(--color-zone-opening, #0b6e69)',
-  point: 'var(--color-ink)',
-  unreached: 'var(--color-finding-critical)',
   selected: 'var(--color-accent)',
   finding: 'var(--color-finding-warning)',
   paper: 'var(--color-paper-raised, #fff)',
 } as const;
+
+/** How a kind of mark is drawn on screen. */
+export const screenLook = (kind: MarkKind): ScreenLook => ZONE_STYLES[kind].screen;
 
 /** Id of the shared-zone hatch pattern (one per page). */
 export const HATCH_ID = 'rf-shared-hatch';
@@ -39,9 +35,10 @@ export const TICK_PX = 34;
 export function drawPatterns(layer: G, view: PlanViewState): void {
   const k = view.transform.k || 1;
   const defs = layer.selectAll<SVGDefsElement, null>('defs').data([null]).join('defs');
+  const { shared, keepout } = ZONE_STYLES;
   const spec = [
-    { id: HATCH_ID, px: 7, colour: SCENE_COLOURS.shared, width: 1.4 },
-    { id: KEEPOUT_HATCH_ID, px: 9, colour: SCENE_COLOURS.keepout, width: 1 },
+    { id: HATCH_ID, px: shared.screen.hatch.spacingPx, colour: shared.screen.colour, width: shared.screen.hatch.width },
+    { id: KEEPOUT_HATCH_ID, px: keepout.screen.hatch.spacingPx, colour: keepout.screen.colour, width: keepout.screen.hatch.width },
   ];
   const pats = defs
     .selectAll<SVGPatternElement, (typeof spec)[number]>('pattern')
@@ -79,11 +76,14 @@ export function drawAreaZones(layer: G, zones: readonly Zone[], selectedZone: st
     .attr('data-kind', (z) => z.kind)
     .attr('d', zonePath)
     .attr('vector-effect', 'non-scaling-stroke')
-    .style('fill', (z) => (z.kind === 'operator' ? SCENE_COLOURS.operator : `url(#${KEEPOUT_HATCH_ID})`))
-    .style('fill-opacity', (z) => (z.kind === 'operator' ? 0.16 : 1))
-    .style('stroke', (z) => (z.id === selectedZone ? SCENE_COLOURS.selected : z.kind === 'operator' ? SCENE_COLOURS.operator : SCENE_COLOURS.keepout))
-    .style('stroke-width', (z) => (z.id === selectedZone ? 2.5 : 1.5))
-    .style('stroke-dasharray', (z) => (z.kind === 'operator' ? '7 3' : null))
+    .style('fill', (z) => screenLook(z.kind).fill ?? `url(#${KEEPOUT_HATCH_ID})`)
+    .style('fill-opacity', (z) => screenLook(z.kind).fillOpacity ?? 1)
+    .style('stroke', (z) => (z.id === selectedZone ? SCENE_COLOURS.selected : screenLook(z.kind).colour))
+    .style('stroke-width', (z) => {
+      const look = screenLook(z.kind);
+      return z.id === selectedZone ? (look.widthEmphasis ?? look.width) : look.width;
+    })
+    .style('stroke-dasharray', (z) => screenLook(z.kind).dash ?? null)
     .style('cursor', 'pointer');
 }
 
@@ -115,26 +115,27 @@ export function drawReach(layer: G, data: readonly ArmRegionsDatum[]): void {
     })
     .attr('data-arm', (d) => d.arm.id)
     .attr('transform', (d) => d.transform);
+  const { restricted, maxSpace, band } = ZONE_STYLES;
   groups
     .select('path.reach-restricted')
     .attr('d', (d) => geometryPath(d.restricted))
-    .style('fill', SCENE_COLOURS.reach)
-    .style('fill-opacity', (d) => (d.emphasis ? 0.17 : 0.1))
-    .style('stroke', SCENE_COLOURS.reach)
-    .style('stroke-opacity', 0.45)
-    .style('stroke-width', 1);
+    .style('fill', restricted.screen.fill)
+    .style('fill-opacity', (d) => (d.emphasis ? restricted.screen.fillOpacityEmphasis : restricted.screen.fillOpacity))
+    .style('stroke', restricted.screen.colour)
+    .style('stroke-opacity', restricted.screen.strokeOpacity)
+    .style('stroke-width', restricted.screen.width);
   groups
     .select('path.reach-max')
     .attr('d', (d) => geometryPath(d.max))
-    .style('stroke', SCENE_COLOURS.reach)
-    .style('stroke-opacity', 0.75)
-    .style('stroke-width', 1)
-    .style('stroke-dasharray', '6 4');
+    .style('stroke', maxSpace.screen.colour)
+    .style('stroke-opacity', maxSpace.screen.strokeOpacity)
+    .style('stroke-width', maxSpace.screen.width)
+    .style('stroke-dasharray', maxSpace.screen.dash);
   groups
     .select('path.reach-band')
     .attr('d', (d) => geometryPath(d.band))
-    .style('stroke', SCENE_COLOURS.reach)
-    .style('stroke-width', (d) => (d.emphasis ? 2.5 : 2));
+    .style('stroke', band.screen.colour)
+    .style('stroke-width', (d) => (d.emphasis ? band.screen.widthEmphasis : band.screen.width));
 }
 
 /** Shared zones: hatched (the pattern) with an outline, plan space. */
@@ -150,8 +151,8 @@ export function drawSharedZones(layer: G, overlaps: AnalysisView['analysis']['ov
     .attr('vector-effect', 'non-scaling-stroke')
     .attr('pointer-events', 'none')
     .style('fill', `url(#${HATCH_ID})`)
-    .style('stroke', SCENE_COLOURS.shared)
-    .style('stroke-width', (o) => (o.arms.join('+') === selectedPair ? 3 : 1.5));
+    .style('stroke', ZONE_STYLES.shared.screen.colour)
+    .style('stroke-width', (o) => (o.arms.join('+') === selectedPair ? ZONE_STYLES.shared.screen.widthEmphasis : ZONE_STYLES.shared.screen.width));
 }
 
 /** Fences (thick lines) and openings (a paper-coloured gap drawn over the fence), plan space. */
@@ -159,6 +160,7 @@ export function drawLineZones(layer: G, zones: readonly Zone[], selectedZone: st
   const lines = zones.filter((z) => z.kind === 'fence' || z.kind === 'opening');
   // Openings after fences so the gap covers the fence line.
   lines.sort((a, b) => (a.kind === b.kind ? 0 : a.kind === 'fence' ? -1 : 1));
+  const { fence, opening } = ZONE_STYLES;
   layer
     .selectAll<SVGPathElement, Zone>('path.zone-line')
     .data(lines, (z) => z.id)
@@ -171,8 +173,8 @@ export function drawLineZones(layer: G, zones: readonly Zone[], selectedZone: st
     .attr('vector-effect', 'non-scaling-stroke')
     .attr('stroke-linecap', (z) => (z.kind === 'opening' ? 'butt' : 'square'))
     .attr('stroke-linejoin', 'miter')
-    .style('stroke', (z) => (z.kind === 'opening' ? SCENE_COLOURS.paper : z.id === selectedZone ? SCENE_COLOURS.selected : SCENE_COLOURS.fence))
-    .style('stroke-width', (z) => (z.kind === 'opening' ? 7 : 4.5))
+    .style('stroke', (z) => (z.kind === 'opening' ? opening.screen.gap.colour : z.id === selectedZone ? SCENE_COLOURS.selected : fence.screen.colour))
+    .style('stroke-width', (z) => (z.kind === 'opening' ? opening.screen.gap.width : fence.screen.width))
     .style('cursor', 'pointer');
 }
 
@@ -193,8 +195,8 @@ export function drawWorkPoints(layer: G, content: LayoutContent, coverage: Recor
   layer
     .selectAll<SVGPathElement, { cls: string; d: string; colour: string; w: number }>('path')
     .data([
-      { cls: 'points-reached', d: ok, colour: SCENE_COLOURS.point, w: 1.3 },
-      { cls: 'points-unreached', d: bad, colour: SCENE_COLOURS.unreached, w: 2 },
+      { cls: 'points-reached', d: ok, colour: ZONE_STYLES.pointReached.screen.colour, w: ZONE_STYLES.pointReached.screen.width },
+      { cls: 'points-unreached', d: bad, colour: ZONE_STYLES.pointUnreached.screen.colour, w: ZONE_STYLES.pointUnreached.screen.width },
       { cls: 'points-selected', d: sel, colour: SCENE_COLOURS.selected, w: 2.5 },
     ])
     .join('path')
@@ -271,8 +273,8 @@ export function drawZoneMarks(layer: G, zones: readonly Zone[], view: PlanViewSt
     .attr('paint-order', 'stroke')
     .style('stroke', SCENE_COLOURS.paper)
     .style('stroke-width', 3)
-    .style('font', (z) => `${z.kind === 'operator' ? 700 : 400} 11px var(--font-sans, sans-serif)`)
-    .style('fill', (z) => (z.kind === 'operator' ? SCENE_COLOURS.operator : z.kind === 'keepout' ? SCENE_COLOURS.keepout : SCENE_COLOURS.fence))
+    .style('font', (z) => `${screenLook(z.kind).label?.weight ?? 400} 11px var(--font-sans, sans-serif)`)
+    .style('fill', (z) => screenLook(z.kind).label?.colour ?? screenLook(z.kind).colour)
     .text(zoneLabelText);
   labels.each(function (z) {
     const [sx, sy] = view.toScreen({ x: zoneLabelAt(z)[0], y: zoneLabelAt(z)[1] });
@@ -299,8 +301,8 @@ export function drawZoneMarks(layer: G, zones: readonly Zone[], view: PlanViewSt
     .attr('y1', (d) => d.a[1])
     .attr('x2', (d) => d.b[0])
     .attr('y2', (d) => d.b[1])
-    .style('stroke', SCENE_COLOURS.opening)
-    .style('stroke-width', 3);
+    .style('stroke', ZONE_STYLES.opening.screen.colour)
+    .style('stroke-width', ZONE_STYLES.opening.screen.width);
 }
 
 /** Work point ids beside their crosses (screen space), only while few enough to read. */

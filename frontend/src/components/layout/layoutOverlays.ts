@@ -1,0 +1,24 @@
+/**
+ * The layout editor's overlays on the plan canvas, bottom to top within each space: plan space
+ * (mm, moves with zoom) and screen space (px, keeps its size). One list, so drawing and removal
+ * name the same groups.
+ */
+import type { OverlayOptions } from '../../plan/planTypes';
+
+export interface LayoutOverlay extends Required<OverlayOptions> {
+  name: string;
+}
+
+export const LAYOUT_OVERLAYS = {
+  patterns: { name: 'layout-patterns', space: 'plan', order: 1 },
+  areas: { name: 'layout-areas', space: 'plan', order: 5 },
+  reach: { name: 'layout-reach', space: 'plan', order: 10 },
+  shared: { name: 'layout-shared', space: 'plan', order: 20 },
+  lines: { name: 'layout-lines', space: 'plan', order: 30 },
+  points: { name: 'layout-points', space: 'plan', order: 40 },
+  finding: { name: 'layout-finding', space: 'plan', order: 45 },
+  zoneMarks: { name: 'layout-zone-marks', space: 'screen', order: 1 },
+  arms: { name: 'layout-arms', space: 'screen', order: 5 },
+  handles: { name: 'layout-handles', space: 'screen', order: 6 },
+  draft: { name: 'layout-draft', space: 'screen', order: 7 },
+} as const satisfies Record<string, LayoutOverlay>;

@@ -1,0 +1,42 @@
+/**
+ * Types shared by the layout scene (layoutScene.ts) and its tools (tools/): what React hands the
+ * scene and the callbacks through which the scene hands edits back. Plan mm (x east, y north),
+ * yaw degrees CCW from +x.
+ */
+import type { AreaGeometry } from '@shared/geometry/geojson';
+import type { LayoutContent } from '@shared/schemas/layout';
+import type { AnalysisView, DragPose } from '../../workers/analysisProtocol';
+import type { LayoutSelection } from './panelTypes';
+
+export type XY = [number, number];
+
+export type EditorTool = 'select' | 'point' | 'fence' | 'keepout' | 'operator' | 'opening';
+/** Tools that draw a zone. */
+export type ShapeTool = Exclude<EditorTool, 'select' | 'point'>;
+
+export interface SceneState {
+  content: LayoutContent;
+  view: AnalysisView | null;
+  selection: LayoutSelection | null;
+  /** Arms to show emphasised (those of the selected finding). */
+  highlightArms: ReadonlySet<string>;
+  findingGeometry: AreaGeometry | null;
+  tool: EditorTool;
+  /** Work height whose reach band is drawn, mm; null = none. */
+  bandHeight: number | null;
+  readOnly: boolean;
+}
+
+export interface SceneCallbacks {
+  onSelect(sel: LayoutSelection | null): void;
+  /** The pose of the arm being dragged or turned, per pointer move; null when the drag ends. */
+  onDragPose(pose: DragPose | null): void;
+  onArmMoved(id: string, x: number, y: number): void;
+  onArmTurned(id: string, yaw: number): void;
+  onVertexMoved(zoneId: string, index: number, to: XY): void;
+  onShapeDrawn(kind: ShapeTool, points: XY[]): void;
+  /** The point tool clicked the plan at p (mm). */
+  onPointPlaced(p: XY): void;
+  /** A line for the status bar while drawing (or null). */
+  onHint(text: string | null): void;
+}
