@@ -6,6 +6,7 @@
  * is committed once, on pointer up. Plan mm (x east, y north), yaw degrees CCW from +x.
  */
 import { select, type Selection } from 'd3';
+import { parseFindingId } from '@shared/analysis/messages';
 import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
 import { moveZoneVertex } from '../../editor/layoutEdits';
 import type { OverlayRender, PlanCanvas, PlanViewState } from '../../plan/planTypes';
@@ -126,7 +127,8 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
       bindZoneClicks(l);
     });
     show(LAYOUT_OVERLAYS.reach, (l) => drawReach(l, regionData(s)));
-    const pair = s.selection?.kind === 'finding' && s.selection.id.startsWith('shared-zone:') ? s.selection.id.slice('shared-zone:'.length) : null;
+    const finding = s.selection?.kind === 'finding' ? parseFindingId(s.selection.id) : null;
+    const pair = finding?.kind === 'shared-zone' ? finding.ids.join('+') : null;
     show(LAYOUT_OVERLAYS.shared, (l) => drawSharedZones(l, s.view?.analysis.overlaps ?? [], pair));
     show(LAYOUT_OVERLAYS.lines, (l) => {
       drawLineZones(l, c.zones, zone);
