@@ -2,7 +2,8 @@ import { toRadians } from '../geometry/angles';
 import { clipOffset } from '../geometry/clipper';
 import { buildDistanceGrid, type DistanceGrid } from '../geometry/distanceGrid';
 import { simplifyPolygonsOutward } from '../geometry/simplify';
-import type { Polygon2 } from '../geometry/types';
+import { armPose } from '../geometry/frames';
+import { planPoint, type Polygon2 } from '../geometry/types';
 import type { ArmParams, ScaraParams } from '../schemas/armModel';
 import type { ReachProfile } from './types';
 import { familyOf, reachProfileOf, stableKey } from './families';
@@ -32,6 +33,14 @@ import { scaraPlanRegion } from './scara';
 
 /** A point in the arm frame, mm; approach default 'top'. */
 export interface ArmTarget {
+  x: number;
+  y: number;
+  z: number;
+  approach?: 'top' | 'any';
+}
+
+/** A point in the plan frame, mm (z above finished floor level); approach default 'top'. */
+export interface PlanTarget {
   x: number;
   y: number;
   z: number;
@@ -206,13 +215,10 @@ export function makePointReach(model: ArmParams, restrict?: J1Restrict | null): 
 }
 
 /** Coverage of a plan point (mm) by a placed arm: transform into the arm frame, then the cached region test. */
-export function pointReach(model: ArmParams, placement: Readonly<ReachPlacement>, point: Readonly<ArmTarget>): PointReachResult {
-  const yaw = toRadians(placement.yaw);
-  const c = Math.cos(yaw);
-  const s = Math.sin(yaw);
-  const dx = point.x - placement.x;
-  const dy = point.y - placement.y;
-  const m = marginFnOf(model, placement.restrict)(c * dx + s * dy, -s * dx + c * dy, point.z - placement.mountHeight, point.approach);
+export function pointReach(model: ArmParams, placement: Readonly<ReachPlacement>, point: Readonly<PlanTarget>): PointReachResult {
+  const pose = armPose(placement);
+  const [u, v] = pose.toArm(planPoint(point.x, point.y));
+  const m = marginFnOf(model, placement.restrict)(u, v, pose.toArmZ(point.z), point.approach);
   return { reached: m >= 0, marginMm: m };
 }
 
