@@ -34,7 +34,7 @@ export function pointSegmentDistance(x: number, y: number, ax: number, ay: numbe
 /**
  * Hot-loop form, parameter: t ∈ [0, 1] of the nearest point for a point given relative to the
  * segment start, (px, py) = p − a, with direction (dx, dy) = b − a and invLen2 = 1/|b − a|² (0 for
- * a degenerate segment), mm.
+ * a degenerate segment; it must be finite, so |b − a| above ~1e-154 mm), mm.
  */
 export function nearestSegmentParamRel(px: number, py: number, dx: number, dy: number, invLen2: number): number {
   const t = (px * dx + py * dy) * invLen2;
