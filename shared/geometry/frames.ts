@@ -9,14 +9,17 @@
  * as (deg·π)/180, x·cos − y·sin + x0, …): analysis results, plan sheets and exports are compared
  * byte for byte, so every caller must round exactly the same way.
  */
-import type { ArmPoint, Degrees, Millimetres, PlanPoint, Polygon2, Pt } from './types';
+import type { ArmPoint, Degrees, Millimetres, PlanPoint, Polygon2, Pt, Radians } from './types';
 
 /** Where an arm stands, as stored in a layout (plan mm; yaw degrees CCW from +x; mount height mm, default 0). */
 export interface PosePlacement {
-  x: number;
-  y: number;
-  yaw: number;
-  mountHeight?: number;
+  /** Plan position of the J1 axis, mm (field names as in the layout JSON). */
+  x: Millimetres;
+  y: Millimetres;
+  /** Degrees counter-clockwise from plan +x. */
+  yaw: Degrees;
+  /** Mounting face above finished floor level, mm; 0 when absent. */
+  mountHeight?: Millimetres;
 }
 
 /** A placed arm's pose: the plan ↔ arm transform (see the file comment for the frames). */
@@ -42,24 +45,24 @@ export interface ArmPose {
 }
 
 /** Degrees → radians in the order the pose uses, (deg·π)/180 (see the file comment). */
-function yawRadians(yawDeg: Degrees): number {
+function yawRadians(yawDeg: Degrees): Radians {
   return (yawDeg * Math.PI) / 180;
 }
 
 /** The pose of an arm placed at (x, y) mm with yaw (deg CCW) and mount height (mm): rotation about the J1 axis, then translation. */
 export function armPose(placement: Readonly<PosePlacement>): ArmPose {
-  const x0 = placement.x;
-  const y0 = placement.y;
-  const h = placement.mountHeight ?? 0;
-  const t = yawRadians(placement.yaw);
-  const c = Math.cos(t);
-  const s = Math.sin(t);
+  const x0: Millimetres = placement.x;
+  const y0: Millimetres = placement.y;
+  const mountHeightMm: Millimetres = placement.mountHeight ?? 0;
+  const yawRad = yawRadians(placement.yaw);
+  const c = Math.cos(yawRad);
+  const s = Math.sin(yawRad);
   const place = ([u, v]: Readonly<Pt>): Pt => [c * u - s * v + x0, s * u + c * v + y0];
   return {
     xMm: x0,
     yMm: y0,
     yawDeg: placement.yaw,
-    mountHeightMm: h,
+    mountHeightMm,
     cos: c,
     sin: s,
     toArm([px, py]) {
@@ -68,7 +71,7 @@ export function armPose(placement: Readonly<PosePlacement>): ArmPose {
       return [c * dx + s * dy, -s * dx + c * dy] as ArmPoint;
     },
     toPlan: (p) => place(p) as PlanPoint,
-    toArmZ: (z) => z - h,
+    toArmZ: (zPlanMm) => zPlanMm - mountHeightMm,
     placePolygons: (polys) => polys.map((poly) => poly.map((ring) => ring.map(place))),
   };
 }

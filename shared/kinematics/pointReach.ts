@@ -55,6 +55,7 @@ export interface PointReachResult {
 
 /** Where an arm stands on the plan: position (mm), yaw (deg CCW from +x), mount height (mm), restricting J1 limits (controller deg). */
 export interface ReachPlacement {
+  /** Field names as in the layout JSON: x, y and mountHeight in mm, yaw in degrees. */
   x: number;
   y: number;
   yaw: number;
