@@ -340,54 +340,8 @@ function buildLevel(E: Edges, bounds: readonly [number, number, number, number],
   return { gx0, gy0, nx, ny, cell, invCell: 1 / cell, starts, edges, dce, sdc };
 }
 
-/** True when (x, y) falls in a cell of the level. */
-function inLevel(L: Level, x: number, y: number): boolean {
-  const fx = (x - L.gx0) * L.invCell;
-  const fy = (y - L.gy0) * L.invCell;
-  return fx >= 0 && fy >= 0 && fx < L.nx && fy < L.ny;
-}
-
-/**
- * Signed distance from (x, y) in level L's cell (which must contain it), scanning the cell's list
- * nearest first and stopping once no later edge can be nearer; null when the list is empty.
- */
-function signedDistanceInCell(E: Edges, L: Level, x: number, y: number): number | null {
-  const fx = (x - L.gx0) * L.invCell;
-  const fy = (y - L.gy0) * L.invCell;
-  const ix = fx | 0;
-  const iy = fy | 0;
-  const c = iy * L.nx + ix;
-  // Offset of p from the cell centre, mm: edge e is at least dist(c, e) − off from p.
-  const ox = fx - ix - 0.5;
-  const oy = fy - iy - 0.5;
-  const off = Math.sqrt(ox * ox + oy * oy) * L.cell * (1 + 1e-12) + 1e-9;
-  const ed = E.packed;
-  const cellEdges = L.edges;
-  const dce = L.dce;
-  const to = L.starts[c + 1];
-  let best = Infinity;
-  let bestEdge = -1;
-  for (let k = L.starts[c]; k < to; k++) {
-    const lb = dce[k] - off;
-    if (lb > 0 && lb * lb >= best) break;
-    const o = 5 * cellEdges[k];
-    const d2 = pointSegmentDistance2Rel(x - ed[o], y - ed[o + 1], ed[o + 2], ed[o + 3], ed[o + 4]);
-    if (d2 < best) {
-      best = d2;
-      bestEdge = o / 5;
-    }
-  }
-  if (bestEdge < 0) return null;
-  if (best === 0) return 0;
-  const o = 5 * bestEdge;
-  const t = nearestSegmentParamRel(x - ed[o], y - ed[o + 1], ed[o + 2], ed[o + 3], ed[o + 4]);
-  return signByNearestFeature(E, bestEdge, t, Math.sqrt(best), x, y);
-}
-
-/** Signed distance at the centre of (x, y)'s cell of L (which must contain it) plus the distance to that centre, mm (1-Lipschitz bound). */
-function upperBoundInCell(L: Level, x: number, y: number): number {
-  const fx = (x - L.gx0) * L.invCell;
-  const fy = (y - L.gy0) * L.invCell;
+/** Signed distance at the centre of the cell at grid coordinates (fx, fy) of L plus the distance to that centre, mm (1-Lipschitz bound). */
+function upperBoundInCell(L: Level, fx: number, fy: number): number {
   const ix = fx | 0;
   const iy = fy | 0;
   const ox = fx - ix - 0.5;
@@ -406,14 +360,71 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
   // A fine level around the polygons and a coarse one far beyond them; outside both, all edges.
   const fine = buildLevel(E, bounds, size * 0.5 + 1, opts.maxCells ?? 256);
   const coarse = buildLevel(E, bounds, size * 2.5 + 1, 32);
+  const ed = E.packed;
+  // The query is the hottest loop of the analysis, so it stays in one piece: pick the fine level
+  // when it holds the point, else the coarse one, else scan every edge; then scan the cell's list
+  // nearest first and stop once dist(c, e) − |p − c| cannot beat the best distance found.
   const signedDistance = (x: number, y: number): number => {
-    const L = inLevel(fine, x, y) ? fine : inLevel(coarse, x, y) ? coarse : null;
-    const d = L === null ? null : signedDistanceInCell(E, L, x, y);
-    return d === null ? signedDistanceOver(E, x, y, null, 0, E.count) : d;
+    let L = fine;
+    let fx = (x - L.gx0) * L.invCell;
+    let fy = (y - L.gy0) * L.invCell;
+    if (!(fx >= 0 && fy >= 0 && fx < L.nx && fy < L.ny)) {
+      L = coarse;
+      fx = (x - L.gx0) * L.invCell;
+      fy = (y - L.gy0) * L.invCell;
+      if (!(fx >= 0 && fy >= 0 && fx < L.nx && fy < L.ny)) return signedDistanceOver(E, x, y, null, 0, E.count);
+    }
+    const ix = fx | 0;
+    const iy = fy | 0;
+    const c = iy * L.nx + ix;
+    // Offset of p from the cell centre, mm: edge e is at least dist(c, e) − off from p.
+    const ox = fx - ix - 0.5;
+    const oy = fy - iy - 0.5;
+    const off = Math.sqrt(ox * ox + oy * oy) * L.cell * (1 + 1e-12) + 1e-9;
+    const starts = L.starts;
+    const cellEdges = L.edges;
+    const dce = L.dce;
+    const to = starts[c + 1];
+    let best = Infinity;
+    let bestEdge = -1;
+    let bestT = 0;
+    for (let k = starts[c]; k < to; k++) {
+      const lb = dce[k] - off;
+      if (lb > 0 && lb * lb >= best) break;
+      // pointSegmentDistance2Rel written out, keeping t: in this loop a call measured about 10 % slower.
+      const o = 5 * cellEdges[k];
+      const px = x - ed[o];
+      const py = y - ed[o + 1];
+      const dx = ed[o + 2];
+      const dy = ed[o + 3];
+      let t = (px * dx + py * dy) * ed[o + 4];
+      if (t < 0) t = 0;
+      else if (t > 1) t = 1;
+      const qx = px - t * dx;
+      const qy = py - t * dy;
+      const d2 = qx * qx + qy * qy;
+      if (d2 < best) {
+        best = d2;
+        bestEdge = o / 5;
+        bestT = t;
+      }
+    }
+    if (bestEdge < 0) return signedDistanceOver(E, x, y, null, 0, E.count);
+    if (best === 0) return 0;
+    return signByNearestFeature(E, bestEdge, bestT, Math.sqrt(best), x, y);
   };
+  // Same level pick; no edge is visited.
   const upperBound = (x: number, y: number): number => {
-    const L = inLevel(fine, x, y) ? fine : inLevel(coarse, x, y) ? coarse : null;
-    return L === null ? Infinity : upperBoundInCell(L, x, y);
+    let L = fine;
+    let fx = (x - L.gx0) * L.invCell;
+    let fy = (y - L.gy0) * L.invCell;
+    if (!(fx >= 0 && fy >= 0 && fx < L.nx && fy < L.ny)) {
+      L = coarse;
+      fx = (x - L.gx0) * L.invCell;
+      fy = (y - L.gy0) * L.invCell;
+      if (!(fx >= 0 && fy >= 0 && fx < L.nx && fy < L.ny)) return Infinity;
+    }
+    return upperBoundInCell(L, fx, fy);
   };
   return {
     signedDistance,
