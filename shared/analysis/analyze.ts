@@ -1,6 +1,8 @@
-import { polygonsArea, polygonsBounds } from '../geometry/area';
+import { polygonsArea } from '../geometry/area';
+import { polygonsBounds } from '../geometry/bounds';
+import { armPose, type ArmPose } from '../geometry/frames';
 import { polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
-import type { Polygon2 } from '../geometry/types';
+import { planPoint, type Polygon2 } from '../geometry/types';
 import type { ArmPlacement, WorkPoint } from '../schemas/layout';
 import { armClearance, bboxOverlap, centroidOf, fenceFindings, intersect, makeFinding, MIN_AREA_MM2, type BBox } from './clearance';
 import { m2, m2Text, mm, sortFindings } from './messages';
@@ -17,8 +19,7 @@ interface PlacedArm {
   arm: ArmPlacement;
   sig: string;
   reach: ArmReach;
-  cos: number;
-  sin: number;
+  pose: ArmPose;
   restricted: Polygon2[];
   bbox: BBox | null;
   bands: Map<number, Polygon2[]>;
@@ -37,11 +38,6 @@ interface Column {
 interface PairResult {
   zone: SharedZone | null;
   findings: Finding[];
-}
-
-function place(polys: Polygon2[], p: Pick<PlacedArm, 'arm' | 'cos' | 'sin'>): Polygon2[] {
-  const { x, y } = p.arm;
-  return polys.map((poly) => poly.map((ring) => ring.map(([u, v]) => [p.cos * u - p.sin * v + x, p.sin * u + p.cos * v + y] as [number, number])));
 }
 
 function armSignature(a: ArmPlacement): string {
@@ -114,16 +110,15 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     let p = arms.get(sig);
     if (!p) {
       const reach = reachFor(a.armModelId, a.restrict);
-      const yaw = (a.yaw * Math.PI) / 180;
-      const base = { arm: a, cos: Math.cos(yaw), sin: Math.sin(yaw) };
-      const restricted = place(reach.restricted, base);
-      p = { ...base, sig, reach, restricted, bbox: polygonsBounds(restricted) as BBox | null, bands: new Map(), bandBoxes: new Map(), below: new Map(), geo: { restricted: restricted.length ? polygonsToGeoJSON(restricted) : null, bands: new Map() }, clearance: null };
+      const pose = armPose(a);
+      const restricted = pose.placePolygons(reach.restricted);
+      p = { arm: a, pose, sig, reach, restricted, bbox: polygonsBounds(restricted) as BBox | null, bands: new Map(), bandBoxes: new Map(), below: new Map(), geo: { restricted: restricted.length ? polygonsToGeoJSON(restricted) : null, bands: new Map() }, clearance: null };
       arms.set(sig, p);
       stats.arms++;
     }
     for (const h of heights) {
       if (!p.bands.has(h)) {
-        const band = place(p.reach.bandAt(h - a.mountHeight), p);
+        const band = p.pose.placePolygons(p.reach.bandAt(p.pose.toArmZ(h)));
         p.bands.set(h, band);
         p.bandBoxes.set(h, polygonsBounds(band) as BBox | null);
         p.geo.bands.set(h, band.length ? polygonsToGeoJSON(band) : null);
@@ -133,22 +128,21 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
   }
 
   function below(p: PlacedArm, top: number): Polygon2[] | null {
-    const zTop = top - p.arm.mountHeight;
+    const zTop = p.pose.toArmZ(top);
     if (zTop >= p.reach.zMax) return p.restricted;
     if (zTop <= p.reach.zMin) return null;
-    if (!p.below.has(zTop)) p.below.set(zTop, place(p.reach.restrictedBelow(zTop), p));
+    if (!p.below.has(zTop)) p.below.set(zTop, p.pose.placePolygons(p.reach.restrictedBelow(zTop)));
     return p.below.get(zTop)!;
   }
 
   function column(p: PlacedArm, points: ReadonlyArray<WorkPoint>): Column {
     const near = pointsNear(grid!, points, p.arm.x, p.arm.y, p.reach.maxReach + FAR_MM);
     const margins = new Float64Array(near.length);
-    const { x: bx, y: by, mountHeight } = p.arm;
+    const pose = p.pose;
     for (let k = 0; k < near.length; k++) {
       const pt = points[near[k]];
-      const dx = pt.x - bx;
-      const dy = pt.y - by;
-      margins[k] = p.reach.margin(p.cos * dx + p.sin * dy, -p.sin * dx + p.cos * dy, pt.z - mountHeight, pt.approach ?? 'top');
+      const [u, v] = pose.toArm(planPoint(pt.x, pt.y));
+      margins[k] = p.reach.margin(u, v, pose.toArmZ(pt.z), pt.approach ?? 'top');
     }
     stats.columns++;
     return { armId: p.arm.id, near, margins };

@@ -1,4 +1,5 @@
-import { polygonsArea, polygonsBounds } from '../geometry/area';
+import { polygonsArea } from '../geometry/area';
+import { pointsBounds, polygonsBounds } from '../geometry/bounds';
 import { clipIntersect, clipUnion } from '../geometry/clipper';
 import { polygonsToGeoJSON } from '../geometry/geojson';
 import { pointInPolygons } from '../geometry/pointInPolygon';
@@ -199,9 +200,8 @@ export function fenceFindings(zones: ReadonlyArray<Zone>): Finding[] {
 
 function polylineBBoxNear(line: Array<[number, number]>, bbox: BBox | null, pad: number): boolean {
   if (!bbox) return false;
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (const [x, y] of line) {
-    minX = Math.min(minX, x); minY = Math.min(minY, y); maxX = Math.max(maxX, x); maxY = Math.max(maxY, y);
-  }
+  const b = pointsBounds(line);
+  if (!b) return false;
+  const { minX, minY, maxX, maxY } = b;
   return minX <= bbox[2] + pad && bbox[0] - pad <= maxX && minY <= bbox[3] + pad && bbox[1] - pad <= maxY;
 }

@@ -1,3 +1,4 @@
+import { addToBounds, emptyBounds } from '../geometry/bounds';
 import type { WorkPoint } from '../schemas/layout';
 
 /** Uniform grid over work points (plan mm) for "points within radius R of (x, y)" queries. */
@@ -14,13 +15,9 @@ export interface PointGrid {
 
 /** Builds the grid once per set of work points (cell ≈ 1 m keeps a query to a few dozen cells). */
 export function buildPointGrid(points: ReadonlyArray<WorkPoint>, cell = 1000): PointGrid {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (const p of points) {
-    if (p.x < minX) minX = p.x;
-    if (p.y < minY) minY = p.y;
-    if (p.x > maxX) maxX = p.x;
-    if (p.y > maxY) maxY = p.y;
-  }
+  const box = emptyBounds();
+  for (const p of points) addToBounds(box, p.x, p.y);
+  const { minX, minY, maxX, maxY } = box;
   if (!points.length) return { cell, minX: 0, minY: 0, cols: 1, rows: 1, start: new Int32Array(2), items: new Int32Array(0) };
   // Keep the grid to at most ~1M cells for very spread-out points.
   while (((maxX - minX) / cell + 1) * ((maxY - minY) / cell + 1) > 1e6) cell *= 2;

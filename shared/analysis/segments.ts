@@ -1,4 +1,5 @@
-import { pointInPolygons, distanceToSegment } from '../geometry/pointInPolygon';
+import { pointInPolygons } from '../geometry/pointInPolygon';
+import { nearestSegmentParam, pointSegmentDistance } from '../geometry/segmentDistance';
 import type { Polygon2 } from '../geometry/types';
 
 type P = readonly [number, number];
@@ -33,10 +34,10 @@ export function segmentsIntersect(a: P, b: P, c: P, d: P): boolean {
 export function segmentDistance(a: P, b: P, c: P, d: P): number {
   if (segmentsIntersect(a, b, c, d)) return 0;
   return Math.min(
-    distanceToSegment(a[0], a[1], c[0], c[1], d[0], d[1]),
-    distanceToSegment(b[0], b[1], c[0], c[1], d[0], d[1]),
-    distanceToSegment(c[0], c[1], a[0], a[1], b[0], b[1]),
-    distanceToSegment(d[0], d[1], a[0], a[1], b[0], b[1]),
+    pointSegmentDistance(a[0], a[1], c[0], c[1], d[0], d[1]),
+    pointSegmentDistance(b[0], b[1], c[0], c[1], d[0], d[1]),
+    pointSegmentDistance(c[0], c[1], a[0], a[1], b[0], b[1]),
+    pointSegmentDistance(d[0], d[1], a[0], a[1], b[0], b[1]),
   );
 }
 
@@ -79,13 +80,12 @@ export function subtractOpenings(line: ReadonlyArray<P>, openings: ReadonlyArray
     const b = line[i + 1];
     const dx = b[0] - a[0];
     const dy = b[1] - a[1];
-    const len2 = dx * dx + dy * dy;
     const ts = new Set<number>([0, 1]);
     for (const [p, q] of openings) {
       for (const e of [p, q]) {
-        if (len2 === 0) continue;
-        const t = ((e[0] - a[0]) * dx + (e[1] - a[1]) * dy) / len2;
-        if (t > 0 && t < 1 && distanceToSegment(e[0], e[1], a[0], a[1], b[0], b[1]) <= tol) ts.add(t);
+        // Strictly inside (0, 1) the clamped parameter is the projection itself; at the ends it adds nothing.
+        const t = nearestSegmentParam(e[0], e[1], a[0], a[1], b[0], b[1]);
+        if (t > 0 && t < 1 && pointSegmentDistance(e[0], e[1], a[0], a[1], b[0], b[1]) <= tol) ts.add(t);
       }
     }
     const sorted = [...ts].sort((u, v) => u - v);
@@ -95,7 +95,7 @@ export function subtractOpenings(line: ReadonlyArray<P>, openings: ReadonlyArray
       const p0: [number, number] = [a[0] + dx * t0, a[1] + dy * t0];
       const p1: [number, number] = [a[0] + dx * t1, a[1] + dy * t1];
       const mid: [number, number] = [(p0[0] + p1[0]) / 2, (p0[1] + p1[1]) / 2];
-      const inOpening = openings.some(([p, q]) => distanceToSegment(mid[0], mid[1], p[0], p[1], q[0], q[1]) <= tol);
+      const inOpening = openings.some(([p, q]) => pointSegmentDistance(mid[0], mid[1], p[0], p[1], q[0], q[1]) <= tol);
       if (inOpening) {
         if (current.length > 1) out.push(current);
         current = [];

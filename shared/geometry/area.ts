@@ -25,22 +25,3 @@ export function polygonsArea(polygons: ReadonlyArray<Polygon2>): number {
   for (const p of polygons) a += polygonArea(p);
   return a;
 }
-
-/** Axis-aligned bounds [minX, minY, maxX, maxY] of polygons, mm; null when empty. */
-export function polygonsBounds(polygons: ReadonlyArray<Polygon2>): [number, number, number, number] | null {
-  let minX = Infinity;
-  let minY = Infinity;
-  let maxX = -Infinity;
-  let maxY = -Infinity;
-  for (const p of polygons) {
-    for (const ring of p) {
-      for (const [x, y] of ring) {
-        if (x < minX) minX = x;
-        if (x > maxX) maxX = x;
-        if (y < minY) minY = y;
-        if (y > maxY) maxY = y;
-      }
-    }
-  }
-  return minX <= maxX ? [minX, minY, maxX, maxY] : null;
-}

@@ -49,11 +49,3 @@ export function geoJSONToPolygons(geometry: Readonly<AreaGeometry> | null | unde
 export function mapPolygons(polygons: ReadonlyArray<Polygon2>, fn: (x: number, y: number) => Pt): Polygon2[] {
   return polygons.map((p) => p.map((ring) => ring.map(([x, y]) => fn(x, y))));
 }
-
-/** Rotates polygons by yaw (degrees counter-clockwise) about the origin, then translates by (dx, dy), mm. */
-export function rotateTranslatePolygons(polygons: ReadonlyArray<Polygon2>, yawDeg: number, dx: number, dy: number): Polygon2[] {
-  const a = (yawDeg * Math.PI) / 180;
-  const c = Math.cos(a);
-  const s = Math.sin(a);
-  return mapPolygons(polygons, (x, y) => [c * x - s * y + dx, s * x + c * y + dy]);
-}

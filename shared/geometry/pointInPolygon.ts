@@ -1,3 +1,4 @@
+import { pointSegmentDistance } from './segmentDistance';
 import type { Polygon2, Ring } from './types';
 
 /** True when (x, y) lies inside the ring by the even–odd (crossing number) rule. */
@@ -29,19 +30,6 @@ export function pointInPolygons(x: number, y: number, polygons: ReadonlyArray<Po
   return false;
 }
 
-/** Euclidean distance from (x, y) to the segment (ax, ay)–(bx, by), mm. */
-export function distanceToSegment(x: number, y: number, ax: number, ay: number, bx: number, by: number): number {
-  const dx = bx - ax;
-  const dy = by - ay;
-  const len2 = dx * dx + dy * dy;
-  let t = len2 > 0 ? ((x - ax) * dx + (y - ay) * dy) / len2 : 0;
-  if (t < 0) t = 0;
-  else if (t > 1) t = 1;
-  const ex = ax + t * dx - x;
-  const ey = ay + t * dy - y;
-  return Math.sqrt(ex * ex + ey * ey);
-}
-
 /** Distance from (x, y) to the nearest boundary edge of the polygons, mm (unsigned). */
 export function distanceToBoundary(x: number, y: number, polygons: ReadonlyArray<Polygon2>): number {
   let best = Infinity;
@@ -49,7 +37,7 @@ export function distanceToBoundary(x: number, y: number, polygons: ReadonlyArray
     for (const ring of p) {
       const n = ring.length;
       for (let i = 0, j = n - 1; i < n; j = i++) {
-        const d = distanceToSegment(x, y, ring[j][0], ring[j][1], ring[i][0], ring[i][1]);
+        const d = pointSegmentDistance(x, y, ring[j][0], ring[j][1], ring[i][0], ring[i][1]);
         if (d < best) best = d;
       }
     }

@@ -1,5 +1,5 @@
 import { clipOffset } from './clipper';
-import { distanceToSegment } from './pointInPolygon';
+import { pointSegmentDistance } from './segmentDistance';
 import type { Polygon2, Pt, Ring } from './types';
 
 /**
@@ -33,7 +33,7 @@ export function simplifyRing(ring: Readonly<Ring>, eps: number): Ring {
     let best = -1;
     let at = -1;
     for (let i = a + 1; i < b; i++) {
-      const d = distanceToSegment(ring[i][0], ring[i][1], pa[0], pa[1], pb[0], pb[1]);
+      const d = pointSegmentDistance(ring[i][0], ring[i][1], pa[0], pa[1], pb[0], pb[1]);
       if (d > best) {
         best = d;
         at = i;

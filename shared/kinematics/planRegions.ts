@@ -1,7 +1,8 @@
 import { toRadians } from '../geometry/angles';
 import { appendArc, circleRing } from '../geometry/arc';
 import { clipIntersect, clipOffset, clipUnion } from '../geometry/clipper';
-import { geoJSONToPolygons, polygonsToGeoJSON, rotateTranslatePolygons, type AreaGeometry } from '../geometry/geojson';
+import { armPose } from '../geometry/frames';
+import { geoJSONToPolygons, polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
 import { DEFAULT_CHORD_TOLERANCE_MM } from '../geometry/tolerance';
 import type { Polygon2, Pt } from '../geometry/types';
 import type { ArmParams, ScaraParams } from '../schemas/armModel';
@@ -192,5 +193,5 @@ export function restrictedSpace(model: ArmParams, restrict?: Readonly<J1Restrict
 
 /** Moves arm-frame geometry onto the plan: rotate by yaw (degrees CCW), translate to (x, y), mm. */
 export function placeRegion(geometry: Readonly<AreaGeometry>, placement: Readonly<{ x: number; y: number; yaw: number }>): AreaGeometry {
-  return polygonsToGeoJSON(rotateTranslatePolygons(geoJSONToPolygons(geometry), placement.yaw, placement.x, placement.y));
+  return polygonsToGeoJSON(armPose(placement).placePolygons(geoJSONToPolygons(geometry)));
 }

@@ -3,7 +3,8 @@ import { toRadians } from '../geometry/angles';
 import { clipOffset } from '../geometry/clipper';
 import { buildDistanceGrid, type DistanceGrid } from '../geometry/distanceGrid';
 import { simplifyPolygonsOutward } from '../geometry/simplify';
-import type { Polygon2 } from '../geometry/types';
+import { armPose } from '../geometry/frames';
+import { planPoint, type Polygon2 } from '../geometry/types';
 import type { ArmParams, ScaraParams } from '../schemas/armModel';
 import type { ReachProfile } from './types';
 import { familyOf, reachProfileOf } from './families';
@@ -39,6 +40,14 @@ export interface ArmTarget {
   approach?: 'top' | 'any';
 }
 
+/** A point in the plan frame, mm (z above finished floor level); approach default 'top'. */
+export interface PlanTarget {
+  x: number;
+  y: number;
+  z: number;
+  approach?: 'top' | 'any';
+}
+
 /** Result of a coverage check: reached, and the signed distance to the reach boundary, mm. */
 export interface PointReachResult {
   reached: boolean;
@@ -47,6 +56,7 @@ export interface PointReachResult {
 
 /** Where an arm stands on the plan: position (mm), yaw (deg CCW from +x), mount height (mm), restricting J1 limits (controller deg). */
 export interface ReachPlacement {
+  /** Field names as in the layout JSON: x, y and mountHeight in mm, yaw in degrees. */
   x: number;
   y: number;
   yaw: number;
@@ -216,13 +226,10 @@ export function makePointReach(model: ArmParams, restrict?: J1Restrict | null): 
 }
 
 /** Coverage of a plan point (mm) by a placed arm: transform into the arm frame, then the cached region test. */
-export function pointReach(model: ArmParams, placement: Readonly<ReachPlacement>, point: Readonly<ArmTarget>): PointReachResult {
-  const yaw = toRadians(placement.yaw);
-  const c = Math.cos(yaw);
-  const s = Math.sin(yaw);
-  const dx = point.x - placement.x;
-  const dy = point.y - placement.y;
-  const m = marginFnOf(model, placement.restrict)(c * dx + s * dy, -s * dx + c * dy, point.z - placement.mountHeight, point.approach);
+export function pointReach(model: ArmParams, placement: Readonly<ReachPlacement>, point: Readonly<PlanTarget>): PointReachResult {
+  const pose = armPose(placement);
+  const [u, v] = pose.toArm(planPoint(point.x, point.y));
+  const m = marginFnOf(model, placement.restrict)(u, v, pose.toArmZ(point.z), point.approach);
   return { reached: isReached(m), marginMm: m };
 }
 

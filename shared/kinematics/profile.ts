@@ -1,5 +1,5 @@
 import { clipOffset, clipUnion } from '../geometry/clipper';
-import { distanceToSegment } from '../geometry/pointInPolygon';
+import { pointSegmentDistance } from '../geometry/segmentDistance';
 import { DEFAULT_CHORD_TOLERANCE_MM, GRID_MM } from '../geometry/tolerance';
 import type { Polygon2, Pt, Ring } from '../geometry/types';
 import type { ReachProfile } from './types';
@@ -36,7 +36,7 @@ function traceEdge(map: JointMap, u0: number, v0: number, u1: number, v1: number
   const vm = (v0 + v1) / 2;
   const pm: Pt = [0, 0];
   map(um, vm, pm);
-  const dev = distanceToSegment(pm[0], pm[1], p0[0], p0[1], p1[0], p1[1]);
+  const dev = pointSegmentDistance(pm[0], pm[1], p0[0], p0[1], p1[0], p1[1]);
   if (dev > tolHalf && depth < MAX_DEPTH) {
     traceEdge(map, u0, v0, um, vm, p0, pm, tolHalf, out, depth + 1);
     traceEdge(map, um, vm, u1, v1, pm, p1, tolHalf, out, depth + 1);

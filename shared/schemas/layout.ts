@@ -7,6 +7,7 @@ const Id = z
   .min(1, 'Give it an id')
   .max(24, 'Use at most 24 characters')
   .regex(/^[A-Za-z0-9_.-]+$/, 'Use letters, digits, _ . or - only');
+/** A plan-frame point [x east, y north], mm. */
 const PlanXY = z.tuple([finiteNumber('x'), finiteNumber('y')]);
 
 /** One arm placed on a layout: plan position (mm), yaw (deg CCW from +x), mount height (mm). */
@@ -15,9 +16,12 @@ export const ArmPlacement = z
     id: Id,
     armModelId: positiveId('Choose an arm model'),
     label: z.string().trim().max(60).default(''),
+    /** Plan position of the J1 axis, mm (x east, y north). */
     x: finiteNumber('x'),
     y: finiteNumber('y'),
+    /** Direction of J1 zero, degrees counter-clockwise from plan +x (east). */
     yaw: finiteNumber('Yaw'),
+    /** Height of the mounting face above finished floor level, mm. */
     mountHeight: finiteNumber('Mount height').default(0),
     /** Restricting J1 limits (controller degrees) set by mechanical stops or safety-rated soft limits. */
     restrict: z
@@ -32,6 +36,7 @@ export type ArmPlacement = z.infer<typeof ArmPlacement>;
 export const WorkPoint = z
   .object({
     id: Id,
+    /** Plan position, mm (x east, y north); z above finished floor level, mm. */
     x: finiteNumber('x'),
     y: finiteNumber('y'),
     z: finiteNumber('z'),
@@ -86,6 +91,7 @@ export const LayoutContent = z
     arms: z.array(ArmPlacement).max(500).default([]),
     workPoints: z.array(WorkPoint).max(200_000).default([]),
     zones: z.array(Zone).max(2000).default([]),
+    /** Heights above finished floor level at which reach bands are drawn and compared, mm. */
     workHeights: z.array(finiteNumber('Work height')).max(20).default([]),
   })
   .strict()

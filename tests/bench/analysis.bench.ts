@@ -10,7 +10,8 @@ import { booleanPointInPolygon, featureCollection, intersect, point, polygon as 
 import type { Feature, FeatureCollection, MultiPolygon, Polygon } from 'geojson';
 import { createAnalyzer, prepareFloor, type AnalysisInput } from '../../shared/analysis';
 import { armReachFor } from '../../shared/analysis/armReach';
-import { polygonsToGeoJSON, rotateTranslatePolygons } from '../../shared/geometry/geojson';
+import { armPose } from '../../shared/geometry/frames';
+import { polygonsToGeoJSON } from '../../shared/geometry/geojson';
 import { polygonsArea } from '../../shared/geometry/area';
 import type { ArmPlacement, WorkPoint } from '../../shared/schemas/layout';
 
@@ -81,8 +82,9 @@ function median(xs: number[]) {
 function naive(input: AnalysisInput) {
   const placed = input.arms.map((a) => {
     const reach = reachFor(a.armModelId, a.restrict);
-    const restricted = rotateTranslatePolygons(reach.restricted, a.yaw, a.x, a.y);
-    const bands = new Map(input.workHeights.map((h) => [h, polygonsToGeoJSON(rotateTranslatePolygons(reach.bandAt(h - a.mountHeight), a.yaw, a.x, a.y))]));
+    const pose = armPose(a);
+    const restricted = pose.placePolygons(reach.restricted);
+    const bands = new Map(input.workHeights.map((h) => [h, polygonsToGeoJSON(pose.placePolygons(reach.bandAt(pose.toArmZ(h))))]));
     return { a, restricted: polygonsToGeoJSON(restricted), bands };
   });
   const toFeature = (g: Polygon | MultiPolygon): Feature<Polygon | MultiPolygon> => (g.type === 'Polygon' ? turfPolygon(g.coordinates) : multiPolygon(g.coordinates));

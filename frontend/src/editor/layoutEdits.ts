@@ -2,6 +2,7 @@
  * Pure edits of a layout's content (plan mm, x east, y north; yaw in degrees CCW from +x). Every
  * function returns new content and leaves its input untouched, so the history can keep both.
  */
+import { nearestPointOnSegment, pointSegmentDistance } from '@shared/geometry/segmentDistance';
 import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
 
 type XY = [number, number];
@@ -118,12 +119,8 @@ export function nearestOnPolyline(line: ReadonlyArray<XY>, p: XY): { point: XY; 
   for (let i = 0; i + 1 < line.length; i++) {
     const [ax, ay] = line[i];
     const [bx, by] = line[i + 1];
-    const dx = bx - ax;
-    const dy = by - ay;
-    const len2 = dx * dx + dy * dy;
-    const t = len2 > 0 ? Math.max(0, Math.min(1, ((p[0] - ax) * dx + (p[1] - ay) * dy) / len2)) : 0;
-    const q: XY = [ax + t * dx, ay + t * dy];
-    const d = Math.hypot(p[0] - q[0], p[1] - q[1]);
+    const q: XY = nearestPointOnSegment(p[0], p[1], ax, ay, bx, by);
+    const d = pointSegmentDistance(p[0], p[1], ax, ay, bx, by);
     if (!best || d < best.distance) best = { point: q, segment: i, distance: d };
   }
   return best;

@@ -7,6 +7,7 @@
 import { createAnalyzer, type Analyzer } from '@shared/analysis/analyze';
 import { prepareFloor } from '@shared/analysis/floor';
 import type { ArmReach, PreparedFloor } from '@shared/analysis/types';
+import { armPose } from '@shared/geometry/frames';
 import { polygonsToGeoJSON, type AreaGeometry } from '@shared/geometry/geojson';
 import type { Polygon2 } from '@shared/geometry/types';
 import type { ArmPlacement, LayoutContent } from '@shared/schemas/layout';
@@ -19,10 +20,7 @@ const restrictKey = (r: ArmPlacement['restrict']) => (r ? `${r.j1Min},${r.j1Max}
 
 /** Arm-frame polygons placed on the plan: rotated by yaw (deg CCW) about the base, moved to (x, y) mm. */
 export function placePolygons(polys: ReadonlyArray<Polygon2>, x: number, y: number, yawDeg: number): Polygon2[] {
-  const t = (yawDeg * Math.PI) / 180;
-  const c = Math.cos(t);
-  const s = Math.sin(t);
-  return polys.map((p) => p.map((ring) => ring.map(([u, v]) => [c * u - s * v + x, s * u + c * v + y] as [number, number])));
+  return armPose({ x, y, yaw: yawDeg }).placePolygons(polys);
 }
 
 /** The content with the dragged arm at its drag pose (the content itself when nothing is dragged). */

@@ -1,4 +1,5 @@
-import { geoJSONToPolygons, rotateTranslatePolygons } from '@shared/geometry/geojson';
+import { armPose } from '@shared/geometry/frames';
+import { geoJSONToPolygons } from '@shared/geometry/geojson';
 import type { Polygon2 } from '@shared/geometry/types';
 import { maximumSpacePolygons, parseArmParams } from '@shared/kinematics';
 import type { ArmPlacement, LayoutContent } from '@shared/schemas/layout';
@@ -44,7 +45,7 @@ export function summarizeArms(input: Pick<PlanSheetInput, 'models' | 'analysis'>
         const local = maximumSpacePolygons(parseArmParams(model.params));
         maxReach = 0;
         for (const p of local) for (const [x, y] of p[0] ?? []) maxReach = Math.max(maxReach, Math.hypot(x, y));
-        maxSpace = rotateTranslatePolygons(local, arm.yaw, arm.x, arm.y);
+        maxSpace = armPose(arm).placePolygons(local);
       } catch {
         maxSpace = [];
         maxReach = null;

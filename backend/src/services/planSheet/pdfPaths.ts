@@ -1,4 +1,5 @@
 import { GState, type jsPDF } from 'jspdf';
+import { addToBounds, emptyBounds, isEmptyBounds } from '@shared/geometry/bounds';
 import type { Polygon2 } from '@shared/geometry/types';
 
 export type Rgb = readonly [number, number, number];
@@ -65,13 +66,11 @@ export function strokePolygons(doc: jsPDF, polygons: ReadonlyArray<Polygon2>, to
  * polygons with an even-odd clipping path.
  */
 export function hatchPolygons(doc: jsPDF, polygons: ReadonlyArray<Polygon2>, toPaper: ToPaper, rgb: Rgb, spacing: number, angleDeg: number, width = 0.12): void {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (const p of polygons) for (const [x, y] of p[0] ?? []) {
-    const [px, py] = toPaper(x, y);
-    minX = Math.min(minX, px); maxX = Math.max(maxX, px);
-    minY = Math.min(minY, py); maxY = Math.max(maxY, py);
-  }
-  if (!Number.isFinite(minX)) return;
+  // Bounds on paper of the outer rings.
+  const box = emptyBounds();
+  for (const p of polygons) for (const [x, y] of p[0] ?? []) addToBounds(box, ...toPaper(x, y));
+  if (isEmptyBounds(box)) return;
+  const { minX, minY, maxX, maxY } = box;
   doc.saveGraphicsState();
   if (addPolygonPath(doc, polygons, toPaper) === 0) {
     doc.restoreGraphicsState();

@@ -1,6 +1,8 @@
 import type { jsPDF } from 'jspdf';
 import type { Geometry, Position } from 'geojson';
 import { isReached } from '@shared/analysis/reached';
+import { addToBounds, emptyBounds, isEmptyBounds, padBounds } from '@shared/geometry/bounds';
+import { armPose } from '@shared/geometry/frames';
 import { geoJSONToPolygons } from '@shared/geometry/geojson';
 import type { Polygon2 } from '@shared/geometry/types';
 import type { Zone } from '@shared/schemas/layout';
@@ -27,11 +29,8 @@ const POINT_LABEL_LIMIT = 1500;
 /** The extent a plan sheet fits: the floor plan's bounds, or the layout's arms (with reach), zones and points. */
 export function planExtent(input: PlanSheetInput, arms: ArmSummary[]): Extent {
   if (input.floorPlan) return input.floorPlan.bounds;
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  const add = (x: number, y: number) => {
-    minX = Math.min(minX, x); maxX = Math.max(maxX, x);
-    minY = Math.min(minY, y); maxY = Math.max(maxY, y);
-  };
+  const box = emptyBounds();
+  const add = (x: number, y: number) => addToBounds(box, x, y);
   for (const a of arms) {
     const r = a.maxReach ?? 0;
     add(a.arm.x - r, a.arm.y - r);
@@ -39,9 +38,8 @@ export function planExtent(input: PlanSheetInput, arms: ArmSummary[]): Extent {
   }
   for (const z of input.layout.content.zones) for (const [x, y] of z.points) add(x, y);
   for (const p of input.layout.content.workPoints) add(p.x, p.y);
-  if (!Number.isFinite(minX)) return { minX: -5000, minY: -5000, maxX: 5000, maxY: 5000 };
-  const pad = Math.max(maxX - minX, maxY - minY, 1000) * 0.04;
-  return { minX: minX - pad, minY: minY - pad, maxX: maxX + pad, maxY: maxY + pad };
+  if (isEmptyBounds(box)) return { minX: -5000, minY: -5000, maxX: 5000, maxY: 5000 };
+  return padBounds(box, Math.max(box.maxX - box.minX, box.maxY - box.minY, 1000) * 0.04);
 }
 
 function rings(g: Geometry): { polygons: Polygon2[]; lines: Position[][] } {
@@ -193,8 +191,9 @@ function drawArms(doc: jsPDF, arms: ArmSummary[], toPaper: ToPaper): void {
     doc.setDrawColor(c[0], c[1], c[2]);
     doc.setLineWidth(ARM_BASE.paper.width);
     doc.circle(x, y, BASE_SYMBOL_RADIUS_MM, 'FD');
-    const t = (a.arm.yaw * Math.PI) / 180;
-    doc.line(x, y, x + Math.cos(t) * BASE_SYMBOL_RADIUS_MM * 1.9, y - Math.sin(t) * BASE_SYMBOL_RADIUS_MM * 1.9);
+    // J1 zero's plan direction [cos, sin]; paper y points down.
+    const { cos, sin } = armPose(a.arm);
+    doc.line(x, y, x + cos * BASE_SYMBOL_RADIUS_MM * 1.9, y - sin * BASE_SYMBOL_RADIUS_MM * 1.9);
     label(doc, a.title, x + BASE_SYMBOL_RADIUS_MM + 1, y + BASE_SYMBOL_RADIUS_MM + 2.6, 6.5, c, true);
   });
 }

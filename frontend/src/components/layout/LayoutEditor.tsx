@@ -1,6 +1,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import type { Finding } from '@shared/analysis/types';
+import { padBounds, pointsBounds } from '@shared/geometry/bounds';
 import type { LayoutContent, LayoutDto } from '@shared/schemas/layout';
 import type { ArmModelDto } from '../../api/armModels';
 import type { FloorPlanDto } from '../../api/floorPlans';
@@ -44,11 +45,8 @@ function findingBounds(f: Finding): PlanBounds | null {
   const pad = 1500;
   if (f.geometry) {
     const rings = f.geometry.type === 'Polygon' ? f.geometry.coordinates : f.geometry.coordinates.flat();
-    let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-    for (const r of rings) for (const [x, y] of r) {
-      minX = Math.min(minX, x); minY = Math.min(minY, y); maxX = Math.max(maxX, x); maxY = Math.max(maxY, y);
-    }
-    if (Number.isFinite(minX)) return { minX: minX - pad, minY: minY - pad, maxX: maxX + pad, maxY: maxY + pad };
+    const b = pointsBounds(rings.flat());
+    if (b) return padBounds(b, pad);
   }
   if (f.at) return { minX: f.at[0] - 2500, minY: f.at[1] - 2500, maxX: f.at[0] + 2500, maxY: f.at[1] + 2500 };
   return null;
@@ -86,9 +84,8 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
   const styles = useMemo(() => (floorPlan ? layerStylesFor(floorPlan.layers, new Set()) : {}), [floorPlan]);
   const bounds = useMemo(() => {
     if (floorPlan) return floorPlan.bounds;
-    const xs = content.arms.map((a) => a.x);
-    const ys = content.arms.map((a) => a.y);
-    return xs.length ? { minX: Math.min(...xs) - 3000, minY: Math.min(...ys) - 3000, maxX: Math.max(...xs) + 3000, maxY: Math.max(...ys) + 3000 } : { minX: -5000, minY: -5000, maxX: 5000, maxY: 5000 };
+    const b = pointsBounds(content.arms.map((a) => [a.x, a.y]));
+    return b ? padBounds(b, 3000) : { minX: -5000, minY: -5000, maxX: 5000, maxY: 5000 };
     // Bounds are fitted once; later arm moves must not refit the view.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [floorPlan]);

@@ -1,5 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import type { Finding } from '@shared/analysis/types';
+import { padBounds, pointsBounds } from '@shared/geometry/bounds';
 import type { ReviewCommentDto, RevisionSnapshotDto } from '../../api/revisions';
 import { PlanView } from '../../plan/PlanView';
 import type { PlanCanvas, PlanViewState } from '../../plan/planTypes';
@@ -31,9 +32,8 @@ export function ReviewPlan({ snapshot, selectedFinding, pins, draftPin, onPick }
   const content = snapshot.layout.content;
   const bounds = useMemo(() => {
     if (fp) return fp.bounds;
-    const xs = content.arms.map((a) => a.x);
-    const ys = content.arms.map((a) => a.y);
-    return xs.length ? { minX: Math.min(...xs) - 3000, minY: Math.min(...ys) - 3000, maxX: Math.max(...xs) + 3000, maxY: Math.max(...ys) + 3000 } : { minX: -5000, minY: -5000, maxX: 5000, maxY: 5000 };
+    const b = pointsBounds(content.arms.map((a) => [a.x, a.y]));
+    return b ? padBounds(b, 3000) : { minX: -5000, minY: -5000, maxX: 5000, maxY: 5000 };
   }, [fp, content]);
   const view = useMemo<AnalysisView>(
     () => ({ analysis: snapshot.analysis, maxSpaces: {}, placed: Object.fromEntries(content.arms.map((a) => [a.id, [a.x, a.y, a.yaw] as [number, number, number]])) }),
