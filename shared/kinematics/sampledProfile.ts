@@ -88,25 +88,10 @@ const SHEETS = 4;
 /** Empty cells around the raster's inner part, where no sample is marked. */
 const PAD_CELLS = 4;
 
-/** Radical inverse of `index` in `base` (van der Corput), the Halton coordinate: a value in [0, 1). */
-export function radicalInverse(index: number, base: number): number {
-  if (!Number.isInteger(index) || index < 0) throw new Error('index: expected a non-negative integer');
-  if (!Number.isInteger(base) || base < 2) throw new Error('base: expected an integer ≥ 2');
-  let result = 0;
-  let f = 1 / base;
-  let i = index;
-  while (i > 0) {
-    const digit = i % base;
-    result += digit * f;
-    i = (i - digit) / base;
-    f /= base;
-  }
-  return result;
-}
-
 /**
- * Halton sequence in `dims` dimensions (bases 2, 3, 5, …), stepped incrementally: each call of
- * next() adds one to the index in every base's digits, amortised O(1) per coordinate.
+ * Halton sequence in `dims` dimensions (bases 2, 3, 5, …): coordinate k of point i is the radical
+ * inverse of i in the k-th prime (van der Corput), a value in [0, 1). Stepped incrementally: each
+ * call of next() adds one to the index in every base's digits, amortised O(1) per coordinate.
  */
 export class HaltonSequence {
   readonly dims: number;

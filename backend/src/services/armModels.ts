@@ -1,8 +1,8 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { familyOf, forwardModel, reachProfileOf } from '@shared/kinematics/families';
+import { forwardModel, reachProfileOf } from '@shared/kinematics/families';
 import { bandAt } from '@shared/kinematics/planRegions';
 import type { AreaGeometry } from '@shared/geometry/geojson';
-import type { AxisInfo, ReachProfile } from '@shared/kinematics/types';
+import type { ReachProfile } from '@shared/kinematics/types';
 import { armParamsSchema, ArmModelInput, type ArmParams } from '@shared/schemas/armModel';
 import { fieldErrors } from '@shared/schemas/errors';
 import { badRequest, notFound } from '../http/errors';
@@ -12,9 +12,6 @@ import { ArmModel } from '../models';
 export const ArmModelParams = armParamsSchema;
 export type ArmModelParams = ArmParams;
 export { ArmModelInput, forwardModel };
-
-/** Axes of a model in controller units (deg / mm). */
-export const axesOf = (params: ArmModelParams): AxisInfo[] => familyOf(params).axes(params);
 
 /** An arm model as the API presents it (whitelisted fields; lengths mm, angles deg). */
 export interface ArmModelDto {
