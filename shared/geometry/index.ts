@@ -11,6 +11,5 @@ export * from './pointInPolygon';
 export * from './snap';
 export * from './geojson';
 export * from './clipper';
-export * from './boolean';
 export * from './distanceGrid';
 export * from './simplify';

@@ -87,54 +87,6 @@ function transmissionAngleOf(t3: number, t4: number): number {
 }
 
 /**
- * Rocker and coupler angles by Freudenstein's equation in Norton's half-angle form (ch. 4):
- * K1 = d/a, K2 = d/c, K3 = (a² − b² + c² + d²)/(2ac), A = cos θ2 − K1 − K2 cos θ2 + K3,
- * B = −2 sin θ2, C = K1 − (K2 + 1) cos θ2 + K3, θ4 = 2·atan2(−B ∓ √(B² − 4AC), 2A);
- * K4 = d/b, K5 = (c² − d² − a² − b²)/(2ab) likewise for θ3. Degrees, ground line at 0°.
- */
-export function freudensteinPose(links: Readonly<FourBarLinks>, theta2Deg: number, branch: FourBarBranch): FourBarPose {
-  checkLinks(links);
-  const { a, b, c, d } = links;
-  const t2 = toRadians(theta2Deg);
-  const c2 = Math.cos(t2);
-  const s2 = Math.sin(t2);
-  const K1 = d / a;
-  const K2 = d / c;
-  const K3 = (a * a - b * b + c * c + d * d) / (2 * a * c);
-  const K4 = d / b;
-  const K5 = (c * c - d * d - a * a - b * b) / (2 * a * b);
-  const A = c2 - K1 - K2 * c2 + K3;
-  const B = -2 * s2;
-  const C = K1 - (K2 + 1) * c2 + K3;
-  const D = c2 - K1 + K4 * c2 + K5;
-  const E = -2 * s2;
-  const F = K1 + (K4 - 1) * c2 + K5;
-  const disc4 = B * B - 4 * A * C;
-  const disc3 = E * E - 4 * D * F;
-  if (disc4 < -1e-12 || disc3 < -1e-12) return { ok: false, reason: 'not-assemblable' };
-  const sign = branch === 'open' ? -1 : 1;
-  const t4 = 2 * Math.atan2(-B + sign * Math.sqrt(Math.max(0, disc4)), 2 * A);
-  const t3 = 2 * Math.atan2(-E + sign * Math.sqrt(Math.max(0, disc3)), 2 * D);
-  return {
-    ok: true,
-    theta3Deg: normalizeDeg(toDegrees(t3)),
-    theta4Deg: normalizeDeg(toDegrees(t4)),
-    transmissionDeg: transmissionAngleOf(t3, t4),
-  };
-}
-
-/** Residual of Freudenstein's equation K1 cos θ4 − K2 cos θ2 + K3 − cos(θ2 − θ4) (0 on a valid pose); degrees in. */
-export function freudensteinResidual(links: Readonly<FourBarLinks>, theta2Deg: number, theta4Deg: number): number {
-  const { a, b, c, d } = links;
-  const t2 = toRadians(theta2Deg);
-  const t4 = toRadians(theta4Deg);
-  const K1 = d / a;
-  const K2 = d / c;
-  const K3 = (a * a - b * b + c * c + d * d) / (2 * a * c);
-  return K1 * Math.cos(t4) - K2 * Math.cos(t2) + K3 - Math.cos(t2 - t4);
-}
-
-/**
  * Transmission angle μ between coupler and rocker, degrees in [0°, 90°] (Norton's convention:
  * |θ3 − θ4| folded to the acute side), from cos μ = (b² + c² − f²)/(2bc); null when not assemblable.
  */

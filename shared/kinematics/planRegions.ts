@@ -1,8 +1,7 @@
 import { toRadians } from '../geometry/angles';
 import { appendArc, circleRing } from '../geometry/arc';
 import { clipIntersect, clipOffset, clipUnion } from '../geometry/clipper';
-import { armPose } from '../geometry/frames';
-import { geoJSONToPolygons, polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
+import { polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
 import { DEFAULT_CHORD_TOLERANCE_MM } from '../geometry/tolerance';
 import type { Polygon2, Pt } from '../geometry/types';
 import type { ArmParams, ScaraParams } from '../schemas/armModel';
@@ -179,19 +178,4 @@ export function restrictedBelowPolygons(model: ArmParams, zArmTop: number, restr
 /** Reach band at arm-frame height zArm of the tool point as planar GeoJSON in the arm frame, mm. */
 export function bandAt(model: ArmParams, zArm: number, restrict?: Readonly<J1Restrict> | null): AreaGeometry {
   return polygonsToGeoJSON(bandPolygons(model, zArm, restrict));
-}
-
-/** Maximum space as planar GeoJSON in the arm frame, mm. */
-export function maximumSpace(model: ArmParams): AreaGeometry {
-  return polygonsToGeoJSON(maximumSpacePolygons(model));
-}
-
-/** Restricted space as planar GeoJSON in the arm frame, mm (restricting J1 limits in controller degrees). */
-export function restrictedSpace(model: ArmParams, restrict?: Readonly<J1Restrict> | null): AreaGeometry {
-  return polygonsToGeoJSON(restrictedSpacePolygons(model, restrict));
-}
-
-/** Moves arm-frame geometry onto the plan: rotate by yaw (degrees CCW), translate to (x, y), mm. */
-export function placeRegion(geometry: Readonly<AreaGeometry>, placement: Readonly<{ x: number; y: number; yaw: number }>): AreaGeometry {
-  return polygonsToGeoJSON(armPose(placement).placePolygons(geoJSONToPolygons(geometry)));
 }

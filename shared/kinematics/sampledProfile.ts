@@ -2,29 +2,33 @@
  * Sampled side reach profile: the region of the (r, z) half-plane swept by a point of an arm
  * when every axis but J1 moves over its range, found by sampling the joint space.
  *
- * Method (docs/kinematics.md, "Sampled profiles"):
- * 1. sample the box of axis ranges: its 2^k corners and a Halton sweep (low-discrepancy; the
- *    radical inverse in the first primes is written here, stepped incrementally);
+ * Method (docs/kinematics.md, "Sampled profiles"), in the order sampleProfile() runs it:
+ * 1. sample the box of axis ranges: its 2^k corners, then a Halton sweep (low-discrepancy; the
+ *    radical inverse in the first primes, stepped incrementally by HaltonSequence);
  * 2. map each sample to (r, z): the point is turned by −bearing (the reach plane's bearing, 0
  *    when J1 is held at kinematic 0), then ρ = √(x² + y²) and r = sign(x)·ρ (x ≥ 0 counts as +).
  *    Using ρ keeps the radial distance from the J1 axis exact when the point sits to one side of
  *    the plane through J1 (a lateral offset); the side distance y is reported as `lateral`
  *    (min / mean / max) so plan bands can turn their edges by atan2(y, r);
- * 3. fill the interior: a few lattice "sheets" over the two most sensitive axes (the others held
- *    at Halton values), each lattice cell's image drawn as two triangles — nodes ≤ 12 cells
- *    apart in the image, so a curved edge's sagitta stays well under a cell;
- * 4. refine the edge: samples in cells touching empty cells get children within a joint step
- *    that moves the point about 3 cells (clamped to the limits, so limit faces are sampled),
- *    round after round, until no child of a round lands more than one cell away from what the
- *    rounds before occupied (`converged`), or `maxSamples` is reached;
+ * 3. fill the interior: up to four lattice "sheets" over the two most sensitive axes (the other
+ *    axes held at mid-range for the first sheet, at Halton points for the others), each lattice
+ *    cell's image drawn as two triangles. Nodes are spaced so that their images lie about 12
+ *    cells apart (at most 160 nodes per axis), which keeps a curved edge's sagitta well under a
+ *    cell;
+ * 4. refine the edge: samples in cells touching empty cells get k + 2 children each within a
+ *    joint step that moves the point about 3 cells (clamped to the limits, so limit faces are
+ *    sampled), round after round (at most 60), until no child of a round lands more than one
+ *    cell away from what the rounds before occupied, nor off the grid (`converged`), or
+ *    `maxSamples` is reached;
  * 5. close gaps of up to two cells (3×3 morphological closing), grow by one cell (3×3 dilation)
  *    and trace the 0.5 iso-line with d3-contour. A sample's whole cell lies at least one cell
  *    inside the outline, so the polygon contains EVERY sample.
  *
  * Tolerance: the raster cell is a third of `toleranceMm`. The outline lies within grown cells,
- * each within 2 cells (in r and in z) of a sampled cell, so every outline point is within 3 cells
- * in r and in z of a reached point (errs toward MORE reach). Inward, the stopping rule leaves
- * no reached region that the last round could find more than a cell beyond the outline.
+ * each within 2 cells (in r and in z) of an occupied cell (a sample's cell or one filled by a
+ * sheet), so every outline point is within 3 cells in r and in z of the region (errs toward MORE
+ * reach). Inward, the stopping rule leaves no reached region that the last round could find more
+ * than a cell beyond the outline.
  */
 import { contours } from 'd3';
 import type { Polygon2, ReachProfile, Ring } from './types';
@@ -39,11 +43,14 @@ export interface AxisRange {
 }
 
 export interface SampleProfileOptions {
-  /** Stated tolerance of the outline, mm (default: about 1/160 of the region's extent, at least 6 mm). The raster cell is a third of it. */
+  /**
+   * Stated tolerance of the outline, mm (default: 3/400 of the first sweep's larger extent, r or
+   * z, rounded up to whole mm and at least 6 mm). The raster cell is a third of it.
+   */
   toleranceMm?: number;
-  /** Samples of the first batch (default 2048 · free axes, at least 4096). */
+  /** Samples of the first sweep, box corners included (default by free axes: 512 for one, 2048 for two, 4096 for three, then 8192, 12 288 and 16 384 from six). */
   initialSamples?: number;
-  /** Upper bound on samples (default 400 000). */
+  /** Upper bound on samples drawn (default 250 000); the 2^k box corners are drawn whatever it is. */
   maxSamples?: number;
   /** Arm-frame bearing of the reach plane, degrees: points are turned by −bearing before r is taken (default 0). */
   bearingDeg?: number;
@@ -54,10 +61,10 @@ export interface SampledReachProfile extends ReachProfile {
   method: 'sampled';
   /** Raster cell edge, mm. */
   cellMm: number;
-  /** Samples drawn (including the 2^k box corners) and how many of them assembled. */
+  /** Poses evaluated (box corners, sweep, sheets and refinement) and how many of them assembled. */
   samples: number;
   assembled: number;
-  /** True when the last batch landed inside the grown raster of the samples before it. */
+  /** True when the last refinement round found nothing more than a cell beyond what was occupied before it (always true with no free axis). */
   converged: boolean;
   /** Distance of the point to the side of the reach plane (turned-frame y), mm. */
   lateral: { min: number; mean: number; max: number };
@@ -65,26 +72,26 @@ export interface SampledReachProfile extends ReachProfile {
 
 /** The first 8 primes: Halton bases for up to 8 free axes. */
 const PRIMES = [2, 3, 5, 7, 11, 13, 17, 19];
-
-/** Radical inverse of `index` in `base` (van der Corput), the Halton coordinate: a value in [0, 1). */
-export function radicalInverse(index: number, base: number): number {
-  if (!Number.isInteger(index) || index < 0) throw new Error('index: expected a non-negative integer');
-  if (!Number.isInteger(base) || base < 2) throw new Error('base: expected an integer ≥ 2');
-  let result = 0;
-  let f = 1 / base;
-  let i = index;
-  while (i > 0) {
-    const digit = i % base;
-    result += digit * f;
-    i = (i - digit) / base;
-    f /= base;
-  }
-  return result;
-}
+/** Default upper bound on samples drawn. */
+const DEFAULT_MAX_SAMPLES = 250_000;
+/** First-sweep sample counts by number of free axes (0 … 8). */
+const DEFAULT_INITIAL = [1, 512, 2048, 4096, 8192, 12288, 16384, 16384, 16384];
+/** Default tolerance: the first sweep's larger extent spans about 400 cells (31 mm for Demo Six-Axis 2000), never under 6 mm. */
+const DEFAULT_CELLS_ACROSS = 400;
+const MIN_DEFAULT_TOLERANCE_MM = 6;
+/** Edge refinement: at most this many rounds. */
+const MAX_ROUNDS = 60;
+/** Lattice sheets: node spacing in cells (image chord ≤ 12 cells keeps the arc's sagitta well under a cell), nodes per axis, sheets. */
+const SHEET_NODE_CELLS = 12;
+const SHEET_MAX_NODES = 160;
+const SHEETS = 4;
+/** Empty cells around the raster's inner part, where no sample is marked. */
+const PAD_CELLS = 4;
 
 /**
- * Halton sequence in `dims` dimensions (bases 2, 3, 5, …), stepped incrementally: each call of
- * next() adds one to the index in every base's digits, amortised O(1) per coordinate.
+ * Halton sequence in `dims` dimensions (bases 2, 3, 5, …): coordinate k of point i is the radical
+ * inverse of i in the k-th prime (van der Corput), a value in [0, 1). Stepped incrementally: each
+ * call of next() adds one to the index in every base's digits, amortised O(1) per coordinate.
  */
 export class HaltonSequence {
   readonly dims: number;
@@ -174,7 +181,6 @@ class SampleStore {
   }
 }
 
-const PAD_CELLS = 4;
 
 /** 3×3 square dilation (max) or erosion (min) of a binary raster, as a row pass then a column pass (border cells repeat their own value outward). */
 function morph3(src: Uint8Array, w: number, h: number, dilate: boolean, tmp: Uint8Array, out: Uint8Array): Uint8Array {
@@ -280,6 +286,13 @@ class Raster {
     const { w, stamp: st } = this;
     return st[c - 1] === 0 || st[c + 1] === 0 || st[c - w] === 0 || st[c + w] === 0 ||
       st[c - w - 1] === 0 || st[c - w + 1] === 0 || st[c + w - 1] === 0 || st[c + w + 1] === 0;
+  }
+
+  /** Cells that hold a sample and touch an empty cell, in cell order: the edge that refinement starts from. */
+  sampledEdgeCells(): number[] {
+    const cells: number[] = [];
+    for (let c = 0; c < this.rep.length; c++) if (this.rep[c] >= 0 && this.onEdge(c)) cells.push(c);
+    return cells;
   }
 
   /** Adds a lattice sheet and fills the images of its cells (two triangles per cell, segments for a 1-D lattice). */
@@ -426,11 +439,70 @@ function profileExtent(polygons: Polygon2[]): { maxReach: number; minReach: numb
 }
 
 /**
- * Sampled side reach profile of a point function over axis ranges (Halton sampling refined at
- * the region's edge, raster, morphological closing, d3-contour), arm-frame (r, z), mm. Hold J1
- * fixed (min = max) at the value whose reach-plane bearing is `opts.bearingDeg` (default 0).
+ * Evaluates poses given as free-axis coordinates u ∈ [0,1]^k: axis values by linear
+ * interpolation over each free axis' range (fixed axes stay at their value), the arm-frame point
+ * from the point function, then (r, z) in the reach plane (step 2 of the method). Counts every
+ * pose it draws and keeps those that assemble in its store.
  */
-export function sampleProfile(pointFn: PointFn, axes: readonly AxisRange[], opts: SampleProfileOptions = {}): SampledReachProfile {
+class JointSampler {
+  readonly k: number;
+  readonly store: SampleStore;
+  /** Poses drawn so far, assembled or not. */
+  drawn = 0;
+  private readonly q: Float64Array;
+  private readonly p = new Float64Array(3);
+  private readonly cb: number;
+  private readonly sb: number;
+
+  constructor(
+    private readonly pointFn: PointFn,
+    private readonly axes: readonly AxisRange[],
+    private readonly free: readonly number[],
+    bearingDeg: number,
+  ) {
+    const bearing = (bearingDeg * Math.PI) / 180;
+    this.cb = Math.cos(bearing);
+    this.sb = Math.sin(bearing);
+    this.k = free.length;
+    this.q = Float64Array.from(axes, (ax) => ax.min);
+    this.store = new SampleStore(this.k);
+  }
+
+  /** Draws pose u and stores its (r, z), side distance and u; true when it assembled. */
+  evaluate(u: Float64Array): boolean {
+    this.drawn++;
+    if (!this.placePoint(u)) return false;
+    const p = this.p;
+    const x = this.cb * p[0] + this.sb * p[1];
+    const y = -this.sb * p[0] + this.cb * p[1];
+    const rho = Math.sqrt(x * x + y * y);
+    this.store.add(x >= 0 ? rho : -rho, p[2], y, u);
+    return true;
+  }
+
+  /** (r, z) of pose u, neither counted nor stored (for finite differences); null when it does not assemble. */
+  profilePointOf(u: Float64Array): [number, number] | null {
+    if (!this.placePoint(u)) return null;
+    const p = this.p;
+    const x = this.cb * p[0] + this.sb * p[1];
+    const y = -this.sb * p[0] + this.cb * p[1];
+    const rho = Math.sqrt(x * x + y * y);
+    return [x >= 0 ? rho : -rho, p[2]];
+  }
+
+  /** Sets the free axes of q from u and writes the arm-frame point to p; false when the pose does not assemble. */
+  private placePoint(u: Float64Array): boolean {
+    for (let f = 0; f < this.k; f++) {
+      const i = this.free[f];
+      const ax = this.axes[i];
+      this.q[i] = ax.min + u[f] * (ax.max - ax.min);
+    }
+    return this.pointFn(this.q, this.p);
+  }
+}
+
+/** Throws a short message naming the argument when the axis ranges or the tolerance are unusable. */
+function checkProfileInputs(axes: readonly AxisRange[], opts: SampleProfileOptions): void {
   if (axes.length === 0) throw new Error('axes: expected at least one axis range');
   axes.forEach((ax, i) => {
     if (!Number.isFinite(ax.min) || !Number.isFinite(ax.max) || ax.min > ax.max) throw new Error(`axes[${i}]: expected finite min ≤ max`);
@@ -438,174 +510,48 @@ export function sampleProfile(pointFn: PointFn, axes: readonly AxisRange[], opts
   if (opts.toleranceMm !== undefined && (!(opts.toleranceMm > 0) || !Number.isFinite(opts.toleranceMm))) {
     throw new Error('toleranceMm: expected a positive number');
   }
-  const bearing = ((opts.bearingDeg ?? 0) * Math.PI) / 180;
-  const cb = Math.cos(bearing), sb = Math.sin(bearing);
-  const free = axes.map((ax, i) => (ax.max > ax.min ? i : -1)).filter((i) => i >= 0);
-  const k = free.length;
-  if (k > PRIMES.length) throw new Error(`axes: at most ${PRIMES.length} free axes`);
-  const maxSamples = opts.maxSamples ?? 250_000;
-  const initial = Math.min(maxSamples, opts.initialSamples ?? DEFAULT_INITIAL[Math.min(k, DEFAULT_INITIAL.length - 1)]);
-
-  const q = Float64Array.from(axes, (ax) => ax.min);
-  const u = new Float64Array(Math.max(k, 1));
-  const p = new Float64Array(3);
-  const store = new SampleStore(k);
-  let drawn = 0;
-
-  /** Evaluates the pose u (free-axis coordinates in [0,1]); true when it assembled and was stored. */
-  const evaluate = (uu: Float64Array): boolean => {
-    drawn++;
-    for (let f = 0; f < k; f++) {
-      const ax = axes[free[f]];
-      q[free[f]] = ax.min + uu[f] * (ax.max - ax.min);
-    }
-    if (!pointFn(q, p)) return false;
-    const x = cb * p[0] + sb * p[1];
-    const y = -sb * p[0] + cb * p[1];
-    const rho = Math.sqrt(x * x + y * y);
-    store.add(x >= 0 ? rho : -rho, p[2], y, uu);
-    return true;
-  };
-
-  // 1. the corners of the joint box, then a Halton sweep of the whole box
-  for (let mask = 0; mask < 1 << k; mask++) {
-    for (let f = 0; f < k; f++) u[f] = (mask >> f) & 1;
-    evaluate(u);
-  }
-  const halton = k > 0 ? new HaltonSequence(k) : null;
-  if (halton) {
-    halton.next(u); // skip the origin, already a corner
-    while (drawn < initial) {
-      halton.next(u);
-      evaluate(u);
-    }
-  }
-  if (store.count === 0) throw new Error('pointFn: no pose over the axis ranges assembles');
-  const extent = Math.max(store.rMax - store.rMin, store.zMax - store.zMin);
-  const toleranceMm = opts.toleranceMm ?? Math.max(MIN_DEFAULT_TOLERANCE_MM, Math.ceil((3 * extent) / DEFAULT_CELLS_ACROSS));
-  const cell = toleranceMm / 3;
-
-  // 2. lattice sheets over the two most sensitive axes fill the interior (their cells' images
-  //    drawn as triangles); 3. edge refinement: children of edge samples within a joint step that
-  //    moves the point by about 3 cells, round after round, until no child lands more than one
-  //    cell away from what the rounds before had occupied
-  const raster = new Raster(cell, store);
-  let converged = k === 0;
-  if (!halton) raster.layOut();
-  else {
-    const sens = jointSensitivities(store, k, evaluateAt(pointFn, axes, free, q, p, cb, sb));
-    const step = sens.map((d) => (d > 0 ? Math.min(1, (3 * cell) / d) : 1));
-    const order = Array.from({ length: k }, (_, f) => f).sort((a, b) => sens[b] - sens[a]);
-    const lead = order.slice(0, 2);
-    const rest = order.slice(2);
-    const nodeSpan = SHEET_NODE_CELLS * cell;
-    const counts = lead.map((f) => Math.min(SHEET_MAX_NODES, Math.max(2, Math.ceil(sens[f] / nodeSpan) + 1)));
-    const n0 = counts[0], n1 = counts[1] ?? 1;
-    const restSeq = rest.length > 0 ? new HaltonSequence(rest.length) : null;
-    const restU = new Float64Array(Math.max(1, rest.length)).fill(0.5);
-    const sheets: Sheet[] = [];
-    for (let m = 0; m < (restSeq ? SHEETS : 1) && drawn + n0 * n1 <= maxSamples; m++) {
-      if (m > 0 && restSeq) {
-        restSeq.next(restU);
-        if (m === 1) restSeq.next(restU); // past the origin (a corner of the box)
-      }
-      for (let r = 0; r < rest.length; r++) u[rest[r]] = restU[r];
-      const nodes = new Int32Array(n0 * n1);
-      for (let a = 0; a < n0; a++) {
-        for (let b = 0; b < n1; b++) {
-          u[lead[0]] = a / (n0 - 1);
-          if (lead.length > 1) u[lead[1]] = b / (n1 - 1);
-          nodes[a * n1 + b] = evaluate(u) ? store.count - 1 : -1;
-        }
-      }
-      sheets.push({ nodes, n0, n1 });
-    }
-    raster.layOut();
-    for (const sheet of sheets) raster.addSheet(sheet);
-
-    const offsets = new HaltonSequence(k);
-    const child = new Float64Array(k);
-    const childrenPerParent = k + 2;
-    let frontier: number[] = [];
-    for (let c = 0; c < raster.stamp.length; c++) if (raster.rep[c] >= 0 && raster.onEdge(c)) frontier.push(c);
-    for (let round = 1; round <= MAX_ROUNDS && frontier.length > 0 && drawn < maxSamples; round++) {
-      const stamp = round + 1;
-      const fresh: number[] = [];
-      let escaped = false;
-      let offGrid = false;
-      for (const c of frontier) {
-        const parent = raster.rep[c];
-        for (let m = 0; m < childrenPerParent && drawn < maxSamples; m++) {
-          offsets.next(u);
-          for (let f = 0; f < k; f++) {
-            const v = store.u[k * parent + f] + (2 * u[f] - 1) * step[f];
-            child[f] = v < 0 ? 0 : v > 1 ? 1 : v;
-          }
-          if (!evaluate(child)) continue;
-          const cellIndex = raster.mark(store.count - 1, stamp);
-          if (cellIndex === -1) offGrid = true;
-          if (cellIndex >= 0) {
-            fresh.push(cellIndex);
-            if (raster.isolated(cellIndex, stamp)) escaped = true;
-          }
-        }
-      }
-      if (!escaped && !offGrid) {
-        converged = true;
-        break;
-      }
-      if (offGrid) raster.layOut(); // every stamp restarts at 1; the new frontier is the whole edge
-      frontier = offGrid
-        ? Array.from(raster.rep.keys()).filter((c) => raster.rep[c] >= 0 && raster.onEdge(c))
-        : fresh.filter((c) => raster.onEdge(c));
-    }
-  }
-
-  const polygons = raster.trace();
-  return {
-    polygons,
-    toleranceMm,
-    method: 'sampled',
-    ...profileExtent(polygons),
-    cellMm: cell,
-    samples: drawn,
-    assembled: store.count,
-    converged,
-    lateral: { min: store.yMin, mean: store.ySum / store.count, max: store.yMax },
-  };
 }
 
-/** Default tolerance: the first sweep's extent spans about 400 cells (tolerance 30 mm for the 2000 mm demo arm, about 30 ms), never under 6 mm. */
-const DEFAULT_CELLS_ACROSS = 400;
-const MIN_DEFAULT_TOLERANCE_MM = 6;
-/** First-sweep sample counts by number of free axes (0 … 8). */
-const DEFAULT_INITIAL = [1, 512, 2048, 4096, 8192, 12288, 16384, 16384, 16384];
-const MAX_ROUNDS = 60;
-/** Lattice sheets: node spacing in cells (image chord ≤ 12 cells keeps the arc's sagitta well under a cell), nodes per axis, sheets. */
-const SHEET_NODE_CELLS = 12;
-const SHEET_MAX_NODES = 160;
-const SHEETS = 4;
+/** Indices of the axes that move (min < max); at most one per Halton base. */
+function findFreeAxes(axes: readonly AxisRange[]): number[] {
+  const free = axes.map((ax, i) => (ax.max > ax.min ? i : -1)).filter((i) => i >= 0);
+  if (free.length > PRIMES.length) throw new Error(`axes: at most ${PRIMES.length} free axes`);
+  return free;
+}
 
-/** (r, z) of pose u ∈ [0,1]^k, or null when it does not assemble (used for finite differences). */
-function evaluateAt(pointFn: PointFn, axes: readonly AxisRange[], free: number[], q: Float64Array, p: Float64Array, cb: number, sb: number) {
-  return (uu: Float64Array): [number, number] | null => {
-    for (let f = 0; f < free.length; f++) {
-      const ax = axes[free[f]];
-      q[free[f]] = ax.min + uu[f] * (ax.max - ax.min);
-    }
-    if (!pointFn(q, p)) return null;
-    const x = cb * p[0] + sb * p[1];
-    const y = -sb * p[0] + cb * p[1];
-    const rho = Math.sqrt(x * x + y * y);
-    return [x >= 0 ? rho : -rho, p[2]];
-  };
+/** Step 1a: draws the 2^k corners of the joint box. */
+function sampleBoxCorners(sampler: JointSampler): void {
+  const k = sampler.k;
+  const u = new Float64Array(Math.max(k, 1));
+  for (let mask = 0; mask < 1 << k; mask++) {
+    for (let f = 0; f < k; f++) u[f] = (mask >> f) & 1;
+    sampler.evaluate(u);
+  }
+}
+
+/** Step 1b: draws Halton points of the joint box (past the origin, a corner) until `count` poses are drawn in all. */
+function sweepJointBox(sampler: JointSampler, count: number): void {
+  const halton = new HaltonSequence(sampler.k);
+  const u = new Float64Array(sampler.k);
+  halton.next(u);
+  while (sampler.drawn < count) {
+    halton.next(u);
+    sampler.evaluate(u);
+  }
+}
+
+/** Default stated tolerance, mm, from the first sweep's larger extent (r or z). */
+function chooseTolerance(store: SampleStore): number {
+  const extent = Math.max(store.rMax - store.rMin, store.zMax - store.zMin);
+  return Math.max(MIN_DEFAULT_TOLERANCE_MM, Math.ceil((3 * extent) / DEFAULT_CELLS_ACROSS));
 }
 
 /**
  * Largest sensitivity |∂(r, z)/∂u| per free axis (mm per unit of the axis' range) by finite
  * differences over a few hundred stored samples.
  */
-function jointSensitivities(store: SampleStore, k: number, at: (uu: Float64Array) => [number, number] | null): Float64Array {
+function measureSensitivities(sampler: JointSampler): Float64Array {
+  const { store, k } = sampler;
   const h = 1e-4;
   const sens = new Float64Array(k);
   const uu = new Float64Array(k);
@@ -613,12 +559,12 @@ function jointSensitivities(store: SampleStore, k: number, at: (uu: Float64Array
   const stride = Math.max(1, Math.floor(store.count / probes));
   for (let s = 0; s < store.count; s += stride) {
     for (let f = 0; f < k; f++) uu[f] = store.u[k * s + f];
-    const base = at(uu);
+    const base = sampler.profilePointOf(uu);
     if (!base) continue;
     for (let f = 0; f < k; f++) {
       const keep = uu[f];
       uu[f] = keep + (keep + h <= 1 ? h : -h);
-      const moved = at(uu);
+      const moved = sampler.profilePointOf(uu);
       uu[f] = keep;
       if (!moved) continue;
       const d = Math.hypot(moved[0] - base[0], moved[1] - base[1]) / h;
@@ -626,4 +572,161 @@ function jointSensitivities(store: SampleStore, k: number, at: (uu: Float64Array
     }
   }
   return sens;
+}
+
+/** Free-axis indices, most sensitive first (a stable sort: ties keep axis order). */
+function rankAxes(sens: Float64Array): number[] {
+  return Array.from({ length: sens.length }, (_, f) => f).sort((a, b) => sens[b] - sens[a]);
+}
+
+/** Step 3: draws the lattice sheets over the one or two lead axes, each filling the interior between its nodes. */
+function sampleSheets(sampler: JointSampler, sens: Float64Array, cell: number, maxSamples: number): Sheet[] {
+  const order = rankAxes(sens);
+  const lead = order.slice(0, 2);
+  const rest = order.slice(2);
+  const nodeSpan = SHEET_NODE_CELLS * cell;
+  const counts = lead.map((f) => Math.min(SHEET_MAX_NODES, Math.max(2, Math.ceil(sens[f] / nodeSpan) + 1)));
+  const n0 = counts[0], n1 = counts[1] ?? 1;
+  // The other axes sit at mid-range for the first sheet, at Halton points 1, 2, … for the next.
+  const restSeq = rest.length > 0 ? new HaltonSequence(rest.length) : null;
+  const restU = new Float64Array(Math.max(1, rest.length)).fill(0.5);
+  const u = new Float64Array(sampler.k);
+  const sheets: Sheet[] = [];
+  for (let m = 0; m < (restSeq ? SHEETS : 1) && sampler.drawn + n0 * n1 <= maxSamples; m++) {
+    if (m > 0 && restSeq) {
+      restSeq.next(restU);
+      if (m === 1) restSeq.next(restU); // past the origin (a corner of the box)
+    }
+    for (let r = 0; r < rest.length; r++) u[rest[r]] = restU[r];
+    sheets.push(sampleSheet(sampler, u, lead, n0, n1));
+  }
+  return sheets;
+}
+
+/** Draws one n0 × n1 lattice over the lead axes (u holds the other axes' values). */
+function sampleSheet(sampler: JointSampler, u: Float64Array, lead: readonly number[], n0: number, n1: number): Sheet {
+  const nodes = new Int32Array(n0 * n1);
+  for (let a = 0; a < n0; a++) {
+    for (let b = 0; b < n1; b++) {
+      u[lead[0]] = a / (n0 - 1);
+      if (lead.length > 1) u[lead[1]] = b / (n1 - 1);
+      nodes[a * n1 + b] = sampler.evaluate(u) ? sampler.store.count - 1 : -1;
+    }
+  }
+  return { nodes, n0, n1 };
+}
+
+/** Joint step per free axis (fraction of its range) that moves the point by about 3 cells, at most the whole range. */
+function childSteps(sens: Float64Array, cell: number): Float64Array {
+  return sens.map((d) => (d > 0 ? Math.min(1, (3 * cell) / d) : 1));
+}
+
+/** What one refinement round found: newly occupied cells, whether one of them is isolated, whether a child fell off the grid. */
+interface RoundResult {
+  fresh: number[];
+  escaped: boolean;
+  offGrid: boolean;
+}
+
+/**
+ * Step 4: refines the edge round after round; true when a round converged (no child isolated
+ * from what was occupied before, none off the grid), false when the rounds, the frontier or
+ * the sample budget ran out first.
+ */
+function refineEdge(sampler: JointSampler, raster: Raster, step: Float64Array, maxSamples: number): boolean {
+  const offsets = new HaltonSequence(sampler.k);
+  let frontier = raster.sampledEdgeCells();
+  for (let round = 1; round <= MAX_ROUNDS && frontier.length > 0 && sampler.drawn < maxSamples; round++) {
+    const { fresh, escaped, offGrid } = sampleChildren(sampler, raster, frontier, round + 1, step, offsets, maxSamples);
+    if (!escaped && !offGrid) return true;
+    if (offGrid) {
+      raster.layOut(); // every stamp restarts at 1; the new frontier is the whole edge
+      frontier = raster.sampledEdgeCells();
+    } else {
+      frontier = fresh.filter((c) => raster.onEdge(c));
+    }
+  }
+  return false;
+}
+
+/** Draws k + 2 children around the sample of each frontier cell (offsets from the Halton sequence `offsets`) and marks them with `stamp`. */
+function sampleChildren(
+  sampler: JointSampler,
+  raster: Raster,
+  frontier: readonly number[],
+  stamp: number,
+  step: Float64Array,
+  offsets: HaltonSequence,
+  maxSamples: number,
+): RoundResult {
+  const { k, store } = sampler;
+  const offset = new Float64Array(k);
+  const child = new Float64Array(k);
+  const childrenPerParent = k + 2;
+  const result: RoundResult = { fresh: [], escaped: false, offGrid: false };
+  for (const c of frontier) {
+    const parent = raster.rep[c];
+    for (let m = 0; m < childrenPerParent && sampler.drawn < maxSamples; m++) {
+      offsets.next(offset);
+      // store.u is read afresh each time: it is replaced when the store grows
+      for (let f = 0; f < k; f++) {
+        const v = store.u[k * parent + f] + (2 * offset[f] - 1) * step[f];
+        child[f] = v < 0 ? 0 : v > 1 ? 1 : v;
+      }
+      if (!sampler.evaluate(child)) continue;
+      const cellIndex = raster.mark(store.count - 1, stamp);
+      if (cellIndex === -1) result.offGrid = true;
+      if (cellIndex >= 0) {
+        result.fresh.push(cellIndex);
+        if (raster.isolated(cellIndex, stamp)) result.escaped = true;
+      }
+    }
+  }
+  return result;
+}
+
+/** Steps 3 and 4 for at least one free axis: sheets fill the interior, refinement finds the edge; true when refinement converged. */
+function fillAndRefine(sampler: JointSampler, raster: Raster, maxSamples: number): boolean {
+  const sens = measureSensitivities(sampler);
+  const sheets = sampleSheets(sampler, sens, raster.cell, maxSamples);
+  raster.layOut();
+  for (const sheet of sheets) raster.addSheet(sheet);
+  return refineEdge(sampler, raster, childSteps(sens, raster.cell), maxSamples);
+}
+
+/**
+ * Sampled side reach profile of a point function over axis ranges (Halton sampling refined at
+ * the region's edge, raster, morphological closing, d3-contour), arm-frame (r, z), mm. Hold J1
+ * fixed (min = max) at the value whose reach-plane bearing is `opts.bearingDeg` (default 0).
+ */
+export function sampleProfile(pointFn: PointFn, axes: readonly AxisRange[], opts: SampleProfileOptions = {}): SampledReachProfile {
+  checkProfileInputs(axes, opts);
+  const free = findFreeAxes(axes);
+  const k = free.length;
+  const maxSamples = opts.maxSamples ?? DEFAULT_MAX_SAMPLES;
+  const initial = Math.min(maxSamples, opts.initialSamples ?? DEFAULT_INITIAL[Math.min(k, DEFAULT_INITIAL.length - 1)]);
+  const sampler = new JointSampler(pointFn, axes, free, opts.bearingDeg ?? 0);
+
+  sampleBoxCorners(sampler);
+  if (k > 0) sweepJointBox(sampler, initial);
+  const { store } = sampler;
+  if (store.count === 0) throw new Error('pointFn: no pose over the axis ranges assembles');
+  const toleranceMm = opts.toleranceMm ?? chooseTolerance(store);
+  const raster = new Raster(toleranceMm / 3, store);
+  let converged = true;
+  if (k === 0) raster.layOut();
+  else converged = fillAndRefine(sampler, raster, maxSamples);
+
+  const polygons = raster.trace();
+  return {
+    polygons,
+    toleranceMm,
+    method: 'sampled',
+    ...profileExtent(polygons),
+    cellMm: raster.cell,
+    samples: sampler.drawn,
+    assembled: store.count,
+    converged,
+    lateral: { min: store.yMin, mean: store.ySum / store.count, max: store.yMax },
+  };
 }

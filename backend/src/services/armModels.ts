@@ -1,9 +1,9 @@
 import type { z } from 'zod';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { familyOf, FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel, reachProfileOf } from '@shared/kinematics/families';
+import { FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel, reachProfileOf } from '@shared/kinematics/families';
 import { bandAt } from '@shared/kinematics/planRegions';
 import type { AreaGeometry } from '@shared/geometry/geojson';
-import type { AxisInfo, ReachProfile } from '@shared/kinematics/types';
+import type { ReachProfile } from '@shared/kinematics/types';
 import type { ArmParams } from '@shared/schemas/armModel';
 import { fieldErrors } from '@shared/schemas/errors';
 import { badRequest, notFound } from '../http/errors';
@@ -16,9 +16,6 @@ export type ArmModelParams = ArmParams;
 export const ArmModelInput = FeasibleArmModelInput;
 export type ArmModelInput = z.infer<typeof FeasibleArmModelInput>;
 export { forwardModel };
-
-/** Axes of a model in controller units (deg / mm). */
-export const axesOf = (params: ArmModelParams): AxisInfo[] => familyOf(params).axes(params);
 
 /** An arm model as the API presents it (whitelisted fields; lengths mm, angles deg). */
 export interface ArmModelDto {

@@ -1,5 +1,4 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { AnalysisResult } from '@shared/analysis/types';
 import type { LayoutContent, LayoutDto } from '@shared/schemas/layout';
 import { api } from './client';
 import { layoutKeys } from './queryKeys';
@@ -50,9 +49,4 @@ export function useDeleteLayout(projectId: number) {
 /** PUT with the version edited; a stale version rejects with ApiError status 409. */
 export function saveLayout(id: number, body: { version: number; name?: string; floorPlanId?: number | null; content?: LayoutContent }): Promise<LayoutDto> {
   return api<{ layout: LayoutDto }>(`/layouts/${id}`, { method: 'PUT', body }).then((r) => r.layout);
-}
-
-/** The server's analysis of the stored layout, or of unsaved content. */
-export function analyzeOnServer(id: number, content?: LayoutContent): Promise<AnalysisResult> {
-  return api<AnalysisResult>(`/layouts/${id}/analysis`, { method: 'POST', body: content ? { content } : {} });
 }

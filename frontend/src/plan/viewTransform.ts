@@ -74,10 +74,3 @@ export function fitTransform(bounds: PlanBounds, width: number, height: number, 
   const cy = (bounds.minY + bounds.maxY) / 2;
   return { k, x: width / 2 - k * cx, y: height / 2 + k * cy };
 }
-
-/** The plan box visible in a `width` × `height` px viewport under view t, mm. */
-export function visibleBounds(t: ViewTransform, width: number, height: number): PlanBounds {
-  const a = screenToPlan(t, 0, height);
-  const b = screenToPlan(t, width, 0);
-  return { minX: a.x, minY: a.y, maxX: b.x, maxY: b.y };
-}

@@ -16,9 +16,6 @@ import {
   polygonArea,
   polygonsArea,
   polygonsToGeoJSON,
-  safeDifference,
-  safeIntersect,
-  safeUnion,
   sectorArea,
   signedDistanceToPolygons,
   snapValue,
@@ -208,23 +205,6 @@ describe('clipping, snapping and GeoJSON', () => {
     expect(polygonsToGeoJSON([]).type).toBe('MultiPolygon');
   });
 
-  it('turf wrappers are planar and return failures as values', () => {
-    const a = polygonsToGeoJSON([square(0, 0, 1000)]);
-    const b = polygonsToGeoJSON([square(500, 500, 1000)]);
-    const i = safeIntersect(a, b);
-    expect(i.ok).toBe(true);
-    if (i.ok) expect(polygonsArea(geoJSONToPolygons(i.geometry))).toBeCloseTo(250000, 3);
-    const u = safeUnion([a, b]);
-    if (!u.ok) throw new Error(u.reason);
-    expect(polygonsArea(geoJSONToPolygons(u.geometry))).toBeCloseTo(1750000, 3);
-    const diff = safeDifference(a, a);
-    expect(diff.ok).toBe(true);
-    if (diff.ok) expect(diff.geometry).toBeNull();
-    const bad = safeUnion([{ type: 'Polygon', coordinates: [[[0, 0], [Number.NaN, 1], [1, 1], [0, 0]]] }, b]);
-    expect(bad.ok).toBe(false);
-    if (!bad.ok) expect(bad.reason.length).toBeGreaterThan(0);
-  });
-
   it('does not mutate frozen inputs', () => {
     const deepFreeze = <T>(o: T): T => {
       if (o && typeof o === 'object') {
@@ -237,7 +217,6 @@ describe('clipping, snapping and GeoJSON', () => {
     expect(() => clipUnion(polys)).not.toThrow();
     expect(() => buildDistanceGrid(polys)).not.toThrow();
     expect(() => polygonsToGeoJSON(polys)).not.toThrow();
-    expect(() => safeUnion([polygonsToGeoJSON(polys)])).not.toThrow();
   });
 });
 

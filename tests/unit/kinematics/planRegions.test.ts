@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { polygonsArea } from '@shared/geometry/area';
 import { sectorArea } from '@shared/geometry/annularSector';
+import { armPose } from '@shared/geometry/frames';
 import { geoJSONToPolygons } from '@shared/geometry/geojson';
 import { pointInPolygons } from '@shared/geometry/pointInPolygon';
 import { parseArmParams, reachProfileOf } from '@shared/kinematics/families';
@@ -9,9 +10,7 @@ import {
   bandPolygons,
   bandSectors,
   maximumSpacePolygons,
-  placeRegion,
   restrictedBelowPolygons,
-  restrictedSpace,
   restrictedSpacePolygons,
 } from '@shared/kinematics/planRegions';
 import { profileProjection, profileSliceAt } from '@shared/kinematics/profile';
@@ -95,9 +94,9 @@ describe('reach bands and spaces', () => {
     expect(low).toBeLessThanOrEqual(all + 1e-6);
   });
 
-  it('placeRegion moves arm-frame geometry onto the plan by yaw and position', () => {
+  it('armPose places arm-frame geometry on the plan by yaw and position', () => {
     const g = bandAt(articulatedSets[0], 300, { j1Min: -10, j1Max: 10 });
-    const placed = geoJSONToPolygons(placeRegion(g, { x: 10000, y: 5000, yaw: 90 }));
+    const placed = armPose({ x: 10000, y: 5000, yaw: 90 }).placePolygons(geoJSONToPolygons(g));
     expect(pointInPolygons(10000, 5000 + 1000, placed)).toBe(true);
     expect(pointInPolygons(10000 + 1000, 5000, placed)).toBe(false);
     expect(polygonsArea(placed)).toBeCloseTo(polygonsArea(geoJSONToPolygons(g)), 0);
@@ -105,8 +104,8 @@ describe('reach bands and spaces', () => {
 
   it('rejects restricting limits that miss the model range, and does not mutate frozen inputs', () => {
     const m = deepFreeze(structuredClone(articulatedSets[0]));
-    expect(() => restrictedSpace(m, { j1Min: 171, j1Max: 200 })).toThrow(/restrict/);
+    expect(() => restrictedSpacePolygons(m, { j1Min: 171, j1Max: 200 })).toThrow(/restrict/);
     expect(() => bandAt(m, Number.NaN)).toThrow(/zArm/);
-    expect(() => restrictedSpace(m, deepFreeze({ j1Min: -20, j1Max: 20 }))).not.toThrow();
+    expect(() => restrictedSpacePolygons(m, deepFreeze({ j1Min: -20, j1Max: 20 }))).not.toThrow();
   });
 });

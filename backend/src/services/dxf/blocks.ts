@@ -1,5 +1,5 @@
 import { DxfImportError } from './errors';
-import { DRAWN_TYPES, drawEntity, entityRef, extrusionPoint, num, pt, type DrawContext } from './entities';
+import { drawEntity, entityRef, extrusionPoint, num, pt, type DrawContext } from './entities';
 import { MAX_BLOCK_DEPTH, MAX_ENTITY_INSTANCES } from './limits';
 import type { PlanBuilder } from './planBuilder';
 import { compose, insertTransform, planScale, type Affine } from './transform';
@@ -89,10 +89,8 @@ export function drawEntities(
     const layer = own === '0' && stack.length > 0 ? ctx.layer : own;
     if (type === 'INSERT') {
       drawInsert(e, { ...ctx, layer }, stack, w, b);
-    } else if (DRAWN_TYPES.has(type)) {
-      drawEntity(e, layer === ctx.layer ? ctx : { ...ctx, layer }, b);
     } else {
-      b.skip(type, 'not supported');
+      drawEntity(e, layer === ctx.layer ? ctx : { ...ctx, layer }, b);
     }
   }
 }

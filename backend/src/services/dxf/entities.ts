@@ -18,11 +18,6 @@ export interface DrawContext {
   curves: CurveStats;
 }
 
-/** Entity types this module draws. */
-export const DRAWN_TYPES = new Set([
-  'LINE', 'LWPOLYLINE', 'POLYLINE', 'ARC', 'CIRCLE', 'ELLIPSE', 'SPLINE', 'TEXT', 'MTEXT', 'SOLID', '3DFACE',
-]);
-
 const TWO_PI = 2 * Math.PI;
 
 export function entityRef(e: Loose, block?: string): EntityRef {
@@ -129,186 +124,167 @@ function bulgedPolyline(vs: Array<[number, number, number]>, closed: boolean, z:
 }
 
 /**
- * Draws one non-INSERT entity into the builder: lines and polylines (bulges as arcs), arcs,
- * circles, ellipses, splines, solids and faces as paths; TEXT and MTEXT as labels. OCS entities
- * are carried to world coordinates by their extrusion direction first. Returns false when the
- * type is not one this module draws.
+ * What a handler makes of one entity: a path (x, y, z triples in the frame `m` maps to plan mm;
+ * `note` is counted as a skip reason although the path is drawn), a label, or why it is skipped.
  */
-export function drawEntity(e: Loose, ctx: DrawContext, b: PlanBuilder): boolean {
-  const type = String(e.type);
-  const ref = entityRef(e, ctx.block);
-  const layer = ctx.layer;
-  switch (type) {
-    case 'LINE': {
-      const vs = Array.isArray(e.vertices) ? e.vertices : [];
-      const p = pt(vs[0], ref, 'start point');
-      const q = pt(vs[1], ref, 'end point');
-      if (!p || !q) return b.skip(type, 'incomplete'), true;
-      b.path(ref, layer, false, [...p, ...q], ctx.m);
-      return true;
-    }
-    case 'LWPOLYLINE': {
-      const vs: Array<[number, number, number]> = [];
-      for (const v of Array.isArray(e.vertices) ? e.vertices : []) {
-        const p = pt(v, ref, 'vertex');
-        if (!p) continue;
-        vs.push([p[0], p[1], num(v as Loose, 'bulge', 0, ref)]);
-      }
-      if (vs.length < 2) return b.skip(type, 'incomplete'), true;
-      const z = num(e, 'elevation', 0, ref);
-      const closed = e.shape === true;
-      b.path(ref, layer, closed, bulgedPolyline(vs, closed, z, ctx), withOcs(ctx, extrusionXYZ(e, ref)));
-      return true;
-    }
-    case 'POLYLINE': {
-      if (e.is3dPolygonMesh === true || e.isPolyfaceMesh === true) return b.skip(type, 'mesh, not supported'), true;
-      const is3d = e.is3dPolyline === true;
-      const closed = e.shape === true;
-      const raw = (Array.isArray(e.vertices) ? e.vertices : []).filter((v: Loose) => v && v.splineControlPoint !== true);
-      if (is3d) {
-        const pts: number[] = [];
-        for (const v of raw) {
-          const p = pt(v, ref, 'vertex');
-          if (p) pts.push(...p);
-        }
-        if (pts.length < 6) return b.skip(type, 'incomplete'), true;
-        b.path(ref, layer, closed, pts, ctx.m);
-        return true;
-      }
-      const vs: Array<[number, number, number]> = [];
-      let z = 0;
-      for (const v of raw) {
-        const p = pt(v, ref, 'vertex');
-        if (!p) continue;
-        z = p[2];
-        vs.push([p[0], p[1], num(v as Loose, 'bulge', 0, ref)]);
-      }
-      if (vs.length < 2) return b.skip(type, 'incomplete'), true;
-      b.path(ref, layer, closed, bulgedPolyline(vs, closed, z, ctx), withOcs(ctx, extrusionPoint(e.extrusionDirection, ref)));
-      return true;
-    }
-    case 'ARC':
-    case 'CIRCLE': {
-      const c = pt(e.center, ref, 'centre');
-      const r = num(e, 'radius', Number.NaN, ref);
-      if (!c || Number.isNaN(r)) return b.skip(type, 'incomplete'), true;
-      if (!(r > 0)) return b.skip(type, 'zero size'), true;
-      const m = withOcs(ctx, extrusionXYZ(e, ref));
-      const out: number[] = [];
-      if (type === 'CIRCLE') {
-        pushArc(out, c[0], c[1], r, 0, TWO_PI, c[2], ctx.tol, true, ctx.curves);
-        b.path(ref, layer, true, out, m);
-      } else {
-        const a0 = num(e, 'startAngle', 0, ref);
-        const sweep = ccwSweep(a0, num(e, 'endAngle', TWO_PI, ref));
-        if (sweep < 1e-12) return b.skip(type, 'zero size'), true;
-        pushArc(out, c[0], c[1], r, a0, sweep, c[2], ctx.tol, true, ctx.curves);
-        b.path(ref, layer, false, out, m);
-      }
-      return true;
-    }
-    case 'ELLIPSE': {
-      const c = pt(e.center, ref, 'centre');
-      const u = pt(e.majorAxisEndPoint, ref, 'major axis');
-      if (!c || !u) return b.skip(type, 'incomplete'), true;
-      const k = num(e, 'axisRatio', 1, ref);
-      const nx = num(e, 'extrusionDirectionX', 0, ref);
-      const ny = num(e, 'extrusionDirectionY', 0, ref);
-      const nz = num(e, 'extrusionDirectionZ', 1, ref);
-      const nl = Math.hypot(nx, ny, nz) || 1;
-      // minor half-axis: ratio · (N × major), N the unit normal of the ellipse's plane
-      const v: P3 = [
-        (k * (ny * u[2] - nz * u[1])) / nl,
-        (k * (nz * u[0] - nx * u[2])) / nl,
-        (k * (nx * u[1] - ny * u[0])) / nl,
-      ];
-      const t0 = num(e, 'startAngle', 0, ref);
-      const t1 = num(e, 'endAngle', TWO_PI, ref);
-      let sweep = ccwSweep(t0, t1);
-      const full = sweep < 1e-9 || Math.abs(sweep - TWO_PI) < 1e-9 || Math.abs(t1 - t0) >= TWO_PI - 1e-9;
-      if (full) sweep = TWO_PI;
-      if (!(Math.hypot(u[0], u[1], u[2]) > 0)) return b.skip(type, 'zero size'), true;
-      const out: number[] = [];
-      pushEllipse(out, c, u, v, full ? 0 : t0, sweep, ctx.tol, ctx.curves);
-      b.path(ref, layer, full, out, ctx.m);
-      return true;
-    }
-    case 'SPLINE':
-      drawSpline(e, ctx, b, ref);
-      return true;
-    case 'SOLID':
-    case '3DFACE': {
-      const list = (type === 'SOLID' ? e.points : e.vertices) as unknown[] | undefined;
-      const ps: P3[] = [];
-      for (const v of Array.isArray(list) ? list : []) {
-        const p = pt(v, ref, 'corner');
-        if (p) ps.push(p);
-      }
-      if (ps.length < 3) return b.skip(type, 'incomplete'), true;
-      // SOLID corners run 1, 2, 4, 3 around the outline (DXF reference); 3DFACE in order.
-      const ring = type === 'SOLID' && ps.length >= 4 ? [ps[0], ps[1], ps[3], ps[2]] : ps;
-      const m = type === 'SOLID' ? withOcs(ctx, extrusionPoint(e.extrusionDirection, ref)) : ctx.m;
-      b.path(ref, layer, true, ring.flat(), m);
-      return true;
-    }
-    case 'TEXT': {
-      const aligned = num(e, 'halign', 0, ref) !== 0 || num(e, 'valign', 0, ref) !== 0;
-      const p = (aligned ? pt(e.endPoint, ref, 'alignment point') : undefined) ?? pt(e.startPoint, ref, 'insertion point');
-      const text = typeof e.text === 'string' ? textPlain(e.text) : '';
-      if (!p) return b.skip(type, 'incomplete'), true;
-      if (text === '') return b.skip(type, 'empty'), true;
-      const h = num(e, 'textHeight', 0, ref);
-      const r = (num(e, 'rotation', 0, ref) * Math.PI) / 180;
-      const m = withOcs(ctx, extrusionXYZ(e, ref));
-      b.label(ref, layer, text, p, [Math.cos(r), Math.sin(r), 0], [-Math.sin(r) * h, Math.cos(r) * h, 0], m);
-      return true;
-    }
-    case 'MTEXT': {
-      const p = pt(e.position, ref, 'insertion point');
-      const text = typeof e.text === 'string' ? mtextPlain(e.text) : '';
-      if (!p) return b.skip(type, 'incomplete'), true;
-      if (text === '') return b.skip(type, 'empty'), true;
-      const h = num(e, 'height', 0, ref);
-      // x-axis direction (group 11, WCS) wins over the rotation (group 50, radians).
-      let d = pt(e.directionVector, ref, 'direction');
-      if (!d || Math.hypot(d[0], d[1], d[2]) === 0) {
-        const r = num(e, 'rotation', 0, ref);
-        d = [Math.cos(r), Math.sin(r), 0];
-      }
-      const dl = Math.hypot(d[0], d[1], d[2]);
-      const dir: P3 = [d[0] / dl, d[1] / dl, d[2] / dl];
-      b.label(ref, layer, text, p, dir, [-dir[1] * h, dir[0] * h, 0], ctx.m);
-      return true;
-    }
-    default:
-      return false;
-  }
+type Drawing =
+  | { kind: 'path'; closed: boolean; pts: number[]; m: Affine; note?: string }
+  | { kind: 'label'; text: string; at: P3; dir: P3; up: P3; m: Affine }
+  | { kind: 'skip'; reason: string };
+
+/** Reads one entity of its type; throws 'bad-coordinates' for a present field that is not finite. */
+type EntityHandler = (e: Loose, ctx: DrawContext, ref: EntityRef) => Drawing;
+
+const skipped = (reason: string): Drawing => ({ kind: 'skip', reason });
+
+function path(closed: boolean, pts: number[], m: Affine, note?: string): Drawing {
+  return { kind: 'path', closed, pts, m, note };
 }
 
-function drawSpline(e: Loose, ctx: DrawContext, b: PlanBuilder, ref: EntityRef): void {
-  const type = ref.type;
-  const ctrl: P3[] = [];
-  for (const v of Array.isArray(e.controlPoints) ? e.controlPoints : []) {
-    const p = pt(v, ref, 'control point');
-    if (p) ctrl.push(p);
+/** (x, y, bulge) of each vertex with a position, in file order. */
+function bulgeVertices(vertices: readonly unknown[], ref: EntityRef): Array<[number, number, number]> {
+  const vs: Array<[number, number, number]> = [];
+  for (const v of vertices) {
+    const p = pt(v, ref, 'vertex');
+    if (!p) continue;
+    vs.push([p[0], p[1], num(v as Loose, 'bulge', 0, ref)]);
   }
-  const fit: P3[] = [];
-  for (const v of Array.isArray(e.fitPoints) ? e.fitPoints : []) {
-    const p = pt(v, ref, 'fit point');
-    if (p) fit.push(p);
+  return vs;
+}
+
+/** The points of a list field that hold a position, in file order. */
+function points(list: unknown, ref: EntityRef, what: string): P3[] {
+  const ps: P3[] = [];
+  for (const v of Array.isArray(list) ? list : []) {
+    const p = pt(v, ref, what);
+    if (p) ps.push(p);
   }
-  const knots = (Array.isArray(e.knotValues) ? e.knotValues : []).map((k: unknown) => {
-    if (typeof k !== 'number' || !Number.isFinite(k)) badValue(ref, 'knot');
-    return k;
+  return ps;
+}
+
+function lineDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
+  const vs = Array.isArray(e.vertices) ? e.vertices : [];
+  const p = pt(vs[0], ref, 'start point');
+  const q = pt(vs[1], ref, 'end point');
+  if (!p || !q) return skipped('incomplete');
+  return path(false, [...p, ...q], ctx.m);
+}
+
+/** LWPOLYLINE: 2-D vertices with bulges at one elevation, in the OCS of its extrusion direction. */
+function lwPolylineDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
+  const vs = bulgeVertices(Array.isArray(e.vertices) ? e.vertices : [], ref);
+  if (vs.length < 2) return skipped('incomplete');
+  const z = num(e, 'elevation', 0, ref);
+  const closed = e.shape === true;
+  const pts = bulgedPolyline(vs, closed, z, ctx);
+  return path(closed, pts, withOcs(ctx, extrusionXYZ(e, ref)));
+}
+
+/** POLYLINE: a 3-D polyline in world coordinates, or a 2-D one with bulges in its OCS; meshes are not drawn. */
+function polylineDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
+  if (e.is3dPolygonMesh === true || e.isPolyfaceMesh === true) return skipped('mesh, not supported');
+  const closed = e.shape === true;
+  const raw = (Array.isArray(e.vertices) ? e.vertices : []).filter((v: Loose) => v && v.splineControlPoint !== true);
+  if (e.is3dPolyline === true) {
+    const pts = points(raw, ref, 'vertex').flat();
+    if (pts.length < 6) return skipped('incomplete');
+    return path(closed, pts, ctx.m);
+  }
+  const vs: Array<[number, number, number]> = [];
+  let z = 0;
+  for (const v of raw) {
+    const p = pt(v, ref, 'vertex');
+    if (!p) continue;
+    z = p[2];
+    vs.push([p[0], p[1], num(v as Loose, 'bulge', 0, ref)]);
+  }
+  if (vs.length < 2) return skipped('incomplete');
+  const pts = bulgedPolyline(vs, closed, z, ctx);
+  return path(closed, pts, withOcs(ctx, extrusionPoint(e.extrusionDirection, ref)));
+}
+
+/** Centre and radius of an ARC or CIRCLE, or why it cannot be drawn. */
+function readCircle(e: Loose, ref: EntityRef): { c: P3; r: number } | Drawing {
+  const c = pt(e.center, ref, 'centre');
+  const r = num(e, 'radius', Number.NaN, ref);
+  if (!c || Number.isNaN(r)) return skipped('incomplete');
+  if (!(r > 0)) return skipped('zero size');
+  return { c, r };
+}
+
+function circleDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
+  const circle = readCircle(e, ref);
+  if ('kind' in circle) return circle;
+  const { c, r } = circle;
+  const m = withOcs(ctx, extrusionXYZ(e, ref));
+  const out: number[] = [];
+  pushArc(out, c[0], c[1], r, 0, TWO_PI, c[2], ctx.tol, true, ctx.curves);
+  return path(true, out, m);
+}
+
+/** ARC: counter-clockwise from the start angle to the end angle (radians in dxf-parser's output). */
+function arcDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
+  const circle = readCircle(e, ref);
+  if ('kind' in circle) return circle;
+  const { c, r } = circle;
+  const m = withOcs(ctx, extrusionXYZ(e, ref));
+  const a0 = num(e, 'startAngle', 0, ref);
+  const sweep = ccwSweep(a0, num(e, 'endAngle', TWO_PI, ref));
+  if (sweep < 1e-12) return skipped('zero size');
+  const out: number[] = [];
+  pushArc(out, c[0], c[1], r, a0, sweep, c[2], ctx.tol, true, ctx.curves);
+  return path(false, out, m);
+}
+
+/** ELLIPSE: centre and major axis in world coordinates, minor axis from the ratio and the normal. */
+function ellipseDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
+  const c = pt(e.center, ref, 'centre');
+  const u = pt(e.majorAxisEndPoint, ref, 'major axis');
+  if (!c || !u) return skipped('incomplete');
+  const k = num(e, 'axisRatio', 1, ref);
+  const nx = num(e, 'extrusionDirectionX', 0, ref);
+  const ny = num(e, 'extrusionDirectionY', 0, ref);
+  const nz = num(e, 'extrusionDirectionZ', 1, ref);
+  const nl = Math.hypot(nx, ny, nz) || 1;
+  // minor half-axis: ratio · (N × major), N the unit normal of the ellipse's plane
+  const v: P3 = [
+    (k * (ny * u[2] - nz * u[1])) / nl,
+    (k * (nz * u[0] - nx * u[2])) / nl,
+    (k * (nx * u[1] - ny * u[0])) / nl,
+  ];
+  const t0 = num(e, 'startAngle', 0, ref);
+  const t1 = num(e, 'endAngle', TWO_PI, ref);
+  let sweep = ccwSweep(t0, t1);
+  const full = sweep < 1e-9 || Math.abs(sweep - TWO_PI) < 1e-9 || Math.abs(t1 - t0) >= TWO_PI - 1e-9;
+  if (full) sweep = TWO_PI;
+  if (!(Math.hypot(u[0], u[1], u[2]) > 0)) return skipped('zero size');
+  const out: number[] = [];
+  pushEllipse(out, c, u, v, full ? 0 : t0, sweep, ctx.tol, ctx.curves);
+  return path(full, out, ctx.m);
+}
+
+/** The finite numbers of a list field; throws 'bad-coordinates' naming `what` for any other value. */
+function finiteList(list: unknown, ref: EntityRef, what: string): number[] {
+  return (Array.isArray(list) ? list : []).map((x: unknown) => {
+    if (typeof x !== 'number' || !Number.isFinite(x)) badValue(ref, what);
+    return x;
   });
-  const weightsRaw = Array.isArray(e.weights) ? (e.weights as unknown[]) : [];
-  const weights = weightsRaw.map((w) => {
-    if (typeof w !== 'number' || !Number.isFinite(w)) badValue(ref, 'weight');
-    return w;
-  });
+}
+
+/**
+ * SPLINE: the B-spline of its control points, knots and weights; knots that do not fit are
+ * rebuilt (clamped uniform, noted) when there are no fit points, else the fit points are drawn
+ * as a Catmull-Rom curve.
+ */
+function splineDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
+  const ctrl = points(e.controlPoints, ref, 'control point');
+  const fit = points(e.fitPoints, ref, 'fit point');
+  const knots = finiteList(e.knotValues, ref, 'knot');
+  const weights = finiteList(e.weights, ref, 'weight');
   const degree = num(e, 'degreeOfSplineCurve', 3, ref);
   const closedFlag = e.closed === true || e.periodic === true;
   const out: number[] = [];
+  let note: string | undefined;
   let spline: BSpline | null = null;
   if (ctrl.length >= 2) {
     spline = { degree, knots, points: ctrl };
@@ -317,7 +293,7 @@ function drawSpline(e: Loose, ctx: DrawContext, b: PlanBuilder, ref: EntityRef):
     if (problem === 'knots' && Number.isInteger(degree) && degree >= 1 && degree <= 11 && ctrl.length >= degree + 1) {
       if (fit.length < 2) {
         spline.knots = clampedUniformKnots(ctrl.length, degree);
-        b.skip(type, 'knots rebuilt, drawn approximately');
+        note = 'knots rebuilt, drawn approximately';
       } else spline = null;
     } else if (problem) spline = null;
   }
@@ -326,15 +302,101 @@ function drawSpline(e: Loose, ctx: DrawContext, b: PlanBuilder, ref: EntityRef):
     pushAdaptive(out, (t) => deBoor(s, t), bsplineBreaks(s), ctx.tol, true, ctx.curves);
   } else if (fit.length >= 2) {
     const pts = fit.filter((p, i) => i === 0 || p[0] !== fit[i - 1][0] || p[1] !== fit[i - 1][1] || p[2] !== fit[i - 1][2]);
-    if (pts.length < 2) return b.skip(type, 'zero size');
+    if (pts.length < 2) return skipped('zero size');
     const closedFit = closedFlag && pts.length >= 3;
     const { f, segments } = catmullRom(pts, closedFit);
     const breaks: number[] = [];
     for (let i = 0; i <= segments; i++) breaks.push(i);
     pushAdaptive(out, f, breaks, ctx.tol, true, ctx.curves);
   } else {
-    return b.skip(type, 'unreadable');
+    return skipped('unreadable');
   }
   // An unflagged spline whose ends meet is closed later, by the joining of chains.
-  b.path(ref, ctx.layer, closedFlag, out, ctx.m);
+  return path(closedFlag, out, ctx.m, note);
+}
+
+/** SOLID: three or four corners in its OCS; the corners run 1, 2, 4, 3 around the outline (DXF reference). */
+function solidDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
+  const ps = points(e.points, ref, 'corner');
+  if (ps.length < 3) return skipped('incomplete');
+  const ring = ps.length >= 4 ? [ps[0], ps[1], ps[3], ps[2]] : ps;
+  return path(true, ring.flat(), withOcs(ctx, extrusionPoint(e.extrusionDirection, ref)));
+}
+
+/** 3DFACE: three or four corners in world coordinates, in order around the outline. */
+function faceDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
+  const ps = points(e.vertices, ref, 'corner');
+  if (ps.length < 3) return skipped('incomplete');
+  return path(true, ps.flat(), ctx.m);
+}
+
+/** TEXT: at its alignment point when aligned, else its insertion point; rotation in degrees, in its OCS. */
+function textDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
+  const aligned = num(e, 'halign', 0, ref) !== 0 || num(e, 'valign', 0, ref) !== 0;
+  const p = (aligned ? pt(e.endPoint, ref, 'alignment point') : undefined) ?? pt(e.startPoint, ref, 'insertion point');
+  const text = typeof e.text === 'string' ? textPlain(e.text) : '';
+  if (!p) return skipped('incomplete');
+  if (text === '') return skipped('empty');
+  const h = num(e, 'textHeight', 0, ref);
+  const r = (num(e, 'rotation', 0, ref) * Math.PI) / 180;
+  const m = withOcs(ctx, extrusionXYZ(e, ref));
+  return { kind: 'label', text, at: p, dir: [Math.cos(r), Math.sin(r), 0], up: [-Math.sin(r) * h, Math.cos(r) * h, 0], m };
+}
+
+/** MTEXT: formatting codes dropped; the x-axis direction (group 11, WCS) wins over the rotation (group 50, radians). */
+function mtextDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
+  const p = pt(e.position, ref, 'insertion point');
+  const text = typeof e.text === 'string' ? mtextPlain(e.text) : '';
+  if (!p) return skipped('incomplete');
+  if (text === '') return skipped('empty');
+  const h = num(e, 'height', 0, ref);
+  let d = pt(e.directionVector, ref, 'direction');
+  if (!d || Math.hypot(d[0], d[1], d[2]) === 0) {
+    const r = num(e, 'rotation', 0, ref);
+    d = [Math.cos(r), Math.sin(r), 0];
+  }
+  const dl = Math.hypot(d[0], d[1], d[2]);
+  const dir: P3 = [d[0] / dl, d[1] / dl, d[2] / dl];
+  return { kind: 'label', text, at: p, dir, up: [-dir[1] * h, dir[0] * h, 0], m: ctx.m };
+}
+
+/** The handler of each entity type this module draws (INSERT is placed by blocks.ts). */
+const ENTITY_HANDLERS: ReadonlyMap<string, EntityHandler> = new Map([
+  ['LINE', lineDrawing],
+  ['LWPOLYLINE', lwPolylineDrawing],
+  ['POLYLINE', polylineDrawing],
+  ['ARC', arcDrawing],
+  ['CIRCLE', circleDrawing],
+  ['ELLIPSE', ellipseDrawing],
+  ['SPLINE', splineDrawing],
+  ['SOLID', solidDrawing],
+  ['3DFACE', faceDrawing],
+  ['TEXT', textDrawing],
+  ['MTEXT', mtextDrawing],
+]);
+
+/**
+ * Draws one non-INSERT entity into the builder through the handler of its type: lines and
+ * polylines (bulges as arcs), arcs, circles, ellipses, splines, solids and faces as paths; TEXT
+ * and MTEXT as labels. OCS entities are carried to world coordinates by their extrusion
+ * direction first. Every entity not drawn is counted here, by type and reason ("not supported"
+ * for a type without a handler).
+ */
+export function drawEntity(e: Loose, ctx: DrawContext, b: PlanBuilder): void {
+  const type = String(e.type);
+  const handler = ENTITY_HANDLERS.get(type);
+  if (!handler) {
+    b.skip(type, 'not supported');
+    return;
+  }
+  const ref = entityRef(e, ctx.block);
+  const d = handler(e, ctx, ref);
+  if (d.kind === 'skip') {
+    b.skip(type, d.reason);
+  } else if (d.kind === 'label') {
+    b.label(ref, ctx.layer, d.text, d.at, d.dir, d.up, d.m);
+  } else {
+    if (d.note) b.skip(type, d.note);
+    b.path(ref, ctx.layer, d.closed, d.pts, d.m);
+  }
 }

@@ -190,28 +190,6 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
   };
 }
 
-/** Bounding box of every coordinate of the features, mm. */
-export function boundsOf(features: readonly PlanFeature[]): ImportResult['bounds'] {
-  let minX = Number.POSITIVE_INFINITY;
-  let minY = Number.POSITIVE_INFINITY;
-  let maxX = Number.NEGATIVE_INFINITY;
-  let maxY = Number.NEGATIVE_INFINITY;
-  const visit = (p: number[]) => {
-    if (p[0] < minX) minX = p[0];
-    if (p[0] > maxX) maxX = p[0];
-    if (p[1] < minY) minY = p[1];
-    if (p[1] > maxY) maxY = p[1];
-  };
-  for (const f of features) {
-    const g = f.geometry;
-    if (g.type === 'Point') visit(g.coordinates);
-    else if (g.type === 'LineString') g.coordinates.forEach(visit);
-    else if (g.type === 'Polygon') g.coordinates.forEach((r) => r.forEach(visit));
-  }
-  if (!Number.isFinite(minX)) return { minX: 0, minY: 0, maxX: 0, maxY: 0 };
-  return { minX, minY, maxX, maxY };
-}
-
 /** Warnings about the floor boundary: missing, not closed, crossing itself. */
 function outlineWarnings(layers: readonly ImportLayer[], features: readonly PlanFeature[], joinTol: number, warnings: string[]): void {
   const boundary = layers.filter((l) => l.role === 'boundary');

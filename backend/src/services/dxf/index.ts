@@ -1,11 +1,9 @@
 /**
  * The DXF floor-plan import engine. Call `parseInWorker` from request handlers (large files
- * never block the event loop), `importDxf` where blocking is fine (seeding, scripts, tests),
- * and `rescaleImport` to read an import in another unit without the file.
+ * never block the event loop) and `importDxf` where blocking is fine (seeding, scripts, tests).
  */
-export { importDxf, boundsOf, type ImportOptions } from './importDxf';
+export { importDxf, type ImportOptions } from './importDxf';
 export { parseInWorker, type WorkerOptions } from './parseInWorker';
-export { rescaleImport } from './rescale';
 export { DxfImportError, isDxfImportError, DXF_IMPORT_ERROR_CODES, type DxfImportErrorCode } from './errors';
 export { UNIT_NAMES, unitToMm, unitFromInsunits, unitLabel, resolveUnits, type UnitName } from './units';
 export { guessLayerRole, defaultLayerHeight } from './layerRoles';

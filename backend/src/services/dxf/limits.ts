@@ -12,9 +12,6 @@ export const MAX_CHORD_TOLERANCE_MM = 1000;
 /** Ends of lines and arcs closer than this are taken as one point when chains are joined, mm. */
 export const DEFAULT_JOIN_TOLERANCE_MM = 1;
 
-/** Coordinates are kept to this grid, mm (a nanometre: far below drawing accuracy). */
-export const COORDINATE_GRID_MM = 1e-6;
-
 /**
  * No point of a floor plan lies farther than this from the drawing origin, mm (1000 km). A
  * larger coordinate is a broken file, not a building.
@@ -33,7 +30,7 @@ export const MAX_ENTITY_INSTANCES = 2_000_000;
 /** Most plan points one import holds. */
 export const MAX_OUTPUT_POINTS = 5_000_000;
 
-/** Rounds a plan coordinate to COORDINATE_GRID_MM (and turns −0 into 0). */
+/** Rounds a plan coordinate to a grid of 1e-6 mm, a nanometre far below drawing accuracy (and turns −0 into 0). */
 export function roundMm(v: number): number {
   return Math.round(v * 1e6) / 1e6 || 0;
 }

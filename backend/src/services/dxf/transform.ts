@@ -4,11 +4,6 @@
  */
 export type Affine = Float64Array;
 
-/** The identity map. */
-export function identity(): Affine {
-  return Float64Array.of(1, 0, 0, 0, 0, 1, 0, 0, 0, 0, 1, 0);
-}
-
 /** Uniform scale by `s` (drawing units → mm). */
 export function scaling(s: number): Affine {
   return Float64Array.of(s, 0, 0, 0, 0, s, 0, 0, 0, 0, s, 0);
@@ -106,16 +101,6 @@ export function insertTransform(
   );
 }
 
-/** Plan x of M·(x, y, z). */
-export function planX(m: Affine, x: number, y: number, z: number): number {
-  return m[0] * x + m[1] * y + m[2] * z + m[3];
-}
-
-/** Plan y of M·(x, y, z). */
-export function planY(m: Affine, x: number, y: number, z: number): number {
-  return m[4] * x + m[5] * y + m[6] * z + m[7];
-}
-
 /**
  * Largest stretch of any direction by the plan projection of M (largest singular value of its
  * top 2×3 block): a deviation of d local units becomes at most d·planScale(M) in plan.
@@ -126,9 +111,4 @@ export function planScale(m: Affine): number {
   const c = m[4] * m[4] + m[5] * m[5] + m[6] * m[6];
   const lmax = (a + c + Math.sqrt((a - c) * (a - c) + 4 * b * b)) / 2;
   return Math.sqrt(Math.max(lmax, 0));
-}
-
-/** Sign of the plan orientation of M: negative when M mirrors the plan. */
-export function planDeterminant(m: Affine): number {
-  return m[0] * m[5] - m[1] * m[4];
 }

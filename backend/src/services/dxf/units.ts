@@ -60,8 +60,3 @@ export function resolveUnits(
     warning: `${why}; it was read as millimetres.${hint}`,
   };
 }
-
-/** True for the warning resolveUnits gives when it had to assume millimetres. */
-export function isUnitsWarning(sentence: string): boolean {
-  return sentence.includes('; it was read as millimetres.');
-}

@@ -3,7 +3,7 @@
  * input of a layout's working copy; `layoutDxf(input)` → DXF text for CAD. Types in ./types.ts.
  */
 export * from './types';
-export { renderPlanSheet, sheetScale } from './renderPlanSheet';
+export { renderPlanSheet } from './renderPlanSheet';
 export { loadLayoutSheetInput } from './loadLayoutSheetInput';
 export { CAUTIONS, DRAFT_MARK } from './sheetPages';
 export { layoutDxf, DXF_LAYERS, DXF_BASE_RADIUS_MM, DXF_POINT_RADIUS_MM } from './layoutDxf';

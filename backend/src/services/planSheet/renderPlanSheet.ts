@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { jsPDF } from 'jspdf';
 import { summarizeArms } from './armSummary';
 import { embedLato } from './fonts';
-import { autoScale, drawingArea, pageFrame } from './paper';
+import { autoScale, drawingArea } from './paper';
 import { drawPlan, planExtent } from './planDrawing';
 import { SheetPages } from './sheetPages';
 import { drawCoverage, drawFindings, drawHistory, drawSchedule, drawZonesSheet } from './tableSheets';
@@ -18,13 +18,6 @@ function checkOptions(opts: PlanSheetOptions): SheetKind[] {
   if (!sheets.length) throw new RangeError('sheets: choose at least one sheet');
   // Print order is fixed whatever order the caller gives.
   return SHEET_KINDS.filter((k) => sheets.includes(k));
-}
-
-/** The scale a sheet set uses at 1:N: the chosen one, or the largest of the series that fits the plan's extent. */
-export function sheetScale(input: PlanSheetInput, opts: Pick<PlanSheetOptions, 'size' | 'scale'>): number {
-  if (opts.scale !== undefined) return opts.scale;
-  const arms = summarizeArms({ models: input.models, analysis: input.analysis, content: input.layout.content });
-  return autoScale(planExtent(input, arms), drawingArea(pageFrame(opts.size)));
 }
 
 /**

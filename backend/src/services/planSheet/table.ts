@@ -119,9 +119,3 @@ export function drawTable(doc: jsPDF, first: Box, cols: Column[], rows: Row[], n
   });
   return y;
 }
-
-/** Rows of a table that fit into one box height (header included), for the same layout as drawTable. */
-export function rowsPerBox(boxH: number, oneLineRows = true): number {
-  if (!oneLineRows) throw new Error('rowsPerBox: only one-line rows have a fixed count');
-  return Math.max(1, Math.floor((boxH - HEAD_MM) / (LINE_MM + 2 * PAD_MM)));
-}
