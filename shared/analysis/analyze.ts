@@ -192,8 +192,8 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     const area = polygonsArea(polys);
     if (area < MIN_AREA_MM2) return { zone: null, findings: [] };
     const byHeight = heights.map((h) => {
-      let a = 0;
       if (!bboxOverlap(first.bandBoxes.get(h) ?? null, second.bandBoxes.get(h) ?? null)) return { height: h, areaM2: 0 };
+      let a: number;
       try {
         a = polygonsArea(intersect(first.bands.get(h)!, second.bands.get(h)!));
       } catch {

@@ -25,7 +25,7 @@ function runLatest(): void {
 }
 
 scope.onmessage = (event: MessageEvent<ToWorker>) => {
-  let again = false;
+  let again: boolean;
   try {
     again = session.receive(event.data);
   } catch (err) {

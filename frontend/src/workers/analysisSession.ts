@@ -73,7 +73,7 @@ export function createAnalysisSession(build: ReachBuilder): AnalysisSession {
   function maxSpaceOf(a: ArmPlacement): AreaGeometry | null {
     const key = `${a.id}|${a.armModelId}|${a.x}|${a.y}|${a.yaw}`;
     if (maxSpaces.has(key)) return maxSpaces.get(key)!;
-    let g: AreaGeometry | null = null;
+    let g: AreaGeometry | null;
     try {
       const polys = reachOf(a.armModelId, undefined).restricted;
       g = polys.length ? polygonsToGeoJSON(placePolygons(polys, a.x, a.y, a.yaw)) : null;
