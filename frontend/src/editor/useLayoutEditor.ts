@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { LayoutContent, LayoutDto } from '@shared/schemas/layout';
 import { isApiError, errorMessage } from '../api/client';
@@ -28,12 +28,18 @@ export function useLayoutEditor(layout: LayoutDto) {
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const inFlight = useRef(false);
   const latest = useRef(history.present);
-  latest.current = history.present;
+  useLayoutEffect(() => {
+    latest.current = history.present;
+  }, [history.present]);
 
   const flush = useCallback(async () => {
     if (inFlight.current) return;
     const content = latest.current;
-    if (content === savedContent.current) return;
+    if (content === savedContent.current) {
+      // Undone back to what is stored: nothing to send.
+      setSave((s) => (s.kind === 'pending' ? { kind: 'saved', at: null } : s));
+      return;
+    }
     inFlight.current = true;
     setSave({ kind: 'saving' });
     try {
@@ -53,25 +59,28 @@ export function useLayoutEditor(layout: LayoutDto) {
     }
   }, [layout.id, queryClient]);
 
+  // Every change of the content (edit, undo, redo) marks the layout pending and restarts the autosave timer.
+  const conflicted = save.kind === 'conflict';
+  const changed = useCallback((next: (h: History<LayoutContent>) => History<LayoutContent>) => {
+    setHistory(next);
+    setSave((s) => (s.kind === 'saving' || s.kind === 'conflict' ? s : { kind: 'pending' }));
+  }, []);
   useEffect(() => {
-    if (history.present === savedContent.current) return;
-    if (save.kind === 'conflict') return;
-    setSave((s) => (s.kind === 'saving' ? s : { kind: 'pending' }));
+    if (conflicted || history.present === savedContent.current) return;
     if (timer.current) clearTimeout(timer.current);
     timer.current = setTimeout(() => void flush(), AUTOSAVE_MS);
     return () => {
       if (timer.current) clearTimeout(timer.current);
     };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [history.present, flush]);
+  }, [history.present, flush, conflicted]);
 
   // Save what is pending before the page goes away.
   useEffect(() => () => void flush(), [flush]);
 
   /** Records an edit; edits with the same mergeKey in a row (one drag) are one undo step. */
   const edit = useCallback((next: LayoutContent, label: string, mergeKey: string | null = null) => {
-    setHistory((h) => commit(h, next, label, mergeKey));
-  }, []);
+    changed((h) => commit(h, next, label, mergeKey));
+  }, [changed]);
 
   /** After a conflict: take the server's current layout and drop local edits. */
   const reloadFromServer = useCallback(async () => {
@@ -86,13 +95,16 @@ export function useLayoutEditor(layout: LayoutDto) {
     content: history.present,
     history,
     edit,
-    undo: () => setHistory(undo),
-    redo: () => setHistory(redo),
+    undo: () => {
+      if (canUndo(history)) changed(undo);
+    },
+    redo: () => {
+      if (canRedo(history)) changed(redo);
+    },
     canUndo: canUndo(history),
     canRedo: canRedo(history),
     save,
     saveNow: flush,
     reloadFromServer,
-    version: version.current,
   };
 }

@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import type { Finding } from '@shared/analysis/types';
 import { padBounds, pointsBounds } from '@shared/geometry/bounds';
@@ -67,7 +67,9 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
   const [canvas, setCanvas] = useState<PlanCanvas | null>(null);
   const scene = useRef<LayoutScene | null>(null);
   const contentRef = useRef(content);
-  contentRef.current = content;
+  useLayoutEffect(() => {
+    contentRef.current = content;
+  }, [content]);
   const navigate = useNavigate();
   const createLayout = useCreateLayout(layout.projectId);
 
