@@ -7,6 +7,7 @@ import type { Sequelize } from 'sequelize';
 import { inject } from 'vitest';
 import { createApp } from '../../backend/src/app';
 import { loadConfig, type Config } from '../../backend/src/config';
+import { watchPgPool } from '../../backend/src/db/availability';
 import { createSequelize } from '../../backend/src/db/sequelize';
 import type { Mailer } from '../../backend/src/services/mail/mailer';
 import { TEMPLATE_DB } from './pgForTests';
@@ -69,7 +70,7 @@ export async function createTestApp(configOverrides: Record<string, string> = {}
   const db = await createTestDb();
   const config = testConfig(configOverrides);
   const sequelize = createSequelize(db.url, { pool: 5 });
-  const pool = new pg.Pool({ connectionString: db.url, max: 3 });
+  const pool = watchPgPool(new pg.Pool({ connectionString: db.url, max: 3 }), () => {});
   const make = (c: Config) => createApp({ config: c, sequelize, pool, sessionSecret: 'test-secret-test-secret', clientDir: options.clientDir ?? '/nonexistent', log: options.log ?? (() => {}), mailer: options.mailer, now: options.now });
   return {
     app: make(config),

@@ -4,6 +4,7 @@ import { can } from '@shared/policy';
 import { allow, currentUser } from '../auth/guards';
 import type { FeatureContext } from '../features';
 import { conflict, notFound } from '../http/errors';
+import { publicBaseUrl } from '../http/hosts';
 import { idParam, parseOr400 } from '../http/validate';
 import { Revision } from '../models';
 import { acknowledgeRevision, planSheetFor, releaseRevision, retryReleaseMail } from '../services/release';
@@ -17,9 +18,9 @@ const DecisionInput = z.object({
   comment: z.string().max(10_000, 'Use at most 10 000 characters').default(''),
 });
 
-/** The mail context of a request: the configured public URL, or the request's own origin. */
+/** The mail context of a request: links from PUBLIC_URL or the listen address, never the request's Host. */
 export function mailContextFor(ctx: FeatureContext, req: Request): MailContext {
-  const base = ctx.config.publicUrl ?? `${req.protocol}://${req.get('host') ?? '127.0.0.1'}`;
+  const base = publicBaseUrl(ctx.config, req);
   return { mailer: ctx.mailer, baseUrl: base.replace(/\/+$/, '') };
 }
 
