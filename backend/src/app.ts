@@ -15,6 +15,7 @@ import { featureRouters } from './features';
 import type { Mailer } from './services/mail/mailer';
 import { apiNotFound, errorMiddleware, plainErrorMiddleware } from './http/errors';
 import { allowedHostCheck } from './http/hosts';
+import { archiveRouter } from './routes/archive';
 import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
 import { projectsRouter } from './routes/projects';
@@ -102,6 +103,7 @@ export function createApp(deps: AppDeps): Express {
   });
 
   api.use(authRouter(pp, sequelize, { limit: config.loginRateLimit, ipLimit: config.loginIpRateLimit, windowMs: config.loginRateWindowMs, now }));
+  api.use(archiveRouter(sequelize));
   api.use(projectsRouter(sequelize));
   api.use(usersRouter(sequelize, { bcryptCost: config.bcryptCost }));
   for (const router of featureRouters({ config, sequelize, mailer: deps.mailer, now: deps.now })) api.use(router);
