@@ -124,3 +124,29 @@ describe('archive and restore', () => {
     expect((await p.put(`/api/layouts/${layout.id}`).send({ version: 1, name: 'Renamed' })).status).toBe(200);
   });
 });
+
+describe('migrations', () => {
+  it('undo the archiving and rate-limit migrations and apply them again', async () => {
+    const { createMigrator } = await import('../../backend/src/db/migrate');
+    const { QueryTypes } = await import('sequelize');
+    const fkRule = async () =>
+      (
+        await t.sequelize.query<{ r: string }>(
+          `SELECT confdeltype AS r FROM pg_constraint WHERE conrelid = 'revisions'::regclass AND contype = 'f' AND conname = 'revisions_layoutId_fkey'`,
+          { type: QueryTypes.SELECT },
+        )
+      )[0]?.r;
+    const columns = async () =>
+      (await t.sequelize.query<{ c: string }>(`SELECT column_name AS c FROM information_schema.columns WHERE table_name = 'layouts'`, { type: QueryTypes.SELECT })).map((r) => r.c);
+    expect(await fkRule()).toBe('r'); // PostgreSQL's pg_constraint: 'r' = RESTRICT, 'c' = CASCADE
+    const migrator = createMigrator(t.sequelize);
+    await migrator.down({ to: '20261202090000-create-rate-limit-hits' });
+    expect(await fkRule()).toBe('c');
+    expect(await columns()).not.toContain('archivedAt');
+    const [tables] = await t.sequelize.query(`SELECT to_regclass('rate_limit_hits') AS t`);
+    expect((tables as Array<{ t: string | null }>)[0].t).toBeNull();
+    await migrator.up();
+    expect(await fkRule()).toBe('r');
+    expect(await columns()).toContain('archivedAt');
+  });
+});
