@@ -23,7 +23,7 @@ beforeAll(async () => {
   chmodSync(dir, 0o755);
   local = await startLocalPg({ dataDir: path.join(dir, 'data'), fast: true });
   await ensureDatabase(local.adminUrl, DB);
-  child = spawn(process.execPath, ['--import', 'tsx', 'tests/support/outageServer.ts'], {
+  child = spawn(process.execPath, ['--import', 'tsx', 'tests/support/serverProcess.ts'], {
     env: { ...process.env, DATABASE_URL: local.urlFor(DB) },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
