@@ -5,13 +5,10 @@ import type { Sequelize } from 'sequelize';
 export function healthRouter(sequelize: Sequelize): Router {
   const r = Router();
   r.get('/health', async (_req, res) => {
-    let up = false;
-    try {
-      await sequelize.query('SELECT 1');
-      up = true;
-    } catch {
-      up = false;
-    }
+    const up = await sequelize.query('SELECT 1').then(
+      () => true,
+      () => false,
+    );
     res.status(up ? 200 : 503).json({ ok: up, db: up ? 'up' : 'down' });
   });
   return r;
