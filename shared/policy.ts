@@ -9,6 +9,9 @@ export const POLICY = {
   'project.readAll': ['admin', 'planner', 'reviewer'],
   'project.write': ['admin', 'planner'],
   'project.members': ['admin', 'planner'],
+  /** Archive: hidden from lists and read-only; restoring is for admins. */
+  'project.archive': ['admin', 'planner'],
+  'project.restore': ['admin'],
   'user.list': ['admin', 'planner'],
   'user.manage': ['admin'],
   'audit.read': ['admin'],
@@ -18,6 +21,8 @@ export const POLICY = {
   'floorPlan.write': ['admin', 'planner'],
   'layout.read': ['admin', 'planner', 'reviewer'],
   'layout.write': ['admin', 'planner'],
+  'layout.archive': ['admin', 'planner'],
+  'layout.restore': ['admin'],
   'kinematics.use': ['admin', 'planner', 'reviewer', 'client'],
   'safeguarding.use': ['admin', 'planner', 'reviewer', 'client'],
   /** Clients read only released revisions of their member projects (checked where loaded). */

@@ -79,8 +79,8 @@ export function resolveDataDir(requested: string, say: (m: string) => void): str
   return fallback;
 }
 
-/** Starts (initialising on first use) a PostgreSQL server for dataDir on 127.0.0.1. */
-export async function startLocalPg(opts: { dataDir: string; fast?: boolean; say?: (m: string) => void }): Promise<LocalPg> {
+/** Starts (initialising on first use) a PostgreSQL server for dataDir on 127.0.0.1 (on `port`, or a free one). */
+export async function startLocalPg(opts: { dataDir: string; fast?: boolean; port?: number; say?: (m: string) => void }): Promise<LocalPg> {
   const say = opts.say ?? (() => {});
   const bin = findPgBin();
   const dataDir = opts.dataDir;
@@ -103,7 +103,7 @@ export async function startLocalPg(opts: { dataDir: string; fast?: boolean; say?
     port = Number(pid[3]);
     say(`PostgreSQL already runs on port ${port} for this data directory; reusing it.`);
   } else {
-    port = await freePort();
+    port = opts.port ?? (await freePort());
     const settings = [`-p ${port}`, '-c listen_addresses=127.0.0.1', "-c unix_socket_directories=''"];
     if (opts.fast) settings.push('-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off');
     runPg(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-l', logFile, '-w', '-t', '60', '-o', settings.join(' '), 'start']);

@@ -9,10 +9,13 @@ import type pg from 'pg';
 import type { Sequelize } from 'sequelize';
 import { createPassport } from './auth/passport';
 import { sameOriginGuard } from './auth/origin';
+import { sessionLifetime } from './auth/sessionLifetime';
 import type { Config } from './config';
 import { featureRouters } from './features';
 import type { Mailer } from './services/mail/mailer';
-import { apiNotFound, errorMiddleware } from './http/errors';
+import { apiNotFound, errorMiddleware, plainErrorMiddleware } from './http/errors';
+import { allowedHostCheck } from './http/hosts';
+import { archiveRouter } from './routes/archive';
 import { authRouter } from './routes/auth';
 import { healthRouter } from './routes/health';
 import { projectsRouter } from './routes/projects';
@@ -21,7 +24,7 @@ import { usersRouter } from './routes/users';
 export interface AppDeps {
   config: Config;
   sequelize: Sequelize;
-  /** pg pool for the session store. */
+  /** pg pool for the session store (give it an 'error' listener: db/availability watchPgPool). */
   pool: pg.Pool;
   /** Folder of the built client (index.html + assets); not served when missing. */
   clientDir?: string;
@@ -29,7 +32,7 @@ export interface AppDeps {
   log?: (msg: string, err?: unknown) => void;
   /** Outgoing mail for review, release and invitation messages. */
   mailer?: Mailer;
-  /** Clock for expiring things (invitations); defaults to the system clock. */
+  /** Clock for expiring things (invitations, session lifetime); defaults to the system clock. */
   now?: () => Date;
 }
 
@@ -39,9 +42,11 @@ export const DEFAULT_CLIENT_DIR = path.resolve(path.dirname(fileURLToPath(import
 export function createApp(deps: AppDeps): Express {
   const { config, sequelize } = deps;
   const log = deps.log ?? ((msg, err) => console.error(`[ringfence] ${msg}`, err ?? ''));
+  const now = deps.now ?? (() => new Date());
   const app = express();
   app.disable('x-powered-by');
   if (config.trustProxy) app.set('trust proxy', config.trustProxy);
+  app.use(allowedHostCheck(config));
 
   app.use(
     helmet({
@@ -64,20 +69,31 @@ export function createApp(deps: AppDeps): Express {
   );
 
   const PgStore = connectPgSimple(session);
-  const pp = createPassport();
+  const pp = createPassport({ bcryptCost: config.bcryptCost });
   const api = express.Router();
   api.use(express.json({ limit: '20mb' }));
+  // Before the session: a monitor asks without a cookie, and the answer must not need the store.
+  api.use(healthRouter(sequelize));
   api.use(
     session({
       name: 'rf.sid',
-      store: new PgStore({ pool: deps.pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+      store: new PgStore({
+        pool: deps.pool,
+        tableName: 'session',
+        createTableIfMissing: false,
+        pruneSessionInterval: 15 * 60,
+        // No write per request: sessionLifetime pushes the idle expiry forward now and then.
+        disableTouch: true,
+        errorLog: (...args: unknown[]) => log('Session store', args.map(String).join(' ')),
+      }),
       secret: deps.sessionSecret,
       resave: false,
       saveUninitialized: false,
-      rolling: true,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, maxAge: 12 * 60 * 60 * 1000 },
+      rolling: false,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, maxAge: config.sessionIdleMs },
     }),
   );
+  api.use(sessionLifetime({ lifetimeMs: config.sessionLifetimeMs, idleMs: config.sessionIdleMs, now }));
   api.use(pp.initialize());
   api.use(pp.session());
   api.use(sameOriginGuard(config.allowedOrigins));
@@ -86,8 +102,8 @@ export function createApp(deps: AppDeps): Express {
     next();
   });
 
-  api.use(healthRouter(sequelize));
-  api.use(authRouter(pp, { limit: config.loginRateLimit, windowMs: config.loginRateWindowMs }));
+  api.use(authRouter(pp, sequelize, { limit: config.loginRateLimit, ipLimit: config.loginIpRateLimit, windowMs: config.loginRateWindowMs, now }));
+  api.use(archiveRouter(sequelize));
   api.use(projectsRouter(sequelize));
   api.use(usersRouter(sequelize, { bcryptCost: config.bcryptCost }));
   for (const router of featureRouters({ config, sequelize, mailer: deps.mailer, now: deps.now })) api.use(router);
@@ -108,6 +124,6 @@ export function createApp(deps: AppDeps): Express {
       res.type('text/plain').send('Ringfence API is running. The web client is not built: run `npm run build`.');
     });
   }
-  app.use(errorMiddleware(log));
+  app.use(plainErrorMiddleware(log));
   return app;
 }

@@ -13,13 +13,28 @@ const ConfigSchema = z.object({
   /** Set when the site is served over HTTPS (behind a TLS-terminating proxy): Secure cookies. */
   SECURE_COOKIES: z.enum(['0', '1', 'true', 'false']).default('0').transform((v) => v === '1' || v === 'true'),
   TRUST_PROXY: z.coerce.number().int().min(0).default(0),
-  /** Extra allowed origins for state-changing requests (comma-separated), besides the request's own host. */
+  /** Extra allowed origins for state-changing requests (comma-separated), besides the site's own. */
   ALLOWED_ORIGINS: z.string().default(''),
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(10),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(20),
   LOGIN_RATE_WINDOW_MS: z.coerce.number().int().min(1000).default(10 * 60 * 1000),
+  /** Sign-in attempts from one address across every account per window (password spraying). */
+  LOGIN_IP_RATE_LIMIT: z.coerce.number().int().min(1).default(100),
+  /** Requests to the public invitation-link routes from one address per window. */
+  INVITE_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
+  /** Idle lifetime of a session: it ends this long after the last request (rolling). */
+  SESSION_IDLE_HOURS: z.coerce.number().positive().default(12),
+  /** Absolute lifetime of a session: it ends this long after sign-in, however busy. */
+  SESSION_LIFETIME_HOURS: z.coerce.number().positive().default(7 * 24),
+  /** Host names (with :port when not the default) the server answers to, comma-separated. */
+  ALLOWED_HOSTS: z.string().default(''),
   UPLOAD_LIMIT_MB: z.coerce.number().positive().default(50),
-  PUBLIC_URL: z.string().optional(),
+  /** The address people open (https://cells.example.com); mail links are built from it. */
+  PUBLIC_URL: z
+    .string()
+    .url('PUBLIC_URL must be a full URL such as https://cells.example.com')
+    .refine((u) => /^https?:\/\//.test(u), 'PUBLIC_URL must start with http:// or https://')
+    .optional(),
 });
 
 export type Config = {
@@ -37,6 +52,12 @@ export type Config = {
   bcryptCost: number;
   loginRateLimit: number;
   loginRateWindowMs: number;
+  loginIpRateLimit: number;
+  inviteRateLimit: number;
+  sessionIdleMs: number;
+  sessionLifetimeMs: number;
+  /** Host header values accepted (lower case, host[:port]); empty = the defaults of allowedHostCheck. */
+  allowedHosts: string[];
   uploadLimitBytes: number;
   publicUrl?: string;
 };
@@ -64,7 +85,12 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     bcryptCost: c.BCRYPT_COST,
     loginRateLimit: c.LOGIN_RATE_LIMIT,
     loginRateWindowMs: c.LOGIN_RATE_WINDOW_MS,
+    loginIpRateLimit: c.LOGIN_IP_RATE_LIMIT,
+    inviteRateLimit: c.INVITE_RATE_LIMIT,
+    sessionIdleMs: Math.round(c.SESSION_IDLE_HOURS * 3600_000),
+    sessionLifetimeMs: Math.round(c.SESSION_LIFETIME_HOURS * 3600_000),
+    allowedHosts: c.ALLOWED_HOSTS.split(',').map((s) => s.trim().toLowerCase()).filter(Boolean),
     uploadLimitBytes: Math.round(c.UPLOAD_LIMIT_MB * 1024 * 1024),
-    publicUrl: c.PUBLIC_URL,
+    publicUrl: c.PUBLIC_URL?.replace(/\/+$/, ''),
   };
 }

@@ -2,6 +2,7 @@ import http from 'node:http';
 import pg from 'pg';
 import type { Sequelize } from 'sequelize';
 import { createApp, type AppDeps } from './app';
+import { watchPgPool, watchSequelizePool } from './db/availability';
 import type { Config } from './config';
 import { ensureBuiltInCatalogue } from './db/demoCatalogue';
 import { migrateUp } from './db/migrate';
@@ -29,7 +30,9 @@ export async function startServer(
   opts: { clientDir?: string; seed?: boolean; say?: (m: string) => void; quiet?: boolean } = {},
 ): Promise<RunningServer> {
   const say = opts.say ?? (() => {});
+  const warn = opts.quiet ? () => {} : (msg: string, detail?: unknown) => console.error(`[ringfence] ${msg}`, detail ?? '');
   const sequelize = createSequelize(databaseUrl);
+  watchSequelizePool(sequelize, warn);
   const applied = await migrateUp(sequelize);
   if (applied.length) say(`Applied ${applied.length} migration(s).`);
   await ensureBuiltInCatalogue(sequelize);
@@ -40,7 +43,7 @@ export async function startServer(
   const fakeSmtp = config.smtpUrl ? null : await startFakeSmtp({ log: say });
   if (fakeSmtp) say(`Local mail fake listening on ${fakeSmtp.url} (messages appear in the admin mail outbox).`);
   const mailer = createMailer(config.smtpUrl ?? fakeSmtp!.url, config.mailFrom);
-  const pool = new pg.Pool({ connectionString: databaseUrl, max: 5 });
+  const pool = watchPgPool(new pg.Pool({ connectionString: databaseUrl, max: 10, connectionTimeoutMillis: 5_000 }), warn);
   const sessionSecret = await ensureSessionSecret(sequelize, config.sessionSecret);
   const deps: AppDeps = {
     config,

@@ -136,4 +136,6 @@ export interface LayoutDto {
   version: number;
   createdAt: string;
   updatedAt: string;
+  /** When the layout was archived (hidden from lists, read-only); null while active. */
+  archivedAt: string | null;
 }

@@ -40,6 +40,8 @@ export interface ProjectDto {
   updatedAt: string;
   createdBy: { id: number; name: string } | null;
   memberCount: number;
+  /** When the project was archived (hidden from lists, read-only); null while active. */
+  archivedAt: string | null;
 }
 
 export interface ProjectDetailDto extends ProjectDto {

@@ -6,10 +6,14 @@ export const Role = z.enum(ROLES);
 export type Role = z.infer<typeof Role>;
 
 export const Email = z.string().trim().toLowerCase().email('Enter a valid e-mail address').max(254);
+/** bcrypt reads the first 72 bytes of a password and ignores the rest without a word. */
+export const PASSWORD_MAX_BYTES = 72;
 export const Password = z
   .string()
   .min(10, 'Use at least 10 characters')
-  .max(200, 'Use at most 200 characters');
+  .refine((p) => new TextEncoder().encode(p).length <= PASSWORD_MAX_BYTES, {
+    message: `Use at most ${PASSWORD_MAX_BYTES} bytes (UTF-8: a letter with an accent takes 2, many symbols 3 or 4)`,
+  });
 
 export const LoginInput = z.object({
   email: Email,

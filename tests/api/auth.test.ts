@@ -94,7 +94,7 @@ describe('sign-in', () => {
   });
 
   it('answers health with the database state and unknown API routes with a JSON 404', async () => {
-    expect((await request(t.app).get('/api/health')).body).toEqual({ ok: true, db: true });
+    expect((await request(t.app).get('/api/health')).body).toEqual({ ok: true, db: 'up' });
     const res = await request(t.app).get('/api/no-such-thing');
     expect(res.status).toBe(404);
     expect(res.body.error.code).toBe('no_route');

@@ -13,6 +13,10 @@ const WHO: Who[] = ['anon', 'client', 'reviewer', 'planner', 'admin'];
 interface Ctx {
   floorPlanId: number;
   layoutId: number;
+  /** A layout without revisions (deletable) and a project and layout to archive. */
+  plainLayoutId: number;
+  archiveProjectId: number;
+  archiveLayoutId: number;
   projectId: number;
   otherProjectId: number;
   memberUserId: number;
@@ -137,7 +141,16 @@ const ROWS: Row[] = [
   { method: 'get', path: () => '/api/invitations/token/not-a-real-token-at-all-000', expect: { anon: 404, client: 404, reviewer: 404, planner: 404, admin: 404 } },
   { method: 'get', path: (c) => `/api/layouts/${c.layoutId}/plan-sheet.pdf?sheets=plan`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
   { method: 'get', path: (c) => `/api/layouts/${c.layoutId}/layout.dxf`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
-  { method: 'delete', path: (c) => `/api/layouts/${c.layoutId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
+  // A layout with released revisions is a record: 409 (archive it instead); one without goes.
+  { method: 'delete', path: (c) => `/api/layouts/${c.layoutId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 409, admin: 409 } },
+  { method: 'delete', path: (c) => `/api/layouts/${c.plainLayoutId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
+  { method: 'delete', path: (c) => `/api/projects/${c.projectId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 409, admin: 409 } },
+  { method: 'post', path: (c) => `/api/projects/${c.archiveProjectId}/archive`, expect: { anon: 401, client: 403, reviewer: 403, planner: 200, admin: 200 } },
+  { method: 'get', path: () => '/api/projects?archived=1', expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'post', path: (c) => `/api/projects/${c.archiveProjectId}/restore`, expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 200 } },
+  { method: 'post', path: (c) => `/api/layouts/${c.archiveLayoutId}/archive`, expect: { anon: 401, client: 403, reviewer: 403, planner: 200, admin: 200 } },
+  { method: 'get', path: (c) => `/api/projects/${c.projectId}/layouts?archived=1`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'post', path: (c) => `/api/layouts/${c.archiveLayoutId}/restore`, expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 200 } },
   { method: 'delete', path: (c) => `/api/floor-plans/${c.floorPlanId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'delete', path: (c) => `/api/projects/${c.otherProjectId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 204, admin: 204 } },
   { method: 'get', path: () => '/api/arm-models', expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
@@ -222,6 +235,9 @@ describe('role × route table', () => {
       invitationId: invitation.id,
       floorPlanId: fp.id,
       layoutId: layout.id,
+      plainLayoutId: (await Layout.create({ projectId, floorPlanId: null, name: 'Plain', content: { arms: [], workPoints: [], zones: [], workHeights: [] }, createdBy: null })).id,
+      archiveProjectId: (await buildProject()).id,
+      archiveLayoutId: (await Layout.create({ projectId, floorPlanId: null, name: 'To archive', content: { arms: [], workPoints: [], zones: [], workHeights: [] }, createdBy: null })).id,
       projectId,
       otherProjectId: (await buildProject()).id,
       memberUserId: (await buildUser({ role: 'client' })).id,

@@ -7,6 +7,7 @@ import type { Sequelize } from 'sequelize';
 import { inject } from 'vitest';
 import { createApp } from '../../backend/src/app';
 import { loadConfig, type Config } from '../../backend/src/config';
+import { watchPgPool } from '../../backend/src/db/availability';
 import { createSequelize } from '../../backend/src/db/sequelize';
 import type { Mailer } from '../../backend/src/services/mail/mailer';
 import { TEMPLATE_DB } from './pgForTests';
@@ -40,7 +41,7 @@ export async function createTestDb(): Promise<TestDb> {
 }
 
 export function testConfig(overrides: Record<string, string> = {}): Config {
-  return loadConfig({ NODE_ENV: 'test', BCRYPT_COST: '4', LOGIN_RATE_LIMIT: '1000', PORT: '0', ...overrides });
+  return loadConfig({ NODE_ENV: 'test', BCRYPT_COST: '4', LOGIN_RATE_LIMIT: '1000', LOGIN_IP_RATE_LIMIT: '100000', INVITE_RATE_LIMIT: '100000', PORT: '0', ...overrides });
 }
 
 export interface TestApp {
@@ -57,16 +58,20 @@ export interface TestApp {
 export interface TestAppOptions {
   /** Outgoing mail (e.g. createMailer against startFakeSmtp()). */
   mailer?: Mailer;
-  /** The app's clock (invitation expiry). */
+  /** The app's clock (invitation expiry, session lifetime). */
   now?: () => Date;
+  /** Folder of a built client to serve (none by default). */
+  clientDir?: string;
+  /** Receives what the app logs (server errors); silent by default. */
+  log?: (msg: string, err?: unknown) => void;
 }
 
 export async function createTestApp(configOverrides: Record<string, string> = {}, options: TestAppOptions = {}): Promise<TestApp> {
   const db = await createTestDb();
   const config = testConfig(configOverrides);
   const sequelize = createSequelize(db.url, { pool: 5 });
-  const pool = new pg.Pool({ connectionString: db.url, max: 3 });
-  const make = (c: Config) => createApp({ config: c, sequelize, pool, sessionSecret: 'test-secret-test-secret', clientDir: '/nonexistent', log: () => {}, mailer: options.mailer, now: options.now });
+  const pool = watchPgPool(new pg.Pool({ connectionString: db.url, max: 3 }), () => {});
+  const make = (c: Config) => createApp({ config: c, sequelize, pool, sessionSecret: 'test-secret-test-secret', clientDir: options.clientDir ?? '/nonexistent', log: options.log ?? (() => {}), mailer: options.mailer, now: options.now });
   return {
     app: make(config),
     sequelize,

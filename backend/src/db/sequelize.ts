@@ -11,7 +11,7 @@ export function createSequelize(databaseUrl: string, opts: { logging?: boolean; 
     dialect: 'postgres',
     dialectModule: pg,
     logging: opts.logging ? (sql) => console.log(sql) : false,
-    pool: { max: opts.pool ?? 10, min: 0, idle: 10_000 },
+    pool: { max: opts.pool ?? 10, min: 0, idle: 10_000, acquire: 10_000 },
     define: { underscored: false },
   });
   initModels(sequelize);

@@ -10,6 +10,9 @@ export class Layout extends Model<InferAttributes<Layout>, InferCreationAttribut
   /** Optimistic lock: a PUT must carry the version it edited. */
   declare version: CreationOptional<number>;
   declare createdBy: number | null;
+  /** Set while archived: hidden from lists, read-only, restorable by an admin. */
+  declare archivedAt: CreationOptional<Date | null>;
+  declare archivedBy: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -23,6 +26,8 @@ export class Layout extends Model<InferAttributes<Layout>, InferCreationAttribut
         content: { type: DataTypes.JSONB, allowNull: false },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         createdBy: { type: DataTypes.INTEGER, allowNull: true },
+        archivedAt: { type: DataTypes.DATE, allowNull: true },
+        archivedBy: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -9,6 +9,9 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
   declare siteName: CreationOptional<string>;
   declare description: CreationOptional<string>;
   declare createdBy: number | null;
+  /** Set while archived: hidden from lists, read-only, restorable by an admin. */
+  declare archivedAt: CreationOptional<Date | null>;
+  declare archivedBy: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare creator?: NonAttribute<User | null>;
@@ -23,6 +26,8 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
         siteName: { type: DataTypes.STRING(160), allowNull: false, defaultValue: '' },
         description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         createdBy: { type: DataTypes.INTEGER, allowNull: true },
+        archivedAt: { type: DataTypes.DATE, allowNull: true },
+        archivedBy: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
@@ -43,5 +48,6 @@ export function presentProject(p: Project, memberCount: number): ProjectDto {
     updatedAt: p.updatedAt.toISOString(),
     createdBy: p.creator ? { id: p.creator.id, name: p.creator.name } : null,
     memberCount,
+    archivedAt: p.archivedAt ? p.archivedAt.toISOString() : null,
   };
 }

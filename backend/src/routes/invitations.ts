@@ -1,9 +1,12 @@
 import { Router } from 'express';
+import { ipKeyGenerator } from 'express-rate-limit';
 import { Op } from 'sequelize';
 import { z } from 'zod';
 import { Email, Password, Role } from '@shared/schemas/user';
 import { allow, currentUser } from '../auth/guards';
+import { markSignedIn } from '../auth/passport';
 import type { FeatureContext } from '../featureContext';
+import { pgRateLimit } from '../http/rateLimit';
 import { idParam, parseOr400 } from '../http/validate';
 import { Invitation, Project, User } from '../models';
 import { mailContextFor } from '../services/mailContext';
@@ -28,6 +31,17 @@ function presentInvitation(i: Invitation, projects: Map<number, string>, now: Da
 export function invitationsRouter(ctx: FeatureContext): Router {
   const r = Router();
   const now = () => (ctx.now ? ctx.now() : new Date());
+  // The public link routes: per address, so nobody can try tokens (or make the server hash) at will.
+  r.use(
+    '/invitations/token',
+    pgRateLimit(ctx.sequelize, {
+      name: 'invite',
+      limit: ctx.config.inviteRateLimit,
+      windowMs: ctx.config.loginRateWindowMs,
+      key: (req) => ipKeyGenerator(req.ip ?? ''),
+      message: 'Too many tries with invitation links. Wait a few minutes and try again.',
+    }),
+  );
 
   r.get('/invitations', allow('invite.manage'), async (req, res) => {
     const all = req.query.all === '1';
@@ -70,6 +84,7 @@ export function invitationsRouter(ctx: FeatureContext): Router {
     const sessionUser = { id: user.id, email: user.email, name: user.name, role: user.role };
     req.logIn(sessionUser, (err) => {
       if (err) return next(err);
+      markSignedIn(req, now());
       res.status(201).json({ user: sessionUser });
     });
   });

@@ -5,6 +5,7 @@ import { allow, currentUser } from '../auth/guards';
 import { badRequest, conflict, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
 import { ArmModel, FloorPlan, Layout } from '../models';
+import { deleteReturnedRevisions, refuseDeletingRecords } from '../services/archive';
 import { audit } from '../services/audit/audit';
 import { analyzeLayout } from '../services/layoutAnalysis';
 import { loadVisibleLayout, presentLayout } from '../services/layouts';
@@ -33,7 +34,8 @@ export function layoutsRouter(sequelize: Sequelize): Router {
 
   r.get('/projects/:id/layouts', allow('layout.read'), async (req, res) => {
     const project = await loadVisibleProject(currentUser(req), idParam(req.params.id, 'Project'));
-    const layouts = await Layout.findAll({ where: { projectId: project.id }, order: [['updatedAt', 'DESC']] });
+    const active = req.query.archived === '1' ? {} : { archivedAt: null };
+    const layouts = await Layout.findAll({ where: { projectId: project.id, ...active }, order: [['updatedAt', 'DESC']] });
     res.json({
       layouts: layouts.map((l) => {
         const c = l.content as LayoutContent;
@@ -100,6 +102,8 @@ export function layoutsRouter(sequelize: Sequelize): Router {
     const user = currentUser(req);
     const layout = await loadVisibleLayout(user, idParam(req.params.id, 'Layout'));
     await sequelize.transaction(async (transaction) => {
+      await refuseDeletingRecords({ layoutId: layout.id }, 'layout', transaction);
+      await deleteReturnedRevisions({ layoutId: layout.id }, transaction);
       await audit(user.id, 'layout.delete', 'layout', layout.id, { name: layout.name }, transaction);
       await layout.destroy({ transaction });
     });

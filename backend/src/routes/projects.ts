@@ -6,6 +6,7 @@ import { allow, currentUser } from '../auth/guards';
 import { badRequest, conflict, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
 import { Project, ProjectMember, User, presentProject } from '../models';
+import { deleteReturnedRevisions, refuseDeletingRecords } from '../services/archive';
 import { audit } from '../services/audit/audit';
 import { loadVisibleProject } from '../services/projectAccess';
 
@@ -43,12 +44,14 @@ export function projectsRouter(sequelize: Sequelize): Router {
   r.get('/projects', allow('project.read'), async (req, res) => {
     const user = currentUser(req);
     const include = [{ model: User, as: 'creator' }];
+    // Archived projects only with ?archived=1 (then beside the active ones).
+    const active = req.query.archived === '1' ? {} : { archivedAt: null };
     let projects: Project[];
     if (can(user.role, 'project.readAll')) {
-      projects = await Project.findAll({ include, order: [['updatedAt', 'DESC']] });
+      projects = await Project.findAll({ where: active, include, order: [['updatedAt', 'DESC']] });
     } else {
       const memberOf = await ProjectMember.findAll({ where: { userId: user.id } });
-      projects = await Project.findAll({ where: { id: memberOf.map((m) => m.projectId) }, include, order: [['updatedAt', 'DESC']] });
+      projects = await Project.findAll({ where: { id: memberOf.map((m) => m.projectId), ...active }, include, order: [['updatedAt', 'DESC']] });
     }
     const counts = await memberCounts(projects.map((p) => p.id));
     res.json({ projects: projects.map((p) => presentProject(p, counts.get(p.id) ?? 0)) });
@@ -85,6 +88,8 @@ export function projectsRouter(sequelize: Sequelize): Router {
     const user = currentUser(req);
     const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
     await sequelize.transaction(async (transaction) => {
+      await refuseDeletingRecords({ projectId: project.id }, 'project', transaction);
+      await deleteReturnedRevisions({ projectId: project.id }, transaction);
       await audit(user.id, 'project.delete', 'project', project.id, { name: project.name }, transaction);
       await project.destroy({ transaction });
     });

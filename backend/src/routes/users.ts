@@ -2,7 +2,7 @@ import { Router } from 'express';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { UserCreateInput, UserUpdateInput } from '@shared/schemas/user';
 import { allow, currentUser } from '../auth/guards';
-import { hashPassword } from '../auth/passport';
+import { forgetCachedUser, hashPassword } from '../auth/passport';
 import { badRequest, conflict, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
 import { User, presentUser } from '../models';
@@ -60,6 +60,7 @@ export function usersRouter(sequelize: Sequelize, opts: { bcryptCost: number }):
       const fields = Object.keys(input).filter((k) => k !== 'password');
       await audit(actor.id, 'user.update', 'user', user.id, { fields, passwordChanged: input.password !== undefined }, transaction);
     });
+    forgetCachedUser(user.id);
     res.json({ user: presentUser(user) });
   });
 

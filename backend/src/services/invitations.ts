@@ -73,6 +73,9 @@ export function invitationGone(problem: InvitationProblem): HttpError {
 
 /** Uses the invitation once: creates the account (and the project membership for a client). */
 export async function acceptInvitation(sequelize: Sequelize, token: string, input: { name: string; password: string }, bcryptCost: number, now: Date): Promise<User> {
+  // The token first: a bogus link must not cost a bcrypt hash (checked again under the row lock).
+  const first = await findByToken(token, now);
+  if (first.problem) throw invitationGone(first.problem);
   const passwordHash = await hashPassword(input.password, bcryptCost);
   return sequelize.transaction(async (transaction) => {
     const inv = await Invitation.findOne({ where: { tokenHash: tokenHash(token) }, transaction, lock: transaction.LOCK.UPDATE });

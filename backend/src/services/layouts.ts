@@ -15,6 +15,7 @@ export function presentLayout(l: Layout): LayoutDto {
     version: l.version,
     createdAt: l.createdAt.toISOString(),
     updatedAt: l.updatedAt.toISOString(),
+    archivedAt: l.archivedAt ? l.archivedAt.toISOString() : null,
   };
 }
 

@@ -1,9 +1,10 @@
 import type { Request } from 'express';
 import type { FeatureContext } from '../featureContext';
+import { publicBaseUrl } from '../http/hosts';
 import type { MailContext } from './reviewMail';
 
-/** The mail context of a request: the configured public URL, or the request's own origin. */
+/** The mail context of a request: links from PUBLIC_URL or the listen address, never the request's Host. */
 export function mailContextFor(ctx: Pick<FeatureContext, 'config' | 'mailer'>, req: Request): MailContext {
-  const base = ctx.config.publicUrl ?? `${req.protocol}://${req.get('host') ?? '127.0.0.1'}`;
+  const base = publicBaseUrl(ctx.config, req);
   return { mailer: ctx.mailer, baseUrl: base.replace(/\/+$/, '') };
 }

@@ -7,11 +7,12 @@ export interface LayoutSummaryDto extends Omit<LayoutDto, 'content'> {
   counts: { arms: number; workPoints: number; zones: number };
 }
 
-/** A project's layouts (without their content). */
-export const layoutListQuery = (projectId: number) =>
+/** A project's layouts (without their content): those in use, or those in use and the archived ones. */
+export const layoutListQuery = (projectId: number, show: 'active' | 'archived' = 'active') =>
   queryOptions({
-    queryKey: layoutKeys.list(projectId),
-    queryFn: ({ signal }) => api<{ layouts: LayoutSummaryDto[] }>(`/projects/${projectId}/layouts`, { signal }).then((r) => r.layouts),
+    queryKey: layoutKeys.listOf(projectId, show),
+    queryFn: ({ signal }) =>
+      api<{ layouts: LayoutSummaryDto[] }>(`/projects/${projectId}/layouts${show === 'archived' ? '?archived=1' : ''}`, { signal }).then((r) => r.layouts),
   });
 
 /** One layout with its content and version. */
@@ -21,8 +22,22 @@ export const layoutDetailQuery = (id: number) =>
     queryFn: ({ signal }) => api<{ layout: LayoutDto }>(`/layouts/${id}`, { signal }).then((r) => r.layout),
   });
 
-export function useLayouts(projectId: number) {
-  return useQuery(layoutListQuery(projectId));
+export function useLayouts(projectId: number, show: 'active' | 'archived' = 'active') {
+  return useQuery(layoutListQuery(projectId, show));
+}
+
+/** Archives (hidden from the list, read-only) or restores (admins) a layout. */
+export function useSetLayoutArchived(projectId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, archived }: { id: number; archived: boolean }) =>
+      api<{ layout: LayoutDto }>(`/layouts/${id}/${archived ? 'archive' : 'restore'}`, { method: 'POST' }).then((r) => r.layout),
+    onSuccess: (l) =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: layoutKeys.list(projectId) }),
+        queryClient.invalidateQueries({ queryKey: layoutKeys.detail(l.id) }),
+      ]),
+  });
 }
 
 export function useLayout(id: number) {

@@ -3,11 +3,14 @@ import type { MemberDto, ProjectDetailDto, ProjectDto, ProjectInput, ProjectUpda
 import { api } from './client';
 import { projectKeys } from './queryKeys';
 
-/** Every project the signed-in person may see. */
-export const projectListQuery = () =>
+/** The projects the signed-in person may see: those in use, or the archived ones. */
+export const projectListQuery = (show: 'active' | 'archived' = 'active') =>
   queryOptions({
-    queryKey: projectKeys.list(),
-    queryFn: ({ signal }) => api<{ projects: ProjectDto[] }>('/projects', { signal }).then((r) => r.projects),
+    queryKey: projectKeys.list(show),
+    queryFn: ({ signal }) =>
+      show === 'active'
+        ? api<{ projects: ProjectDto[] }>('/projects', { signal }).then((r) => r.projects)
+        : api<{ projects: ProjectDto[] }>('/projects?archived=1', { signal }).then((r) => r.projects.filter((p) => p.archivedAt !== null)),
   });
 
 /** One project with its members. */
@@ -17,8 +20,8 @@ export const projectDetailQuery = (id: number) =>
     queryFn: ({ signal }) => api<{ project: ProjectDetailDto }>(`/projects/${id}`, { signal }).then((r) => r.project),
   });
 
-export function useProjects() {
-  return useQuery(projectListQuery());
+export function useProjects(show: 'active' | 'archived' = 'active') {
+  return useQuery(projectListQuery(show));
 }
 
 export function useProject(id: number) {
@@ -53,7 +56,7 @@ export function useDeleteProject(id: number) {
     onSuccess: async () => {
       // The list drops the row at once (it may be shown before its refetch returns); the
       // detail is marked stale, not removed, since the open page observes it until it leaves.
-      queryClient.setQueryData<ProjectDto[]>(projectKeys.list(), (old) => old?.filter((p) => p.id !== id));
+      queryClient.setQueryData<ProjectDto[]>(projectKeys.list('active'), (old) => old?.filter((p) => p.id !== id));
       await queryClient.invalidateQueries({ queryKey: projectKeys.detail(id), refetchType: 'none' });
       await queryClient.invalidateQueries({ queryKey: projectKeys.lists() });
     },
@@ -77,6 +80,16 @@ export function useRemoveMember(projectId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (userId: number) => api<void>(`/projects/${projectId}/members/${userId}`, { method: 'DELETE' }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: projectKeys.all }),
+  });
+}
+
+/** Archives (hidden from lists, read-only) or restores (admins) a project; refreshes every project query. */
+export function useSetProjectArchived(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (archived: boolean) =>
+      api<{ project: ProjectDto }>(`/projects/${id}/${archived ? 'archive' : 'restore'}`, { method: 'POST' }).then((r) => r.project),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: projectKeys.all }),
   });
 }

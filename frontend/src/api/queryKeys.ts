@@ -11,7 +11,8 @@ export const authKeys = {
 export const projectKeys = {
   all: ['projects'] as const,
   lists: () => [...projectKeys.all, 'list'] as const,
-  list: () => [...projectKeys.lists()] as const,
+  /** 'active' lists the projects in use; 'archived' the archived ones. */
+  list: (show: 'active' | 'archived' = 'active') => [...projectKeys.lists(), show] as const,
   details: () => [...projectKeys.all, 'detail'] as const,
   detail: (id: number) => [...projectKeys.details(), id] as const,
 };
@@ -34,6 +35,7 @@ export const layoutKeys = {
   all: ['layouts'] as const,
   lists: () => [...layoutKeys.all, 'list'] as const,
   list: (projectId: number) => [...layoutKeys.lists(), projectId] as const,
+  listOf: (projectId: number, show: 'active' | 'archived') => [...layoutKeys.list(projectId), show] as const,
   details: () => [...layoutKeys.all, 'detail'] as const,
   detail: (id: number) => [...layoutKeys.details(), id] as const,
 };

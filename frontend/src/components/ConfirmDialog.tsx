@@ -12,10 +12,12 @@ export interface ConfirmDialogProps {
   onClose: () => void;
   busy?: boolean;
   error?: unknown;
+  /** 'danger' (default) for steps that remove something; 'primary' for ones that can be undone. */
+  confirmVariant?: 'danger' | 'primary';
 }
 
 /** Asks before a destructive step; the confirm button carries the step's own name. */
-export function ConfirmDialog({ open, title, children, confirmLabel, onConfirm, onClose, busy, error }: ConfirmDialogProps) {
+export function ConfirmDialog({ open, title, children, confirmLabel, onConfirm, onClose, busy, error, confirmVariant = 'danger' }: ConfirmDialogProps) {
   return (
     <Dialog open={open} title={title} onClose={onClose}>
       <div className="text-sm">{children}</div>
@@ -24,7 +26,7 @@ export function ConfirmDialog({ open, title, children, confirmLabel, onConfirm, 
         <Button onClick={onClose}>
           Cancel
         </Button>
-        <Button variant="danger" onClick={onConfirm} busy={busy}>
+        <Button variant={confirmVariant} onClick={onConfirm} busy={busy}>
           {confirmLabel}
         </Button>
       </DialogActions>

@@ -3,16 +3,17 @@ import { Link, useNavigate, useParams } from 'react-router-dom';
 import { can } from '@shared/policy';
 import { useSessionUser } from '../api/auth';
 import { isApiError } from '../api/client';
-import { useDeleteProject, useProject } from '../api/projects';
+import { useDeleteProject, useProject, useSetProjectArchived } from '../api/projects';
 import { Button } from '../components/Button';
 import { ConfirmDialog } from '../components/ConfirmDialog';
 import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import { PROJECT_SECTIONS } from './projectSections';
 import NotFoundPage from './NotFoundPage';
+import { formatDateTime } from '../lib/format';
 import { parseId } from '../lib/routeId';
 
-/** One project: its sections (details, members, and what later pages add) and deletion. */
+/** One project: its sections (details, members, and what later pages add), archiving and deletion. */
 export default function ProjectPage() {
   const id = parseId(useParams().id);
   if (id === null) return <NotFoundPage />;
@@ -23,8 +24,10 @@ function ProjectView({ id }: { id: number }) {
   const user = useSessionUser();
   const project = useProject(id);
   const remove = useDeleteProject(id);
+  const archive = useSetProjectArchived(id);
   const navigate = useNavigate();
   const [confirming, setConfirming] = useState(false);
+  const [archiving, setArchiving] = useState(false);
 
   if (project.isPending) return <LoadingNotice label="Loading project…" />;
   if (project.isError) {
@@ -41,7 +44,9 @@ function ProjectView({ id }: { id: number }) {
 
   const p = project.data;
   const sections = PROJECT_SECTIONS.filter((s) => !s.requires || can(user.role, s.requires));
-  const mayDelete = can(user.role, 'project.write');
+  const archived = p.archivedAt !== null;
+  const mayDelete = can(user.role, 'project.write') && !archived;
+  const mayArchive = archived ? can(user.role, 'project.restore') : can(user.role, 'project.archive');
 
   return (
     <>
@@ -54,13 +59,24 @@ function ProjectView({ id }: { id: number }) {
         title={p.name}
         lead={[p.clientName, p.siteName].filter(Boolean).join(' · ')}
         actions={
-          mayDelete ? (
-            <Button variant="danger" onClick={() => setConfirming(true)}>
-              Delete project
-            </Button>
+          mayDelete || mayArchive ? (
+            <div className="flex gap-2">
+              {mayArchive && <Button onClick={() => setArchiving(true)}>{archived ? 'Restore project' : 'Archive project'}</Button>}
+              {mayDelete && (
+                <Button variant="danger" onClick={() => setConfirming(true)}>
+                  Delete project
+                </Button>
+              )}
+            </div>
           ) : null
         }
       />
+      {archived && (
+        <p role="status" className="mb-6 rounded-control border border-rule-strong bg-paper-sunk px-3 py-2 text-sm">
+          <strong>Archived</strong> on {formatDateTime(p.archivedAt!)} — read-only and hidden from the project list.{' '}
+          {can(user.role, 'project.restore') ? 'Restore it to make changes.' : 'An admin can restore it.'}
+        </p>
+      )}
 
       <div className="grid grid-cols-[11rem_1fr] gap-10">
         <nav aria-label="Project sections" className="sticky top-6 self-start">
@@ -90,6 +106,31 @@ function ProjectView({ id }: { id: number }) {
       </div>
 
       <ConfirmDialog
+        open={archiving}
+        title={archived ? 'Restore this project?' : 'Archive this project?'}
+        confirmLabel={archived ? 'Restore project' : 'Archive project'}
+        confirmVariant="primary"
+        busy={archive.isPending}
+        error={archive.error}
+        onClose={() => {
+          setArchiving(false);
+          archive.reset();
+        }}
+        onConfirm={() => archive.mutate(!archived, { onSuccess: () => setArchiving(false) })}
+      >
+        {archived ? (
+          <p>
+            <strong>{p.name}</strong> comes back to the project list and can be changed again.
+          </p>
+        ) : (
+          <p>
+            <strong>{p.name}</strong> leaves the project list and becomes read-only. Its revisions and released plan sheets stay as
+            they are; an admin can restore the project.
+          </p>
+        )}
+      </ConfirmDialog>
+
+      <ConfirmDialog
         open={confirming}
         title="Delete this project?"
         confirmLabel="Delete project"
@@ -108,7 +149,8 @@ function ProjectView({ id }: { id: number }) {
         <p>
           <strong>{p.name}</strong> for {p.clientName} will be deleted together with its members list
           {/* Later sections (floor plans, layouts) are deleted with the project by the server. */}
-          {' '}and everything filed under it. This cannot be undone.
+          {' '}and everything filed under it. This cannot be undone. A project with submitted or released revisions cannot be
+          deleted; archive it instead.
         </p>
       </ConfirmDialog>
     </>

@@ -8,6 +8,7 @@ import { useCreateProject, useProjects } from '../api/projects';
 import { Button } from '../components/Button';
 import { DataTable } from '../components/DataTable';
 import { Dialog } from '../components/Dialog';
+import { SelectField } from '../components/Field';
 import { EmptyState, ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import { ProjectForm } from '../components/ProjectForm';
@@ -49,7 +50,8 @@ const COLUMNS = [
 /** All projects the signed-in person may see, with a dialog to start a new one. */
 export default function ProjectsPage() {
   const user = useSessionUser();
-  const projects = useProjects();
+  const [show, setShow] = useState<'active' | 'archived'>('active');
+  const projects = useProjects(show);
   const createProject = useCreateProject();
   const navigate = useNavigate();
   const [creating, setCreating] = useState(false);
@@ -74,9 +76,21 @@ export default function ProjectsPage() {
         actions={data.length > 0 ? newButton : null}
       />
 
+      <div className="mb-4 flex justify-end">
+        <SelectField label="Show" value={show} onChange={(e) => setShow(e.target.value as 'active' | 'archived')} frameClassName="w-52">
+          <option value="active">Projects in use</option>
+          <option value="archived">Archived</option>
+        </SelectField>
+      </div>
+
       {projects.isPending && <LoadingNotice label="Loading projects…" />}
       {projects.isError && <ErrorNotice title="Projects could not be loaded" error={projects.error} />}
-      {projects.isSuccess && data.length === 0 && (
+      {projects.isSuccess && data.length === 0 && show === 'archived' && (
+        <EmptyState title="No archived projects.">
+          A project with released plan sheets is archived instead of deleted; it shows here, read-only, until an admin restores it.
+        </EmptyState>
+      )}
+      {projects.isSuccess && data.length === 0 && show === 'active' && (
         <EmptyState
           title={mayCreate ? 'No projects yet — create the first one for your client.' : 'No projects to show yet.'}
           action={newButton}

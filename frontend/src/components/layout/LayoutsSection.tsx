@@ -4,7 +4,7 @@ import type { ProjectDetailDto } from '@shared/schemas/project';
 import { can } from '@shared/policy';
 import { useSessionUser } from '../../api/auth';
 import { useFloorPlans } from '../../api/floorPlans';
-import { useCreateLayout, useDeleteLayout, useLayouts, type LayoutSummaryDto } from '../../api/layouts';
+import { useCreateLayout, useDeleteLayout, useLayouts, useSetLayoutArchived, type LayoutSummaryDto } from '../../api/layouts';
 import { formatDateTime } from '../../lib/format';
 import { Button } from '../Button';
 import { ConfirmDialog } from '../ConfirmDialog';
@@ -12,15 +12,21 @@ import { Dialog, DialogActions } from '../Dialog';
 import { SelectField, TextField } from '../Field';
 import { EmptyState, ErrorNotice, LoadingNotice } from '../Notice';
 
-/** The project page's "Layouts" section: the working layouts, a new one, open and delete. */
+/** The project page's "Layouts" section: the working layouts, a new one, open, archive/restore and delete. */
 export function LayoutsSection({ project }: { project: ProjectDetailDto }) {
   const user = useSessionUser();
-  const mayWrite = can(user.role, 'layout.write');
-  const layouts = useLayouts(project.id);
+  const projectArchived = project.archivedAt !== null;
+  const mayWrite = can(user.role, 'layout.write') && !projectArchived;
+  const [showArchived, setShowArchived] = useState(false);
+  const layouts = useLayouts(project.id, showArchived ? 'archived' : 'active');
   const plans = useFloorPlans(project.id);
   const [creating, setCreating] = useState(false);
   const [deleting, setDeleting] = useState<LayoutSummaryDto | null>(null);
+  const [archiving, setArchiving] = useState<LayoutSummaryDto | null>(null);
   const remove = useDeleteLayout(project.id);
+  const archive = useSetLayoutArchived(project.id);
+  const mayArchive = (l: LayoutSummaryDto) => !projectArchived && can(user.role, l.archivedAt ? 'layout.restore' : 'layout.archive');
+  const hasActions = mayWrite || can(user.role, 'layout.archive') || can(user.role, 'layout.restore');
 
   if (layouts.isPending) return <LoadingNotice label="Loading layouts…" />;
   if (layouts.isError) return <ErrorNotice error={layouts.error} title="Layouts could not be loaded" />;
@@ -28,6 +34,10 @@ export function LayoutsSection({ project }: { project: ProjectDetailDto }) {
 
   return (
     <div className="flex flex-col gap-4">
+      <label className="flex items-center gap-2 self-end text-sm text-ink-muted">
+        <input type="checkbox" checked={showArchived} onChange={(e) => setShowArchived(e.target.checked)} className="size-4 accent-accent" />
+        Show archived layouts
+      </label>
       {layouts.data.length === 0 ? (
         <EmptyState title="No layout yet — a layout places arms, work points and zones on a floor plan.">
           {!mayWrite && <p>A planner of the project adds it.</p>}
@@ -42,7 +52,7 @@ export function LayoutsSection({ project }: { project: ProjectDetailDto }) {
               <th scope="col" className="px-3 py-2 text-right">Work points</th>
               <th scope="col" className="px-3 py-2 text-right">Zones</th>
               <th scope="col" className="px-3 py-2">Updated</th>
-              {mayWrite && <th scope="col" className="px-3 py-2"><span className="sr-only">Actions</span></th>}
+              {hasActions && <th scope="col" className="px-3 py-2"><span className="sr-only">Actions</span></th>}
             </tr>
           </thead>
           <tbody>
@@ -52,17 +62,25 @@ export function LayoutsSection({ project }: { project: ProjectDetailDto }) {
                   <Link to={`/projects/${project.id}/layouts/${l.id}`} className="font-bold text-accent underline-offset-4 hover:underline">
                     {l.name}
                   </Link>
+                  {l.archivedAt && <span className="ml-2 rounded-control border border-rule-strong px-1.5 py-0.5 text-xs text-ink-muted">Archived</span>}
                 </td>
                 <td className="px-3 py-2 text-ink-muted">{planName(l.floorPlanId)}</td>
                 <td className="px-3 py-2 text-right tabular-nums">{l.counts.arms}</td>
                 <td className="px-3 py-2 text-right tabular-nums">{l.counts.workPoints}</td>
                 <td className="px-3 py-2 text-right tabular-nums">{l.counts.zones}</td>
                 <td className="px-3 py-2 text-ink-muted tabular-nums">{formatDateTime(l.updatedAt)}</td>
-                {mayWrite && (
-                  <td className="px-3 py-2 text-right">
-                    <Button size="sm" variant="quiet" aria-label={`Delete ${l.name}`} onClick={() => setDeleting(l)}>
-                      Delete
-                    </Button>
+                {hasActions && (
+                  <td className="px-3 py-2 text-right whitespace-nowrap">
+                    {mayArchive(l) && (
+                      <Button size="sm" variant="quiet" aria-label={`${l.archivedAt ? 'Restore' : 'Archive'} ${l.name}`} onClick={() => setArchiving(l)}>
+                        {l.archivedAt ? 'Restore' : 'Archive'}
+                      </Button>
+                    )}
+                    {mayWrite && !l.archivedAt && (
+                      <Button size="sm" variant="quiet" aria-label={`Delete ${l.name}`} onClick={() => setDeleting(l)}>
+                        Delete
+                      </Button>
+                    )}
                   </td>
                 )}
               </tr>
@@ -91,8 +109,32 @@ export function LayoutsSection({ project }: { project: ProjectDetailDto }) {
         onConfirm={() => deleting && remove.mutate(deleting.id, { onSuccess: () => setDeleting(null) })}
       >
         <p>
-          <strong>{deleting?.name}</strong> and its {deleting?.counts.arms ?? 0} arms, {deleting?.counts.workPoints ?? 0} work points and {deleting?.counts.zones ?? 0} zones will be gone. Revisions already submitted are kept.
+          <strong>{deleting?.name}</strong> and its {deleting?.counts.arms ?? 0} arms, {deleting?.counts.workPoints ?? 0} work points and {deleting?.counts.zones ?? 0} zones will be gone. A layout with submitted or released revisions cannot be deleted; archive it instead.
         </p>
+      </ConfirmDialog>
+      <ConfirmDialog
+        open={archiving !== null}
+        title={archiving?.archivedAt ? 'Restore this layout?' : 'Archive this layout?'}
+        confirmLabel={archiving?.archivedAt ? 'Restore layout' : 'Archive layout'}
+        confirmVariant="primary"
+        busy={archive.isPending}
+        error={archive.error}
+        onClose={() => {
+          setArchiving(null);
+          archive.reset();
+        }}
+        onConfirm={() => archiving && archive.mutate({ id: archiving.id, archived: !archiving.archivedAt }, { onSuccess: () => setArchiving(null) })}
+      >
+        {archiving?.archivedAt ? (
+          <p>
+            <strong>{archiving.name}</strong> comes back to the list and can be edited again.
+          </p>
+        ) : (
+          <p>
+            <strong>{archiving?.name}</strong> leaves the list and becomes read-only. Its revisions and released plan sheets stay as they are;
+            an admin can restore it.
+          </p>
+        )}
       </ConfirmDialog>
     </div>
   );
