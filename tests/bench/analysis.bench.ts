@@ -8,12 +8,12 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { booleanPointInPolygon, featureCollection, intersect, point, polygon as turfPolygon, multiPolygon } from '@turf/turf';
 import type { Feature, FeatureCollection, MultiPolygon, Polygon } from 'geojson';
-import { createAnalyzer, prepareFloor, type AnalysisInput } from '../../shared/analysis';
-import { armReachFor } from '../../shared/analysis/armReach';
-import { armPose } from '../../shared/geometry/frames';
-import { polygonsToGeoJSON } from '../../shared/geometry/geojson';
-import { polygonsArea } from '../../shared/geometry/area';
-import type { ArmPlacement, WorkPoint } from '../../shared/schemas/layout';
+import { createAnalyzer, prepareFloor, type AnalysisInput } from '@shared/analysis';
+import { armReachFor } from '@shared/analysis/armReach';
+import { armPose } from '@shared/geometry/frames';
+import { polygonsToGeoJSON } from '@shared/geometry/geojson';
+import { polygonsArea } from '@shared/geometry/area';
+import type { ArmPlacement, WorkPoint } from '@shared/schemas/layout';
 
 const FULL_TARGET_MS = 100;
 const SPEEDUP_TARGET = 10;

@@ -1,8 +1,8 @@
 // Chain kinematics benchmark: FK throughput (full frames and the sampling fast path) against the
 // same chain composed with three.js Matrix4, and the sampled-profile time (target ≤ 50 ms, 6-axis).
 import { Matrix4 } from 'three';
-import { chainDhJoints, chainFamily, chainJointVariable, type ChainParams } from '../../shared/kinematics/chain';
-import { DhPointEvaluator } from '../../shared/kinematics/dh';
+import { chainDhJoints, chainFamily, chainJointVariable, type ChainParams } from '@shared/kinematics/chain';
+import { DhPointEvaluator } from '@shared/kinematics/dh';
 import { demoSixAxis, randomPose, seeded, sixAxisExample } from '../unit/kinematics/chainFixtures';
 
 const DEG = Math.PI / 180;

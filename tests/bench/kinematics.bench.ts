@@ -5,10 +5,10 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { familyOf } from '../../shared/kinematics/families';
-import { makePointReach, marginFnOf } from '../../shared/kinematics/pointReach';
-import { scaraPlanRegion } from '../../shared/kinematics/scara';
-import { ArmModelInput, type ArmParams, type ScaraParams } from '../../shared/schemas/armModel';
+import { familyOf } from '@shared/kinematics/families';
+import { makePointReach, marginFnOf } from '@shared/kinematics/pointReach';
+import { scaraPlanRegion } from '@shared/kinematics/scara';
+import { ArmModelInput, type ArmParams, type ScaraParams } from '@shared/schemas/armModel';
 
 const PROFILE_TARGET_MS = 50;
 const REACH_TARGET_PER_S = 5e6;

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import type { ImportResult } from '../../../shared/schemas/floorPlan';
+import type { ImportResult } from '@shared/schemas/floorPlan';
 import { DxfImportError } from '../../../backend/src/services/dxf/errors';
 import { importDxf } from '../../../backend/src/services/dxf/importDxf';
 import { SAMPLE_FILES } from '../../../samples/make-samples';

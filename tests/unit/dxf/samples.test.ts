@@ -1,7 +1,7 @@
 import { readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { FloorPlanPatch } from '../../../shared/schemas/floorPlan';
+import { FloorPlanPatch } from '@shared/schemas/floorPlan';
 import { importDxf } from '../../../backend/src/services/dxf/importDxf';
 import { fernhillHall, HALL_CORNER_RADIUS, SAMPLE_FILES, type HallVariant } from '../../../samples/make-samples';
 import { d3Area, linesOn, polygonsOn, readSample, SAMPLES_DIR, shoelace } from './support';

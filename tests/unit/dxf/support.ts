@@ -4,7 +4,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { polygonArea } from 'd3';
 import type { Feature, Geometry, LineString, Polygon, Position } from 'geojson';
-import type { ImportResult, PlanFeatureProps } from '../../../shared/schemas/floorPlan';
+import type { ImportResult, PlanFeatureProps } from '@shared/schemas/floorPlan';
 
 export const SAMPLES_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../../samples/floor-plans');
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { guessLayerRole, defaultLayerHeight } from '../../../backend/src/services/dxf/layerRoles';
 import { resolveUnits, unitFromInsunits, UNIT_NAMES, unitToMm } from '../../../backend/src/services/dxf/units';
-import { FloorPlanPatch } from '../../../shared/schemas/floorPlan';
+import { FloorPlanPatch } from '@shared/schemas/floorPlan';
 
 describe('drawing units', () => {
   it('every $INSUNITS code 1–24 of the DXF reference has one unit, and 0 has none', () => {

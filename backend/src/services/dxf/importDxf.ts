@@ -1,5 +1,5 @@
 import type { Feature, Geometry, Polygon } from 'geojson';
-import type { ImportLayer, ImportResult, PlanFeatureProps, UnitName } from '../../../../shared/schemas/floorPlan';
+import type { ImportLayer, ImportResult, PlanFeatureProps, UnitName } from '@shared/schemas/floorPlan';
 import { drawEntities, localTolerance, newBlockWalk } from './blocks';
 import { DxfImportError } from './errors';
 import { scanGroups } from './groupScan';

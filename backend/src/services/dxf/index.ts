@@ -8,4 +8,4 @@ export { DxfImportError, isDxfImportError, DXF_IMPORT_ERROR_CODES, type DxfImpor
 export { UNIT_NAMES, unitToMm, unitFromInsunits, unitLabel, resolveUnits, type UnitName } from './units';
 export { guessLayerRole, defaultLayerHeight } from './layerRoles';
 export { DEFAULT_CHORD_TOLERANCE_MM, DEFAULT_JOIN_TOLERANCE_MM, MAX_COORDINATE_MM } from './limits';
-export type { ImportResult, ImportLayer, LayerRole, PlanFeatureProps } from '../../../../shared/schemas/floorPlan';
+export type { ImportResult, ImportLayer, LayerRole, PlanFeatureProps } from '@shared/schemas/floorPlan';

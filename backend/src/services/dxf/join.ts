@@ -1,5 +1,5 @@
 import type { Feature, Geometry } from 'geojson';
-import type { PlanFeatureProps } from '../../../../shared/schemas/floorPlan';
+import type { PlanFeatureProps } from '@shared/schemas/floorPlan';
 import { closeCcwRing, type OpenPath, type Position2 } from './planBuilder';
 
 /**

@@ -1,4 +1,4 @@
-import { DEFAULT_ROLE_HEIGHT, type LayerRole } from '../../../../shared/schemas/floorPlan';
+import { DEFAULT_ROLE_HEIGHT, type LayerRole } from '@shared/schemas/floorPlan';
 
 export { DEFAULT_ROLE_HEIGHT };
 

@@ -1,5 +1,5 @@
 import { Worker } from 'node:worker_threads';
-import type { ImportResult } from '../../../../shared/schemas/floorPlan';
+import type { ImportResult } from '@shared/schemas/floorPlan';
 import { DxfImportError, DXF_IMPORT_ERROR_CODES, type DxfImportErrorCode } from './errors';
 import type { ImportOptions } from './importDxf';
 import type { WorkerJob, WorkerReply } from './worker';

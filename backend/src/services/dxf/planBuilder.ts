@@ -1,5 +1,5 @@
 import type { Feature, Geometry } from 'geojson';
-import type { PlanFeatureProps } from '../../../../shared/schemas/floorPlan';
+import type { PlanFeatureProps } from '@shared/schemas/floorPlan';
 import { DxfImportError } from './errors';
 import { MAX_COORDINATE_MM, MAX_OUTPUT_POINTS, roundMm } from './limits';
 import type { Affine } from './transform';

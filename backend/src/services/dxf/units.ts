@@ -1,4 +1,4 @@
-import { UNIT_NAMES, unitToMm, type UnitName } from '../../../../shared/schemas/floorPlan';
+import { UNIT_NAMES, unitToMm, type UnitName } from '@shared/schemas/floorPlan';
 
 export { UNIT_NAMES, unitToMm, type UnitName };
 
