@@ -1,5 +1,17 @@
-export * from './types';
-export * from './floor';
-export * from './analyze';
+export {
+  type AnalysisInput,
+  type AnalysisResult,
+  type ArmReach,
+  type ArmReachFactory,
+  type Finding,
+  FINDING_KINDS,
+  type FindingKind,
+  type PreparedFloor,
+  type Severity,
+  type SharedZone,
+  type StructureItem,
+} from './types';
+export { type FloorLayer, prepareFloor } from './floor';
+export { type Analyzer, createAnalyzer, FAR_MM, FENCE_CLEARANCE_MM, MIN_FENCE_HEIGHT_MM } from './analyze';
 export { findingId, parseFindingId, sortFindings } from './messages';
 export { isReached, roundMargin } from './reached';

@@ -1,10 +1,115 @@
-export * from './types';
-export * from './fourBar';
-export * from './profile';
-export * from './articulated';
-export * from './scara';
-export * from './linkage';
-export * from './families';
-export * from './planRegions';
-export * from './pointReach';
-export { chainFamily, chainForward, chainParamsSchema, type ChainParams } from './chain';
+export {
+  type AxisInfo,
+  type FamilyModule,
+  type ForwardResult,
+  type Frame,
+  type Polygon2,
+  type PoseFailure,
+  type ReachProfile,
+  type Ring,
+  type Vec3,
+} from './types';
+export {
+  assemblyRanges,
+  type FourBarBranch,
+  type FourBarLinks,
+  fourBarPose,
+  type FourBarPose,
+  grashofClass,
+  type GrashofClass,
+  rockerAngleRad,
+  transmissionAngle,
+} from './fourBar';
+export {
+  clipPieceHalfPlane,
+  type JointMap,
+  type JointPiece,
+  multiplesInside,
+  profileFromPolygons,
+  profileProjection,
+  profileSliceAt,
+  splitInterval,
+  tracePiece,
+  traceRegion,
+  twoLinkPieces,
+  twoLinkPoint,
+  twoLinkRadialRange,
+  twoLinkRegion,
+  type TwoLinkSpec,
+} from './profile';
+export {
+  articulatedAxes,
+  articulatedForward,
+  articulatedJ1Range,
+  articulatedReachProfile,
+  axisKinematicDeg,
+  axisKinematicRangeDeg,
+  axisKinematicRangeRad,
+  checkJoints,
+  downToolFrame,
+  effectiveForearm,
+  LIMIT_EPS,
+  planeFrame,
+  revoluteAxes,
+} from './articulated';
+export {
+  scaraAxes,
+  scaraForward,
+  scaraJ1Range,
+  scaraPlanRegion,
+  scaraRadialRange,
+  scaraReachProfile,
+} from './scara';
+export {
+  linkageAxes,
+  linkageBreaks,
+  linkageFeasibility,
+  linkageForward,
+  linkageInteriorDeg,
+  linkageJ1Range,
+  linkageReachProfile,
+  linkageRelAngle,
+  linkageTwoLinkSpec,
+} from './linkage';
+export {
+  armParamsFeasibilityIssues,
+  type ArmParamsIssue,
+  articulatedFamily,
+  type ChainParams,
+  FAMILIES,
+  type FamilyName,
+  familyOf,
+  FeasibleArmModelInput,
+  feasibleArmParamsSchema,
+  forwardModel,
+  linkageFamily,
+  parseArmParams,
+  reachProfileOf,
+  scaraFamily,
+} from './families';
+export {
+  bandAt,
+  bandPolygons,
+  bandSectors,
+  j1ControllerLimits,
+  j1KinematicRange,
+  type J1Restrict,
+  maximumSpacePolygons,
+  restrictedBelowPolygons,
+  restrictedSpacePolygons,
+  spaceGrowth,
+  toolDrop,
+} from './planRegions';
+export {
+  armReach,
+  type ArmTarget,
+  isReached,
+  makePointReach,
+  type MarginFn,
+  marginFnOf,
+  type PlanTarget,
+  pointReach,
+  type PointReachResult,
+  type ReachPlacement,
+} from './pointReach';
+export { chainFamily, chainForward, chainParamsSchema } from './chain';

@@ -2,7 +2,17 @@
  * Plan sheets: `renderPlanSheet(input, opts)` → PDF bytes; `loadLayoutSheetInput(layout)` builds the
  * input of a layout's working copy; `layoutDxf(input)` → DXF text for CAD. Types in ./types.ts.
  */
-export * from './types';
+export {
+  type PlanSheetFloorLayer,
+  type PlanSheetInput,
+  type PlanSheetOptions,
+  SCALE_SERIES,
+  SHEET_KINDS,
+  SHEET_SIZES,
+  type SheetKind,
+  type SheetScale,
+  type SheetSize,
+} from './types';
 export { renderPlanSheet } from './renderPlanSheet';
 export { loadLayoutSheetInput } from './loadLayoutSheetInput';
 export { CAUTIONS, DRAFT_MARK } from './sheetPages';
