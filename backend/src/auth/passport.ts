@@ -15,9 +15,9 @@ export interface SessionUser {
 }
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
+  // eslint-disable-next-line @typescript-eslint/no-namespace -- Express declares its request user in this global namespace; merging into it is the only way to type req.user
   namespace Express {
-    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type -- an empty interface is how declaration merging adds SessionUser's fields to Express.User
     interface User extends SessionUser {}
   }
 }

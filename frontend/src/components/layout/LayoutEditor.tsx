@@ -84,13 +84,13 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
   const highlightArms = useMemo(() => (selectedFinding ? new Set(selectedFinding.arms) : NO_HIGHLIGHT), [selectedFinding]);
 
   const styles = useMemo(() => (floorPlan ? layerStylesFor(floorPlan.layers, new Set()) : {}), [floorPlan]);
-  const bounds = useMemo(() => {
-    if (floorPlan) return floorPlan.bounds;
+  // Without a floor plan the view fits the arms as they stand when the editor opens; later arm
+  // moves must not refit the view.
+  const [armsBounds] = useState(() => {
     const b = pointsBounds(content.arms.map((a) => [a.x, a.y]));
     return b ? padBounds(b, 3000) : { minX: -5000, minY: -5000, maxX: 5000, maxY: 5000 };
-    // Bounds are fitted once; later arm moves must not refit the view.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [floorPlan]);
+  });
+  const bounds = floorPlan ? floorPlan.bounds : armsBounds;
 
   // The latest callbacks for the scene, which is created once per canvas.
   const handlers = useRef({
