@@ -3,6 +3,7 @@
  * J1-zero tick and turn handle, the selected zone's corner handles, and the shape being drawn
  * (screen px). d3 joins only; the press handlers come from the tool dispatcher.
  */
+import { armPose } from '@shared/geometry/frames';
 import type { Selection } from 'd3';
 import type { ArmPlacement } from '@shared/schemas/layout';
 import { ZONE_STYLES } from '@shared/style/zoneStyles';
@@ -44,9 +45,10 @@ export function drawArmMarks(layer: G, arms: readonly ArmPlacement[], view: Plan
     .style('cursor', o.readOnly ? 'pointer' : 'grab');
   const base = ZONE_STYLES.armBase.screen;
   const colour = (a: ArmPlacement) => (a.id === selectedArm ? SCENE_COLOURS.selected : base.colour);
+  // J1 zero direction on screen (screen y grows downward, plan y upward).
   const tip = (a: ArmPlacement): XY => {
-    const t = (a.yaw * Math.PI) / 180;
-    return [Math.cos(t) * TICK_PX, -Math.sin(t) * TICK_PX];
+    const pose = armPose(a);
+    return [pose.cos * TICK_PX, -pose.sin * TICK_PX];
   };
   marks
     .select('line.arm-tick')
