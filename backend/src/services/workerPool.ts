@@ -73,6 +73,7 @@ const seconds = (ms: number) => (ms % 1000 === 0 ? `${ms / 1000} s` : `${(ms / 1
 const ADVICE: Record<HeavyTask['kind'], { what: string; advice: string }> = {
   analysis: { what: 'The analysis', advice: 'split the layout or try again' },
   reach: { what: 'Computing the reach', advice: 'simplify the arm model or try again' },
+  armSummary: { what: 'Computing the reach', advice: 'simplify the arm model or try again' },
   planSheet: { what: 'Drawing the plan sheet', advice: 'choose fewer sheets or try again' },
 };
 

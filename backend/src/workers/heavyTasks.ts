@@ -1,5 +1,5 @@
 // The heavy-work thread's task handler (one thread of the pool in services/workerPool.ts): layout
-// analysis, reach profiles and bands, plan-sheet rendering. Pure work on plain data: no database.
+// analysis, reach profiles and bands, arm models' reach summaries, plan-sheet rendering. Pure work on plain data: no database.
 import type { FeatureCollection } from 'geojson';
 import { createAnalyzer, prepareFloor, type AnalysisResult, type FloorLayer } from '@shared/analysis';
 import { armReachFor } from '@shared/analysis/armReach';
@@ -8,6 +8,7 @@ import { bandAt } from '@shared/kinematics/planRegions';
 import type { AreaGeometry } from '@shared/geometry/geojson';
 import type { ArmParams } from '@shared/schemas/armModel';
 import type { LayoutContent } from '@shared/schemas/layout';
+import { reachSummaryOf, type ArmReachSummary } from '../services/armReachSummary';
 import { renderPlanSheet } from '../services/planSheet/renderPlanSheet';
 import type { PlanSheetInput, PlanSheetOptions } from '../services/planSheet/types';
 
@@ -31,11 +32,13 @@ export interface ReachSummary {
 export type HeavyTask =
   | { kind: 'analysis'; job: AnalysisJob }
   | { kind: 'reach'; params: ArmParams; heights: number[] }
+  | { kind: 'armSummary'; params: ArmParams }
   | { kind: 'planSheet'; input: PlanSheetInput; opts: PlanSheetOptions };
 
 export interface HeavyResults {
   analysis: AnalysisResult;
   reach: ReachSummary;
+  armSummary: ArmReachSummary;
   planSheet: Uint8Array;
 }
 
@@ -71,6 +74,8 @@ export default async function runHeavyTask(task: HeavyTask): Promise<HeavyResult
       return analyzeLoaded(task.job);
     case 'reach':
       return reachSummary(task.params, task.heights);
+    case 'armSummary':
+      return reachSummaryOf(task.params);
     case 'planSheet': {
       const pdf = await renderPlanSheet(task.input, task.opts);
       return new Uint8Array(pdf.buffer, pdf.byteOffset, pdf.byteLength);
