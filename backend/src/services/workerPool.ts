@@ -91,7 +91,7 @@ export async function runHeavy<K extends HeavyTask['kind']>(task: Extract<HeavyT
     return (await p.run(task, { signal: controller.signal })) as HeavyResults[K];
   } catch (err) {
     if (controller.signal.aborted) throw new HttpError(503, 'too_slow', `${what} took longer than ${seconds(settings.taskTimeoutMs)} and was stopped; ${advice}.`);
-    if (err instanceof Error && err.message === 'Task queue is at limit') {
+    if (err instanceof Error && (err.message === 'Task queue is at limit' || err.message.startsWith('No task queue available'))) {
       throw new HttpError(503, 'busy', `The server is busy with other heavy work (${settings.queueLimit} tasks waiting); try again in a moment.`);
     }
     throw err;
