@@ -11,6 +11,7 @@ import { ensureSessionSecret } from './db/settings';
 import { featureSeedSteps } from './features';
 import { startFakeSmtp, type FakeSmtp } from './services/mail/fakeSmtp';
 import { createMailer, type Mailer } from './services/mail/mailer';
+import { closeHeavyWork } from './services/workerPool';
 
 export interface RunningServer {
   url: string;
@@ -72,6 +73,7 @@ export async function startServer(
       await fakeSmtp?.close();
       await pool.end().catch(() => {});
       await sequelize.close().catch(() => {});
+      await closeHeavyWork().catch(() => {});
     },
   };
 }
