@@ -1,6 +1,7 @@
 import { Router, type Request } from 'express';
 import { z } from 'zod';
 import { can } from '@shared/policy';
+import { multiLineText } from '@shared/schemas/fields';
 import { allow, currentUser } from '../auth/guards';
 import type { FeatureContext } from '../featureContext';
 import { conflict, notFound } from '../http/errors';
@@ -14,7 +15,7 @@ import { loadVisibleProject } from '../services/projectAccess';
 
 const DecisionInput = z.object({
   decision: z.enum(['approve', 'request_changes'], { error: 'Choose approve or request changes' }),
-  comment: z.string().max(10_000, 'Use at most 10 000 characters').default(''),
+  comment: multiLineText().max(10_000, 'Use at most 10 000 characters').default(''),
 });
 
 /** Revisions: submit (planner), decide (reviewer), release (planner), plan sheet, acknowledge (client). */
