@@ -10,7 +10,7 @@ import { Revision } from '../models';
 import { loadVisibleLayout } from '../services/layouts';
 import { mailContextFor } from '../services/mailContext';
 import { acknowledgeRevision, planSheetFor, releaseRevision, retryReleaseMail } from '../services/release';
-import { decideRevision, loadVisibleRevision, presentRevisionDetail, presentRevisions, submitRevision } from '../services/revisions';
+import { decideRevision, loadVisibleRevision, presentRevisionDetail, presentRevisions, REVISION_LIST_ATTRIBUTES, submitRevision } from '../services/revisions';
 import { loadVisibleProject } from '../services/projectAccess';
 
 const DecisionInput = z.object({
@@ -33,7 +33,7 @@ export function revisionsRouter(ctx: FeatureContext): Router {
   r.get('/layouts/:id/revisions', allow('revision.readDrafts'), async (req, res) => {
     const user = currentUser(req);
     const layout = await loadVisibleLayout(user, idParam(req.params.id, 'Layout'));
-    const revs = await Revision.findAll({ where: { layoutId: layout.id }, attributes: { exclude: ['planSheet'] }, order: [['id', 'ASC']] });
+    const revs = await Revision.findAll({ where: { layoutId: layout.id }, attributes: REVISION_LIST_ATTRIBUTES, order: [['id', 'ASC']] });
     res.json({ revisions: await presentRevisions(user, revs) });
   });
 
@@ -41,7 +41,7 @@ export function revisionsRouter(ctx: FeatureContext): Router {
     const user = currentUser(req);
     const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
     const where = can(user.role, 'revision.readDrafts') ? { projectId: project.id } : { projectId: project.id, state: 'released' };
-    const revs = await Revision.findAll({ where, attributes: { exclude: ['planSheet'] }, order: [['layoutId', 'ASC'], ['id', 'ASC']] });
+    const revs = await Revision.findAll({ where, attributes: REVISION_LIST_ATTRIBUTES, order: [['layoutId', 'ASC'], ['id', 'ASC']] });
     res.json({ revisions: await presentRevisions(user, revs) });
   });
 
