@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD, seedDemoIfEmpty } from '../../backend/src/db/seed';
 import { featureSeedSteps } from '../../backend/src/features';
 import { ArmModel, Layout } from '../../backend/src/models';
+import { heavyTasksInFlight } from '../../backend/src/services/workerPool';
 import { heavyLayoutContent } from '../support/heavyLayout';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
 
@@ -37,14 +38,17 @@ describe('heavy work in the pool', () => {
           return r;
         }),
     );
-    // Let the four requests reach the server and their tasks the pool before asking for health.
-    await new Promise((r) => setTimeout(r, 300));
+    // Wait until all four analyses are with the pool (a condition, not a time), then ask for health.
+    // On the request thread they would never all be under way at once: each would block the others.
+    for (let i = 0; i < 2000 && heavyTasksInFlight() < 4; i++) await new Promise((r) => setTimeout(r, 10));
+    expect(heavyTasksInFlight()).toBe(4);
     const health = await request(t.app).get('/api/health');
-    const doneWhenHealthAnswered = done;
+    const [doneWhenHealthAnswered, inFlightWhenHealthAnswered] = [done, heavyTasksInFlight()];
     expect(health.status).toBe(200);
     expect(health.body).toEqual({ ok: true, db: true });
-    // On the request thread the analyses would have held health back until one had finished.
+    // Health was answered while heavy work was still running elsewhere, before any analysis had answered.
     expect(doneWhenHealthAnswered).toBe(0);
+    expect(inFlightWhenHealthAnswered).toBeGreaterThan(0);
     const results = await Promise.all(heavy);
     for (const r of results) {
       expect([200, 503]).toContain(r.status);

@@ -67,6 +67,13 @@ function pool(): { settings: HeavyWorkSettings; pool: Piscina } {
   return current!;
 }
 
+let inFlight = 0;
+
+/** Heavy tasks handed to the pool and not yet answered (running or waiting for a thread). */
+export function heavyTasksInFlight(): number {
+  return inFlight;
+}
+
 const seconds = (ms: number) => (ms % 1000 === 0 ? `${ms / 1000} s` : `${(ms / 1000).toFixed(1)} s`);
 
 /** What to tell the planner when a task of this kind runs too long. */
@@ -87,6 +94,7 @@ export async function runHeavy<K extends HeavyTask['kind']>(task: Extract<HeavyT
   const { what, advice } = ADVICE[task.kind];
   const controller = new AbortController();
   const timer = setTimeout(() => controller.abort(), settings.taskTimeoutMs);
+  inFlight++;
   try {
     return (await p.run(task, { signal: controller.signal })) as HeavyResults[K];
   } catch (err) {
@@ -96,6 +104,7 @@ export async function runHeavy<K extends HeavyTask['kind']>(task: Extract<HeavyT
     }
     throw err;
   } finally {
+    inFlight--;
     clearTimeout(timer);
   }
 }
