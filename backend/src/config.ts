@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { z } from 'zod';
 
 /** Environment parsed once at start; every setting has a default for local use. */
@@ -35,6 +36,18 @@ const ConfigSchema = z.object({
     .url('PUBLIC_URL must be a full URL such as https://cells.example.com')
     .refine((u) => /^https?:\/\//.test(u), 'PUBLIC_URL must start with http:// or https://')
     .optional(),
+  /** Worker threads for heavy work (analysis, reach, plan sheets); default: one less than the CPU count, at least 1. */
+  HEAVY_WORKERS: z.coerce.number().int().min(1).max(64).optional(),
+  /** Time one heavy task may take before it is stopped (503 too_slow), ms. */
+  HEAVY_TASK_TIMEOUT_MS: z.coerce.number().int().min(100).default(20_000),
+  /** Heavy tasks that may wait for a worker; beyond that a request gets 503 busy. */
+  HEAVY_QUEUE_LIMIT: z.coerce.number().int().min(0).default(16),
+  /** Heap limit of each heavy-work thread, MB. */
+  HEAVY_WORKER_HEAP_MB: z.coerce.number().int().min(64).default(2048),
+  /** DXF imports one server runs at once; beyond that 429 with Retry-After. */
+  DXF_IMPORT_CONCURRENCY: z.coerce.number().int().min(1).default(2),
+  /** Most reach checks (arms × work points × work heights) one analysis may ask for. */
+  ANALYSIS_MAX_CHECKS: z.coerce.number().int().min(1).default(2_000_000),
 });
 
 export type Config = {
@@ -60,6 +73,12 @@ export type Config = {
   allowedHosts: string[];
   uploadLimitBytes: number;
   publicUrl?: string;
+  heavyWorkers: number;
+  heavyTaskTimeoutMs: number;
+  heavyQueueLimit: number;
+  heavyWorkerHeapMb: number;
+  dxfImportConcurrency: number;
+  analysisMaxChecks: number;
 };
 
 /** Reads the configuration from an environment (process.env by default); throws a readable message. */
@@ -92,5 +111,11 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     allowedHosts: c.ALLOWED_HOSTS.split(',').map((s) => s.trim().toLowerCase()).filter(Boolean),
     uploadLimitBytes: Math.round(c.UPLOAD_LIMIT_MB * 1024 * 1024),
     publicUrl: c.PUBLIC_URL?.replace(/\/+$/, ''),
+    heavyWorkers: c.HEAVY_WORKERS ?? Math.max(1, availableParallelism() - 1),
+    heavyTaskTimeoutMs: c.HEAVY_TASK_TIMEOUT_MS,
+    heavyQueueLimit: c.HEAVY_QUEUE_LIMIT,
+    heavyWorkerHeapMb: c.HEAVY_WORKER_HEAP_MB,
+    dxfImportConcurrency: c.DXF_IMPORT_CONCURRENCY,
+    analysisMaxChecks: c.ANALYSIS_MAX_CHECKS,
   };
 }

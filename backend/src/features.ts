@@ -15,11 +15,15 @@ import { layoutsRouter } from './routes/layouts';
 import { planSheetsRouter } from './routes/planSheets';
 import { revisionsRouter } from './routes/revisions';
 import { safeguardingRouter } from './routes/safeguarding';
+import { setAnalysisCap } from './services/layoutAnalysis';
+import { configureHeavyWork, heavyWorkSettings } from './services/workerPool';
 
 /** API routers of the product's features, mounted under /api after the foundation routes. */
 export function featureRouters(ctx: FeatureContext): Router[] {
+  configureHeavyWork(heavyWorkSettings(ctx.config));
+  setAnalysisCap(ctx.config.analysisMaxChecks);
   return [
-    floorPlansRouter(ctx.sequelize, { uploadLimitBytes: ctx.config.uploadLimitBytes }),
+    floorPlansRouter(ctx.sequelize, { uploadLimitBytes: ctx.config.uploadLimitBytes, importConcurrency: ctx.config.dxfImportConcurrency }),
     layoutsRouter(ctx.sequelize),
     armModelsRouter(ctx.sequelize),
     kinematicsRouter(),

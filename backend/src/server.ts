@@ -12,6 +12,7 @@ import { ensureSessionSecret } from './db/settings';
 import { featureSeedSteps } from './features';
 import { startFakeSmtp, type FakeSmtp } from './services/mail/fakeSmtp';
 import { createMailer, type Mailer } from './services/mail/mailer';
+import { closeHeavyWork } from './services/workerPool';
 
 export interface RunningServer {
   url: string;
@@ -75,6 +76,7 @@ export async function startServer(
       await fakeSmtp?.close();
       await pool.end().catch(() => {});
       await sequelize.close().catch(() => {});
+      await closeHeavyWork().catch(() => {});
     },
   };
 }

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { degrees, lengthMm, MAX_ANGLE_DEG, nonNegativeMm, nonNegativeNumber, positiveMm, positiveNumber } from './fields';
+import { degrees, lengthMm, MAX_ANGLE_DEG, nonNegativeMm, nonNegativeNumber, positiveMm, positiveNumber, singleLineText } from './fields';
 
 /**
  * Arm model parameters: a discriminated union on `family` (lengths mm, angles degrees).
@@ -195,7 +195,7 @@ export type ArmFamily = ArmParams['family'];
 
 /** What a create or update sends: a name and the family parameters. */
 export const ArmModelInput = z.object({
-  name: z.string({ error: 'Give the model a name' }).trim().min(1, 'Give the model a name').max(120, 'Use at most 120 characters'),
+  name: singleLineText({ error: 'Give the model a name' }).min(1, 'Give the model a name').max(120, 'Use at most 120 characters'),
   params: armParamsSchema,
 });
 export type ArmModelInput = z.infer<typeof ArmModelInput>;

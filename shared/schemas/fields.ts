@@ -38,3 +38,21 @@ export const degrees = (what: string, notANumber?: string) =>
 
 /** A database id: a whole number from 1 (`message` for anything else below 1). */
 export const positiveId = (message?: string) => z.number().int().positive(message);
+
+/** What a one-line text field says when it holds a control character. */
+export const SINGLE_LINE_MESSAGE = 'Use one line of text without control characters';
+/** Text of any length with no Unicode control character (category Cc: C0 incl. TAB, LF, CR; DEL; C1). */
+export const NO_CONTROL_CHARACTERS = /^[^\p{Cc}]*$/u;
+
+/**
+ * A one-line text (a name or label), trimmed: no control characters, since a line break in a name
+ * would start a new record in a DXF export or a new line in a mail header. Chain `.min`/`.max`.
+ */
+export const singleLineText = (params?: { error: string }) => z.string(params).trim().regex(NO_CONTROL_CHARACTERS, SINGLE_LINE_MESSAGE);
+
+/** A longer text (description, comment): line breaks and tabs allowed, other control characters not. */
+export const multiLineText = () =>
+  z
+    .string()
+    .trim()
+    .refine((v) => !/[^\P{Cc}\t\n\r]/u.test(v), { message: 'Use text without control characters (line breaks and tabs are fine)' });

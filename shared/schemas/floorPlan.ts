@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { FeatureCollection, Geometry } from 'geojson';
-import { finiteNumber, MAX_LENGTH_MM } from './fields';
+import { finiteNumber, MAX_LENGTH_MM, NO_CONTROL_CHARACTERS, SINGLE_LINE_MESSAGE } from './fields';
 
 /**
  * Drawing units a floor plan can be read in: every $INSUNITS code 1–24 of the DXF reference
@@ -114,7 +114,7 @@ export const DEFAULT_ROLE_HEIGHT: Record<LayerRole, number | null> = {
 
 /** One layer's changes in a floor-plan patch. */
 export const LayerPatch = z.object({
-  name: z.string().min(1, 'Name the layer').max(255),
+  name: z.string().regex(NO_CONTROL_CHARACTERS, SINGLE_LINE_MESSAGE).min(1, 'Name the layer').max(255),
   role: LayerRole.optional(),
   height: finiteNumber('height', 'Enter a height in mm')
     .positive('Height must be above the floor')

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { finiteNumber, positiveId } from './fields';
+import { finiteNumber, positiveId, singleLineText } from './fields';
 
 const Id = z
   .string()
@@ -15,7 +15,7 @@ export const ArmPlacement = z
   .object({
     id: Id,
     armModelId: positiveId('Choose an arm model'),
-    label: z.string().trim().max(60).default(''),
+    label: singleLineText().max(60).default(''),
     /** Plan position of the J1 axis, mm (x east, y north). */
     x: finiteNumber('x'),
     y: finiteNumber('y'),
@@ -41,7 +41,7 @@ export const WorkPoint = z
     y: finiteNumber('y'),
     z: finiteNumber('z'),
     approach: z.enum(['top', 'any']).default('top'),
-    tag: z.string().trim().max(60).default(''),
+    tag: singleLineText().max(60).default(''),
     assignedArm: Id.optional(),
   })
   .strict();
@@ -52,7 +52,7 @@ export const Zone = z
   .object({
     id: Id,
     kind: z.enum(ZONE_KINDS),
-    label: z.string().trim().max(60).default(''),
+    label: singleLineText().max(60).default(''),
     points: z.array(PlanXY).max(2000, 'At most 2000 points'),
     /** Fence height (mm above floor); required for fences. */
     height: finiteNumber('Height').positive('Height must be above 0').optional(),
@@ -115,14 +115,14 @@ export const LayoutContent = z
 export type LayoutContent = z.infer<typeof LayoutContent>;
 
 export const LayoutCreateInput = z.object({
-  name: z.string().trim().min(1, 'Name the layout').max(160),
+  name: singleLineText().min(1, 'Name the layout').max(160),
   floorPlanId: positiveId().nullable().default(null),
   content: LayoutContent.default({ arms: [], workPoints: [], zones: [], workHeights: [] }),
 });
 
 export const LayoutUpdateInput = z.object({
   version: positiveId('Send the version you edited'),
-  name: z.string().trim().min(1, 'Name the layout').max(160).optional(),
+  name: singleLineText().min(1, 'Name the layout').max(160).optional(),
   floorPlanId: positiveId().nullable().optional(),
   content: LayoutContent.optional(),
 });

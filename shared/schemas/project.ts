@@ -1,20 +1,21 @@
 import { z } from 'zod';
+import { multiLineText, singleLineText } from './fields';
 import type { Role } from './user';
 
 export const ProjectInput = z.object({
-  name: z.string().trim().min(1, 'Enter a project name').max(160),
-  clientName: z.string().trim().min(1, 'Enter the client').max(160),
-  siteName: z.string().trim().max(160).default(''),
-  description: z.string().trim().max(4000).default(''),
+  name: singleLineText().min(1, 'Enter a project name').max(160),
+  clientName: singleLineText().min(1, 'Enter the client').max(160),
+  siteName: singleLineText().max(160).default(''),
+  description: multiLineText().max(4000).default(''),
 });
 export type ProjectInput = z.input<typeof ProjectInput>;
 
 export const ProjectUpdateInput = z
   .object({
-    name: z.string().trim().min(1, 'Enter a project name').max(160),
-    clientName: z.string().trim().min(1, 'Enter the client').max(160),
-    siteName: z.string().trim().max(160),
-    description: z.string().trim().max(4000),
+    name: singleLineText().min(1, 'Enter a project name').max(160),
+    clientName: singleLineText().min(1, 'Enter the client').max(160),
+    siteName: singleLineText().max(160),
+    description: multiLineText().max(4000),
   })
   .partial()
   .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change' });

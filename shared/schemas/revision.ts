@@ -82,25 +82,34 @@ export const SnapshotAnalysis = z.object({
 
 const Bounds = z.object({ minX: z.number(), minY: z.number(), maxX: z.number(), maxY: z.number() });
 
+/** The floor plan as frozen with a revision (plan mm). Stored once per content (by checksum), shared by revisions. */
+export const SnapshotFloorPlan = z.object({
+  id: z.number().int(),
+  fileName: z.string(),
+  units: z.string(),
+  geometry: PlanGeometry,
+  layers: z.array(z.object({ name: z.string(), role: LayerRole, height: z.number().nullable(), entityCount: z.number().optional(), color: z.string().optional() })),
+  bounds: Bounds,
+});
+export type SnapshotFloorPlan = z.infer<typeof SnapshotFloorPlan>;
+
 /** Everything a revision shows, frozen when it was submitted: project, layout, floor plan, arm models, analysis. */
 export const RevisionSnapshot = z.object({
   project: z.object({ id: z.number().int(), name: z.string(), clientName: z.string().nullable(), siteName: z.string().nullable() }),
   layout: z.object({ id: z.number().int(), name: z.string(), version: z.number().int(), content: LayoutContent }),
-  floorPlan: z
-    .object({
-      id: z.number().int(),
-      fileName: z.string(),
-      units: z.string(),
-      geometry: PlanGeometry,
-      layers: z.array(z.object({ name: z.string(), role: LayerRole, height: z.number().nullable(), entityCount: z.number().optional(), color: z.string().optional() })),
-      bounds: Bounds,
-    })
-    .nullable(),
+  floorPlan: SnapshotFloorPlan.nullable(),
   /** The arm models the arms use, parameters as stored (lengths mm, angles deg). */
   models: z.array(z.object({ id: z.number().int(), name: z.string(), family: z.string(), params: z.record(z.string(), z.unknown()) })),
   analysis: SnapshotAnalysis,
 });
 export type RevisionSnapshot = z.infer<typeof RevisionSnapshot>;
+
+/**
+ * A snapshot as the revisions table holds it: the floor plan is kept apart (one row per content,
+ * referenced by the revision's floor-plan checksum); revisions stored before that hold it inline.
+ */
+export const StoredRevisionSnapshot = RevisionSnapshot.omit({ floorPlan: true }).extend({ floorPlan: SnapshotFloorPlan.nullable().optional() });
+export type StoredRevisionSnapshot = z.infer<typeof StoredRevisionSnapshot>;
 
 const ArmAt = z.object({ id: z.string(), x: z.number(), y: z.number() });
 const FindingBrief = SnapshotFinding.pick({ id: true, severity: true, message: true });

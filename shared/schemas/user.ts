@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { singleLineText } from './fields';
 
 /** The four roles (docs/product.md "Roles"); the order is not a hierarchy. */
 export const ROLES = ['admin', 'planner', 'reviewer', 'client'] as const;
@@ -23,7 +24,7 @@ export type LoginInput = z.infer<typeof LoginInput>;
 
 export const UserCreateInput = z.object({
   email: Email,
-  name: z.string().trim().min(1, 'Enter a name').max(120),
+  name: singleLineText().min(1, 'Enter a name').max(120),
   role: Role,
   password: Password,
 });
@@ -31,7 +32,7 @@ export type UserCreateInput = z.infer<typeof UserCreateInput>;
 
 export const UserUpdateInput = z
   .object({
-    name: z.string().trim().min(1, 'Enter a name').max(120),
+    name: singleLineText().min(1, 'Enter a name').max(120),
     role: Role,
     active: z.boolean(),
     password: Password,

@@ -130,7 +130,7 @@ describe('arm models', () => {
     for (const s of readDemoCatalogue()) expect(names).toContain(s.name);
     const builtIn = list.body.armModels.find((m: { builtIn: boolean }) => m.builtIn);
     expect(builtIn.maxReach).toBeGreaterThan(0);
-    expect(Object.keys(builtIn).sort()).toEqual(['builtIn', 'createdAt', 'createdBy', 'family', 'id', 'maxReach', 'minReach', 'name', 'params', 'updatedAt']);
+    expect(Object.keys(builtIn).sort()).toEqual(['builtIn', 'createdAt', 'createdBy', 'family', 'id', 'maxReach', 'minReach', 'name', 'params', 'reach', 'updatedAt']);
     const one = await agent.get(`/api/arm-models/${builtIn.id}`);
     expect(one.status).toBe(200);
     expect(one.body.armModel.name).toBe(builtIn.name);
@@ -363,5 +363,50 @@ describe('kinematics endpoints', () => {
     const request = (await import('supertest')).default;
     expect((await request(t.app).post('/api/kinematics/forward').send({ model: threeR(), joints: [0, 0, 0] })).status).toBe(401);
     expect((await request(t.app).post('/api/kinematics/reach').send({ model: threeR() })).status).toBe(401);
+  });
+});
+
+describe('stored reach figures', () => {
+  it('are computed when a model is saved, and the list reads them from the row instead of recomputing', async () => {
+    const { agent } = await planner();
+    const created = await agent.post('/api/arm-models').send({ name: uniqueName('Stored reach 3R'), params: threeR() });
+    expect(created.status).toBe(201);
+    // Fully stretched, the tool point of the 3R arm lies a2 + a3 = 900 mm from the J1 axis, and its
+    // highest point is d1 + a2 + a3 = 1200 mm (sum of link lengths; textbook geometry of a planar
+    // chain); the stored profile may lie outside the true region by at most its tolerance.
+    const row = (await ArmModel.findByPk(created.body.armModel.id))!;
+    const s = row.reachSummary!;
+    expect(['exact', 'sampled']).toContain(s.method);
+    expect(Math.abs(s.maxReach - 900)).toBeLessThanOrEqual(s.toleranceMm + 1e-6);
+    expect(Math.abs(s.zMax - 1200)).toBeLessThanOrEqual(s.toleranceMm + 1e-6);
+    expect(created.body.armModel.maxReach).toBe(s.maxReach);
+
+    // Change only the stored figures: a list that recomputed profiles would still say 900 mm.
+    await t.sequelize.query(`UPDATE arm_models SET "reachSummary" = jsonb_set("reachSummary", '{maxReach}', '12345') WHERE id = :id`, {
+      replacements: { id: row.id },
+    });
+    const list = await agent.get('/api/arm-models');
+    const listed = list.body.armModels.find((m: { id: number }) => m.id === row.id);
+    expect(listed.maxReach).toBe(12345);
+
+    // Saving new parameters stores new figures (a2 = 600: 1000 mm stretched).
+    const changed = threeR();
+    changed.joints[1].a = 600;
+    const updated = await agent.put(`/api/arm-models/${row.id}`).send({ name: row.name, params: changed });
+    expect(updated.status).toBe(200);
+    const after = (await ArmModel.findByPk(row.id))!.reachSummary!;
+    expect(Math.abs(after.maxReach - 1000)).toBeLessThanOrEqual(after.toleranceMm + 1e-6);
+    expect(updated.body.armModel.maxReach).toBe(after.maxReach);
+  });
+
+  it('are filled in for existing rows by the migration, whose down removes the column again', async () => {
+    const migration = await import('../../backend/src/db/migrations/20261202090000-add-arm-model-reach-summary');
+    const qi = t.sequelize.getQueryInterface();
+    await migration.down({ context: qi });
+    expect(Object.keys(await qi.describeTable('arm_models'))).not.toContain('reachSummary');
+    await migration.up({ context: qi });
+    const [rows] = (await t.sequelize.query('SELECT params, "reachSummary" FROM arm_models')) as [Array<{ params: unknown; reachSummary: { maxReach: number } | null }>, unknown];
+    expect(rows.length).toBeGreaterThan(0);
+    for (const r of rows) expect(r.reachSummary?.maxReach ?? 0).toBeGreaterThan(0);
   });
 });

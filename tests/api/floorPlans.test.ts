@@ -164,3 +164,52 @@ describe('demo floor plan', () => {
     expect(result.findings.filter((f) => f.kind === 'computation-failed')).toEqual([]);
   });
 });
+
+describe('import limits', () => {
+  /** Many short lines on one layer: a drawing that takes a worker a while to read. */
+  function manyLines(n: number): string {
+    const g = (code: number, value: string | number) => `${code}\n${value}\n`;
+    let body = '';
+    for (let i = 0; i < n; i++) body += g(0, 'LINE') + g(8, 'WALLS') + g(10, i * 10) + g(20, 0) + g(11, i * 10) + g(21, 500 + (i % 7));
+    return g(0, 'SECTION') + g(2, 'HEADER') + g(9, '$INSUNITS') + g(70, 4) + g(0, 'ENDSEC') + g(0, 'SECTION') + g(2, 'ENTITIES') + body + g(0, 'ENDSEC') + g(0, 'EOF');
+  }
+
+  it('beyond the configured number of imports at once, an upload gets 429 with Retry-After and a sentence; nothing half-stored', async () => {
+    const one = t.appWith({ DXF_IMPORT_CONCURRENCY: '1' });
+    const planner = await buildUser({ role: 'planner' });
+    const agent = await signedIn(one, planner.email, TEST_PASSWORD);
+    const project = await buildProject();
+    const big = Buffer.from(manyLines(40_000));
+    const [a, b] = await Promise.all([
+      agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', big, 'a.dxf'),
+      new Promise((r) => setTimeout(r, 50)).then(() => agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(tinyDxf()), 'b.dxf')),
+    ]);
+    expect(a.status).toBe(201);
+    expect(b.status).toBe(429);
+    expect(b.headers['retry-after']).toMatch(/^\d+$/);
+    expect(b.body.error.code).toBe('imports_busy');
+    expect(b.body.error.message).toMatch(/being read on this server right now.*try again in \d+ seconds/);
+    expect(await FloorPlan.count({ where: { projectId: project.id } })).toBe(1);
+    // the slot is free again once the first import is done
+    const c = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(tinyDxf()), 'c.dxf');
+    expect(c.status).toBe(201);
+  });
+
+  it('a small drawing with a huge block array is refused with 400 naming the count and the cap', async () => {
+    const g = (code: number, value: string | number) => `${code}\n${value}\n`;
+    let block = '';
+    for (let i = 0; i < 10; i++) block += g(0, 'LINE') + g(8, '0') + g(10, i * 10) + g(20, 0) + g(11, i * 10) + g(21, 5);
+    const text =
+      g(0, 'SECTION') + g(2, 'HEADER') + g(9, '$INSUNITS') + g(70, 4) + g(0, 'ENDSEC') +
+      g(0, 'SECTION') + g(2, 'BLOCKS') + g(0, 'BLOCK') + g(8, '0') + g(2, 'TILE') + g(70, 0) + g(10, 0) + g(20, 0) + g(3, 'TILE') + block + g(0, 'ENDBLK') + g(8, '0') + g(0, 'ENDSEC') +
+      g(0, 'SECTION') + g(2, 'ENTITIES') + g(0, 'INSERT') + g(8, 'FLOOR') + g(2, 'TILE') + g(10, 0) + g(20, 0) + g(70, 1000) + g(71, 1000) + g(44, 200) + g(45, 200) + g(0, 'ENDSEC') + g(0, 'EOF');
+    const agent = await plannerAgent();
+    const project = await buildProject();
+    const res = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(text), 'tiles.dxf');
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('dxf_too_complex');
+    expect(res.body.error.message).toContain('10 000 000');
+    expect(res.body.error.message).toContain('2 000 000');
+    expect(await FloorPlan.count({ where: { projectId: project.id } })).toBe(0);
+  });
+});

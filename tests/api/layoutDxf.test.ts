@@ -8,7 +8,7 @@ import { readDemoCatalogue } from '../../backend/src/db/demoCatalogue';
 import { readDemoLayout } from '../../backend/src/db/demoLayout';
 import { ArmModel, Layout } from '../../backend/src/models';
 import { importDxf } from '../../backend/src/services/dxf';
-import { DXF_LAYERS, loadLayoutSheetInput } from '../../backend/src/services/planSheet';
+import { DXF_LAYERS, layoutDxf, loadLayoutSheetInput } from '../../backend/src/services/planSheet';
 import { summarizeArms } from '../../backend/src/services/planSheet/armSummary';
 import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
@@ -118,5 +118,36 @@ describe('layout DXF export', () => {
       polyRings(DXF_LAYERS.zones),
       content.zones.filter((z) => z.kind === 'keepout' || z.kind === 'operator').map((z) => z.points.map(([x, y]) => [x, y] as [number, number])),
     );
+  });
+});
+
+describe('labels that try to write DXF records of their own', () => {
+  // A DXF file is group-code / value line pairs (DXF reference, general structure): a value holding
+  // "\n0\nLINE\n8\nEVIL…" would end the TEXT and start a LINE on layer EVIL.
+  const EVIL = 'R1\n0\nLINE\n8\nEVIL\n10\n0\n20\n0\n11\n99999\n21\n99999';
+
+  it('are refused by the API with 400 naming the field', async () => {
+    const a = await signedIn(t.app, plannerEmail, TEST_PASSWORD);
+    const layout = (await Layout.findByPk(layoutId))!;
+    const content = layout.content as { arms: Array<{ label: string }> };
+    const res = await a.put(`/api/layouts/${layoutId}`).send({ version: layout.version, content: { ...content, arms: content.arms.map((x, i) => (i === 0 ? { ...x, label: EVIL } : x)) } });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['content.arms.0.label']).toBe('Use one line of text without control characters');
+    const named = await a.put(`/api/layouts/${layoutId}`).send({ version: layout.version, name: 'Cell\r\nBcc: someone' });
+    expect(named.status).toBe(400);
+    expect(named.body.error.fields.name).toBe('Use one line of text without control characters');
+    expect((await Layout.findByPk(layoutId))!.version).toBe(layout.version);
+  });
+
+  it('written directly through layoutDxf give no extra entity when read back with the importer', async () => {
+    const input = await loadLayoutSheetInput((await Layout.findByPk(layoutId))!);
+    const clean = importDxf(layoutDxf(input));
+    const content = input.layout.content;
+    const evil = { ...input, layout: { ...input.layout, content: { ...content, arms: content.arms.map((x, i) => (i === 0 ? { ...x, label: EVIL } : x)) } } };
+    const back = importDxf(layoutDxf(evil));
+    expect(back.layers.map((l) => l.name)).not.toContain('EVIL');
+    expect(back.geometry.features.length).toBe(clean.geometry.features.length);
+    const texts = (back.geometry.features as F[]).filter((f) => f.geometry.type === 'Point' && f.properties.layer === DXF_LAYERS.arms).map((f) => f.properties.text);
+    expect(texts).toContain(`${content.arms[0].id} R1 0 LINE 8 EVIL 10 0 20 0 11 99999 21 99999`);
   });
 });

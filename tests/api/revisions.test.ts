@@ -4,11 +4,11 @@ import type { Express } from 'express';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { RevisionDiff, RevisionSnapshot } from '@shared/schemas/revision';
-import { AuditEvent, Layout, MailDelivery, MailMessage, Revision } from '../../backend/src/models';
+import { AuditEvent, Layout, MailDelivery, MailMessage, Revision, SnapshotFloorPlan } from '../../backend/src/models';
 import { startFakeSmtp, type FakeSmtp } from '../../backend/src/services/mail/fakeSmtp';
 import { createMailer, type Mailer } from '../../backend/src/services/mail/mailer';
 import { rerenderReleased } from '../../backend/src/services/release';
-import { revisionLetter } from '../../backend/src/services/revisions';
+import { fullSnapshot, revisionLetter } from '../../backend/src/services/revisions';
 import { buildArmModel, buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
 
@@ -96,12 +96,13 @@ describe('review and release workflow', () => {
     expect(revA).toMatchObject({ letter: 'A', state: 'submitted', layoutName: 'End-of-line cell' });
     const sharedZone = revA.snapshot.analysis.findings.find((f: { id: string }) => f.id === 'shared-zone:R1+R2');
     expect(sharedZone).toBeTruthy();
-    // The checksum covers the canonical JSON of the snapshot as stored.
+    // The checksum covers the canonical JSON of the whole snapshot (floor plan put back in).
     const rowA = await Revision.findByPk(revA.id);
-    expect(rowA!.checksum).toBe(sha256(JSON.stringify(sorted(rowA!.snapshot))));
+    const fullA = await fullSnapshot(rowA!);
+    expect(rowA!.checksum).toBe(sha256(JSON.stringify(sorted(fullA))));
     expect(rowA!.checksum).toBe(revA.checksum);
-    // The stored snapshot has the shape the shared schema (and so the review page) expects.
-    expect(RevisionSnapshot.safeParse(rowA!.snapshot).error?.issues ?? []).toEqual([]);
+    // The whole snapshot has the shape the shared schema (and so the review page) expects.
+    expect(RevisionSnapshot.safeParse(fullA).error?.issues ?? []).toEqual([]);
     // Only one open revision per layout.
     expect((await P.post(`/api/layouts/${layout.id}/revisions`)).status).toBe(409);
 
@@ -283,3 +284,112 @@ describe('review and release workflow', () => {
 });
 
 export type { Express };
+
+/** A hand-written ASCII DXF: a 10 m × 6 m hall outline and one wall, in mm. */
+function hallDxf(): string {
+  const g = (code: number, value: string | number) => `${code}\n${value}\n`;
+  const outline = g(0, 'LWPOLYLINE') + g(8, 'OUTLINE') + g(90, 4) + g(70, 1) + g(10, 0) + g(20, 0) + g(10, 10000) + g(20, 0) + g(10, 10000) + g(20, 6000) + g(10, 0) + g(20, 6000);
+  const wall = g(0, 'LINE') + g(8, 'WALLS') + g(10, 5000) + g(20, 0) + g(11, 5000) + g(21, 2000);
+  return g(0, 'SECTION') + g(2, 'HEADER') + g(9, '$INSUNITS') + g(70, 4) + g(0, 'ENDSEC') + g(0, 'SECTION') + g(2, 'ENTITIES') + outline + wall + g(0, 'ENDSEC') + g(0, 'EOF');
+}
+
+describe('floor plans of revisions', () => {
+  it('two revisions of the same layout store one floor-plan row; lists never select the snapshot; the detail shows the plan', async () => {
+    const planner = await buildUser({ role: 'planner' });
+    const reviewer = await buildUser({ role: 'reviewer' });
+    const model = await buildArmModel();
+    const project = await buildProject({ members: [planner] });
+    const P = await signedIn(t.app, planner.email, TEST_PASSWORD);
+    const R = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
+    const fp = await P.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(hallDxf()), 'hall.dxf');
+    expect(fp.status).toBe(201);
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: fp.body.id, name: 'Hall cell', content: content(model.id, [4000, 3000]), createdBy: planner.id });
+
+    const plansBefore = await SnapshotFloorPlan.count();
+    const a = await P.post(`/api/layouts/${layout.id}/revisions`);
+    expect(a.status).toBe(201);
+    expect((await R.post(`/api/revisions/${a.body.revision.id}/decision`).send({ decision: 'request_changes', comment: 'Move picker 1.' })).status).toBe(200);
+    await P.put(`/api/layouts/${layout.id}`).send({ version: layout.version, content: content(model.id, [3000, 3000]) }).expect(200);
+    const b = await P.post(`/api/layouts/${layout.id}/revisions`);
+    expect(b.status).toBe(201);
+
+    const [rowA, rowB] = await Promise.all([Revision.findByPk(a.body.revision.id), Revision.findByPk(b.body.revision.id)]);
+    expect(await SnapshotFloorPlan.count()).toBe(plansBefore + 1);
+    expect(rowA!.floorPlanChecksum).toMatch(/^[0-9a-f]{64}$/);
+    expect(rowB!.floorPlanChecksum).toBe(rowA!.floorPlanChecksum);
+    // The row holds no copy of the plan; the stored plan's key is the sha256 of its canonical JSON.
+    expect(rowA!.snapshot.floorPlan).toBeUndefined();
+    const stored = (await SnapshotFloorPlan.findByPk(rowA!.floorPlanChecksum!))!;
+    expect(sha256(JSON.stringify(sorted(stored.content)))).toBe(rowA!.floorPlanChecksum);
+    expect(stored.content.geometry.features.length).toBe(2);
+    // Each revision's checksum still covers the whole snapshot, plan included.
+    for (const row of [rowA!, rowB!]) expect(sha256(JSON.stringify(sorted(await fullSnapshot(row))))).toBe(row.checksum);
+
+    // The list queries select the columns they show, never the snapshot column itself.
+    const sql: string[] = [];
+    // Sequelize passes every statement to options.logging (typed only on the constructor's options)
+    const opts = (t.sequelize as unknown as { options: { logging: unknown } }).options;
+    const logging = opts.logging;
+    opts.logging = (q: string) => void sql.push(q);
+    try {
+      const byLayout = await P.get(`/api/layouts/${layout.id}/revisions`);
+      expect(byLayout.status).toBe(200);
+      expect(byLayout.body.revisions.map((r: { letter: string; layoutName: string; counts: { arms: number } }) => [r.letter, r.layoutName, r.counts.arms])).toEqual([
+        ['A', 'Hall cell', 2],
+        ['B', 'Hall cell', 2],
+      ]);
+      expect((await P.get(`/api/projects/${project.id}/revisions`)).status).toBe(200);
+    } finally {
+      opts.logging = logging;
+    }
+    const listQueries = sql.filter((q) => /FROM "revisions"/.test(q));
+    expect(listQueries.length).toBe(2);
+    for (const q of listQueries) {
+      // "snapshot" appears only inside the JSON path expressions that read out the shown figures
+      expect(q).not.toMatch(/"snapshot"(?!->)/);
+      expect(q).not.toContain('"planSheet"');
+    }
+
+    // The detail shows the plan (from the shared row) and the diff against A.
+    const detail = await P.get(`/api/revisions/${b.body.revision.id}`);
+    expect(detail.status).toBe(200);
+    expect(detail.body.revision.snapshot.floorPlan.geometry.features.length).toBe(2);
+    expect(detail.body.revision.snapshot.floorPlan.id).toBe(fp.body.id);
+    expect(detail.body.revision.diff.previous).toEqual({ id: rowA!.id, letter: 'A' });
+    expect(detail.body.revision.diff.arms.moved.map((m: { id: string; distance: number }) => [m.id, m.distance])).toEqual([['R1', 1000]]);
+    // The sheet of a revision is drawn from the stored plan.
+    const sheet = await pdfGet(P, `/api/revisions/${b.body.revision.id}/plan-sheet.pdf`);
+    expect(sheet.status).toBe(200);
+  });
+
+  it('revisions stored with the plan inside the snapshot move it out in the migration and keep their checksums; down puts it back', async () => {
+    const { makeInlineRevisions } = await import('../support/revisionFixtures');
+    const planner = await buildUser({ role: 'planner' });
+    const model = await buildArmModel();
+    const project = await buildProject({ members: [planner] });
+    const P = await signedIn(t.app, planner.email, TEST_PASSWORD);
+    const fp = await P.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(hallDxf()), 'hall.dxf');
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: fp.body.id, name: 'Old cell', content: content(model.id, [4000, 3000]), createdBy: planner.id });
+    const ids = await makeInlineRevisions(layout);
+    const before = await Revision.findAll({ where: { id: ids }, order: [['id', 'ASC']] });
+    expect(before.every((r) => r.floorPlanChecksum === null && r.snapshot.floorPlan)).toBe(true);
+
+    const migration = await import('../../backend/src/db/migrations/20261202091000-create-snapshot-floor-plans');
+    const qi = t.sequelize.getQueryInterface();
+    // down: every plan back inline (the rows made by the API above included), table gone
+    await migration.down({ context: qi });
+    const [inline] = (await t.sequelize.query(`SELECT count(*)::int AS n FROM revisions WHERE jsonb_typeof(snapshot->'floorPlan') = 'object'`)) as [Array<{ n: number }>, unknown];
+    expect(inline[0].n).toBeGreaterThanOrEqual(2);
+    // up: plans moved out, one row per content, checksums unchanged and still verifying
+    await migration.up({ context: qi });
+    const after = await Revision.findAll({ where: { id: ids }, order: [['id', 'ASC']] });
+    expect(after[0].floorPlanChecksum).toMatch(/^[0-9a-f]{64}$/);
+    expect(after[1].floorPlanChecksum).toBe(after[0].floorPlanChecksum);
+    for (const [i, row] of after.entries()) {
+      expect(row.snapshot.floorPlan).toBeUndefined();
+      expect(row.checksum).toBe(before[i].checksum);
+      expect(sha256(JSON.stringify(sorted(await fullSnapshot(row))))).toBe(row.checksum);
+    }
+    await expect(Revision.update({ floorPlanChecksum: null }, { where: { id: ids[0] } })).rejects.toThrow(/immutable/);
+  });
+});

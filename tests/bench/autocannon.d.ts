@@ -1,20 +1,29 @@
-// The part of autocannon's API the load benchmark uses (the package ships no types).
+// The part of autocannon's API the benchmarks use (the package ships no types).
 declare module 'autocannon' {
-  interface Options {
-    url: string;
-    connections?: number;
-    duration?: number;
-    headers?: Record<string, string>;
+  namespace autocannon {
+    interface Options {
+      url: string;
+      connections?: number;
+      duration?: number;
+      headers?: Record<string, string>;
+    }
+    interface Histogram {
+      p50: number;
+      p99: number;
+      average: number;
+      max: number;
+    }
+    interface Result {
+      latency: Histogram;
+      requests: { total: number; average: number };
+      errors: number;
+      timeouts: number;
+      non2xx: number;
+    }
+    interface Instance extends PromiseLike<Result> {
+      on(event: 'response', cb: (client: unknown, statusCode: number, resBytes: number, responseTimeMs: number) => void): Instance;
+    }
   }
-  interface Result {
-    errors: number;
-    timeouts: number;
-    non2xx: number;
-    requests: { average: number; total: number };
-  }
-  interface Instance extends PromiseLike<Result> {
-    on(event: 'response', cb: (client: unknown, statusCode: number, resBytes: number, responseTimeMs: number) => void): Instance;
-  }
-  function autocannon(opts: Options): Instance;
+  function autocannon(opts: autocannon.Options): autocannon.Instance;
   export default autocannon;
 }

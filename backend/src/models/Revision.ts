@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { RevisionSnapshot } from '@shared/schemas/revision';
+import type { StoredRevisionSnapshot } from '@shared/schemas/revision';
 
 export const REVISION_STATES = ['submitted', 'changes_requested', 'approved', 'released'] as const;
 export type RevisionState = (typeof REVISION_STATES)[number];
@@ -13,9 +13,11 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
   declare layoutId: number;
   declare projectId: number;
   declare letter: string;
-  /** Frozen when the revision is submitted (shared/schemas/revision.ts); JSON as written. */
-  declare snapshot: RevisionSnapshot;
-  /** sha256 of the canonical JSON of `snapshot`, hex. */
+  /** Frozen when the revision is submitted (shared/schemas/revision.ts), without its floor plan. */
+  declare snapshot: StoredRevisionSnapshot;
+  /** The frozen floor plan (snapshot_floor_plans.checksum), null when the layout had none or it is inline. */
+  declare floorPlanChecksum: CreationOptional<string | null>;
+  /** sha256 of the canonical JSON of the whole snapshot, floor plan included, hex. */
   declare checksum: string;
   declare state: RevisionState;
   declare submittedBy: number | null;
@@ -38,6 +40,7 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
         projectId: { type: DataTypes.INTEGER, allowNull: false },
         letter: { type: DataTypes.STRING(8), allowNull: false },
         snapshot: { type: DataTypes.JSONB, allowNull: false },
+        floorPlanChecksum: { type: DataTypes.STRING(64), allowNull: true },
         checksum: { type: DataTypes.STRING(64), allowNull: false },
         state: { type: DataTypes.STRING(24), allowNull: false },
         submittedBy: { type: DataTypes.INTEGER, allowNull: true },

@@ -11,10 +11,11 @@ import { Project } from './Project';
 import { ProjectMember } from './ProjectMember';
 import { ReviewComment } from './ReviewComment';
 import { Revision } from './Revision';
+import { SnapshotFloorPlan } from './SnapshotFloorPlan';
 import { User } from './User';
 
 export { ArmModel, AuditEvent, FloorPlan, Layout, MailMessage, Project, ProjectMember, User };
-export { Acknowledgement, Invitation, MailDelivery, ReviewComment, Revision };
+export { Acknowledgement, Invitation, MailDelivery, ReviewComment, Revision, SnapshotFloorPlan };
 export { presentProject } from './Project';
 export { presentUser } from './User';
 
@@ -34,6 +35,7 @@ export function initModels(sequelize: Sequelize): void {
   Layout.initModel(sequelize);
   MailMessage.initModel(sequelize);
   Revision.initModel(sequelize);
+  SnapshotFloorPlan.initModel(sequelize);
   ReviewComment.initModel(sequelize);
   Acknowledgement.initModel(sequelize);
   Invitation.initModel(sequelize);

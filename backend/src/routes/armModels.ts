@@ -4,7 +4,7 @@ import { allow, currentUser } from '../auth/guards';
 import { conflict, HttpError, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
 import { ArmModel } from '../models';
-import { ArmModelInput, layoutsUsingArmModel, presentArmModel } from '../services/armModels';
+import { ArmModelInput, layoutsUsingArmModel, presentArmModel, reachSummaryInPool } from '../services/armModels';
 import { audit } from '../services/audit/audit';
 
 async function loadArmModel(id: number, transaction?: Transaction): Promise<ArmModel> {
@@ -56,10 +56,11 @@ export function armModelsRouter(sequelize: Sequelize): Router {
   r.post('/arm-models', allow('armModel.write'), async (req, res) => {
     const user = currentUser(req);
     const input = parseOr400(ArmModelInput, req.body, 'The arm model');
+    const reachSummary = await reachSummaryInPool(input.params);
     const created = await withUniqueName(input.name, () =>
       sequelize.transaction(async (transaction) => {
         await assertNameFree(input.name, null, transaction);
-        const m = await ArmModel.create({ name: input.name, family: input.params.family, params: input.params, builtIn: false, createdBy: user.id }, { transaction });
+        const m = await ArmModel.create({ name: input.name, family: input.params.family, params: input.params, reachSummary, builtIn: false, createdBy: user.id }, { transaction });
         await audit(user.id, 'armModel.create', 'armModel', m.id, { name: m.name, family: m.family }, transaction);
         return m;
       }),
@@ -73,13 +74,14 @@ export function armModelsRouter(sequelize: Sequelize): Router {
     const existing = await loadArmModel(id);
     if (existing.builtIn) throw builtInReadOnly(existing);
     const input = parseOr400(ArmModelInput, req.body, 'The arm model');
+    const reachSummary = await reachSummaryInPool(input.params);
     const updated = await withUniqueName(input.name, () =>
       sequelize.transaction(async (transaction) => {
         const m = await loadArmModel(id, transaction);
         if (m.builtIn) throw builtInReadOnly(m);
         await assertNameFree(input.name, m.id, transaction);
         const before = { name: m.name, family: m.family };
-        await m.update({ name: input.name, family: input.params.family, params: input.params }, { transaction });
+        await m.update({ name: input.name, family: input.params.family, params: input.params, reachSummary }, { transaction });
         await audit(user.id, 'armModel.update', 'armModel', m.id, { before, name: m.name, family: m.family }, transaction);
         return m;
       }),

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { multiLineText } from '@shared/schemas/fields';
 import { allow, currentUser } from '../auth/guards';
 import type { FeatureContext } from '../featureContext';
 import { badRequest, conflict, notFound } from '../http/errors';
@@ -11,7 +12,7 @@ import { loadVisibleRevision, presentComment } from '../services/revisions';
 const finite = z.number().refine(Number.isFinite, 'must be finite');
 const CommentInput = z
   .object({
-    body: z.string().trim().min(1, 'Write the comment').max(10_000, 'Use at most 10 000 characters'),
+    body: multiLineText().min(1, 'Write the comment').max(10_000, 'Use at most 10 000 characters'),
     findingId: z.string().trim().min(1).max(200).optional(),
     /** A plan spot, mm (x east, y north). */
     point: z.object({ x: finite, y: finite }).strict().optional(),

@@ -1,4 +1,4 @@
-import { Router, type RequestHandler } from 'express';
+import { Router, type RequestHandler, type Response } from 'express';
 import multer from 'multer';
 import type { Sequelize } from 'sequelize';
 import { FloorPlanPatch, type ImportResult } from '@shared/schemas/floorPlan';
@@ -50,6 +50,35 @@ async function loadVisiblePlan(user: SessionUser, id: number, withGeometry: bool
   return fp;
 }
 
+/** Seconds a client is asked to wait when every import slot is taken. */
+const IMPORT_RETRY_AFTER_S = 5;
+
+/**
+ * At most `limit` DXF imports at once in this server: each holds up to a worker thread and its
+ * heap, so more would only queue memory. `take` answers 429 with Retry-After when all are taken.
+ */
+function importSlots(limit: number) {
+  let active = 0;
+  return {
+    take(res: Response): () => void {
+      if (active >= limit) {
+        res.set('Retry-After', String(IMPORT_RETRY_AFTER_S));
+        throw new HttpError(
+          429,
+          'imports_busy',
+          `${limit === 1 ? 'A drawing is' : `${limit} drawings are`} being read on this server right now, the most it reads at once; try again in ${IMPORT_RETRY_AFTER_S} seconds.`,
+        );
+      }
+      active++;
+      let done = false;
+      return () => {
+        if (!done) active--;
+        done = true;
+      };
+    },
+  };
+}
+
 /** Carries roles and heights the planner set over to a re-read of the same drawing. */
 function keepLayerChoices(result: ImportResult, previous: FloorPlan['layers']): ImportResult['layers'] {
   const byName = new Map(previous.map((l) => [l.name, l]));
@@ -60,8 +89,9 @@ function keepLayerChoices(result: ImportResult, previous: FloorPlan['layers']): 
 }
 
 /** Floor plans: DXF upload (multer, in memory, size-capped), read, layer roles and units, source, delete. */
-export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes: number }): Router {
+export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes: number; importConcurrency?: number }): Router {
   const r = Router();
+  const imports = importSlots(opts.importConcurrency ?? 2);
   const capMb = Math.round((opts.uploadLimitBytes / 1024 / 1024) * 10) / 10;
   const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: opts.uploadLimitBytes, files: 1, fields: 10 } });
   const singleFile: RequestHandler = (req, res, next) => {
@@ -85,16 +115,21 @@ export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes:
   r.post('/projects/:id/floor-plans', allow('floorPlan.write'), async (req, res) => {
     const user = currentUser(req);
     const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
-    await new Promise<void>((resolve, reject) => singleFile(req, res, (e?: unknown) => (e ? reject(e) : resolve())));
-    const file = req.file;
-    if (!file) throw badRequest('Choose a DXF file to upload (form field "file").', { file: 'Choose a DXF file' });
-    if (file.size === 0) throw badRequest('The file is empty.', { file: 'The file is empty' });
     let result: ImportResult;
+    const release = imports.take(res);
     try {
-      result = await readFloorPlan(file.buffer);
-    } catch (err) {
-      importFailure(err);
+      await new Promise<void>((resolve, reject) => singleFile(req, res, (e?: unknown) => (e ? reject(e) : resolve())));
+      if (!req.file) throw badRequest('Choose a DXF file to upload (form field "file").', { file: 'Choose a DXF file' });
+      if (req.file.size === 0) throw badRequest('The file is empty.', { file: 'The file is empty' });
+      try {
+        result = await readFloorPlan(req.file.buffer);
+      } catch (err) {
+        importFailure(err);
+      }
+    } finally {
+      release();
     }
+    const file = req.file;
     const fileName = (file.originalname || 'floor-plan.dxf').slice(0, 255);
     const fp = await sequelize.transaction(async (transaction) => {
       const row = await FloorPlan.create(
@@ -137,10 +172,13 @@ export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes:
       if (patch.units && patch.units !== fp.units) {
         // Re-read the stored original in the chosen unit: geometry rescaled exactly, no re-upload.
         let result: ImportResult;
+        const release = imports.take(res);
         try {
           result = await readFloorPlan(fp.originalDxf, { units: patch.units });
         } catch (err) {
           importFailure(err);
+        } finally {
+          release();
         }
         layers = keepLayerChoices(result, fp.layers);
         Object.assign(changes, {

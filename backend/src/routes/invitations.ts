@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { ipKeyGenerator } from 'express-rate-limit';
 import { Op } from 'sequelize';
 import { z } from 'zod';
+import { singleLineText } from '@shared/schemas/fields';
 import { Email, Password, Role } from '@shared/schemas/user';
 import { allow, currentUser } from '../auth/guards';
 import { markSignedIn } from '../auth/passport';
@@ -13,7 +14,7 @@ import { mailContextFor } from '../services/mailContext';
 import { acceptInvitation, createInvitation, findByToken, invitationGone, revokeInvitation } from '../services/invitations';
 
 const InvitationInput = z.object({ email: Email, role: Role, projectId: z.number().int().positive().nullable().optional() }).strict();
-const AcceptInput = z.object({ name: z.string().trim().min(1, 'Enter your name').max(120), password: Password }).strict();
+const AcceptInput = z.object({ name: singleLineText().min(1, 'Enter your name').max(120), password: Password }).strict();
 
 function presentInvitation(i: Invitation, projects: Map<number, string>, now: Date) {
   return {

@@ -3,7 +3,8 @@ import { z } from 'zod';
 import { allow } from '../auth/guards';
 import { HttpError } from '../http/errors';
 import { parseOr400 } from '../http/validate';
-import { bandsAt, cachedReachProfile, forwardModel, resolveModelParams } from '../services/armModels';
+import { forwardModel, resolveModelParams } from '../services/armModels';
+import { runHeavy } from '../services/workerPool';
 
 const finite = (what: string) => z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be finite`);
 
@@ -41,14 +42,8 @@ export function kinematicsRouter(): Router {
   r.post('/kinematics/reach', allow('kinematics.use'), async (req, res) => {
     const body = parseOr400(ReachBody, req.body);
     const params = await resolveModelParams(body.model);
-    const profile = cachedReachProfile(params);
-    res.json({
-      profile: { polygons: profile.polygons, method: profile.method, zMin: profile.zMin, zMax: profile.zMax },
-      tolerance: profile.toleranceMm,
-      maxReach: profile.maxReach,
-      minReach: profile.minReach,
-      bands: bandsAt(params, body.heights ?? []),
-    });
+    // Profiles of long chains take a while: computed in the heavy-work pool, never on this thread.
+    res.json(await runHeavy({ kind: 'reach', params, heights: body.heights ?? [] }));
   });
 
   return r;

@@ -3,7 +3,8 @@ import { allow, currentUser } from '../auth/guards';
 import { badRequest } from '../http/errors';
 import { idParam } from '../http/validate';
 import { loadVisibleLayout } from '../services/layouts';
-import { layoutDxf, loadLayoutSheetInput, renderPlanSheet, SCALE_SERIES, SHEET_KINDS, SHEET_SIZES, type PlanSheetOptions, type SheetKind, type SheetScale, type SheetSize } from '../services/planSheet';
+import { renderPlanSheetInPool } from '../services/planSheet/renderInPool';
+import { layoutDxf, loadLayoutSheetInput, SCALE_SERIES, SHEET_KINDS, SHEET_SIZES, type PlanSheetOptions, type SheetKind, type SheetScale, type SheetSize } from '../services/planSheet';
 
 const one = (v: unknown, name: string): string | undefined => {
   if (v === undefined) return undefined;
@@ -45,7 +46,7 @@ export function planSheetsRouter(): Router {
     const layout = await loadVisibleLayout(currentUser(req), idParam(req.params.id, 'Layout'));
     const opts = planSheetQuery(req.query as Record<string, unknown>);
     const input = await loadLayoutSheetInput(layout);
-    const pdf = await renderPlanSheet(input, { ...opts, draft: true, createdAt: new Date() });
+    const pdf = await renderPlanSheetInPool(input, { ...opts, draft: true, createdAt: new Date() });
     res.set('Content-Type', 'application/pdf');
     res.set('Content-Disposition', `inline; filename="${fileBase(layout.name)}-working-copy.pdf"`);
     res.set('Cache-Control', 'no-store');

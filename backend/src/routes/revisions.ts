@@ -1,6 +1,7 @@
 import { Router, type Request } from 'express';
 import { z } from 'zod';
 import { can } from '@shared/policy';
+import { multiLineText } from '@shared/schemas/fields';
 import { allow, currentUser } from '../auth/guards';
 import type { FeatureContext } from '../featureContext';
 import { conflict, notFound } from '../http/errors';
@@ -9,12 +10,12 @@ import { Revision } from '../models';
 import { loadVisibleLayout } from '../services/layouts';
 import { mailContextFor } from '../services/mailContext';
 import { acknowledgeRevision, planSheetFor, releaseRevision, retryReleaseMail } from '../services/release';
-import { decideRevision, loadVisibleRevision, presentRevisionDetail, presentRevisions, submitRevision } from '../services/revisions';
+import { decideRevision, loadVisibleRevision, presentRevisionDetail, presentRevisions, REVISION_LIST_ATTRIBUTES, submitRevision } from '../services/revisions';
 import { loadVisibleProject } from '../services/projectAccess';
 
 const DecisionInput = z.object({
   decision: z.enum(['approve', 'request_changes'], { error: 'Choose approve or request changes' }),
-  comment: z.string().max(10_000, 'Use at most 10 000 characters').default(''),
+  comment: multiLineText().max(10_000, 'Use at most 10 000 characters').default(''),
 });
 
 /** Revisions: submit (planner), decide (reviewer), release (planner), plan sheet, acknowledge (client). */
@@ -32,7 +33,7 @@ export function revisionsRouter(ctx: FeatureContext): Router {
   r.get('/layouts/:id/revisions', allow('revision.readDrafts'), async (req, res) => {
     const user = currentUser(req);
     const layout = await loadVisibleLayout(user, idParam(req.params.id, 'Layout'));
-    const revs = await Revision.findAll({ where: { layoutId: layout.id }, attributes: { exclude: ['planSheet'] }, order: [['id', 'ASC']] });
+    const revs = await Revision.findAll({ where: { layoutId: layout.id }, attributes: REVISION_LIST_ATTRIBUTES, order: [['id', 'ASC']] });
     res.json({ revisions: await presentRevisions(user, revs) });
   });
 
@@ -40,7 +41,7 @@ export function revisionsRouter(ctx: FeatureContext): Router {
     const user = currentUser(req);
     const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
     const where = can(user.role, 'revision.readDrafts') ? { projectId: project.id } : { projectId: project.id, state: 'released' };
-    const revs = await Revision.findAll({ where, attributes: { exclude: ['planSheet'] }, order: [['layoutId', 'ASC'], ['id', 'ASC']] });
+    const revs = await Revision.findAll({ where, attributes: REVISION_LIST_ATTRIBUTES, order: [['layoutId', 'ASC'], ['id', 'ASC']] });
     res.json({ revisions: await presentRevisions(user, revs) });
   });
 

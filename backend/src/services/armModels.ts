@@ -1,13 +1,12 @@
 import type { z } from 'zod';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel, reachProfileOf } from '@shared/kinematics/families';
-import { bandAt } from '@shared/kinematics/planRegions';
-import type { AreaGeometry } from '@shared/geometry/geojson';
-import type { ReachProfile } from '@shared/kinematics/types';
+import { FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel } from '@shared/kinematics/families';
 import type { ArmParams } from '@shared/schemas/armModel';
 import { fieldErrors } from '@shared/schemas/errors';
 import { badRequest, notFound } from '../http/errors';
 import { ArmModel } from '../models';
+import type { ArmReachSummary } from './armReachSummary';
+import { runHeavy } from './workerPool';
 
 /** Parameters of any arm model family (lengths mm, angles deg): the shared discriminated union plus the kinematic checks. */
 export const ArmModelParams = feasibleArmParamsSchema;
@@ -30,16 +29,18 @@ export interface ArmModelDto {
   /** Largest and smallest horizontal reach of the tool point from the J1 axis, mm (null when the stored parameters no longer parse). */
   maxReach: number | null;
   minReach: number | null;
+  /** The stored reach figures (arm frame, mm; computed when the model was saved), null as above. */
+  reach: ArmReachSummary | null;
 }
 
-/** The side reach profile of a parameter set (the shared core keeps a small cache per parameter set). */
-export function cachedReachProfile(params: ArmModelParams): ReachProfile {
-  return reachProfileOf(params);
+/** The reach summary of new parameters, computed in the heavy-work pool (stored with the model on save). */
+export function reachSummaryInPool(params: ArmModelParams): Promise<ArmReachSummary> {
+  return runHeavy({ kind: 'armSummary', params });
 }
 
+/** An arm model as the API shows it; the reach figures come from the row (never recomputed here). */
 export function presentArmModel(m: ArmModel): ArmModelDto {
-  const parsed = ArmModelParams.safeParse(m.params);
-  const profile = parsed.success ? cachedReachProfile(parsed.data) : null;
+  const summary = m.reachSummary ?? null;
   return {
     id: m.id,
     name: m.name,
@@ -49,8 +50,9 @@ export function presentArmModel(m: ArmModel): ArmModelDto {
     createdBy: m.createdBy,
     createdAt: m.createdAt.toISOString(),
     updatedAt: m.updatedAt.toISOString(),
-    maxReach: profile ? profile.maxReach : null,
-    minReach: profile ? profile.minReach : null,
+    maxReach: summary ? summary.maxReach : null,
+    minReach: summary ? summary.minReach : null,
+    reach: summary,
   };
 }
 
@@ -90,9 +92,4 @@ export async function layoutsUsingArmModel(
       ORDER BY p.name, l.name`,
     { replacements: { needle: JSON.stringify([{ armModelId }]) }, type: QueryTypes.SELECT, transaction },
   );
-}
-
-/** Reach bands at tool-point heights above the base plate (plan view, arm frame, GeoJSON in mm): annular sectors from the profile slice. */
-export function bandsAt(params: ArmModelParams, heights: readonly number[]): Array<{ height: number; geometry: AreaGeometry }> {
-  return heights.map((height) => ({ height, geometry: bandAt(params, height) }));
 }

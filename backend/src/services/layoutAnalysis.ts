@@ -1,23 +1,52 @@
-import { createAnalyzer, prepareFloor, type AnalysisResult, type FloorLayer } from '@shared/analysis';
-import { armReachFor } from '@shared/analysis/armReach';
+import type { AnalysisResult, FloorLayer } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
+import { HttpError } from '../http/errors';
 import { ArmModel, FloorPlan, type Layout } from '../models';
+import { runHeavy } from './workerPool';
+
+let maxChecks = 2_000_000;
+
+/** Sets the most reach checks (arms × work points × work heights) one analysis may ask for. */
+export function setAnalysisCap(cap: number): void {
+  maxChecks = cap;
+}
+
+const n = (v: number) => v.toLocaleString('en-GB').replace(/,/g, ' ');
+
+/** 413 naming the counts and the cap when a layout asks for more reach checks than one analysis may hold. */
+export function assertAnalysisSize(content: Pick<LayoutContent, 'arms' | 'workPoints' | 'workHeights'>): void {
+  const arms = content.arms.length;
+  const points = content.workPoints.length;
+  const heights = Math.max(1, content.workHeights.length);
+  const checks = arms * points * heights;
+  if (checks > maxChecks) {
+    throw new HttpError(
+      413,
+      'analysis_too_large',
+      `The layout asks for ${n(arms)} arms × ${n(points)} work points × ${n(heights)} work heights = ${n(checks)} reach checks; one analysis may hold at most ${n(maxChecks)}. Split the layout into smaller ones.`,
+      undefined,
+      { limits: { arms, workPoints: points, workHeights: heights, checks, maxChecks } },
+    );
+  }
+}
 
 /**
  * Runs the shared analysis on a layout as stored: its floor plan (layer roles and heights), the arm
- * models it places, its work points, zones and work heights.
+ * models it places, its work points, zones and work heights. The database is read here; the
+ * analysis itself runs in the heavy-work pool (services/workerPool.ts).
  */
 export async function analyzeLayout(layout: Layout, contentOverride?: LayoutContent): Promise<AnalysisResult> {
   const content = contentOverride ?? (layout.content as LayoutContent);
+  assertAnalysisSize(content);
   const modelIds = [...new Set(content.arms.map((a) => a.armModelId))];
   const models = await ArmModel.findAll({ where: { id: modelIds }, attributes: ['id', 'params'] });
-  const params = new Map(models.map((m) => [m.id, m.params]));
   const fp = layout.floorPlanId ? await FloorPlan.findByPk(layout.floorPlanId, { attributes: ['id', 'geometry', 'layers'] }) : null;
-  const floor = fp ? prepareFloor(fp.geometry, fp.layers as FloorLayer[]) : null;
-  const analyzer = createAnalyzer((modelId, restrict) => {
-    const p = params.get(modelId);
-    if (!p) throw new Error(`arm model ${modelId} does not exist`);
-    return armReachFor(p, restrict);
+  return runHeavy({
+    kind: 'analysis',
+    job: {
+      models: models.map((m) => [m.id, m.params]),
+      floor: fp ? { geometry: fp.geometry, layers: fp.layers as FloorLayer[] } : null,
+      content: { arms: content.arms, workPoints: content.workPoints, zones: content.zones, workHeights: content.workHeights },
+    },
   });
-  return analyzer.analyze({ arms: content.arms, workPoints: content.workPoints, zones: content.zones, workHeights: content.workHeights, floor });
 }

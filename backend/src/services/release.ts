@@ -10,7 +10,7 @@ import type { SessionUser } from '../auth/passport';
 import { conflict, notFound } from '../http/errors';
 import { Acknowledgement, MailDelivery, ProjectMember, Revision, User } from '../models';
 import { audit } from './audit/audit';
-import { renderPlanSheet } from './planSheet';
+import { renderPlanSheetInPool } from './planSheet/renderInPool';
 import type { PlanSheetInput, PlanSheetOptions } from './planSheet/types';
 import { attemptDelivery, recordDelivery, releasedMail, type MailContext } from './reviewMail';
 import { loadRevisionSheetInput } from './revisions';
@@ -19,7 +19,7 @@ import { loadRevisionSheetInput } from './revisions';
 export const RELEASE_SHEET_SIZE = 'A3' as const;
 
 function render(input: PlanSheetInput, opts: PlanSheetOptions): Promise<Buffer> {
-  return renderPlanSheet(input, opts);
+  return renderPlanSheetInPool(input, opts);
 }
 
 /** sha256 of bytes, hex. */

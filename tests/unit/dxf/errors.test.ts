@@ -177,3 +177,39 @@ describe('options', () => {
     expect(() => importDxf(text, { chordToleranceMm: Number.NaN })).toThrow(/^chordToleranceMm: /);
   });
 });
+
+describe('block arrays that would expand to too much', () => {
+  it('a small file with a 1000 × 1000 array of a 10-line block is refused before any copy is placed, naming the count and the cap', () => {
+    const w = new DxfWriter().insunits(4);
+    w.block('TILE', [0, 0], (b) => {
+      for (let i = 0; i < 10; i++) b.line('0', [i * 10, 0], [i * 10, 5]);
+    });
+    w.insert('FLOOR', 'TILE', [0, 0], { columns: 1000, rows: 1000, columnSpacing: 200, rowSpacing: 200 });
+    const text = w.toString();
+    expect(text.length).toBeLessThan(20_000);
+    const err = expectCode(text, 'too-complex');
+    // 1000 × 1000 copies × 10 lines = 10 000 000 entities, against the cap of 2 000 000
+    expect(err.message).toContain('1 000 × 1 000');
+    expect(err.message).toContain('10 000 000');
+    expect(err.message).toContain('2 000 000');
+  });
+
+  it('nested arrays are multiplied through every level', () => {
+    const w = new DxfWriter().insunits(4);
+    w.block('CELL', [0, 0], (b) => b.line('0', [0, 0], [1, 1]));
+    w.block('ROW', [0, 0], (b) => b.insert('0', 'CELL', [0, 0], { columns: 2000, columnSpacing: 2 }));
+    w.insert('FLOOR', 'ROW', [0, 0], { rows: 2000, rowSpacing: 2 });
+    // one ROW places its INSERT plus 2000 lines = 2001; 2000 rows of it = 4 002 000
+    const err = expectCode(w.toString(), 'too-complex');
+    expect(err.message).toContain('4 002 000');
+  });
+
+  it('an array within the cap is still drawn in full', () => {
+    const w = new DxfWriter().insunits(4);
+    w.block('POST', [0, 0], (b) => b.line('0', [0, 0], [100, 0]));
+    w.insert('COLUMNS', 'POST', [0, 0], { columns: 30, rows: 20, columnSpacing: 1000, rowSpacing: 1000 });
+    const r = importDxf(w.toString());
+    // 30 × 20 copies of one 100 mm line, 1 m apart: 600 separate lines
+    expect(r.geometry.features.filter((f) => f.properties?.layer === 'COLUMNS').length).toBe(600);
+  });
+});

@@ -19,6 +19,8 @@ export interface BlockWalk {
   /** External references (xrefs) that are not part of the file. */
   xrefs: Set<string>;
   instances: number;
+  /** Entities one placement of a block lays out, its nested blocks and arrays included (by block name, upper case). */
+  placed: Map<string, number>;
 }
 
 export function newBlockWalk(rawBlocks: unknown, chordToleranceMm: number): BlockWalk {
@@ -36,6 +38,7 @@ export function newBlockWalk(rawBlocks: unknown, chordToleranceMm: number): Bloc
     tooDeep: new Set(),
     xrefs: new Set(),
     instances: 0,
+    placed: new Map(),
   };
 }
 
@@ -53,6 +56,41 @@ function findBlock(w: BlockWalk, name: string): Loose | undefined {
   for (const [k, v] of w.blocks) if (k.toUpperCase() === upper) return v;
   return undefined;
 }
+
+/** Column and row counts of an INSERT (1 × 1 for a plain one; MINSERT arrays more). */
+function arrayCounts(e: Loose): [number, number] {
+  const count = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) ? Math.max(1, Math.floor(v)) : 1);
+  return [count(e.columnCount), count(e.rowCount)];
+}
+
+/**
+ * How many entities one placement of `block` lays out: each entity once, each INSERT itself plus
+ * columns × rows × the entities of its block, recursively (a block inserting itself, a missing
+ * block or one nested too deep adds nothing: the walk skips them). Counted from the block table
+ * alone, before anything is expanded.
+ */
+function placedEntities(w: BlockWalk, block: Loose, stack: readonly string[]): number {
+  const name = typeof block.name === 'string' ? block.name.toUpperCase() : '';
+  const known = w.placed.get(name);
+  if (known !== undefined) return known;
+  const children = Array.isArray(block.entities) ? (block.entities as unknown[]) : [];
+  let n = 0;
+  for (const raw of children) {
+    n += 1;
+    const e = raw && typeof raw === 'object' ? (raw as Loose) : null;
+    if (!e || e.type !== 'INSERT' || typeof e.name !== 'string') continue;
+    const inner = findBlock(w, e.name);
+    const innerName = inner && typeof inner.name === 'string' ? inner.name.toUpperCase() : '';
+    if (!inner || stack.includes(innerName) || name === innerName || stack.length >= MAX_BLOCK_DEPTH) continue;
+    const [cols, rows] = arrayCounts(e);
+    n += cols * rows * placedEntities(w, inner, [...stack, name]);
+    if (n > MAX_ENTITY_INSTANCES) break; // already too many: the exact figure does not matter
+  }
+  w.placed.set(name, n);
+  return n;
+}
+
+const count = (v: number) => (Number.isFinite(v) ? Math.round(v).toLocaleString('en-GB').replace(/,/g, ' ') : 'more than any');
 
 /**
  * Draws a list of entities in context: INSERTs are expanded recursively with their transforms
@@ -133,10 +171,14 @@ function drawInsert(e: Loose, ctx: DrawContext, stack: readonly string[], w: Blo
   const rows = Math.max(1, Math.floor(num(e, 'rowCount', 1, ref)));
   const dc = num(e, 'columnSpacing', 0, ref);
   const dr = num(e, 'rowSpacing', 0, ref);
-  if (cols * rows > MAX_ENTITY_INSTANCES) {
+  // Refuse an array (or nest of blocks) that would place too many entities before placing any:
+  // a small file can otherwise expand to millions of copies.
+  const placed = cols * rows * placedEntities(w, block, stack.map((s) => s.toUpperCase()));
+  if (w.instances + placed > MAX_ENTITY_INSTANCES) {
+    const array = cols * rows > 1 ? ` as an array of ${count(cols)} × ${count(rows)} copies` : '';
     throw new DxfImportError(
       'too-complex',
-      `Block "${blockName}" is inserted as an array of ${cols} × ${rows} copies, more than one floor plan import may hold.`,
+      `Block "${blockName}" is inserted${array} that would place ${count(placed)} entities; one floor plan import may place at most ${count(MAX_ENTITY_INSTANCES)}. Reduce the array or explode fewer copies and try again.`,
     );
   }
   const ocs = extrusionPoint(e.extrusionDirection, ref);

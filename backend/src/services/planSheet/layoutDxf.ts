@@ -26,6 +26,16 @@ const TEXT_MM = 150;
 
 const round = (v: number) => Math.round(v * 1000) / 1000;
 
+/**
+ * Text as one DXF value: every run of control characters (Unicode Cc, CR and LF among them)
+ * becomes one space. A DXF file is one group code and one value per line, so a line break inside
+ * a label would start records of its own; the schemas refuse such names already, this holds for
+ * anything stored before they did.
+ */
+export function dxfText(s: string): string {
+  return s.replace(/\p{Cc}+/gu, ' ');
+}
+
 function rings(d: Drawing, polygons: ReadonlyArray<Polygon2>): void {
   for (const p of polygons) for (const ring of p) if (ring.length >= 3) d.drawPolyline(ring.map(([x, y]) => [round(x), round(y)]), true);
 }
@@ -53,7 +63,7 @@ export function layoutDxf(input: PlanSheetInput): string {
   d.setActiveLayer(DXF_LAYERS.arms);
   for (const a of arms) {
     d.drawCircle(round(a.arm.x), round(a.arm.y), DXF_BASE_RADIUS_MM);
-    d.drawText(round(a.arm.x), round(a.arm.y), TEXT_MM, 0, a.title);
+    d.drawText(round(a.arm.x), round(a.arm.y), TEXT_MM, 0, dxfText(a.title));
   }
   d.setActiveLayer(DXF_LAYERS.maxSpace);
   for (const a of arms) rings(d, a.maxSpace);
@@ -71,14 +81,14 @@ export function layoutDxf(input: PlanSheetInput): string {
   d.setActiveLayer(DXF_LAYERS.points);
   for (const p of content.workPoints) {
     d.drawCircle(round(p.x), round(p.y), DXF_POINT_RADIUS_MM);
-    d.drawText(round(p.x), round(p.y), TEXT_MM / 2, 0, p.id);
+    d.drawText(round(p.x), round(p.y), TEXT_MM / 2, 0, dxfText(p.id));
   }
   for (const z of content.zones) {
     d.setActiveLayer(ZONE_STYLES[z.kind].dxf.layer);
     const pts = z.points.map(([x, y]) => [round(x), round(y)] as [number, number]);
     d.drawPolyline(pts, z.kind === 'keepout' || z.kind === 'operator');
     const [x, y] = pts[0];
-    d.drawText(x, y, TEXT_MM / 2, 0, `${z.id} ${z.kind}${z.height ? ` h ${Math.round(z.height)}` : ''}`);
+    d.drawText(x, y, TEXT_MM / 2, 0, dxfText(`${z.id} ${z.kind}${z.height ? ` h ${Math.round(z.height)}` : ''}`));
   }
   return d.toDxfString();
 }

@@ -3,12 +3,18 @@ import type { RevisionDiff, RevisionSnapshot } from '@shared/schemas/revision';
 
 type Finding = RevisionSnapshot['analysis']['findings'][number];
 
+/** The parts of a snapshot a diff compares: its arms and its findings. */
+export interface DiffSide {
+  layout: { content: Pick<RevisionSnapshot['layout']['content'], 'arms'> };
+  analysis: Pick<RevisionSnapshot['analysis'], 'findings'>;
+}
+
 /** Moves smaller than this (mm) or turns smaller than this (deg) are rounding, not changes. */
 const MOVE_EPS_MM = 0.5;
 const YAW_EPS_DEG = 0.01;
 
 /** Arms added/removed/moved (Euclidean plan distance, yaw change wrapped to ±180°) and findings new/gone by id. */
-export function diffSnapshots(prev: RevisionSnapshot | null, cur: RevisionSnapshot, previous: RevisionDiff['previous']): RevisionDiff {
+export function diffSnapshots(prev: DiffSide | null, cur: DiffSide, previous: RevisionDiff['previous']): RevisionDiff {
   const before = new Map((prev?.layout.content.arms ?? []).map((a) => [a.id, a]));
   const after = new Map(cur.layout.content.arms.map((a) => [a.id, a]));
   const diff: RevisionDiff = { previous, arms: { added: [], removed: [], moved: [] }, findings: { added: [], removed: [] } };

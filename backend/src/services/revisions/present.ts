@@ -1,9 +1,42 @@
 /** Revisions and review comments as the API shows them (staff see everything, clients the released summary). */
-import { Op } from 'sequelize';
+import { literal, Op, type FindAttributeOptions } from 'sequelize';
 import { can } from '@shared/policy';
+import type { RevisionSnapshot, StoredRevisionSnapshot } from '@shared/schemas/revision';
 import type { SessionUser } from '../../auth/passport';
 import { Acknowledgement, MailDelivery, ReviewComment, Revision, User } from '../../models';
 import { diffSnapshots } from './diff';
+import { fullSnapshot } from './snapshot';
+
+/**
+ * What a revision list selects: the columns it shows and three figures read out of the snapshot
+ * by the database (layout name, arm and finding counts); never the snapshot itself.
+ */
+export const REVISION_LIST_ATTRIBUTES: FindAttributeOptions = [
+  'id',
+  'layoutId',
+  'projectId',
+  'letter',
+  'state',
+  'checksum',
+  'submittedBy',
+  'submittedAt',
+  'decidedBy',
+  'decidedAt',
+  'decisionComment',
+  'releasedBy',
+  'releasedAt',
+  'planSheetChecksum',
+  [literal(`"snapshot"->'layout'->>'name'`), 'layoutName'],
+  [literal(`jsonb_array_length("snapshot"->'layout'->'content'->'arms')`), 'armCount'],
+  [literal(`jsonb_array_length("snapshot"->'analysis'->'findings')`), 'findingCount'],
+];
+
+/** Layout name and counts of a revision: from its snapshot when loaded, else from the list's figures. */
+function listFacts(r: Revision): { layoutName: string; arms: number; findings: number } {
+  const snap = r.get('snapshot') as StoredRevisionSnapshot | undefined;
+  if (snap) return { layoutName: snap.layout.name, arms: snap.layout.content.arms.length, findings: snap.analysis.findings.length };
+  return { layoutName: String(r.get('layoutName')), arms: Number(r.get('armCount')), findings: Number(r.get('findingCount')) };
+}
 
 /** Display names of users by id (people removed since keep their id). */
 export async function namesOf(ids: Array<number | null | undefined>): Promise<Map<number, string>> {
@@ -23,13 +56,13 @@ export async function presentRevisions(user: SessionUser, revs: Revision[]) {
   const names = await namesOf([...revs.flatMap((r) => [r.submittedBy, r.decidedBy, r.releasedBy]), ...acks.map((a) => a.userId)]);
   const staff = can(user.role, 'revision.readDrafts');
   return revs.map((r) => {
-    const snap = r.snapshot;
+    const facts = listFacts(r);
     const mine = acks.filter((a) => a.revisionId === r.id);
     const base = {
       id: r.id,
       layoutId: r.layoutId,
       projectId: r.projectId,
-      layoutName: snap.layout.name,
+      layoutName: facts.layoutName,
       letter: r.letter,
       state: r.state,
       releasedAt: iso(r.releasedAt),
@@ -48,7 +81,7 @@ export async function presentRevisions(user: SessionUser, revs: Revision[]) {
       decidedAt: iso(r.decidedAt),
       decisionComment: r.decisionComment ?? null,
       releasedBy: person(names, r.releasedBy),
-      counts: { arms: snap.layout.content.arms.length, findings: snap.analysis.findings.length },
+      counts: { arms: facts.arms, findings: facts.findings },
       acknowledgements: mine.map((a) => ({ user: person(names, a.userId)!, at: a.at.toISOString() })),
     };
   });
@@ -75,13 +108,23 @@ export function presentComment(c: ReviewComment, names: Map<number, string>, let
 export async function presentRevisionDetail(user: SessionUser, rev: Revision) {
   const [summary] = await presentRevisions(user, [rev]);
   if (!can(user.role, 'revision.readDrafts')) return summary;
-  const snap = rev.snapshot;
+  const snap = await fullSnapshot(rev);
   const earlier = await Revision.findAll({
     where: { layoutId: rev.layoutId, id: { [Op.lt]: rev.id } },
-    attributes: ['id', 'letter', 'snapshot'],
+    attributes: ['id', 'letter'],
     order: [['id', 'DESC']],
   });
   const prev = earlier[0] ?? null;
+  // The diff needs the previous revision's arms and findings only, not its whole snapshot.
+  const prevParts = prev
+    ? ((await Revision.findByPk(prev.id, {
+        attributes: [
+          [literal(`"snapshot"->'layout'->'content'->'arms'`), 'arms'],
+          [literal(`"snapshot"->'analysis'->'findings'`), 'findings'],
+        ],
+        raw: true,
+      })) as unknown as { arms: RevisionSnapshot['layout']['content']['arms']; findings: RevisionSnapshot['analysis']['findings'] } | null)
+    : null;
   const comments = await ReviewComment.findAll({ where: { revisionId: rev.id }, order: [['createdAt', 'ASC'], ['id', 'ASC']] });
   const older = earlier.length
     ? await ReviewComment.findAll({ where: { revisionId: earlier.map((e) => e.id), findingId: { [Op.ne]: null } }, order: [['createdAt', 'ASC'], ['id', 'ASC']] })
@@ -94,7 +137,11 @@ export async function presentRevisionDetail(user: SessionUser, rev: Revision) {
     snapshot: snap,
     comments: comments.map((c) => presentComment(c, names)),
     history: older.map((c) => presentComment(c, names, letters.get(c.revisionId))),
-    diff: diffSnapshots(prev ? prev.snapshot : null, snap, prev ? { id: prev.id, letter: prev.letter } : null),
+    diff: diffSnapshots(
+      prevParts ? { layout: { content: { arms: prevParts.arms } }, analysis: { findings: prevParts.findings } } : null,
+      snap,
+      prev ? { id: prev.id, letter: prev.letter } : null,
+    ),
     mail: deliveries.map((d) => ({ id: d.id, kind: d.kind, to: d.to, subject: d.subject, status: d.status, error: d.error, attempts: d.attempts, lastAttemptAt: iso(d.lastAttemptAt) })),
   };
 }

@@ -3,6 +3,7 @@ import { Op } from 'sequelize';
 import { Revision } from '../../models';
 import type { PlanSheetInput } from '../planSheet/types';
 import { namesOf } from './present';
+import { loadSnapshotFloorPlan } from './snapshot';
 
 /** The plan-sheet input of a revision, from its frozen snapshot (never the live layout). */
 export async function loadRevisionSheetInput(revision: Revision): Promise<PlanSheetInput> {
@@ -22,7 +23,7 @@ export async function loadRevisionSheetInput(revision: Revision): Promise<PlanSh
     const by = r.releasedAt ? nm(r.releasedBy) : r.decidedAt ? nm(r.decidedBy) : nm(r.submittedBy);
     return { letter: r.letter, state: r.state, at, by, note: r.decisionComment ?? null };
   });
-  const fp = snap.floorPlan;
+  const fp = await loadSnapshotFloorPlan(revision);
   return {
     project: { name: snap.project.name, clientName: snap.project.clientName, siteName: snap.project.siteName },
     layout: { id: snap.layout.id, name: snap.layout.name, content: snap.layout.content },

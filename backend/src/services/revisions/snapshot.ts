@@ -1,13 +1,16 @@
 /**
  * A revision's snapshot: the layout as stored now (content, floor plan, the arm models' parameters,
- * the analysis), frozen as plain JSON, and the sha256 of its canonical JSON.
+ * the analysis), frozen as plain JSON, and the sha256 of its canonical JSON. The floor plan is
+ * stored apart, once per content (snapshot_floor_plans, keyed by the sha256 of its canonical JSON);
+ * the revision's checksum is taken over the whole snapshot with the floor plan in it, as it always was.
  */
 import { createHash } from 'node:crypto';
+import type { Transaction } from 'sequelize';
 import { canonicalJson } from '@shared/canonicalJson';
 import type { LayoutContent } from '@shared/schemas/layout';
-import type { RevisionSnapshot } from '@shared/schemas/revision';
+import type { RevisionSnapshot, SnapshotFloorPlan as FloorPlanPart, StoredRevisionSnapshot } from '@shared/schemas/revision';
 import { notFound } from '../../http/errors';
-import { ArmModel, FloorPlan, Project, type Layout } from '../../models';
+import { ArmModel, FloorPlan, Project, SnapshotFloorPlan, type Layout, type Revision } from '../../models';
 import { analyzeLayout } from '../layoutAnalysis';
 
 /** sha256 (hex) of the canonical JSON of a snapshot (keys sorted at every level). */
@@ -32,4 +35,31 @@ export async function buildSnapshot(layout: Layout): Promise<RevisionSnapshot> {
     analysis,
   };
   return JSON.parse(JSON.stringify(raw)) as RevisionSnapshot;
+}
+
+/** The snapshot split for storage: the rest as the revision's row holds it, and the floor plan with its checksum. */
+export function splitSnapshot(snapshot: RevisionSnapshot): { stored: StoredRevisionSnapshot; floorPlan: FloorPlanPart | null; floorPlanChecksum: string | null } {
+  const { floorPlan, ...rest } = snapshot;
+  return { stored: rest, floorPlan, floorPlanChecksum: floorPlan ? snapshotChecksum(floorPlan) : null };
+}
+
+/** Stores a frozen floor plan once: a plan with the same content (same checksum) is already there and is shared. */
+export async function storeSnapshotFloorPlan(floorPlan: FloorPlanPart, checksum: string, transaction: Transaction): Promise<void> {
+  if (await SnapshotFloorPlan.findByPk(checksum, { attributes: ['checksum'], transaction })) return;
+  await SnapshotFloorPlan.bulkCreate([{ checksum, content: floorPlan }], { transaction, ignoreDuplicates: true });
+}
+
+/** The floor plan a revision froze: the shared stored row, or the copy inside snapshots stored before plans were kept apart. */
+export async function loadSnapshotFloorPlan(rev: Pick<Revision, 'floorPlanChecksum' | 'snapshot'>): Promise<FloorPlanPart | null> {
+  if (rev.floorPlanChecksum) {
+    const row = await SnapshotFloorPlan.findByPk(rev.floorPlanChecksum);
+    if (!row) throw new Error(`stored floor plan ${rev.floorPlanChecksum} is missing`);
+    return row.content;
+  }
+  return rev.snapshot.floorPlan ?? null;
+}
+
+/** The whole snapshot of a revision, floor plan included: what its checksum is computed over. */
+export async function fullSnapshot(rev: Pick<Revision, 'floorPlanChecksum' | 'snapshot'>): Promise<RevisionSnapshot> {
+  return { ...rev.snapshot, floorPlan: await loadSnapshotFloorPlan(rev) };
 }

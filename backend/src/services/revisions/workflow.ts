@@ -8,7 +8,7 @@ import type { RevisionState } from '../../models/Revision';
 import { audit } from '../audit/audit';
 import { canSeeProject } from '../projectAccess';
 import { decidedMail, deliver, submittedMail, type MailContext, type RevisionMailFacts } from '../reviewMail';
-import { buildSnapshot, snapshotChecksum } from './snapshot';
+import { buildSnapshot, snapshotChecksum, splitSnapshot, storeSnapshotFloorPlan } from './snapshot';
 
 /** The n-th revision letter, 0-based: A … Z, AA … AZ, BA … (bijective base 26). */
 export function revisionLetter(index: number): string {
@@ -45,12 +45,16 @@ export async function submitRevision(sequelize: Sequelize, user: SessionUser, la
     if (open) throw conflict(`Revision ${open.letter} of this layout is still waiting for review; a new one can be submitted once it is decided.`, { openRevisionId: open.id });
     const count = await Revision.count({ where: { layoutId }, transaction });
     const snapshot = await buildSnapshot(layout);
+    // The floor plan is stored once per content and shared; the checksum covers the whole snapshot.
+    const { stored, floorPlan, floorPlanChecksum } = splitSnapshot(snapshot);
+    if (floorPlan && floorPlanChecksum) await storeSnapshotFloorPlan(floorPlan, floorPlanChecksum, transaction);
     const r = await Revision.create(
       {
         layoutId,
         projectId: layout.projectId,
         letter: revisionLetter(count),
-        snapshot,
+        snapshot: stored,
+        floorPlanChecksum,
         checksum: snapshotChecksum(snapshot),
         state: 'submitted',
         submittedBy: user.id,
