@@ -31,6 +31,8 @@ export default defineConfig({
           root: '.',
           include: ['tests/unit/**/*.test.ts', 'tests/reference/**/*.test.ts'],
           environment: 'node',
+          // A ceiling against hangs, not a speed target: some property tests take seconds on a busy machine.
+          testTimeout: 30000,
         },
       },
       {
