@@ -400,7 +400,7 @@ describe('stored reach figures', () => {
   });
 
   it('are filled in for existing rows by the migration, whose down removes the column again', async () => {
-    const migration = await import('../../backend/src/db/migrations/20261202090000-add-arm-model-reach-summary');
+    const migration = await import('../../backend/src/db/migrations/20261202092000-add-arm-model-reach-summary');
     const qi = t.sequelize.getQueryInterface();
     await migration.down({ context: qi });
     expect(Object.keys(await qi.describeTable('arm_models'))).not.toContain('reachSummary');

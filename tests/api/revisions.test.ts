@@ -374,7 +374,7 @@ describe('floor plans of revisions', () => {
     const before = await Revision.findAll({ where: { id: ids }, order: [['id', 'ASC']] });
     expect(before.every((r) => r.floorPlanChecksum === null && r.snapshot.floorPlan)).toBe(true);
 
-    const migration = await import('../../backend/src/db/migrations/20261202091000-create-snapshot-floor-plans');
+    const migration = await import('../../backend/src/db/migrations/20261202093000-create-snapshot-floor-plans');
     const qi = t.sequelize.getQueryInterface();
     // down: every plan back inline (the rows made by the API above included), table gone
     await migration.down({ context: qi });
