@@ -101,6 +101,32 @@ export interface ImportResult {
   stats: { entities: number; features: number; skipped: Record<string, number> };
   /** Largest distance of a drawn curve from the true one, mm (grows when rescaled up). */
   chordToleranceMm: number;
+  /**
+   * Where the plan's 0,0 lies in the drawing, mm: a drawing far from its own origin (map grid
+   * coordinates) is moved by this much at import, and moved back on export. 0,0 when not moved.
+   */
+  origin: PlanOrigin;
+  /** Entities left out: on purpose (annotation, paper space, fills) and those that could not be read. */
+  notes: ImportNotes;
+  /** Joining of lines and arcs into outlines: gaps closed within the tolerance, ends left open. */
+  gaps: ImportGaps;
+}
+
+export interface PlanOrigin {
+  x: number;
+  y: number;
+}
+
+export interface ImportNotes {
+  ignored: string[];
+  unread: string[];
+}
+
+export interface ImportGaps {
+  closed: number;
+  open: number;
+  /** Open ends on floor boundary and wall layers, plan mm (at most a few hundred listed). */
+  ends: Array<{ layer: string; x: number; y: number }>;
 }
 
 /** Default height of what each role draws, mm (null = full height). */
