@@ -162,3 +162,23 @@ export const FloorPlanPatch = z
     path: ['layers'],
   });
 export type FloorPlanPatch = z.infer<typeof FloorPlanPatch>;
+
+/** One layer's saved role: matched to the layers of a later drawing by name, ignoring case. */
+export const SavedLayerRole = z.object({
+  name: z.string().min(1, 'Name the layer').max(255),
+  role: LayerRole,
+  height: finiteNumber('height', 'Enter a height in mm')
+    .positive('Height must be above the floor')
+    .max(MAX_LENGTH_MM, 'Height must be at most 100 m')
+    .nullable(),
+});
+export type SavedLayerRole = z.infer<typeof SavedLayerRole>;
+
+/** PUT body of a project's saved layer roles. */
+export const SavedLayerRoles = z
+  .object({ layers: z.array(SavedLayerRole).max(10_000) })
+  .refine((v) => new Set(v.layers.map((l) => l.name.toLowerCase())).size === v.layers.length, {
+    message: 'Each layer may appear once',
+    path: ['layers'],
+  });
+export type SavedLayerRoles = z.infer<typeof SavedLayerRoles>;
