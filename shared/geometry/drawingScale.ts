@@ -8,7 +8,7 @@ import { UNIT_NAMES, type UnitName } from '../schemas/floorPlan';
 export const PLAUSIBLE_EXTENT_MM = { min: 2_000, max: 5_000_000 } as const;
 
 /** Units a building drawing is made in, tried in this order when the read one is implausible. */
-const BUILDING_UNITS: readonly UnitName[] = ['mm', 'cm', 'm', 'in', 'ft', 'dm', 'yd'];
+const BUILDING_UNITS: readonly UnitName[] = ['mm', 'cm', 'm', 'in', 'ft'];
 
 /** A typical floor extent, mm (50 m): among plausible units, the one closest to it in ratio wins. */
 const TYPICAL_EXTENT_MM = 50_000;
@@ -35,10 +35,10 @@ function unitWords(u: UnitName): string {
 /** A length in mm as a short reading ("0.87 m", "22 m", "42 mm", "3.1 km"). */
 export function lengthText(mm: number): string {
   const a = Math.abs(mm);
-  const two = (v: number) => (v >= 100 ? v.toFixed(0) : v >= 10 ? v.toFixed(1).replace(/\.0$/, '') : v.toPrecision(2));
-  if (a >= 1_000_000) return `${two(mm / 1_000_000)} km`;
-  if (a >= 1_000) return `${two(mm / 1000)} m`;
-  if (a >= 1) return `${two(mm)} mm`;
+  const fix = (v: number) => (Math.abs(v) >= 10 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(1) : v.toFixed(2));
+  if (a >= 1_000_000) return `${fix(mm / 1_000_000)} km`;
+  if (a >= 100) return `${fix(mm / 1000)} m`;
+  if (a >= 10) return `${mm.toFixed(0)} mm`;
   return `${mm.toPrecision(2)} mm`;
 }
 

@@ -125,7 +125,7 @@ export interface ImportNotes {
 export interface ImportGaps {
   closed: number;
   open: number;
-  /** Open ends on floor boundary and wall layers, plan mm (at most a few hundred listed). */
+  /** Open ends on floor boundary layers, plan mm (at most a few hundred listed; `open` counts all). */
   ends: Array<{ layer: string; x: number; y: number }>;
 }
 

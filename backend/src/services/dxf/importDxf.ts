@@ -252,8 +252,8 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
   if (unitCheck.message) warnings.push(unitCheck.message);
 
   outlineWarnings(layers, features, joinTol, warnings);
-  // gaps: reported for the layers that make outlines (boundary, wall)
-  const outlineLayers = new Set(layers.filter((l) => l.role === 'boundary' || l.role === 'wall').map((l) => l.name));
+  // gaps: reported for the floor boundary (walls end freely at openings)
+  const outlineLayers = new Set(layers.filter((l) => l.role === 'boundary').map((l) => l.name));
   for (const name of outlineLayers) {
     const n = join.openByLayer.get(name) ?? 0;
     if (n > 0) warnings.push(`${plural(n, 'line end', 'line ends')} on layer "${name}" ${n === 1 ? 'meets' : 'meet'} nothing within ${joinTol} mm (marked on the preview).`);
