@@ -65,8 +65,8 @@ describe('drawings that need not be refused', () => {
   });
 
   it('a header variable the plan does not use, written damaged, does not refuse the drawing; the unit is still read', () => {
-    // $EXTMIN with x and z but no y: the parser stops with "Expected code for point value to be 20"
-    const text = entitiesDxf(square('OUTLINE', 0, 0, 12), [[9, '$EXTMIN'], [10, 0], [30, 0], [9, '$INSUNITS'], [70, 6]]);
+    // $EXTMIN written y first: the parser sets y on a point it has not begun, and throws
+    const text = entitiesDxf(square('OUTLINE', 0, 0, 12), [[9, '$INSUNITS'], [70, 6], [9, '$EXTMIN'], [20, 0], [10, 0], [30, 0]]);
     const r = importDxf(text);
     expect(r.units).toBe('m');
     expect(r.bounds.maxX).toBe(12_000);
@@ -142,9 +142,7 @@ describe('drawings far from their origin', () => {
     expect(r.bounds.minY).toBeCloseTo(678.25, 5);
     expect(r.bounds.maxX - r.bounds.minX).toBeCloseTo(30_000, 5);
     expect(r.warnings.join(' ')).toMatch(/moved by 512345 m east and 5012345 m north/);
-  });
-
-  it('a coordinate beyond what float64 places to 0.1 mm is still refused', () => {
+    // a coordinate beyond what float64 places to 0.1 mm is still refused
     expect(() => importDxf(entitiesDxf(lineGroups('WALLS', [0, 0], [1e15, 0])))).toThrow(expect.objectContaining({ code: 'bad-coordinates' }));
   });
 
