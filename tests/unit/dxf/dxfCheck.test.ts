@@ -18,7 +18,8 @@ function dxfCheck(folder: string) {
   return { code: r.status, lines: r.stdout.trim().split('\n'), stderr: r.stderr };
 }
 
-describe('dxf-check', () => {
+// each run starts a worker per file: allow for a loaded machine
+describe('dxf-check', { timeout: 120_000 }, () => {
   it('prints one line per sample floor plan: read, unit and plausibility, layers by role, rings, notes, time', () => {
     const { code, lines } = dxfCheck(SAMPLES_DIR);
     expect(code).toBe(0);

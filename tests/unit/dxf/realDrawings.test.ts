@@ -218,7 +218,7 @@ describe('notes', () => {
   });
 });
 
-describe('big drawings', () => {
+describe('big drawings', { timeout: 60_000 }, () => {
   it('140,000 lines that join into nothing are all kept (no spread of an unbounded array)', () => {
     // a spread of more than about 120,000 arguments overflows V8's call stack
     const n = 140_000;
