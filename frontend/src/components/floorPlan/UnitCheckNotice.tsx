@@ -17,7 +17,7 @@ export function UnitCheckNotice({ check, onChoose, busy }: { check: UnitCheck; o
       className="flex flex-wrap items-center gap-3 rounded-control border border-finding-warning/40 border-l-4 border-l-finding-warning bg-finding-warning-wash px-4 py-3 text-sm"
     >
       <p className="min-w-0 flex-1">
-        <span className="font-bold text-finding-warning">Check the drawing unit. </span>
+        <span className="font-bold text-finding-warning">The size does not fit the unit. </span>
         {check.message}
       </p>
       {s && onChoose && (
