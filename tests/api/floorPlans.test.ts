@@ -1,7 +1,8 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createMigrator } from '../../backend/src/db/migrate';
-import { FloorPlan, Layout, ProjectLayerRoles } from '../../backend/src/models';
+import { FloorPlan, Layout, ProjectLayerRoles, User } from '../../backend/src/models';
+import { importDxf } from '../../backend/src/services/dxf';
 import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
 
@@ -206,6 +207,21 @@ describe('real drawings: unit plausibility, local origin, saved layer roles', ()
     const row = await FloorPlan.findByPk(up.body.id);
     expect(row!.origin).toEqual({ x: 512_345_000, y: 5_012_345_000 });
     expect(row!.notes).toEqual({ ignored: [], unread: [] });
+
+    // a layout drawn on it is exported where the building lies in its drawing
+    const planner = await User.findOne({ where: {}, order: [['id', 'DESC']] });
+    const layout = await Layout.create({
+      projectId: project.id,
+      floorPlanId: up.body.id,
+      name: 'On the site plan',
+      content: { arms: [], workPoints: [], workHeights: [], zones: [{ id: 'K1', kind: 'keepout', label: '', points: [[1000, 1000], [5000, 1000], [5000, 4000]] }] },
+      createdBy: planner!.id,
+    });
+    const dxf = await agent.get(`/api/layouts/${layout.id}/layout.dxf`);
+    expect(dxf.status).toBe(200);
+    const back = importDxf(dxf.text); // read back with the importer, which moves it to a local origin again
+    expect(back.origin.x + back.bounds.minX).toBeCloseTo(512_345_000 + 1000, 3);
+    expect(back.origin.y + back.bounds.maxY).toBeCloseTo(5_012_345_000 + 4000, 3);
   });
 
   it('saves layer roles for the project and applies them to the next upload (names matched ignoring case)', async () => {
