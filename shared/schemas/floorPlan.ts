@@ -101,6 +101,32 @@ export interface ImportResult {
   stats: { entities: number; features: number; skipped: Record<string, number> };
   /** Largest distance of a drawn curve from the true one, mm (grows when rescaled up). */
   chordToleranceMm: number;
+  /**
+   * Where the plan's 0,0 lies in the drawing, mm: a drawing far from its own origin (map grid
+   * coordinates) is moved by this much at import, and moved back on export. 0,0 when not moved.
+   */
+  origin: PlanOrigin;
+  /** Entities left out: on purpose (annotation, paper space, fills) and those that could not be read. */
+  notes: ImportNotes;
+  /** Joining of lines and arcs into outlines: gaps closed within the tolerance, ends left open. */
+  gaps: ImportGaps;
+}
+
+export interface PlanOrigin {
+  x: number;
+  y: number;
+}
+
+export interface ImportNotes {
+  ignored: string[];
+  unread: string[];
+}
+
+export interface ImportGaps {
+  closed: number;
+  open: number;
+  /** Open ends on floor boundary layers, plan mm (at most a few hundred listed; `open` counts all). */
+  ends: Array<{ layer: string; x: number; y: number }>;
 }
 
 /** Default height of what each role draws, mm (null = full height). */
@@ -136,3 +162,23 @@ export const FloorPlanPatch = z
     path: ['layers'],
   });
 export type FloorPlanPatch = z.infer<typeof FloorPlanPatch>;
+
+/** One layer's saved role: matched to the layers of a later drawing by name, ignoring case. */
+export const SavedLayerRole = z.object({
+  name: z.string().min(1, 'Name the layer').max(255),
+  role: LayerRole,
+  height: finiteNumber('height', 'Enter a height in mm')
+    .positive('Height must be above the floor')
+    .max(MAX_LENGTH_MM, 'Height must be at most 100 m')
+    .nullable(),
+});
+export type SavedLayerRole = z.infer<typeof SavedLayerRole>;
+
+/** PUT body of a project's saved layer roles. */
+export const SavedLayerRoles = z
+  .object({ layers: z.array(SavedLayerRole).max(10_000) })
+  .refine((v) => new Set(v.layers.map((l) => l.name.toLowerCase())).size === v.layers.length, {
+    message: 'Each layer may appear once',
+    path: ['layers'],
+  });
+export type SavedLayerRoles = z.infer<typeof SavedLayerRoles>;

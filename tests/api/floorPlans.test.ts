@@ -1,6 +1,8 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { FloorPlan, Layout } from '../../backend/src/models';
+import { createMigrator } from '../../backend/src/db/migrate';
+import { FloorPlan, Layout, ProjectLayerRoles, User } from '../../backend/src/models';
+import { importDxf } from '../../backend/src/services/dxf';
 import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
 
@@ -12,6 +14,18 @@ function tinyDxf(insunits = 4): string {
     g(0, 'LWPOLYLINE') + g(8, 'OUTLINE') + g(90, 4) + g(70, 1) +
     g(10, 0) + g(20, 0) + g(10, 10000) + g(20, 0) + g(10, 10000) + g(20, 6000) + g(10, 0) + g(20, 6000);
   const wall = g(0, 'LINE') + g(8, 'WALLS') + g(10, 5000) + g(20, 0) + g(30, 0) + g(11, 5000) + g(21, 4000) + g(31, 0);
+  return head + g(0, 'SECTION') + g(2, 'ENTITIES') + outline + wall + g(0, 'ENDSEC') + g(0, 'EOF');
+}
+
+/** A closed square outline of side `s` drawing units at (x, y), on layer `layer`, in the given $INSUNITS. */
+function squareDxf(s: number, opts: { x?: number; y?: number; layer?: string; insunits?: number; wall?: string } = {}): string {
+  const g = (code: number, value: string | number) => `${code}\n${value}\n`;
+  const { x = 0, y = 0, layer = 'OUTLINE', insunits = 4 } = opts;
+  const head = g(0, 'SECTION') + g(2, 'HEADER') + g(9, '$INSUNITS') + g(70, insunits) + g(0, 'ENDSEC');
+  const outline =
+    g(0, 'LWPOLYLINE') + g(8, layer) + g(90, 4) + g(70, 1) +
+    g(10, x) + g(20, y) + g(10, x + s) + g(20, y) + g(10, x + s) + g(20, y + s) + g(10, x) + g(20, y + s);
+  const wall = opts.wall ? g(0, 'LINE') + g(8, opts.wall) + g(10, x) + g(20, y) + g(11, x + s / 2) + g(21, y) : '';
   return head + g(0, 'SECTION') + g(2, 'ENTITIES') + outline + wall + g(0, 'ENDSEC') + g(0, 'EOF');
 }
 
@@ -211,5 +225,95 @@ describe('import limits', () => {
     expect(res.body.error.message).toContain('10 000 000');
     expect(res.body.error.message).toContain('2 000 000');
     expect(await FloorPlan.count({ where: { projectId: project.id } })).toBe(0);
+  });
+});
+
+describe('real drawings: unit plausibility, local origin, saved layer roles', () => {
+  it('says when the extent is implausible for the unit and offers the unit that fits; choosing it makes it plausible', async () => {
+    const agent = await plannerAgent();
+    const project = await buildProject();
+    // 870 units read as mm = 0.87 m; in inches (25.4 mm exactly, NIST SP 811) 22 m
+    const up = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(squareDxf(870)), 'house.dxf');
+    expect(up.status).toBe(201);
+    expect(up.body.unitCheck).toMatchObject({ plausible: false, suggestion: { units: 'in' } });
+    expect(up.body.unitCheck.message).toContain('in inches it would be 22 m');
+    expect(up.body.warnings).toContain(up.body.unitCheck.message);
+    const fixed = await agent.patch(`/api/floor-plans/${up.body.id}`).send({ units: up.body.unitCheck.suggestion.units });
+    expect(fixed.status).toBe(200);
+    expect(fixed.body.unitCheck).toMatchObject({ plausible: true, suggestion: null });
+    expect(fixed.body.bounds.maxX).toBeCloseTo(870 * 25.4, 6);
+  });
+
+  it('stores the local origin of a map-grid drawing with the plan and answers it', async () => {
+    const agent = await plannerAgent();
+    const project = await buildProject();
+    const up = await agent
+      .post(`/api/projects/${project.id}/floor-plans`)
+      .attach('file', Buffer.from(squareDxf(30_000, { x: 512_345_678, y: 5_012_345_678 })), 'site.dxf');
+    expect(up.status).toBe(201);
+    expect(up.body.origin).toEqual({ x: 512_345_000, y: 5_012_345_000 });
+    expect(up.body.bounds).toEqual({ minX: 678, minY: 678, maxX: 30_678, maxY: 30_678 });
+    const row = await FloorPlan.findByPk(up.body.id);
+    expect(row!.origin).toEqual({ x: 512_345_000, y: 5_012_345_000 });
+    expect(row!.notes).toEqual({ ignored: [], unread: [] });
+
+    // a layout drawn on it is exported where the building lies in its drawing
+    const planner = await User.findOne({ where: {}, order: [['id', 'DESC']] });
+    const layout = await Layout.create({
+      projectId: project.id,
+      floorPlanId: up.body.id,
+      name: 'On the site plan',
+      content: { arms: [], workPoints: [], workHeights: [], zones: [{ id: 'K1', kind: 'keepout', label: '', points: [[1000, 1000], [5000, 1000], [5000, 4000]] }] },
+      createdBy: planner!.id,
+    });
+    const dxf = await agent.get(`/api/layouts/${layout.id}/layout.dxf`);
+    expect(dxf.status).toBe(200);
+    const back = importDxf(dxf.text); // read back with the importer, which moves it to a local origin again
+    expect(back.origin.x + back.bounds.minX).toBeCloseTo(512_345_000 + 1000, 3);
+    expect(back.origin.y + back.bounds.maxY).toBeCloseTo(5_012_345_000 + 4000, 3);
+  });
+
+  it('saves layer roles for the project and applies them to the next upload (names matched ignoring case)', async () => {
+    const agent = await plannerAgent();
+    const project = await buildProject();
+    const empty = await agent.get(`/api/projects/${project.id}/layer-roles`);
+    expect(empty.body).toEqual({ layers: [], updatedAt: null });
+    const bad = await agent.put(`/api/projects/${project.id}/layer-roles`).send({ layers: [{ name: 'L-17', role: 'roof', height: null }] });
+    expect(bad.status).toBe(400);
+    expect(await ProjectLayerRoles.count({ where: { projectId: project.id } })).toBe(0);
+    const saved = await agent
+      .put(`/api/projects/${project.id}/layer-roles`)
+      .send({ layers: [{ name: 'L-17', role: 'boundary', height: null }, { name: 'L-20', role: 'wall', height: 2400 }] });
+    expect(saved.status).toBe(200);
+    expect((await ProjectLayerRoles.findByPk(project.id))!.layers).toHaveLength(2);
+    // without the saved roles both layers would be guessed as obstacles
+    const up = await agent
+      .post(`/api/projects/${project.id}/floor-plans`)
+      .attach('file', Buffer.from(squareDxf(20_000, { layer: 'l-17', wall: 'L-20' })), 'next.dxf');
+    expect(up.status).toBe(201);
+    const roles = Object.fromEntries(up.body.layers.map((l: { name: string; role: string; height: number | null }) => [l.name, [l.role, l.height]]));
+    expect(roles).toEqual({ 'l-17': ['boundary', null], 'L-20': ['wall', 2400] });
+    expect(up.body.warnings).toContain('2 layers take their roles from the roles saved for this project.');
+    const other = await buildProject();
+    const elsewhere = await agent.post(`/api/projects/${other.id}/floor-plans`).attach('file', Buffer.from(squareDxf(20_000, { layer: 'L-17' })), 'x.dxf');
+    expect(elsewhere.body.layers[0].role).toBe('obstacle');
+    const reviewer = await buildUser({ role: 'reviewer' });
+    const r = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
+    expect((await r.put(`/api/projects/${project.id}/layer-roles`).send({ layers: [] })).status).toBe(403);
+  });
+
+  it('the migration that adds the origin, notes and saved roles goes down and up again', async () => {
+    const m = createMigrator(t.sequelize);
+    const name = '20261202094000-add-floor-plan-origin-and-layer-roles';
+    const all = (await m.executed()).map((x) => x.name);
+    const i = all.indexOf(name);
+    expect(i).toBeGreaterThanOrEqual(0);
+    await m.down({ to: name });
+    const qi = t.sequelize.getQueryInterface();
+    expect(Object.keys(await qi.describeTable('floor_plans'))).not.toContain('origin');
+    expect((await qi.showAllTables()).map(String)).not.toContain('project_layer_roles');
+    await m.up();
+    expect(Object.keys(await qi.describeTable('floor_plans'))).toEqual(expect.arrayContaining(['origin', 'notes']));
+    expect((await qi.showAllTables()).map(String)).toContain('project_layer_roles');
   });
 });

@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -190,6 +191,32 @@ describe('floor plans in Chromium', () => {
     expect(await page.getByLabel('Role of layer WALLS').count()).toBe(0);
     expect(await page.getByRole('button', { name: 'Delete' }).count()).toBe(0);
     await page.getByRole('link', { name: 'Download original' }).waitFor();
+    await page.close();
+  });
+
+  it('flags a drawing whose header names the wrong unit, and reads it in the fitting unit in one click', async () => {
+    // the inch sample with its $INSUNITS set to 4 (millimetres): a 24 m hall then reads 0.94 m wide
+    const text = readFileSync(path.resolve('samples/floor-plans/fernhill-hall-inches.dxf'), 'utf8').replace(/(\$INSUNITS\n\s*70\n)\s*1\n/, '$1     4\n');
+    expect(text).not.toBe(readFileSync(path.resolve('samples/floor-plans/fernhill-hall-inches.dxf'), 'utf8'));
+    const page = await e.browser.newPage({ viewport: { width: 1440, height: 1000 } });
+    await signInPage(page, e.server.url, PLANNER);
+    await openDemoProject(page);
+    await page.locator('input[type="file"]').setInputFiles({ name: 'hall-wrong-unit.dxf', mimeType: 'application/dxf', buffer: Buffer.from(text) });
+    await page.waitForURL(/\/projects\/\d+\/floor-plans\/\d+$/);
+    const check = page.getByRole('region', { name: 'Drawing unit check' });
+    await check.waitFor();
+    expect(await check.textContent()).toMatch(/0\.94 m wide read in millimetres.*in inches it would be 24 m/);
+    await page.locator('g.plan-static path.plan-lines').first().waitFor({ state: 'attached' });
+    await page.screenshot({ path: path.join(SCREENS, 'floor-plan-wrong-unit.png'), fullPage: true });
+
+    await page.getByRole('button', { name: 'Read in inches' }).click();
+    await check.waitFor({ state: 'detached' });
+    expect(await page.getByLabel('Drawing unit').inputValue()).toBe('in');
+    await page.getByRole('heading', { name: 'hall-wrong-unit.dxf' }).waitFor();
+    await page.getByText(/Floor plan · 24\.0 m × 16\.0 m/).waitFor();
+
+    await page.getByRole('button', { name: 'Save these roles for this project' }).click();
+    await page.getByText(/^Saved: the next drawing/).waitFor();
     await page.close();
   });
 });

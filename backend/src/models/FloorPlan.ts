@@ -21,6 +21,8 @@ export class FloorPlan extends Model<InferAttributes<FloorPlan>, InferCreationAt
   declare geometry: FeatureCollection;
   declare warnings: CreationOptional<string[]>;
   declare stats: CreationOptional<Record<string, unknown>>;
+  declare origin: CreationOptional<{ x: number; y: number }>;
+  declare notes: CreationOptional<{ ignored: string[]; unread: string[] }>;
   declare createdBy: number | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -39,6 +41,8 @@ export class FloorPlan extends Model<InferAttributes<FloorPlan>, InferCreationAt
         geometry: { type: DataTypes.JSONB, allowNull: false },
         warnings: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         stats: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+        origin: { type: DataTypes.JSONB, allowNull: false, defaultValue: { x: 0, y: 0 } },
+        notes: { type: DataTypes.JSONB, allowNull: false, defaultValue: { ignored: [], unread: [] } },
         createdBy: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -8,6 +8,7 @@ import { Layout } from './Layout';
 import { MailDelivery } from './MailDelivery';
 import { MailMessage } from './MailMessage';
 import { Project } from './Project';
+import { ProjectLayerRoles } from './ProjectLayerRoles';
 import { ProjectMember } from './ProjectMember';
 import { ReviewComment } from './ReviewComment';
 import { Revision } from './Revision';
@@ -16,6 +17,7 @@ import { User } from './User';
 
 export { ArmModel, AuditEvent, FloorPlan, Layout, MailMessage, Project, ProjectMember, User };
 export { Acknowledgement, Invitation, MailDelivery, ReviewComment, Revision, SnapshotFloorPlan };
+export { ProjectLayerRoles };
 export { presentProject } from './Project';
 export { presentUser } from './User';
 
@@ -40,6 +42,7 @@ export function initModels(sequelize: Sequelize): void {
   Acknowledgement.initModel(sequelize);
   Invitation.initModel(sequelize);
   MailDelivery.initModel(sequelize);
+  ProjectLayerRoles.initModel(sequelize);
 
   Project.belongsTo(User, { as: 'creator', foreignKey: 'createdBy' });
   Project.belongsToMany(User, { as: 'members', through: ProjectMember, foreignKey: 'projectId', otherKey: 'userId' });

@@ -1,18 +1,19 @@
 import { Router, type RequestHandler, type Response } from 'express';
 import multer from 'multer';
 import type { Sequelize } from 'sequelize';
-import { FloorPlanPatch, type ImportResult } from '@shared/schemas/floorPlan';
+import { checkDrawingUnit } from '@shared/geometry/drawingScale';
+import { FloorPlanPatch, SavedLayerRoles, type ImportResult, type SavedLayerRole, type UnitName } from '@shared/schemas/floorPlan';
 import type { SessionUser } from '../auth/passport';
 import { allow, currentUser } from '../auth/guards';
 import { badRequest, conflict, HttpError, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
-import { FloorPlan, Layout } from '../models';
+import { FloorPlan, Layout, ProjectLayerRoles } from '../models';
 import { audit } from '../services/audit/audit';
 import { isDxfImportError } from '../services/dxf/errors';
 import { readFloorPlan } from '../services/floorPlanImport';
 import { loadVisibleProject } from '../services/projectAccess';
 
-const SUMMARY_ATTRS = ['id', 'projectId', 'fileName', 'units', 'unitsSource', 'bounds', 'layers', 'warnings', 'stats', 'createdAt', 'updatedAt'] as const;
+const SUMMARY_ATTRS = ['id', 'projectId', 'fileName', 'units', 'unitsSource', 'bounds', 'layers', 'warnings', 'stats', 'origin', 'notes', 'createdAt', 'updatedAt'] as const;
 
 function summary(fp: FloorPlan) {
   return {
@@ -24,7 +25,11 @@ function summary(fp: FloorPlan) {
     bounds: fp.bounds,
     layers: fp.layers,
     warnings: fp.warnings,
+    notes: fp.notes,
     stats: fp.stats,
+    origin: fp.origin,
+    // recomputed from what is stored, so a unit chosen later is checked too
+    unitCheck: checkDrawingUnit(fp.bounds, fp.units as UnitName),
     createdAt: fp.createdAt.toISOString(),
     updatedAt: fp.updatedAt.toISOString(),
   };
@@ -88,6 +93,33 @@ function keepLayerChoices(result: ImportResult, previous: FloorPlan['layers']): 
   });
 }
 
+/** What is stored of an import besides geometry and layers. */
+function storedImport(result: ImportResult) {
+  return {
+    units: result.units,
+    unitsSource: result.unitsSource,
+    bounds: result.bounds,
+    geometry: result.geometry,
+    warnings: result.warnings,
+    notes: result.notes,
+    origin: result.origin,
+    stats: { ...result.stats, chordToleranceMm: result.chordToleranceMm, insunits: result.insunits, gaps: result.gaps },
+  };
+}
+
+/** Applies a project's saved layer roles (names matched ignoring case); returns how many layers took one. */
+function applySavedRoles(result: ImportResult, saved: readonly SavedLayerRole[]): number {
+  const byName = new Map(saved.map((l) => [l.name.toLowerCase(), l]));
+  let n = 0;
+  result.layers = result.layers.map((l) => {
+    const s = byName.get(l.name.toLowerCase());
+    if (!s) return l;
+    n++;
+    return { ...l, role: s.role, height: s.height };
+  });
+  return n;
+}
+
 /** Floor plans: DXF upload (multer, in memory, size-capped), read, layer roles and units, source, delete. */
 export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes: number; importConcurrency?: number }): Router {
   const r = Router();
@@ -131,19 +163,19 @@ export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes:
     }
     const file = req.file;
     const fileName = (file.originalname || 'floor-plan.dxf').slice(0, 255);
+    const saved = await ProjectLayerRoles.findByPk(project.id);
+    if (saved) {
+      const n = applySavedRoles(result, saved.layers);
+      if (n > 0) result.warnings.push(`${n === 1 ? 'One layer takes its role' : `${n} layers take their roles`} from the roles saved for this project.`);
+    }
     const fp = await sequelize.transaction(async (transaction) => {
       const row = await FloorPlan.create(
         {
           projectId: project.id,
           fileName,
           originalDxf: file.buffer,
-          units: result.units,
-          unitsSource: result.unitsSource,
-          bounds: result.bounds,
+          ...storedImport(result),
           layers: result.layers,
-          geometry: result.geometry,
-          warnings: result.warnings,
-          stats: { ...result.stats, chordToleranceMm: result.chordToleranceMm, insunits: result.insunits },
           createdBy: user.id,
         },
         { transaction },
@@ -181,14 +213,7 @@ export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes:
           release();
         }
         layers = keepLayerChoices(result, fp.layers);
-        Object.assign(changes, {
-          units: result.units,
-          unitsSource: 'chosen',
-          bounds: result.bounds,
-          geometry: result.geometry,
-          warnings: result.warnings,
-          stats: { ...result.stats, chordToleranceMm: result.chordToleranceMm, insunits: result.insunits },
-        });
+        Object.assign(changes, { ...storedImport(result), unitsSource: 'chosen' });
       }
       if (patch.layers) {
         const byName = new Map(layers.map((l) => [l.name, l]));
@@ -209,6 +234,25 @@ export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes:
     });
     const fresh = await FloorPlan.findByPk(updated.id, { attributes: [...SUMMARY_ATTRS, 'geometry'] });
     res.json({ ...summary(fresh!), geometry: fresh!.geometry });
+  });
+
+  r.get('/projects/:id/layer-roles', allow('floorPlan.read'), async (req, res) => {
+    const project = await loadVisibleProject(currentUser(req), idParam(req.params.id, 'Project'));
+    const saved = await ProjectLayerRoles.findByPk(project.id);
+    res.json({ layers: saved?.layers ?? [], updatedAt: saved ? saved.updatedAt.toISOString() : null });
+  });
+
+  // Saves layer roles for the project's next uploads (replacing what was saved before).
+  r.put('/projects/:id/layer-roles', allow('floorPlan.write'), async (req, res) => {
+    const user = currentUser(req);
+    const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
+    const body = parseOr400(SavedLayerRoles, req.body, 'The saved layer roles');
+    const row = await sequelize.transaction(async (transaction) => {
+      const [saved] = await ProjectLayerRoles.upsert({ projectId: project.id, layers: body.layers, updatedBy: user.id }, { transaction, returning: true });
+      await audit(user.id, 'project.layerRoles', 'project', project.id, { layers: body.layers.length }, transaction);
+      return saved;
+    });
+    res.json({ layers: row.layers, updatedAt: row.updatedAt.toISOString() });
   });
 
   r.get('/floor-plans/:id/source', allow('floorPlan.read'), async (req, res) => {

@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { FeatureCollection, Geometry } from 'geojson';
-import type { FloorPlanPatch, ImportBounds, ImportLayer, PlanFeatureProps, UnitName } from '@shared/schemas/floorPlan';
+import type { UnitCheck } from '@shared/geometry/drawingScale';
+import type { FloorPlanPatch, ImportBounds, ImportGaps, ImportLayer, ImportNotes, PlanFeatureProps, PlanOrigin, SavedLayerRole, UnitName } from '@shared/schemas/floorPlan';
 import type { ApiErrorBody } from '@shared/schemas/errors';
 import { api, ApiError } from './client';
 import { floorPlanKeys } from './queryKeys';
@@ -16,7 +17,13 @@ export interface FloorPlanSummaryDto {
   bounds: ImportBounds;
   layers: ImportLayer[];
   warnings: string[];
-  stats: { entities: number; features: number; skipped?: Record<string, number> } & Record<string, unknown>;
+  /** Entities left out on purpose, and those that could not be read. */
+  notes: ImportNotes;
+  stats: { entities: number; features: number; skipped?: Record<string, number>; gaps?: ImportGaps } & Record<string, unknown>;
+  /** Where the plan's 0,0 lies in the drawing, mm (0,0 unless the drawing was moved at import). */
+  origin: PlanOrigin;
+  /** Whether the extent is plausible for a building floor in the drawing unit, and which unit would be. */
+  unitCheck: UnitCheck;
   createdAt: string;
   updatedAt?: string;
 }
@@ -148,5 +155,31 @@ export function useDeleteFloorPlan(id: number, projectId: number) {
       await queryClient.invalidateQueries({ queryKey: floorPlanKeys.detail(id), refetchType: 'none' });
       await queryClient.invalidateQueries({ queryKey: floorPlanKeys.list(projectId) });
     },
+  });
+}
+
+export interface SavedLayerRolesDto {
+  layers: SavedLayerRole[];
+  updatedAt: string | null;
+}
+
+export const savedLayerRolesQuery = (projectId: number) =>
+  queryOptions({
+    queryKey: floorPlanKeys.savedRoles(projectId),
+    queryFn: ({ signal }) => api<SavedLayerRolesDto>(`/projects/${projectId}/layer-roles`, { signal }),
+  });
+
+/** The layer roles saved for a project (applied to its next uploads). */
+export function useSavedLayerRoles(projectId: number) {
+  return useQuery(savedLayerRolesQuery(projectId));
+}
+
+/** Saves layer roles for the project's next uploads, replacing what was saved. */
+export function useSaveLayerRoles(projectId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (layers: SavedLayerRole[]) =>
+      api<SavedLayerRolesDto>(`/projects/${projectId}/layer-roles`, { method: 'PUT', body: { layers } }),
+    onSuccess: (saved) => queryClient.setQueryData(floorPlanKeys.savedRoles(projectId), saved),
   });
 }

@@ -29,6 +29,7 @@ export const floorPlanKeys = {
   list: (projectId: number) => [...floorPlanKeys.lists(), projectId] as const,
   details: () => [...floorPlanKeys.all, 'detail'] as const,
   detail: (id: number) => [...floorPlanKeys.details(), id] as const,
+  savedRoles: (projectId: number) => [...floorPlanKeys.all, 'savedRoles', projectId] as const,
 };
 
 export const layoutKeys = {

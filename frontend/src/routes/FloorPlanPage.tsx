@@ -1,10 +1,10 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import type { LayerPatch } from '@shared/schemas/floorPlan';
 import { can } from '@shared/policy';
 import { useSessionUser } from '../api/auth';
 import { isApiError } from '../api/client';
-import { floorPlanSourceUrl, useDeleteFloorPlan, useFloorPlan, useUpdateFloorPlan, type FloorPlanDto } from '../api/floorPlans';
+import { floorPlanSourceUrl, useDeleteFloorPlan, useFloorPlan, useSaveLayerRoles, useUpdateFloorPlan, type FloorPlanDto } from '../api/floorPlans';
 import { useProject } from '../api/projects';
 import { Button } from '../components/Button';
 import { ConfirmDialog } from '../components/ConfirmDialog';
@@ -12,12 +12,17 @@ import { extentText } from '../components/floorPlan/FloorPlanSection';
 import { ImportNotes } from '../components/floorPlan/ImportNotes';
 import { LayerTable } from '../components/floorPlan/LayerTable';
 import { layerStylesFor } from '../components/floorPlan/layerRoles';
+import { UnitCheckNotice } from '../components/floorPlan/UnitCheckNotice';
 import { UnitsPicker } from '../components/floorPlan/UnitsPicker';
 import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
+import type { PlanCanvas } from '../plan/planCanvas';
 import { PlanView } from '../plan/PlanView';
 import NotFoundPage from './NotFoundPage';
 import { parseId } from '../lib/routeId';
+
+const metreFormat = new Intl.NumberFormat('en', { maximumFractionDigits: 0 });
+const metres = (mm: number) => `${metreFormat.format(mm / 1000)} m`;
 
 /** One floor plan of a project: import notes, drawing unit, layer roles, preview, download, delete. */
 export default function FloorPlanPage() {
@@ -57,6 +62,42 @@ function FloorPlanDetail({ plan, projectName }: { plan: FloorPlanDto; projectNam
   const [hidden, setHidden] = useState<ReadonlySet<string>>(new Set());
   const [confirming, setConfirming] = useState(false);
   const [savingLayer, setSavingLayer] = useState<string | null>(null);
+  const [canvas, setCanvas] = useState<PlanCanvas | null>(null);
+  const saveRoles = useSaveLayerRoles(plan.projectId);
+  const openEnds = plan.stats.gaps?.ends;
+  const moved = plan.origin && (plan.origin.x !== 0 || plan.origin.y !== 0);
+  const unitBusy = update.isPending && update.variables?.units !== undefined;
+
+  // Ends of the floor boundary that meet nothing: small rings in screen space, kept on zoom/pan.
+  useEffect(() => {
+    if (!canvas || !openEnds?.length) return;
+    const draw = () =>
+      canvas.setOverlay(
+        'open-ends',
+        (layer, v) => {
+          layer.selectAll('*').remove();
+          for (const p of openEnds) {
+            const [sx, sy] = v.toScreen({ x: p.x, y: p.y });
+            layer
+              .append('circle')
+              .attr('cx', sx)
+              .attr('cy', sy)
+              .attr('r', 6)
+              .attr('fill', 'none')
+              .attr('stroke', 'var(--color-finding-warning)')
+              .attr('stroke-width', 2)
+              .attr('data-open-end', `${p.x},${p.y}`);
+          }
+        },
+        { space: 'screen', order: 40 },
+      );
+    draw();
+    const off = canvas.onView(draw);
+    return () => {
+      off();
+      canvas.removeOverlay('open-ends');
+    };
+  }, [canvas, openEnds]);
 
   const styles = useMemo(() => layerStylesFor(plan.layers, hidden), [plan.layers, hidden]);
   const projectPath = `/projects/${plan.projectId}`;
@@ -110,7 +151,17 @@ function FloorPlanDetail({ plan, projectName }: { plan: FloorPlanDto; projectNam
       />
 
       <div className="flex flex-col gap-6">
-        <ImportNotes warnings={plan.warnings} />
+        {plan.unitCheck && (
+          <UnitCheckNotice check={plan.unitCheck} busy={unitBusy} onChoose={mayWrite ? (units) => update.mutate({ units }) : undefined} />
+        )}
+        <ImportNotes warnings={plan.warnings.filter((w) => w !== plan.unitCheck?.message)} notes={plan.notes} />
+        {moved && (
+          <p className="text-sm text-ink-muted" data-origin={`${plan.origin.x},${plan.origin.y}`}>
+            <span className="font-bold text-ink">Local origin. </span>
+            The drawing lies far from its own 0,0 (map grid coordinates), so it is shown moved by{' '}
+            {metres(plan.origin.x)} east and {metres(plan.origin.y)} north. The layout's DXF export moves it back.
+          </p>
+        )}
         {update.isError && <ErrorNotice title="The change was not saved" error={update.error} />}
 
         <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_33rem]">
@@ -119,13 +170,14 @@ function FloorPlanDetail({ plan, projectName }: { plan: FloorPlanDto; projectNam
             layerStyles={styles}
             bounds={plan.bounds}
             label={`Preview of ${plan.fileName}`}
+            onCanvas={setCanvas}
             className="h-[34rem] xl:h-[40rem]"
           />
           <div className="flex min-w-0 flex-col gap-5">
             <UnitsPicker
               units={plan.units}
               source={plan.unitsSource}
-              busy={update.isPending && update.variables?.units !== undefined}
+              busy={unitBusy}
               onChange={mayWrite ? (units) => update.mutate({ units }) : undefined}
             />
             <div className="flex flex-col gap-2">
@@ -142,6 +194,23 @@ function FloorPlanDetail({ plan, projectName }: { plan: FloorPlanDto; projectNam
                 onChange={mayWrite ? changeLayer : undefined}
                 savingLayer={savingLayer}
               />
+              {mayWrite && (
+                <div className="flex flex-wrap items-center gap-3 pt-1">
+                  <Button
+                    size="sm"
+                    busy={saveRoles.isPending}
+                    onClick={() => saveRoles.mutate(plan.layers.map((l) => ({ name: l.name, role: l.role, height: l.height })))}
+                  >
+                    Save these roles for this project
+                  </Button>
+                  <span className="text-xs text-ink-muted" role="status">
+                    {saveRoles.isSuccess
+                      ? 'Saved: the next drawing uploaded to this project takes these roles for layers of the same name.'
+                      : 'The next drawing uploaded to this project then takes them for layers of the same name.'}
+                  </span>
+                </div>
+              )}
+              {saveRoles.isError && <ErrorNotice title="The roles were not saved" error={saveRoles.error} />}
             </div>
           </div>
         </div>

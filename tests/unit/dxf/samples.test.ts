@@ -61,7 +61,7 @@ describe('sample floor plans', () => {
     const labels = r.geometry.features.filter((f) => f.geometry.type === 'Point').map((f) => f.properties);
     expect(labels.find((p) => p.text === 'CASE ERECTOR')).toMatchObject({ rotation: 90, textHeight: 200 });
     expect(labels.find((p) => p.entity === 'MTEXT')?.text).toBe('Office\nStore');
-    expect(r.warnings).toContain('1 HATCH entity was skipped (not supported).');
+    expect(r.notes.ignored).toContain('1 HATCH entity was skipped (not supported).');
     expect(r.stats.skipped).toEqual({ 'HATCH (not supported)': 1 });
   });
 

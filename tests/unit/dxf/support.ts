@@ -89,3 +89,27 @@ export function densePolylineDistance(curve: (t: number) => [number, number], t0
     return best;
   };
 }
+
+/** DXF text from group-code/value pairs (a hand-written file, for cases the sample writer cannot make). */
+export function rawDxf(groups: ReadonlyArray<readonly [number, string | number]>): string {
+  let s = '';
+  for (const [c, v] of groups) s += `${c}\n${v}\n`;
+  return s;
+}
+
+/** Groups of a LINE on `layer` from a to b (R12 style: no handles, no subclass markers). */
+export function lineGroups(layer: string, a: readonly [number, number], b: readonly [number, number]): Array<[number, string | number]> {
+  return [[0, 'LINE'], [8, layer], [10, a[0]], [20, a[1]], [30, 0], [11, b[0]], [21, b[1]], [31, 0]];
+}
+
+/** A whole file: HEADER groups (may be empty), then an ENTITIES section of the given groups. */
+export function entitiesDxf(
+  entities: ReadonlyArray<readonly [number, string | number]>,
+  header: ReadonlyArray<readonly [number, string | number]> = [[9, '$INSUNITS'], [70, 4]],
+): string {
+  return rawDxf([
+    [0, 'SECTION'], [2, 'HEADER'], ...header, [0, 'ENDSEC'],
+    [0, 'SECTION'], [2, 'ENTITIES'], ...entities, [0, 'ENDSEC'],
+    [0, 'EOF'],
+  ]);
+}

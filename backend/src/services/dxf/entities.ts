@@ -79,35 +79,78 @@ function ccwSweep(a: number, b: number): number {
   return s;
 }
 
-/** Plain text of an MTEXT string: paragraph breaks kept, formatting codes dropped. */
-export function mtextPlain(s: string): string {
+/**
+ * The special characters of TEXT and MTEXT (DXF reference, "Control codes and special
+ * characters"): %%c ⌀, %%d °, %%p ±, %%nnn the character of that number, %%% a percent sign;
+ * the underline/overline/strike toggles %%u, %%o, %%k are dropped. \U+XXXX is the Unicode
+ * character XXXX.
+ */
+function specialChars(s: string): string {
   return s
-    .replace(/\\[Pp]/g, '\n')
-    .replace(/\\~/g, ' ')
-    .replace(/\\S([^;]*?)[\^#/]([^;]*?);/g, '$1/$2')
-    .replace(/\\[AaCcFfHhQqTtWw][^;\\{}]*;/g, '')
-    .replace(/\\[LlOoKkNn]/g, '')
-    .replace(/\\\\/g, '\u0000')
-    .replace(/\\\{/g, '\u0001')
-    .replace(/\\\}/g, '\u0002')
-    .replace(/[{}]/g, '')
-    .replace(/\u0000/g, '\\')
-    .replace(/\u0001/g, '{')
-    .replace(/\u0002/g, '}')
-    .replace(/%%[cC]/g, '⌀')
-    .replace(/%%[dD]/g, '°')
-    .replace(/%%[pP]/g, '±')
-    .trim();
-}
-
-/** Plain text of a TEXT string (%%c, %%d, %%p special characters; %%u/%%o toggles dropped). */
-function textPlain(s: string): string {
-  return s
+    .replace(/%%(\d{3})/g, (_m, n: string) => String.fromCharCode(Number(n)))
     .replace(/%%[cC]/g, '⌀')
     .replace(/%%[dD]/g, '°')
     .replace(/%%[pP]/g, '±')
     .replace(/%%[uUoOkK]/g, '')
-    .trim();
+    .replace(/%%%/g, '%')
+    .replace(/\\U\+([0-9A-Fa-f]{4})/g, (_m, h: string) => String.fromCodePoint(Number.parseInt(h, 16)));
+}
+
+/** Codes of MTEXT that take a value up to ";" and only format: paragraph, font, height, colour, … */
+const MTEXT_VALUE_CODES = new Set(['p', 'A', 'a', 'C', 'c', 'F', 'f', 'H', 'h', 'Q', 'q', 'T', 't', 'W', 'w']);
+/** Codes of MTEXT that toggle a style and take no value. */
+const MTEXT_TOGGLES = new Set(['L', 'l', 'O', 'o', 'K', 'k']);
+
+/**
+ * Plain text of an MTEXT string (DXF reference, MTEXT inline codes): \P (and \X, \N) break
+ * the line, \~ is a non-breaking space, stacked fractions \Sa/b; \Sa#b; \Sa^b; read "a/b" (a
+ * one-sided stack reads as its one part), formatting codes (\p…; \f…; \H…; \C…; …) and
+ * grouping braces are dropped, \\ \{ \} are the characters themselves.
+ */
+export function mtextPlain(s: string): string {
+  let out = '';
+  const n = s.length;
+  let i = 0;
+  while (i < n) {
+    const c = s[i];
+    if (c === '{' || c === '}') {
+      i++;
+      continue;
+    }
+    if (c !== '\\' || i + 1 >= n) {
+      out += c;
+      i++;
+      continue;
+    }
+    const k = s[i + 1];
+    i += 2;
+    if (k === 'P' || k === 'X' || k === 'N') out += '\n';
+    else if (k === '~') out += '\u00a0';
+    else if (MTEXT_TOGGLES.has(k)) continue;
+    else if (MTEXT_VALUE_CODES.has(k)) {
+      const end = s.indexOf(';', i);
+      i = end === -1 ? n : end + 1;
+    } else if (k === 'S') {
+      let end = i;
+      while (end < n && s[end] !== ';') end += s[end] === '\\' ? 2 : 1;
+      const body = s.slice(i, end).replace(/\\(.)/g, '$1');
+      i = end + 1;
+      const m = /^(.*?)[\^#/](.*)$/.exec(body);
+      const top = (m ? m[1] : body).trim();
+      const bottom = (m ? m[2] : '').trim();
+      out += top && bottom ? `${top}/${bottom}` : top || bottom;
+    } else if (k === 'U' && s[i] === '+') {
+      out += '\\U';
+    } else if (k === 'M' && s[i] === '+') {
+      i = Math.min(n, i + 6); // \M+nXXXX: a character in an Asian code page, not shown
+    } else out += k;
+  }
+  return specialChars(out).trim();
+}
+
+/** Plain text of a TEXT string: special characters (%%c, %%d, %%p, %%nnn, \U+XXXX) as what they mean. */
+function textPlain(s: string): string {
+  return specialChars(s).trim();
 }
 
 /** Points of a polyline with bulges (x, y, bulge per vertex) in its OCS at height z. */

@@ -19,6 +19,43 @@ export interface GroupScan {
    * ENTITIES section, more than one, or one without its ENDSEC.
    */
   entities: { start: number; end: number; cuts: number[] } | null;
+  /** LAYER table records as written in the file (flags and colour read here, not by the parser). */
+  layers: Map<string, RawLayer>;
+  /** $INSUNITS and $MEASUREMENT as written in the HEADER (null when absent or not a number). */
+  headerUnits: { insunits: number | null; measurement: number | null };
+  /**
+   * Changes that let the parser read the file, in file order and not overlapping: values of
+   * boolean groups (290–299) written as other whole numbers, set to 0 or 1; block definitions
+   * without a name (which nothing can insert) left out.
+   */
+  edits: TextEdit[];
+  /** Boolean group values that were not 0 or 1, and block definitions without a name. */
+  repaired: { booleans: number; unnamedBlocks: number };
+}
+
+/** A LAYER table record: group 70 flags (bit 1 = frozen) and group 62 colour (negative = off). */
+export interface RawLayer {
+  flags: number;
+  color: number | null;
+}
+
+/** Replace text[start, end) by `text`. */
+export interface TextEdit {
+  start: number;
+  end: number;
+  text: string;
+}
+
+/** text[from, to) with the edits that lie inside it applied (edits in file order). */
+export function sliceWithEdits(text: string, from: number, to: number, edits: readonly TextEdit[]): string {
+  let out = '';
+  let at = from;
+  for (const e of edits) {
+    if (e.start < from || e.end > to) continue;
+    out += text.slice(at, e.start) + e.text;
+    at = e.end;
+  }
+  return out + text.slice(at, to);
 }
 
 /** Size of the pieces the ENTITIES section is parsed in (characters). */
@@ -70,9 +107,21 @@ export function scanGroups(text: string): GroupScan {
   let lastCut = 0;
   const cuts: number[] = [];
   let expectBlockName = false;
-  let blockLine = 0;
   let blockName = '';
   let countBlock = true; // false inside the *Model_Space / *Paper_Space blocks
+  let blockPos = 0; // where the current block's 0/BLOCK group starts
+  let dropFrom = -1; // start of an unnamed block being left out, until the group after its ENDBLK
+  let dropEnding = false;
+  const layers = new Map<string, RawLayer>();
+  let layerRec: { name: string; flags: number; color: number | null } | null = null;
+  let headerVar = '';
+  const headerUnits: GroupScan['headerUnits'] = { insunits: null, measurement: null };
+  const edits: TextEdit[] = [];
+  const repaired = { booleans: 0, unnamedBlocks: 0 };
+  const endLayer = () => {
+    if (layerRec && layerRec.name !== '') layers.set(layerRec.name, { flags: layerRec.flags, color: layerRec.color });
+    layerRec = null;
+  };
 
   while (pos < len) {
     const codeEnd0 = text.indexOf('\n', pos);
@@ -110,9 +159,38 @@ export function scanGroups(text: string): GroupScan {
     const codeLine = line;
 
     let value: string | null = null;
+    const inLayerRec = layerRec !== null && (code === 2 || code === 70 || code === 62);
+    const isBool = code >= 290 && code <= 299;
     const needValue =
-      code === 0 || expectSectionName || expectTableName || (expectBlockName && code === 2) || (inLw && code === 90);
+      code === 0 || expectSectionName || expectTableName || (expectBlockName && code === 2) || (inLw && code === 90) ||
+      inLayerRec || isBool || (section === 'HEADER' && (code === 9 || headerVar !== ''));
     if (needValue) value = text.slice(valueStart, valueEnd).trim();
+
+    if (isBool && value !== '0' && value !== '1') {
+      // The parser refuses anything but 0 and 1 here; some programs write other whole numbers.
+      const n = Number.parseInt(value as string, 10);
+      edits.push({ start: valueStart, end: valueEnd, text: Number.isFinite(n) && n !== 0 ? '1' : '0' });
+      repaired.booleans++;
+    }
+    if (inLayerRec && layerRec) {
+      const rec: { name: string; flags: number; color: number | null } = layerRec;
+      if (code === 2) rec.name = value as string;
+      else {
+        const n = Number.parseInt(value as string, 10);
+        if (code === 70) rec.flags = Number.isFinite(n) ? n : 0;
+        else rec.color = Number.isFinite(n) ? n : null;
+      }
+    }
+    if (section === 'HEADER' && code !== 0) {
+      if (code === 9) headerVar = value as string;
+      else if (headerVar !== '') {
+        if (code === 70 && (headerVar === '$INSUNITS' || headerVar === '$MEASUREMENT')) {
+          const n = Number.parseInt(value as string, 10);
+          if (Number.isFinite(n)) headerUnits[headerVar === '$INSUNITS' ? 'insunits' : 'measurement'] = n;
+        }
+        headerVar = '';
+      }
+    }
 
     if (prevLw10 && !LW_VERTEX_CODES.has(code)) {
       fail('An LWPOLYLINE vertex has an x coordinate without its y coordinate', codeLine);
@@ -156,20 +234,33 @@ export function scanGroups(text: string): GroupScan {
           lastCut = pos;
         }
       }
+      if (dropEnding) {
+        edits.push({ start: dropFrom, end: pos, text: '' });
+        dropEnding = false;
+        dropFrom = -1;
+      }
       // dxf-parser takes a block's name only before the block's first entity, and logs (past
-      // any console silencing) when there is none; such a block could never be inserted.
+      // any console silencing) when there is none; such a block could never be inserted, so
+      // it is left out of what the parser reads.
       if (expectBlockName) {
-        if (!blockName) fail('A block definition has no name', blockLine);
+        if (!blockName) {
+          dropFrom = blockPos;
+          countBlock = false;
+          repaired.unnamedBlocks++;
+        }
         expectBlockName = false;
       }
+      if (layerRec) endLayer();
+      if (v === 'LAYER' && tableGuard === 'LAYER') layerRec = { name: '', flags: 0, color: null };
       if (v === 'BLOCK') {
-        blockLine = codeLine;
+        blockPos = pos;
         blockName = '';
         expectBlockName = true;
         countBlock = true;
       } else if (v === 'ENDBLK') {
         expectBlockName = false;
         countBlock = true;
+        if (dropFrom >= 0) dropEnding = true;
       }
       if (inLw) {
         if (lwDeclared > lwCount) {
@@ -234,6 +325,10 @@ export function scanGroups(text: string): GroupScan {
     lastLine: Math.max(1, line - 1),
     sections,
     entities: entitiesSeen === 1 && entEnd > entStart ? { start: entStart, end: entEnd, cuts } : null,
+    layers,
+    headerUnits,
+    edits,
+    repaired,
   };
 }
 

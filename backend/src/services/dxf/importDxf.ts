@@ -1,9 +1,10 @@
 import type { Feature, Geometry, Polygon } from 'geojson';
-import type { ImportLayer, ImportResult, PlanFeatureProps, UnitName } from '@shared/schemas/floorPlan';
+import type { ImportGaps, ImportLayer, ImportResult, PlanFeatureProps, UnitName } from '@shared/schemas/floorPlan';
 import { drawEntities, localTolerance, newBlockWalk } from './blocks';
 import { DxfImportError } from './errors';
-import { scanGroups } from './groupScan';
-import { joinPaths } from './join';
+import { checkDrawingUnit } from '@shared/geometry/drawingScale';
+import { scanGroups, sliceWithEdits, type GroupScan } from './groupScan';
+import { joinPaths, MAX_LISTED_ENDS, type JoinStats } from './join';
 import { colorHex, defaultLayerHeight, guessLayerRole } from './layerRoles';
 import {
   DEFAULT_CHORD_TOLERANCE_MM,
@@ -13,7 +14,8 @@ import {
   MIN_CHORD_TOLERANCE_MM,
 } from './limits';
 import { ringSelfIntersects } from './outline';
-import { parseDxfText } from './parse';
+import { localOrigin, moveToOrigin } from './origin';
+import { COUNTED_ONLY_TYPES, parseDxfText, type ParsedDxf } from './parse';
 import { PlanBuilder } from './planBuilder';
 import { decodeDxfBytes, sniffDxf } from './sniff';
 import { scaling } from './transform';
@@ -31,8 +33,47 @@ export interface ImportOptions {
 /** Entity types dxf-parser 1.1.2 reads; every other type it drops without a word. */
 const PARSER_TYPES = new Set([
   '3DFACE', 'ARC', 'ATTDEF', 'CIRCLE', 'DIMENSION', 'ELLIPSE', 'INSERT', 'LINE', 'LWPOLYLINE', 'MTEXT', 'POINT',
-  'POLYLINE', 'SOLID', 'SPLINE', 'TEXT',
+  'POLYLINE', 'SOLID', 'SPLINE', 'TEXT', ...COUNTED_ONLY_TYPES,
 ]);
+
+/**
+ * Entity types a floor plan leaves out on purpose: annotation, fills, views, pictures. (Their
+ * outlines, where they matter, are drawn by lines of their own.)
+ */
+const IGNORED_TYPES = new Set([
+  'ATTDEF', 'ATTRIB', 'DIMENSION', 'ARC_DIMENSION', 'LEADER', 'MLEADER', 'MULTILEADER', 'TOLERANCE', 'HATCH', 'WIPEOUT',
+  'VIEWPORT', 'IMAGE', 'OLE2FRAME', 'POINT', 'RAY', 'XLINE', 'LIGHT', 'UNDERLAY', 'PDFUNDERLAY', 'DGNUNDERLAY', 'DWFUNDERLAY',
+]);
+/** Skip reasons that are choices, not failures. */
+const IGNORED_REASONS = new Set(['on a paper-space layout', 'invisible', 'zero size', 'empty', 'on a layer that is off or frozen']);
+
+/** True when a skipped-count key ("HATCH (not supported)") was left out on purpose. */
+function ignoredOnPurpose(key: string): boolean {
+  const m = /^(.*?) \((.*)\)$/.exec(key);
+  if (!m) return false;
+  return IGNORED_REASONS.has(m[2]) || (m[2] === 'not supported' && IGNORED_TYPES.has(m[1]));
+}
+
+/** A file's HEADER section cut out (for a header the parser cannot read); null when it has none. */
+function withoutHeader(text: string): string | null {
+  const start = /(^|\n)[ \t]*0[ \t]*\n[ \t]*SECTION[ \t]*\n[ \t]*2[ \t]*\n[ \t]*HEADER[ \t]*\n/.exec(text);
+  if (!start) return null;
+  const from = start.index + start[1].length;
+  const end = /\n[ \t]*0[ \t]*\n[ \t]*ENDSEC[ \t]*\n/g;
+  end.lastIndex = from;
+  const m = end.exec(text);
+  if (!m) return null;
+  return text.slice(0, from) + text.slice(m.index + m[0].length);
+}
+
+/** The parser's header, or one made of the raw $INSUNITS and $MEASUREMENT when it has none. */
+function headerOf(dxf: ParsedDxf, scan: GroupScan): Record<string, unknown> | undefined {
+  if (dxf.header && typeof dxf.header === 'object') return dxf.header;
+  const h: Record<string, unknown> = {};
+  if (scan.headerUnits.insunits !== null) h.$INSUNITS = scan.headerUnits.insunits;
+  if (scan.headerUnits.measurement !== null) h.$MEASUREMENT = scan.headerUnits.measurement;
+  return Object.keys(h).length ? h : undefined;
+}
 
 type PlanFeature = Feature<Geometry, PlanFeatureProps>;
 type Loose = Record<string, unknown>;
@@ -81,6 +122,8 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
   const joinTol = opts.joinToleranceMm ?? DEFAULT_JOIN_TOLERANCE_MM;
   let text = sniffDxf(typeof input === 'string' ? input : decodeDxfBytes(input));
   const warnings: string[] = [];
+  const ignored: string[] = [];
+  const unread: string[] = [];
 
   const scan = scanGroups(text);
   if (!scan.hasEof) {
@@ -99,12 +142,31 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
   // each drawn and dropped before the next is parsed: the parser's objects for a large file
   // never all live at once. A file whose ENTITIES section is not plain is parsed whole.
   const span = scan.entities;
-  const dxf = span
-    ? parseDxfText(text.slice(0, span.start) + text.slice(span.end), scan.lastLine, text)
-    : parseDxfText(text, scan.lastLine);
-  const header = dxf.header && typeof dxf.header === 'object' ? dxf.header : undefined;
-  const units = resolveUnits(header, opts.units);
+  const edits = scan.edits;
+  const head = span
+    ? sliceWithEdits(text, 0, span.start, edits) + sliceWithEdits(text, span.end, text.length, edits)
+    : edits.length
+      ? sliceWithEdits(text, 0, text.length, edits)
+      : text;
+  let dxf: ParsedDxf;
+  try {
+    dxf = parseDxfText(head, scan.lastLine, text);
+  } catch (err) {
+    // Header variables the plan does not use never refuse a drawing: the unit is read raw.
+    const rest = withoutHeader(head);
+    if (rest === null) throw err;
+    dxf = parseDxfText(rest, scan.lastLine, text);
+    ignored.push('The file header could not be read and was left out; the drawing unit was taken from its $INSUNITS value.');
+  }
+  let reordered = dxf.pointsReordered === true;
+  const units = resolveUnits(headerOf(dxf, scan), opts.units);
   if (units.warning) warnings.push(units.warning);
+  if (scan.repaired.booleans > 0) {
+    ignored.push(`${plural(scan.repaired.booleans, 'yes/no value was', 'yes/no values were')} written as another number than 0 or 1 and read as yes for any number but 0.`);
+  }
+  if (scan.repaired.unnamedBlocks > 0) {
+    ignored.push(`${plural(scan.repaired.unnamedBlocks, 'block definition has', 'block definitions have')} no name, so nothing can place ${scan.repaired.unnamedBlocks === 1 ? 'it' : 'them'}; left out.`);
+  }
 
   const builder = new PlanBuilder();
   const walk = newBlockWalk(dxf.blocks, chordTol);
@@ -114,24 +176,28 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
   if (span) {
     const bounds = [span.start, ...span.cuts, span.end];
     for (let i = 0; i + 1 < bounds.length; i++) {
-      const piece = `0\nSECTION\n2\nENTITIES\n${text.slice(bounds[i], bounds[i + 1])}0\nENDSEC\n0\nEOF\n`;
+      const piece = `0\nSECTION\n2\nENTITIES\n${sliceWithEdits(text, bounds[i], bounds[i + 1], edits)}0\nENDSEC\n0\nEOF\n`;
       const part = parseDxfText(piece, scan.lastLine, text);
+      if (part.pointsReordered) reordered = true;
       drawEntities(Array.isArray(part.entities) ? part.entities : [], ctx, [], walk, builder);
     }
   } else {
     drawEntities(Array.isArray(dxf.entities) ? dxf.entities : [], ctx, [], walk, builder);
   }
 
+  if (reordered) ignored.push('Coordinates written in an old order (x, x, y, y) were read in their proper order.');
   const skipped = new Map(builder.skipped);
   for (const [type, n] of scan.entityTypes) {
     if (!PARSER_TYPES.has(type)) skipped.set(`${type} (not supported)`, (skipped.get(`${type} (not supported)`) ?? 0) + n);
   }
 
+  // (one push per feature: spreading an array of unbounded length overflows the call stack)
   const features: PlanFeature[] = [];
   const labels: PlanFeature[] = [];
   for (const f of builder.features) (f.geometry.type === 'Point' ? labels : features).push(f);
-  features.push(...joinPaths(builder.open, joinTol));
-  features.push(...labels);
+  const join: JoinStats = { gapsClosed: 0, openByLayer: new Map(), ends: new Map(), degenerate: 0 };
+  for (const f of joinPaths(builder.open, joinTol, join)) features.push(f);
+  for (const f of labels) features.push(f);
 
   if (features.length === 0) {
     const found = [...skipped.entries()].map(([k, n]) => `${n} ${k}`).join(', ');
@@ -143,16 +209,21 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
     );
   }
 
-  // layers: file (table) order first, then as met
+  // layers: file (table) order first, then as met. Off (negative colour) and frozen (flag bit 1)
+  // come from the raw table: the parser also takes "frozen in new viewports" (bit 2) as frozen.
   const table = (dxf.tables?.layer?.layers ?? {}) as Record<string, Loose>;
   const names = [...Object.keys(table).filter((n) => builder.layerCounts.has(n))];
-  for (const n of builder.layerCounts.keys()) if (!names.includes(n)) names.push(n);
+  const listed = new Set(names);
+  for (const n of builder.layerCounts.keys()) if (!listed.has(n)) names.push(n);
   const layers: ImportLayer[] = names.map((name) => {
     const rec = table[name];
+    const raw = scan.layers.get(name);
     let role = guessLayerRole(name);
-    if (rec && (rec.visible === false || rec.frozen === true)) {
+    const frozen = raw !== undefined && (raw.flags & 1) !== 0;
+    const off = raw !== undefined && raw.color !== null && raw.color < 0;
+    if (frozen || off) {
       role = 'ignore';
-      warnings.push(`Layer "${name}" is switched off or frozen in the drawing, so it is set to be ignored.`);
+      warnings.push(`Layer "${name}" is ${frozen && off ? 'switched off and frozen' : frozen ? 'frozen' : 'switched off'} in the drawing, so it is set to be ignored.`);
     }
     return {
       name,
@@ -163,7 +234,30 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
     };
   });
 
+  const bounds = { minX: builder.minX, minY: builder.minY, maxX: builder.maxX, maxY: builder.maxY };
+  const origin = localOrigin(bounds);
+  if (origin.x !== 0 || origin.y !== 0) {
+    moveToOrigin(features, bounds, origin);
+    for (const list of join.ends.values()) {
+      for (const g of list) {
+        g.x = g.x - origin.x;
+        g.y = g.y - origin.y;
+      }
+    }
+    warnings.push(
+      `The drawing lies ${(Math.hypot(origin.x, origin.y) / 1e6).toFixed(0)} km from its own origin (map grid coordinates); it was moved by ${(origin.x / 1000).toFixed(0)} m east and ${(origin.y / 1000).toFixed(0)} m north to a local origin, and the layout's DXF export moves it back.`,
+    );
+  }
+  const unitCheck = checkDrawingUnit(bounds, units.units);
+  if (unitCheck.message) warnings.push(unitCheck.message);
+
   outlineWarnings(layers, features, joinTol, warnings);
+  // gaps: reported for the floor boundary (walls end freely at openings)
+  const outlineLayers = new Set(layers.filter((l) => l.role === 'boundary').map((l) => l.name));
+  for (const name of outlineLayers) {
+    const n = join.openByLayer.get(name) ?? 0;
+    if (n > 0) warnings.push(`${plural(n, 'line end', 'line ends')} on layer "${name}" ${n === 1 ? 'meets' : 'meet'} nothing within ${joinTol} mm (marked on the preview).`);
+  }
 
   if (curves.capped > 0) {
     warnings.push(
@@ -174,19 +268,34 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
   if (walk.recursive.size > 0) warnings.push(`Blocks that contain themselves, drawn once only: ${listNames(walk.recursive)}.`);
   if (walk.tooDeep.size > 0) warnings.push(`Blocks nested too deeply to follow: ${listNames(walk.tooDeep)}.`);
   if (walk.xrefs.size > 0) warnings.push(`External references not included in the file: ${listNames(walk.xrefs)}.`);
-  for (const key of [...skipped.keys()].sort()) warnings.push(skippedSentence(key, skipped.get(key)!));
+  for (const key of [...skipped.keys()].sort()) (ignoredOnPurpose(key) ? ignored : unread).push(skippedSentence(key, skipped.get(key)!));
+
+  const ends: ImportGaps['ends'] = [];
+  let openOnOutlines = 0;
+  for (const name of outlineLayers) {
+    openOnOutlines += join.openByLayer.get(name) ?? 0;
+    for (const g of join.ends.get(name) ?? []) if (ends.length < MAX_LISTED_ENDS) ends.push(g);
+  }
+  if (join.gapsClosed > 0 || join.degenerate > 0) {
+    ignored.push(
+      `${plural(join.gapsClosed, 'gap', 'gaps')} of up to ${joinTol} mm between line ends ${join.gapsClosed === 1 ? 'was' : 'were'} closed${join.degenerate > 0 ? `, and ${plural(join.degenerate, 'piece', 'pieces')} shorter than that dropped` : ''}.`,
+    );
+  }
 
   return {
     units: units.units,
     unitsSource: units.unitsSource,
     insunits: units.insunits,
     // every feature reuses positions the builder placed (and measured)
-    bounds: { minX: builder.minX, minY: builder.minY, maxX: builder.maxX, maxY: builder.maxY },
+    bounds,
     layers,
     geometry: { type: 'FeatureCollection', features },
     warnings,
     stats: { entities: builder.entities, features: features.length, skipped: Object.fromEntries(skipped) },
     chordToleranceMm: chordTol,
+    origin,
+    notes: { ignored, unread },
+    gaps: { closed: join.gapsClosed, open: openOnOutlines, ends },
   };
 }
 

@@ -2,20 +2,50 @@ import type { Feature, Geometry } from 'geojson';
 import type { PlanFeatureProps } from '@shared/schemas/floorPlan';
 import { closeCcwRing, type OpenPath, type Position2 } from './planBuilder';
 
+/** What joining found: gaps bridged, and the open ends of chains that did not close. */
+export interface JoinStats {
+  /** Places where ends that did not coincide exactly were joined (within the tolerance). */
+  gapsClosed: number;
+  /** Number of open chain ends (where one end meets nothing), per layer. */
+  openByLayer: Map<string, number>;
+  /** Open chain ends per layer, plan mm: at most MAX_LISTED_ENDS of each layer. */
+  ends: Map<string, Array<{ layer: string; x: number; y: number }>>;
+  /** Paths shorter than the tolerance, dropped (their ends still join their neighbours). */
+  degenerate: number;
+}
+
+/** Most open ends listed with positions per layer (the count is always complete). */
+export const MAX_LISTED_ENDS = 500;
+
+/** True when every position of `c` lies within `tol` of its first (a path shorter than the tolerance). */
+function isDegenerate(c: readonly Position2[], tol: number): boolean {
+  const [x0, y0] = c[0];
+  const t2 = tol * tol;
+  for (let i = 1; i < c.length; i++) {
+    const dx = c[i][0] - x0;
+    const dy = c[i][1] - y0;
+    if (dx * dx + dy * dy > t2) return false;
+  }
+  return true;
+}
+
 /**
  * Joins open paths of the same layer whose ends lie within `tol` mm of each other into chains
  * (ends matched through a hash grid of cell size tol, grouped by union–find). A chain that comes
  * back to where it started becomes a closed ring (Polygon); the others stay LineStrings. Chains
- * stop where more than two ends meet, so T-junctions are never guessed through. The paths'
- * positions are reused in the output.
+ * stop where more than two ends meet, so T-junctions are never guessed through. A path that lies
+ * wholly within `tol` of its start is dropped, but its ends still link the ends around it, so a
+ * chain runs on through it. The paths' positions are reused in the output; `stats` (when given)
+ * receives the gaps closed and the ends left open.
  */
-export function joinPaths(paths: readonly OpenPath[], tol: number): Array<Feature<Geometry, PlanFeatureProps>> {
+export function joinPaths(paths: readonly OpenPath[], tol: number, stats?: JoinStats): Array<Feature<Geometry, PlanFeatureProps>> {
   const n = paths.length;
   const ends = 2 * n;
   const ex = new Float64Array(ends);
   const ey = new Float64Array(ends);
   const layerIds = new Int32Array(n);
   const layerIndex = new Map<string, number>();
+  const degenerate = new Uint8Array(n);
   for (let i = 0; i < n; i++) {
     const c = paths[i].coords;
     const a = c[0];
@@ -27,6 +57,7 @@ export function joinPaths(paths: readonly OpenPath[], tol: number): Array<Featur
     let id = layerIndex.get(paths[i].layer);
     if (id === undefined) layerIndex.set(paths[i].layer, (id = layerIndex.size));
     layerIds[i] = id;
+    if (isDegenerate(c, tol)) degenerate[i] = 1;
   }
 
   // union–find over end points
@@ -99,15 +130,25 @@ export function joinPaths(paths: readonly OpenPath[], tol: number): Array<Featur
   const first = new Int32Array(ends).fill(-1);
   const second = new Int32Array(ends).fill(-1);
   const root = new Int32Array(ends);
+  // a node whose ends do not all lie at one point is a gap closed within the tolerance
+  const nodeX = new Float64Array(ends).fill(Number.NaN);
+  const nodeY = new Float64Array(ends);
+  const gap = new Uint8Array(ends);
   for (let e = 0; e < ends; e++) {
     const r = find(e);
     root[e] = r;
+    if (Number.isNaN(nodeX[r])) {
+      nodeX[r] = ex[e];
+      nodeY[r] = ey[e];
+    } else if (nodeX[r] !== ex[e] || nodeY[r] !== ey[e]) gap[r] = 1;
+    if (degenerate[e >> 1]) continue;
     const d = degree[r]++;
     if (d === 0) first[r] = e;
     else if (d === 1) second[r] = e;
   }
 
   const used = new Uint8Array(n);
+  for (let i = 0; i < n; i++) if (degenerate[i]) used[i] = 1;
   const out: Array<Feature<Geometry, PlanFeatureProps>> = [];
 
   const emit = (coords: Position2[], layer: string, parts: number, entity: string, closed: boolean) => {
@@ -165,6 +206,21 @@ export function joinPaths(paths: readonly OpenPath[], tol: number): Array<Featur
   // what is left lies on cycles
   for (let e = 0; e < ends; e += 2) {
     if (!used[e >> 1]) walk(e);
+  }
+  if (stats) {
+    for (let e = 0; e < ends; e++) {
+      const r = root[e];
+      if (r !== e) continue;
+      if (gap[r] && degree[r] >= 2) stats.gapsClosed++;
+      if (degree[r] === 1) {
+        const layer = paths[first[r] >> 1].layer;
+        stats.openByLayer.set(layer, (stats.openByLayer.get(layer) ?? 0) + 1);
+        let list = stats.ends.get(layer);
+        if (!list) stats.ends.set(layer, (list = []));
+        if (list.length < MAX_LISTED_ENDS) list.push({ layer, x: nodeX[r], y: nodeY[r] });
+      }
+    }
+    for (let i = 0; i < n; i++) stats.degenerate += degenerate[i];
   }
   return out;
 }

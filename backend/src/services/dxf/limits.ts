@@ -13,10 +13,11 @@ export const MAX_CHORD_TOLERANCE_MM = 1000;
 export const DEFAULT_JOIN_TOLERANCE_MM = 1;
 
 /**
- * No point of a floor plan lies farther than this from the drawing origin, mm (1000 km). A
- * larger coordinate is a broken file, not a building.
+ * No point of a floor plan lies farther than this from the drawing origin, mm (2^49 mm, about
+ * 563 million km): beyond it float64 cannot place a point to 0.1 mm (its spacing there is
+ * 2^-4 mm). Map-grid coordinates lie far inside; the import moves them to a local origin.
  */
-export const MAX_COORDINATE_MM = 1e9;
+export const MAX_COORDINATE_MM = 2 ** 49;
 
 /** Most segments one curve is cut into; a larger count means a coarser approximation. */
 export const MAX_SEGMENTS_PER_CURVE = 4096;

@@ -210,12 +210,30 @@ class SplineHandler {
   }
 }
 
+/**
+ * Entity types dxf-parser drops without a trace; read here as their type, layer, paper-space
+ * flag and visibility only, so that each placed copy (also inside blocks) is counted.
+ */
+const COUNTED_ONLY = ['HATCH', 'VIEWPORT', 'WIPEOUT', 'IMAGE', 'LEADER', 'MLEADER', 'MULTILEADER', 'REGION', '3DSOLID', 'BODY', 'RAY', 'XLINE', 'TOLERANCE', 'OLE2FRAME', 'ACAD_PROXY_ENTITY', 'ARC_DIMENSION', 'SHAPE', 'TRACE', 'MLINE', 'SURFACE', 'MESH', 'HELIX', 'LIGHT', 'SECTION', 'UNDERLAY', 'PDFUNDERLAY', 'DGNUNDERLAY', 'DWFUNDERLAY'] as const;
+export const COUNTED_ONLY_TYPES: ReadonlySet<string> = new Set(COUNTED_ONLY);
+
+function countedOnlyHandler(type: string) {
+  return class {
+    ForEntityName = type;
+    parseEntity(scanner: Scanner, curr: Group): Loose {
+      return readEntity(scanner, curr, (_e, g) => g.code !== 8 && g.code !== 60 && g.code !== 67 && g.code !== 101);
+    }
+  };
+}
+
 /** The parsed drawing as the import engine reads it (loose: a damaged file may lack anything). */
 export interface ParsedDxf {
   header?: Record<string, unknown>;
   entities?: Loose[];
   blocks?: Record<string, Loose>;
   tables?: { layer?: { layers?: Record<string, Loose> } };
+  /** True when coordinates had to be put in x, y, z order first (old files write 10, 11, 20, 21). */
+  pointsReordered?: boolean;
 }
 
 const CONSOLE_METHODS = ['log', 'warn', 'error', 'info', 'debug', 'trace'] as const;
@@ -223,7 +241,7 @@ const CONSOLE_METHODS = ['log', 'warn', 'error', 'info', 'debug', 'trace'] as co
 /** A dxf-parser with the extra entity handlers of this module. */
 export function createParser(): DxfParser {
   const parser = new DxfParser();
-  for (const H of [CircleHandler, TextHandler, EllipseHandler, SplineHandler]) {
+  for (const H of [CircleHandler, TextHandler, EllipseHandler, SplineHandler, ...COUNTED_ONLY.map(countedOnlyHandler)]) {
     parser.registerEntityHandler(H as unknown as Parameters<DxfParser['registerEntityHandler']>[0]);
   }
   return parser;
@@ -242,8 +260,23 @@ export function parseDxfText(text: string, lastLine: number, wholeFile: string =
   const quiet = () => undefined;
   for (const m of CONSOLE_METHODS) console[m] = quiet;
   let dxf: unknown;
+  let reordered = false;
   try {
-    dxf = createParser().parseSync(text);
+    try {
+      dxf = createParser().parseSync(text);
+    } catch (err) {
+      // Old files may write a point's groups as 10, 11, 20, 21: put them in order and try once more.
+      const msg = err instanceof Error ? err.message : '';
+      if (!msg.startsWith('Expected code for point value')) throw err;
+      const fixed = reorderPointGroups(text);
+      if (fixed === null) throw err;
+      try {
+        dxf = createParser().parseSync(fixed);
+        reordered = true;
+      } catch {
+        throw err;
+      }
+    }
   } catch (err) {
     throw toImportError(err, wholeFile, lastLine);
   } finally {
@@ -251,13 +284,56 @@ export function parseDxfText(text: string, lastLine: number, wholeFile: string =
   }
   if (dxf === null || typeof dxf !== 'object') throw new DxfImportError('parse-error', `${GENERIC}.`);
   const d = dxf as ParsedDxf;
-  if (!d.header && !d.entities && !d.blocks) {
+  if (reordered) d.pointsReordered = true;
+  if (!d.header && !d.entities && !d.blocks && !d.tables) {
     throw new DxfImportError(
       'parse-error',
       'No HEADER, BLOCKS or ENTITIES section could be read from the file; its group codes may be damaged.',
     );
   }
   return d;
+}
+
+/**
+ * The text with each object's coordinate groups in the order the parser needs: every x
+ * (codes 10–18) directly followed by its y (+10) and z (+20). Null when nothing had to move.
+ */
+export function reorderPointGroups(text: string): string | null {
+  const lines = text.split('\n');
+  const out: string[] = [];
+  let moved = false;
+  let i = 0;
+  while (i + 1 < lines.length) {
+    // one object: from a code-0 group up to the next
+    let j = i + 2;
+    while (j + 1 < lines.length && lines[j].trim() !== '0') j += 2;
+    const codes: number[] = [];
+    for (let k = i; k < j; k += 2) codes.push(Number.parseInt(lines[k], 10));
+    const used = new Uint8Array(codes.length);
+    let placed = 0;
+    const put = (k: number) => {
+      used[k] = 1;
+      if (k !== placed++) moved = true;
+      out.push(lines[i + 2 * k], lines[i + 2 * k + 1]);
+    };
+    for (let a = 0; a < codes.length; a++) {
+      if (used[a]) continue;
+      put(a);
+      const c = codes[a];
+      if (!(c >= 10 && c <= 18)) continue;
+      for (const want of [c + 10, c + 20]) {
+        // the partner before this point's x comes again (the next point of the object)
+        let b = a + 1;
+        while (b < codes.length && (used[b] || codes[b] !== want) && codes[b] !== c) b++;
+        if (b >= codes.length || codes[b] !== want) break;
+        put(b);
+      }
+    }
+    i = j;
+  }
+  if (!moved) return null;
+  for (; i < lines.length; i++) out.push(lines[i]);
+  return out.join('\n');
 }
 
 function toImportError(err: unknown, text: string, lastLine: number): DxfImportError {

@@ -2,6 +2,7 @@ import { Worker } from 'node:worker_threads';
 import type { ImportResult } from '@shared/schemas/floorPlan';
 import { DxfImportError, DXF_IMPORT_ERROR_CODES, type DxfImportErrorCode } from './errors';
 import type { ImportOptions } from './importDxf';
+import { unpackResult } from './transfer';
 import type { WorkerJob, WorkerReply } from './worker';
 
 export interface WorkerOptions {
@@ -58,7 +59,7 @@ export function parseInWorker(input: string | Uint8Array, opts: ImportOptions = 
     }, timeoutMs);
     worker.once('message', (reply: WorkerReply) => {
       finish(() => {
-        if (reply.ok) return resolve(reply.result);
+        if (reply.ok) return resolve(unpackResult(reply.result));
         const { code, message, line } = reply.error;
         if (code === 'invalid-options') return reject(new RangeError(message));
         const known = (DXF_IMPORT_ERROR_CODES as readonly string[]).includes(code);

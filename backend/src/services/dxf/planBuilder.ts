@@ -188,7 +188,7 @@ export class PlanBuilder {
 export function badPoint(x: number, y: number, ref: EntityRef): never {
   const v = Math.abs(x) <= MAX_COORDINATE_MM ? y : x;
   const what = Number.isFinite(v)
-    ? `a coordinate of ${v.toExponential(3)} mm, farther than ${MAX_COORDINATE_MM / 1e6} km from the drawing origin`
+    ? `a coordinate of ${v.toExponential(3)} mm, too far from the drawing origin to be placed to 0.1 mm`
     : 'a coordinate that is not a number';
   const who = describeEntity(ref);
   throw new DxfImportError(

@@ -2,6 +2,7 @@
 import { parentPort } from 'node:worker_threads';
 import { isDxfImportError } from './errors';
 import { importDxf, type ImportOptions } from './importDxf';
+import { packedBuffers, packResult, type PackedResult } from './transfer';
 
 export interface WorkerJob {
   input: string | Uint8Array;
@@ -9,7 +10,7 @@ export interface WorkerJob {
 }
 
 export type WorkerReply =
-  | { ok: true; result: ReturnType<typeof importDxf> }
+  | { ok: true; result: PackedResult }
   | { ok: false; error: { code: string; message: string; line?: number } };
 
 if (!parentPort) throw new Error('worker.ts: must run as a worker thread');
@@ -18,7 +19,7 @@ const port = parentPort;
 port.once('message', (job: WorkerJob) => {
   let reply: WorkerReply;
   try {
-    reply = { ok: true, result: importDxf(job.input, job.opts) };
+    reply = { ok: true, result: packResult(importDxf(job.input, job.opts)) };
   } catch (err) {
     if (isDxfImportError(err)) {
       reply = { ok: false, error: err.toJSON() };
@@ -32,5 +33,6 @@ port.once('message', (job: WorkerJob) => {
       };
     }
   }
-  port.postMessage(reply);
+  // coordinates move as typed arrays (transferred, not cloned)
+  port.postMessage(reply, reply.ok ? packedBuffers(reply.result) : []);
 });

@@ -3,6 +3,7 @@ import { geoJSONToPolygons } from '@shared/geometry/geojson';
 import type { Polygon2 } from '@shared/geometry/types';
 import { ZONE_STYLES, type DxfLook } from '@shared/style/zoneStyles';
 import { summarizeArms } from './armSummary';
+import { moveDxfEntities } from './dxfOrigin';
 import type { PlanSheetInput } from './types';
 
 /** Layer names of the exported layout (CAD side). */
@@ -90,5 +91,7 @@ export function layoutDxf(input: PlanSheetInput): string {
     const [x, y] = pts[0];
     d.drawText(x, y, TEXT_MM / 2, 0, dxfText(`${z.id} ${z.kind}${z.height ? ` h ${Math.round(z.height)}` : ''}`));
   }
-  return d.toDxfString();
+  // back to where the building lies in its own drawing (see the floor plan's local origin)
+  const o = input.floorPlan?.origin;
+  return o ? moveDxfEntities(d.toDxfString(), o.x, o.y) : d.toDxfString();
 }

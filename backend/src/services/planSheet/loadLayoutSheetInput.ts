@@ -11,7 +11,7 @@ export async function loadLayoutSheetInput(layout: Layout): Promise<PlanSheetInp
   const content = layout.content as LayoutContent;
   const [project, fp, analysis] = await Promise.all([
     Project.findByPk(layout.projectId),
-    layout.floorPlanId ? FloorPlan.findByPk(layout.floorPlanId, { attributes: ['id', 'geometry', 'layers', 'bounds'] }) : Promise.resolve(null),
+    layout.floorPlanId ? FloorPlan.findByPk(layout.floorPlanId, { attributes: ['id', 'geometry', 'layers', 'bounds', 'origin'] }) : Promise.resolve(null),
     analyzeLayout(layout),
   ]);
   if (!project) throw new Error(`layout ${layout.id}: its project ${layout.projectId} does not exist`);
@@ -26,6 +26,7 @@ export async function loadLayoutSheetInput(layout: Layout): Promise<PlanSheetInp
           geometry: fp.geometry,
           layers: (fp.layers as PlanSheetFloorLayer[]).map((l) => ({ name: l.name, role: l.role, height: l.height, color: l.color })),
           bounds: fp.bounds,
+          origin: fp.origin,
         }
       : null,
     analysis,

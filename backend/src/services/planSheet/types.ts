@@ -52,6 +52,8 @@ export interface PlanSheetInput {
     geometry: FeatureCollection;
     layers: PlanSheetFloorLayer[];
     bounds: { minX: number; minY: number; maxX: number; maxY: number };
+    /** Where the plan's 0,0 lies in the floor plan's drawing, mm (0,0 unless it was moved at import). */
+    origin?: { x: number; y: number };
   } | null;
   analysis: AnalysisResult;
   models: Array<{ id: number; name: string; family: string; params: Record<string, unknown> }>;
