@@ -101,7 +101,7 @@ describe('module graph', () => {
   it('points the shared layers one way: geometry ← kinematics ← analysis, schemas beside them', () => {
     const layer = (p: string) => p.split('/')[1];
     const allowed: Record<string, string[]> = {
-      geometry: ['geometry'],
+      geometry: ['geometry', 'schemas'],
       schemas: ['schemas'],
       kinematics: ['kinematics', 'geometry', 'schemas', 'canonicalJson.ts'],
       safety: ['safety'],
