@@ -1,5 +1,5 @@
 import { canonicalJson as stableKey } from '../canonicalJson';
-import { armReach, parseArmParams } from '../kinematics';
+import { armReach, familyOf, j1KinematicRange, parseArmParams, reachProfileOf } from '../kinematics';
 import type { ArmPlacement } from '../schemas/layout';
 import type { ArmReach } from './types';
 
@@ -20,8 +20,11 @@ export function armReachFor(params: unknown, restrict: ArmPlacement['restrict'])
     // Bands and below-height regions depend only on the height: keep each one once built.
     const bands = new Map<number, ReturnType<ArmReach['bandAt']>>();
     const below = new Map<number, ReturnType<ArmReach['restrictedBelow']>>();
+    const profile = reachProfileOf(model);
+    const e = familyOf(model).lateralOffset(model);
     r = {
       ...base,
+      envelope: { profile: profile.polygons, toleranceMm: profile.toleranceMm, j1RangeDeg: j1KinematicRange(model, restrict ?? null), lateralMm: { min: e, max: e } },
       bandAt: (z) => {
         let b = bands.get(z);
         if (!b) bands.set(z, (b = base.bandAt(z)));
