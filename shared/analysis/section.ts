@@ -118,6 +118,9 @@ interface Frame {
 }
 
 function frameOf(line: SectionLine): Frame {
+  if (!Array.isArray(line) || line.length !== 2 || !line.every((p) => Array.isArray(p) && p.length === 2)) {
+    throw new Error('section line: give two plan points [[x, y], [x, y]]');
+  }
   const [[ax, ay], [bx, by]] = line;
   for (const [name, v] of [['start x', ax], ['start y', ay], ['end x', bx], ['end y', by]] as const) {
     if (!Number.isFinite(v)) throw new Error(`section line: ${name} must be a finite number`);
@@ -125,6 +128,11 @@ function frameOf(line: SectionLine): Frame {
   const length = Math.hypot(bx - ax, by - ay);
   if (!(length >= 1)) throw new Error('section line: its two ends must be at least 1 mm apart');
   return { ax, ay, dx: (bx - ax) / length, dy: (by - ay) / length, length };
+}
+
+/** Throws a short message when a section line is not two finite plan points at least 1 mm apart. */
+export function checkSectionLine(line: SectionLine): void {
+  frameOf(line);
 }
 
 /** Parameters s (mm along the line) where the section segment crosses segment pq. */
