@@ -39,7 +39,7 @@ export interface AnalysisView {
   /** The pose (x, y mm; yaw deg) each arm was analysed at, so the drawing can follow a drag before the next result. */
   placed: Record<string, [number, number, number]>;
   /** The side view along the section line, computed with the same content and drag pose; null without a line. */
-  section: SectionResult | null;
+  section?: SectionResult | null;
 }
 
 export type FromWorker =
