@@ -42,7 +42,7 @@ export function SectionView({ section, hasLine, arms, busy, onClear }: SectionVi
     const index = new Map(arms.map((a, i) => [a.id, i]));
     drawSection(svg.current, section, {
       width,
-      height: 300,
+      height: 380,
       colourOf: (id) => SECTION_ARM_COLOURS[(index.get(id) ?? 0) % SECTION_ARM_COLOURS.length],
       labelOf: (id) => {
         const a = arms.find((x) => x.id === id);
@@ -68,7 +68,7 @@ export function SectionView({ section, hasLine, arms, busy, onClear }: SectionVi
           Clear section
         </Button>
       </div>
-      <div ref={box} className="min-h-[300px] w-full">
+      <div ref={box} className="min-h-[380px] w-full">
         {section ? <svg ref={svg} role="img" aria-label="Side view along the section line" /> : <p className="text-xs text-ink-muted">Cutting…</p>}
       </div>
       {section && (

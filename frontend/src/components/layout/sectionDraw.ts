@@ -7,7 +7,7 @@ import { select, type Selection } from 'd3';
 import type { SectionDimension, SectionResult } from '@shared/analysis/section';
 
 /** Colours of the arms' cuts, by the arm's place in the layout (the first is the plan's reach blue). */
-export const SECTION_ARM_COLOURS = ['#3a78c2', '#c2562f', '#2f8a5b', '#8e5cc4', '#a0671a', '#2a8fa3'] as const;
+export const SECTION_ARM_COLOURS = ['#3a78c2', '#c2562f', '#2f8a5b', '#b0457a', '#a0671a', '#2a8fa3'] as const;
 
 const INK = 'var(--color-ink, #1c2230)';
 const MUTED = 'var(--color-ink-muted, #586173)';
@@ -17,7 +17,7 @@ const DIM = 'var(--color-accent-strong, #07524e)';
 const HATCH_ID = 'rf-section-hatch';
 const ARROW_ID = 'rf-section-arrow';
 
-const PAD = { left: 56, right: 24, top: 30, bottom: 46 };
+const PAD = { left: 56, right: 24, top: 30, bottom: 52 };
 /** Height shown above the tallest thing in the view, mm, and the least height shown. */
 const HEADROOM_MM = 400;
 const MIN_VIEW_Z_MM = 2500;
@@ -47,13 +47,11 @@ export function drawSection(svg: SVGSVGElement, r: SectionResult, o: SectionDraw
   root.attr('width', o.width).attr('height', o.height).attr('viewBox', `0 0 ${o.width} ${o.height}`);
 
   let zTop = MIN_VIEW_Z_MM;
-  let zBottom = 0;
+  // Nothing is reached below the floor: the view (and the cuts, by a clip) start at z = 0.
+  const zBottom = 0;
   for (const st of r.structures) if (st.top !== null) zTop = Math.max(zTop, st.top);
   for (const f of r.fences) zTop = Math.max(zTop, f.height);
-  for (const c of r.arms) {
-    zTop = Math.max(zTop, c.zMax);
-    zBottom = Math.min(zBottom, c.zMin);
-  }
+  for (const c of r.arms) zTop = Math.max(zTop, c.zMax);
   zTop += HEADROOM_MM;
   const innerW = Math.max(10, o.width - PAD.left - PAD.right);
   const innerH = Math.max(10, o.height - PAD.top - PAD.bottom);
@@ -66,6 +64,8 @@ export function drawSection(svg: SVGSVGElement, r: SectionResult, o: SectionDraw
   const yTop = Y(zTop);
 
   const defs = root.append('defs');
+  const CLIP_ID = 'rf-section-above-floor';
+  defs.append('clipPath').attr('id', CLIP_ID).append('rect').attr('x', 0).attr('y', 0).attr('width', o.width).attr('height', Y(0));
   defs
     .append('pattern')
     .attr('id', HATCH_ID)
@@ -131,7 +131,7 @@ export function drawSection(svg: SVGSVGElement, r: SectionResult, o: SectionDraw
   }
 
   // Arms' cuts, filled in their colours and labelled at their highest point.
-  const arms = root.append('g').attr('data-section-arms', '');
+  const arms = root.append('g').attr('data-section-arms', '').attr('clip-path', `url(#${CLIP_ID})`);
   for (const cut of r.arms) {
     const colour = o.colourOf(cut.id);
     const d = cut.polygons.map((poly) => poly.map((ring) => ring.map(([s, z], i) => `${i ? 'L' : 'M'}${X(s).toFixed(1)},${Y(z).toFixed(1)}`).join('') + 'Z').join('')).join('');
@@ -158,27 +158,32 @@ export function drawSection(svg: SVGSVGElement, r: SectionResult, o: SectionDraw
     dims.append('line').attr('x1', xa).attr('y1', ya).attr('x2', xb).attr('y2', yb).style('stroke', DIM).style('stroke-width', 1.2).attr('marker-start', `url(#${ARROW_ID})`).attr('marker-end', `url(#${ARROW_ID})`);
   const witness = (xa: number, ya: number, xb: number, yb: number) =>
     dims.append('line').attr('x1', xa).attr('y1', ya).attr('x2', xb).attr('y2', yb).style('stroke', DIM).style('stroke-width', 0.8).style('stroke-dasharray', '2 2');
-  r.dimensions.forEach((d: SectionDimension, i) => {
+  // Heights are written along their dimension lines, reading upwards.
+  const upright = (x: number, y0: number, y1: number, t: string) => text(dims, x, (y0 + y1) / 2, t, 'middle', DIM).attr('transform', `rotate(-90 ${x} ${(y0 + y1) / 2})`);
+  r.dimensions.forEach((d: SectionDimension) => {
     const fx = X(d.s);
-    const toward = d.toS === null ? 1 : Math.sign(d.toS - d.s) || 1;
+    // From the fence towards the arm's space (+1 = towards larger s); at c = 0 towards the middle of that arm's cut.
+    const cut = r.arms.find((c) => c.id === d.armId);
+    const middle = cut ? (cut.spans[0][0] + cut.spans[cut.spans.length - 1][1]) / 2 : d.s + 1;
+    const toward = d.toS === null ? 1 : Math.sign(d.toS - d.s) || Math.sign(middle - d.s) || 1;
     // b: beside the fence, on the side away from the arm.
-    const bx = fx - toward * (14 + 0 * i);
+    const bx = fx - toward * 14;
     dimLine(bx, Y(0), bx, Y(d.b));
-    text(dims, bx - toward * 4, (Y(0) + Y(d.b)) / 2, `b ${mm(d.b)}`, toward > 0 ? 'end' : 'start', DIM);
+    upright(bx - toward * (toward > 0 ? 4 : 12), Y(0), Y(d.b), `b ${mm(d.b)}`);
     if (d.a === null || d.c === null || d.toS === null) return;
-    // a: at the arm's nearest boundary, from the floor to the highest point of the arms' space.
-    const ax = X(d.toS) + toward * 16;
-    witness(X(d.toS), Y(d.a), ax + toward * 4, Y(d.a));
+    // a: just outside the arm's nearest boundary, from the floor to the highest point of the arms' space.
+    const ax = d.c > 0 ? X(d.toS) - toward * 12 : fx + toward * 14;
+    witness(X(d.toS), Y(d.a), ax - toward * 4, Y(d.a));
     dimLine(ax, Y(0), ax, Y(d.a));
-    text(dims, ax + toward * 4, (Y(0) + Y(d.a)) / 2 + 12, `a ${mm(d.a)}`, toward > 0 ? 'start' : 'end', DIM);
-    // c: level with the fence top, from the fence to the nearest boundary of an arm's space.
-    const cy = Y(Math.min(d.b, d.a)) - 14;
+    upright(ax + toward * (toward > 0 ? 12 : 4), Y(0), Y(d.a), `a ${mm(d.a)}`);
+    // c: at two thirds of the lower of the two heights, from the fence to the nearest boundary of an arm's space.
+    const cy = Y((2 / 3) * Math.min(d.b, d.a));
     if (d.c > 0) {
       witness(X(d.toS), Y(0), X(d.toS), cy - 4);
       dimLine(fx, cy, X(d.toS), cy);
-      text(dims, (fx + X(d.toS)) / 2, cy - 5, `c ${mm(d.c)}`, 'middle', DIM);
+      text(dims, (fx + X(d.toS)) / 2, cy + 14, `c ${mm(d.c)}`, 'middle', DIM);
     } else {
-      text(dims, fx + 6, cy, 'c 0 — the space reaches the fence', 'start', 'var(--color-finding-critical, #b42318)');
+      text(dims, fx + toward * 22, cy, 'c 0 — the space reaches the fence', toward > 0 ? 'start' : 'end', 'var(--color-finding-critical, #b42318)');
     }
   });
 
@@ -186,20 +191,21 @@ export function drawSection(svg: SVGSVGElement, r: SectionResult, o: SectionDraw
   const frame = root.append('g');
   text(frame, X(0), Y(0) + 18, 'A', 'middle', INK);
   text(frame, X(r.lengthMm), Y(0) + 18, 'A′', 'middle', INK);
-  const barM = niceMetres((innerW / k) * 0.2);
+  const barM = niceMetres(r.lengthMm * 0.3);
   const barPx = barM * 1000 * k;
-  const by = o.height - 12;
+  const by = o.height - 14;
   const bar = frame.append('g').attr('data-section-scale', '');
-  const halves = [0, 1].map((h) => bar.append('rect').attr('x', PAD.left + (h * barPx) / 2).attr('y', by - 5).attr('width', barPx / 2).attr('height', 5).style('stroke', INK).style('stroke-width', 0.8));
+  const halves = [0, 1].map((h) => bar.append('rect').attr('x', x0 + (h * barPx) / 2).attr('y', by - 5).attr('width', barPx / 2).attr('height', 5).style('stroke', INK).style('stroke-width', 0.8));
   halves[0].style('fill', INK);
   halves[1].style('fill', 'var(--color-paper-raised, #fff)');
-  text(bar, PAD.left, by - 8, '0', 'middle', INK, 400);
-  text(bar, PAD.left + barPx, by - 8, `${barM} m`, 'middle', INK, 400);
+  text(bar, x0, by + 11, '0', 'middle', INK, 400);
+  text(bar, x0 + barPx, by + 11, `${barM} m`, 'middle', INK, 400);
   // A height scale on the left: ticks every metre.
   const axis = frame.append('g');
+  const ax0 = Math.max(PAD.left - 20, x0 - 40);
   for (let z = 0; z <= zTop; z += 1000) {
-    axis.append('line').attr('x1', PAD.left - 30).attr('x2', PAD.left - 24).attr('y1', Y(z)).attr('y2', Y(z)).style('stroke', MUTED);
-    text(axis, PAD.left - 34, Y(z) + 4, `${z / 1000} m`, 'end', MUTED, 400);
+    axis.append('line').attr('x1', ax0 - 3).attr('x2', ax0 + 3).attr('y1', Y(z)).attr('y2', Y(z)).style('stroke', MUTED);
+    text(axis, ax0 - 7, Y(z) + 4, `${z / 1000} m`, 'end', MUTED, 400);
   }
-  axis.append('line').attr('x1', PAD.left - 27).attr('x2', PAD.left - 27).attr('y1', Y(0)).attr('y2', Y(Math.floor(zTop / 1000) * 1000)).style('stroke', MUTED);
+  axis.append('line').attr('x1', ax0).attr('x2', ax0).attr('y1', Y(0)).attr('y2', Y(Math.floor(zTop / 1000) * 1000)).style('stroke', MUTED);
 }
