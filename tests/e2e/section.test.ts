@@ -149,6 +149,24 @@ describe('section view in Chromium', () => {
     await expect(page.locator('g.section-line').count()).resolves.toBe(1);
     await page.getByRole('button', { name: 'Clear section' }).click();
     await page.locator('[data-section-empty]').waitFor();
+
+    // A second line, picked with the key, along the column row at y = 4 m of the demo hall: the
+    // column crossed is drawn hatched to full height, the fence with its height.
+    await page.keyboard.press('s');
+    // The page may have scrolled for the button: measure the plan's place on screen again.
+    const [ps2, qs2] = [await baseCentre(page, p.id), await baseCentre(page, q.id)];
+    const again = (x: number, y: number): [number, number] => [ps2[0] + (x - p.x) * k, ps2[1] - (y - p.y) * k];
+    expect(Math.hypot(qs2[0] - ps2[0], qs2[1] - ps2[1])).toBeCloseTo(Math.hypot(qs[0] - ps[0], qs[1] - ps[1]), 0);
+    const c = again(15500, 4000);
+    const f = again(fenceEast + 600, 4000);
+    await page.mouse.click(c[0], c[1]);
+    await page.mouse.click(f[0], f[1]);
+    await page.locator('[data-section-view] rect[data-structure^="COLUMNS#"]').first().waitFor({ state: 'attached' });
+    await page.locator(`[data-section-view] rect[data-section-fence="${fence.id}"]`).waitFor({ state: 'attached' });
+    await expect(page.locator('[data-section-view] svg').textContent()).resolves.toMatch(/column · full height/);
+    await page.locator('[data-section-view]').screenshot({ path: '/tmp/section-panel-column.png' });
+    const box = (await page.locator('g.section-line').boundingBox())!;
+    await page.screenshot({ path: '/tmp/section-plan-line.png', clip: { x: box.x - 60, y: box.y - 60, width: box.width + 120, height: box.height + 120 } });
     await page.close();
   });
 });
