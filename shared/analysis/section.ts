@@ -227,25 +227,32 @@ function columnFn(f: Frame, arm: SectionArm): (s: number) => Array<[number, numb
   const e1 = env.lateralMm.max;
   const columnAt = columnIndexOf(env.profile);
   const h = pose.mountHeightMm;
+  const full = max - min >= 2 * Math.PI - ANGLE_EPS;
+  const offPlane = Math.sign(e0) === Math.sign(e1) ? Math.min(Math.abs(e0), Math.abs(e1)) : 0;
   const j1At = (bearing: number, rho: number, e: number, side: 1 | -1) => {
     const ec = Math.max(-rho, Math.min(rho, e));
     return bearing - Math.atan2(ec, side * Math.sqrt(Math.max(0, rho * rho - ec * ec)));
   };
+  const inReach = (bearing: number, rho: number, side: 1 | -1) => {
+    if (full || rho <= 1e-9) return true;
+    const a = j1At(bearing, rho, e0, side);
+    const b = j1At(bearing, rho, e1, side);
+    return meetsRange(Math.min(a, b), Math.max(a, b), min, max);
+  };
+  const lift = (iv: Array<[number, number]>): Array<[number, number]> => {
+    if (h !== 0) for (const p of iv) (p[0] += h), (p[1] += h);
+    return iv;
+  };
   return (s) => {
     const [u, v] = pose.toArm(planPoint(f.ax + f.dx * s, f.ay + f.dy * s));
     const rho = Math.hypot(u, v);
+    if (rho < offPlane) return [];
     const bearing = Math.atan2(v, u);
-    const found: Array<[number, number]> = [];
-    for (const side of [1, -1] as const) {
-      if (rho > 1e-9) {
-        if (rho < Math.min(Math.abs(e0), Math.abs(e1)) && Math.sign(e0) === Math.sign(e1)) continue;
-        const a = j1At(bearing, rho, e0, side);
-        const b = j1At(bearing, rho, e1, side);
-        if (!meetsRange(Math.min(a, b), Math.max(a, b), min, max)) continue;
-      }
-      for (const [z0, z1] of columnAt(side * rho)) found.push([z0 + h, z1 + h]);
-    }
-    return found.length > 1 ? mergeIntervals(found) : found;
+    const front = inReach(bearing, rho, 1) ? columnAt(rho) : [];
+    const back = inReach(bearing, rho, -1) ? columnAt(-rho) : [];
+    if (back.length === 0) return lift(front);
+    if (front.length === 0) return lift(back);
+    return lift(mergeIntervals(front.concat(back)));
   };
 }
 
@@ -318,40 +325,52 @@ function sampleColumns(f: Frame, arm: SectionArm, span: [number, number]): Colum
 }
 
 /** Joins sampled columns into (s, z) polygons: runs of one-to-one matched intervals, bridged where they split or merge. */
+type Run = { lower: Pt[]; upper: Pt[] };
+
+const overlaps = (a: Readonly<[number, number]>, b: Readonly<[number, number]>) => a[0] <= b[1] && b[0] <= a[1];
+
+/** How many intervals of `list` overlap `a`, and the last one that does (−1 for none). */
+function overlapOf(a: Readonly<[number, number]>, list: ReadonlyArray<[number, number]>): { count: number; last: number } {
+  let count = 0;
+  let last = -1;
+  for (let m = 0; m < list.length; m++) if (overlaps(a, list[m])) (count++, (last = m));
+  return { count, last };
+}
+
+/** Joins sampled columns into (s, z) polygons: runs of one-to-one matched intervals, bridged where they split or merge. */
 function columnsToPolygons(cols: ReadonlyArray<Column>): Polygon2[] {
   const pieces: Polygon2[] = [];
-  type Run = { lower: Pt[]; upper: Pt[] };
   const close = (r: Run) => {
-    if (r.lower.length > 1) pieces.push([[...r.lower, ...r.upper.slice().reverse()]]);
+    if (r.lower.length > 1) pieces.push([r.lower.concat(r.upper.reverse())]);
   };
   let runs: Array<Run | null> = [];
   for (let i = 0; i < cols.length; i++) {
     const c = cols[i];
-    const prev = cols[i - 1];
-    const next: Array<Run | null> = c.iv.map(() => null);
+    const prev = i > 0 ? cols[i - 1] : null;
+    const next: Array<Run | null> = new Array(c.iv.length).fill(null);
     if (prev) {
-      const overlaps = (a: [number, number], b: [number, number]) => a[0] <= b[1] && b[0] <= a[1];
-      const fwd = prev.iv.map((a) => c.iv.flatMap((b, m) => (overlaps(a, b) ? [m] : [])));
-      const back = c.iv.map((b) => prev.iv.flatMap((a, k) => (overlaps(a, b) ? [k] : [])));
-      prev.iv.forEach((a, k) => {
+      for (let k = 0; k < prev.iv.length; k++) {
+        const a = prev.iv[k];
         const run = runs[k];
-        if (fwd[k].length === 1 && back[fwd[k][0]].length === 1 && run) {
-          next[fwd[k][0]] = run;
-          return;
+        const fwd = overlapOf(a, c.iv);
+        if (run && fwd.count === 1 && overlapOf(c.iv[fwd.last], prev.iv).count === 1) {
+          next[fwd.last] = run;
+          continue;
         }
         if (run) close(run);
-        for (const m of fwd[k]) {
+        for (let m = 0; m < c.iv.length; m++) {
           const b = c.iv[m];
-          pieces.push([[[prev.s, a[0]], [c.s, b[0]], [c.s, b[1]], [prev.s, a[1]]]]);
+          if (overlaps(a, b)) pieces.push([[[prev.s, a[0]], [c.s, b[0]], [c.s, b[1]], [prev.s, a[1]]]]);
         }
-      });
-    } else for (const r of runs) if (r) close(r);
-    c.iv.forEach((b, m) => {
+      }
+    }
+    for (let m = 0; m < c.iv.length; m++) {
+      const b = c.iv[m];
       const run = next[m] ?? { lower: [], upper: [] };
       run.lower.push([c.s, b[0]]);
       run.upper.push([c.s, b[1]]);
       next[m] = run;
-    });
+    }
     runs = next;
   }
   for (const r of runs) if (r) close(r);
