@@ -299,7 +299,9 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
           </div>
         </aside>
       </div>
-      <SectionView section={sectionLine ? (live.view?.section ?? null) : null} hasLine={sectionLine !== null} arms={content.arms} busy={live.busy} onClear={() => setSectionLine(null)} />
+      {!readOnly && (
+        <SectionView section={sectionLine ? (live.view?.section ?? null) : null} hasLine={sectionLine !== null} arms={content.arms} busy={live.busy} onClear={() => setSectionLine(null)} />
+      )}
       <LayoutPanels
         content={content}
         analysis={live.view?.analysis ?? null}
