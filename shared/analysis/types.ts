@@ -57,6 +57,16 @@ export interface ArmReach {
   restrictedBelow(zArmTop: number): Polygon2[];
   /** Signed margin of a point given in the arm frame (mm, positive = reached). */
   margin(x: number, y: number, z: number, approach: 'top' | 'any'): number;
+  /** The space as a side profile swept over J1: profile polygons in (r, z) arm frame, mm; J1 range kinematic degrees (restricting limits applied); sideways spread of the reach plane, mm. */
+  envelope: ArmEnvelope;
+}
+
+/** An arm's space as a side profile turned about J1 (what a section cuts), arm frame, mm and degrees. */
+export interface ArmEnvelope {
+  profile: Polygon2[];
+  toleranceMm: number;
+  j1RangeDeg: { min: number; max: number };
+  lateralMm: { min: number; max: number };
 }
 
 /** Builds the ArmReach of a model under restricting J1 limits (controller degrees), or throws. */

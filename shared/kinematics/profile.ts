@@ -170,6 +170,84 @@ export function profileSliceAt(profile: Pick<ReachProfile, 'polygons'>, z: numbe
       }
     }
   }
+  return pairUp(xs);
+}
+
+/**
+ * Height intervals [z0, z1] (sorted, mm) where the vertical line at signed radial distance r crosses
+ * the profile's polygons (even–odd crossings over every ring): the vertical slice beside the
+ * horizontal `profileSliceAt`.
+ */
+export function profileColumnAt(profile: Pick<ReachProfile, 'polygons'>, r: number): Array<[number, number]> {
+  const zs: number[] = [];
+  for (const p of profile.polygons) {
+    for (const ring of p) {
+      const n = ring.length;
+      for (let i = 0, j = n - 1; i < n; j = i++) {
+        const [ri, zi] = ring[i];
+        const [rj, zj] = ring[j];
+        if (ri > r !== rj > r) zs.push(zi + ((r - ri) * (zj - zi)) / (rj - ri));
+      }
+    }
+  }
+  return pairUp(zs);
+}
+
+/**
+ * `profileColumnAt` for many radial distances over one profile: the edges are bucketed by r once,
+ * so each column tests only the edges that span it. Same crossings, same intervals, mm.
+ */
+export function profileColumnIndex(profile: Pick<ReachProfile, 'polygons'>): (r: number) => Array<[number, number]> {
+  const edges: number[] = [];
+  let rMin = Infinity;
+  let rMax = -Infinity;
+  for (const p of profile.polygons) {
+    for (const ring of p) {
+      const n = ring.length;
+      for (let i = 0, j = n - 1; i < n; j = i++) {
+        edges.push(ring[i][0], ring[i][1], ring[j][0], ring[j][1]);
+        rMin = Math.min(rMin, ring[i][0]);
+        rMax = Math.max(rMax, ring[i][0]);
+      }
+    }
+  }
+  const count = edges.length / 4;
+  if (count === 0) return () => [];
+  const buckets = Math.max(1, Math.min(1024, count));
+  const width = (rMax - rMin) / buckets || 1;
+  const bucketOf = (r: number) => Math.min(buckets - 1, Math.max(0, Math.floor((r - rMin) / width)));
+  const start = new Int32Array(buckets + 1);
+  for (let e = 0; e < count; e++) {
+    const a = bucketOf(Math.min(edges[4 * e], edges[4 * e + 2]));
+    const b = bucketOf(Math.max(edges[4 * e], edges[4 * e + 2]));
+    for (let k = a; k <= b; k++) start[k + 1]++;
+  }
+  for (let k = 0; k < buckets; k++) start[k + 1] += start[k];
+  const fill = start.slice(0, buckets);
+  const members = new Int32Array(start[buckets]);
+  for (let e = 0; e < count; e++) {
+    const a = bucketOf(Math.min(edges[4 * e], edges[4 * e + 2]));
+    const b = bucketOf(Math.max(edges[4 * e], edges[4 * e + 2]));
+    for (let k = a; k <= b; k++) members[fill[k]++] = e;
+  }
+  return (r) => {
+    if (!(r >= rMin && r <= rMax)) return [];
+    const k = bucketOf(r);
+    const zs: number[] = [];
+    for (let m = start[k]; m < start[k + 1]; m++) {
+      const e = 4 * members[m];
+      const ri = edges[e];
+      const zi = edges[e + 1];
+      const rj = edges[e + 2];
+      const zj = edges[e + 3];
+      if (ri > r !== rj > r) zs.push(zi + ((r - ri) * (zj - zi)) / (rj - ri));
+    }
+    return pairUp(zs);
+  };
+}
+
+/** Sorted crossings taken two by two into intervals, touching ones merged. */
+function pairUp(xs: number[]): Array<[number, number]> {
   xs.sort((a, b) => a - b);
   const out: Array<[number, number]> = [];
   for (let i = 0; i + 1 < xs.length; i += 2) {

@@ -8,7 +8,8 @@ import { featureSeedSteps } from '../../backend/src/features';
 import { ArmModel, FloorPlan, Layout } from '../../backend/src/models';
 import { analyzeLayout } from '../../backend/src/services/layoutAnalysis';
 import { createAnalysisSession } from '../../frontend/src/workers/analysisSession';
-import type { FloorLayer } from '@shared/analysis/floor';
+import { prepareFloor, type FloorLayer } from '@shared/analysis/floor';
+import { sectionOf } from '@shared/analysis/section';
 import { createTestApp, type TestApp } from '../support/testApp';
 
 let t: TestApp;
@@ -42,5 +43,20 @@ describe('server and worker analyses', () => {
     const during = session.run()!.analysis;
     const after = await analyzeLayout(layout, moved);
     expect(strip(during)).toEqual(strip(after));
+
+    // The section the worker sends with the result is the shared core's, on the server's own inputs.
+    const line: [[number, number], [number, number]] = [[14000, 5600], [25000, 5600]];
+    session.receive({ type: 'section', line });
+    const view = session.run()!;
+    const params = new Map(models.map((m) => [m.id, m.params]));
+    const expected = sectionOf({
+      line,
+      floor: prepareFloor(plan.geometry, plan.layers as FloorLayer[]),
+      zones: moved.zones,
+      arms: moved.arms.map((a) => ({ id: a.id, label: a.label, pose: a, envelope: armReachFor(params.get(a.armModelId), a.restrict).envelope })),
+    });
+    expect(view.section).toEqual(expected);
+    expect(view.section!.arms.map((c) => c.id)).toContain('R3');
+    expect(view.section!.dimensions.length).toBeGreaterThan(0);
   });
 });

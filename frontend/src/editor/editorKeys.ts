@@ -18,7 +18,8 @@ export type EditorCommand =
   | { kind: 'undo' }
   | { kind: 'redo' }
   | { kind: 'finish' }
-  | { kind: 'cancel' };
+  | { kind: 'cancel' }
+  | { kind: 'section-tool' };
 
 /** What the key help lists, in order. */
 export const KEY_HELP: ReadonlyArray<{ keys: string; does: string }> = [
@@ -28,6 +29,7 @@ export const KEY_HELP: ReadonlyArray<{ keys: string; does: string }> = [
   { keys: 'Ctrl/⌘ D', does: 'duplicate the selected arm' },
   { keys: 'Ctrl/⌘ Z · Shift Ctrl/⌘ Z', does: 'undo · redo' },
   { keys: 'Enter · Esc', does: 'finish · cancel the shape being drawn' },
+  { keys: 'S', does: 'draw a section line (the side view appears below the plan)' },
 ];
 
 export interface KeyLike {
@@ -58,6 +60,7 @@ export function commandForKey(e: KeyLike, ctx: { armSelected: boolean; zoneSelec
     if (key === 'Escape') return { kind: 'cancel' };
     return null;
   }
+  if (key === 's' && !e.shiftKey) return { kind: 'section-tool' };
   if (key === 'Escape' && (ctx.armSelected || ctx.zoneSelected)) return { kind: 'cancel' };
   if ((key === 'Delete' || key === 'Backspace') && (ctx.armSelected || ctx.zoneSelected)) return { kind: 'delete' };
   if (!ctx.armSelected) return null;

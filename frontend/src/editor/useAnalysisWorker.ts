@@ -23,6 +23,8 @@ export function useAnalysisWorker(input: {
   models: WorkerArmModel[] | null;
   floor: { geometry: FeatureCollection; layers: FloorLayer[] } | null;
   content: LayoutContent;
+  /** The section line drawn on the plan (A, A′ in plan mm), or null: its side view comes with every result. */
+  sectionLine?: [[number, number], [number, number]] | null;
 }): LiveAnalysis {
   const worker = useRef<Worker | null>(null);
   const seq = useRef(0);
@@ -55,7 +57,7 @@ export function useAnalysisWorker(input: {
         return;
       }
       setError(null);
-      setView({ analysis: msg.analysis, maxSpaces: msg.maxSpaces, placed: msg.placed, dragging: msg.dragging });
+      setView({ analysis: msg.analysis, maxSpaces: msg.maxSpaces, placed: msg.placed, section: msg.section ?? null, dragging: msg.dragging });
     };
     w.onerror = (event) => {
       setError(event.message || 'The analysis could not start in this browser.');
@@ -72,6 +74,7 @@ export function useAnalysisWorker(input: {
   }, []);
 
   const { models, floor, content } = input;
+  const sectionLine = input.sectionLine ?? null;
   // Declared in this order so the worker has models and floor before the first content.
   useEffect(() => {
     if (models) post({ type: 'models', models });
@@ -89,6 +92,10 @@ export function useAnalysisWorker(input: {
     sent.current = { seq: seq.current, content, models };
     post({ type: 'content', seq: seq.current, content });
   }, [content, models, post]);
+
+  useEffect(() => {
+    post({ type: 'section', line: sectionLine });
+  }, [sectionLine, post]);
 
   const postDrag = useCallback(
     (pose: DragPose | null) => {

@@ -5,6 +5,7 @@
  */
 import type { FeatureCollection } from 'geojson';
 import type { FloorLayer } from '@shared/analysis/floor';
+import type { SectionResult } from '@shared/analysis/section';
 import type { AnalysisResult } from '@shared/analysis/types';
 import type { AreaGeometry } from '@shared/geometry/geojson';
 import type { LayoutContent } from '@shared/schemas/layout';
@@ -27,7 +28,9 @@ export type ToWorker =
   | { type: 'models'; models: WorkerArmModel[] }
   | { type: 'floor'; floor: { geometry: FeatureCollection; layers: FloorLayer[] } | null }
   | { type: 'content'; seq: number; content: LayoutContent }
-  | { type: 'drag'; seq: number; pose: DragPose | null };
+  | { type: 'drag'; seq: number; pose: DragPose | null }
+  /** The section line drawn on the plan (start A, end A′, plan mm), or null when there is none. */
+  | { type: 'section'; line: [[number, number], [number, number]] | null };
 
 /** What the worker adds to the analysis for drawing: each arm's maximum space (full J1 range), placed on the plan. */
 export interface AnalysisView {
@@ -35,6 +38,8 @@ export interface AnalysisView {
   maxSpaces: Record<string, AreaGeometry | null>;
   /** The pose (x, y mm; yaw deg) each arm was analysed at, so the drawing can follow a drag before the next result. */
   placed: Record<string, [number, number, number]>;
+  /** The side view along the section line, computed with the same content and drag pose; null without a line. */
+  section?: SectionResult | null;
 }
 
 export type FromWorker =

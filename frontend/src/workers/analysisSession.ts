@@ -6,6 +6,7 @@
  */
 import { createAnalyzer, type Analyzer } from '@shared/analysis/analyze';
 import { prepareFloor } from '@shared/analysis/floor';
+import { checkSectionLine, sectionOf, type SectionArm, type SectionLine, type SectionResult } from '@shared/analysis/section';
 import type { ArmReach, PreparedFloor } from '@shared/analysis/types';
 import { armPose } from '@shared/geometry/frames';
 import { polygonsToGeoJSON, type AreaGeometry } from '@shared/geometry/geojson';
@@ -54,6 +55,7 @@ export function createAnalysisSession(build: ReachBuilder): AnalysisSession {
   let floor: PreparedFloor | null = null;
   let content: LayoutContent | null = null;
   let pose: DragPose | null = null;
+  let sectionLine: SectionLine | null = null;
   let seq = 0;
 
   function reachOf(modelId: number, restrict: ArmPlacement['restrict']): ArmReach {
@@ -84,6 +86,20 @@ export function createAnalysisSession(build: ReachBuilder): AnalysisSession {
     return g;
   }
 
+  /** The side view of the content (drag pose applied) along the current line; arms whose reach cannot be built are left out (the analysis reports them). */
+  function sectionOfContent(c: LayoutContent): SectionResult | null {
+    if (!sectionLine) return null;
+    const arms: SectionArm[] = [];
+    for (const a of c.arms) {
+      try {
+        arms.push({ id: a.id, label: a.label, pose: a, envelope: reachOf(a.armModelId, a.restrict).envelope });
+      } catch {
+        // reported by the analysis as unknown-model
+      }
+    }
+    return sectionOf({ line: sectionLine, floor, zones: c.zones, arms });
+  }
+
   return {
     receive(msg) {
       switch (msg.type) {
@@ -105,6 +121,10 @@ export function createAnalysisSession(build: ReachBuilder): AnalysisSession {
           pose = msg.pose;
           seq = msg.seq;
           return content !== null;
+        case 'section':
+          if (msg.line) checkSectionLine(msg.line);
+          sectionLine = msg.line;
+          return content !== null;
       }
     },
     run() {
@@ -120,7 +140,7 @@ export function createAnalysisSession(build: ReachBuilder): AnalysisSession {
         live.add(`${a.id}|${a.armModelId}|${a.x}|${a.y}|${a.yaw}`);
       }
       for (const k of maxSpaces.keys()) if (!live.has(k)) maxSpaces.delete(k);
-      return { analysis, maxSpaces: spaces, placed, seq, dragging: pose !== null };
+      return { analysis, maxSpaces: spaces, placed, section: sectionOfContent(c), seq, dragging: pose !== null };
     },
     currentSeq: () => seq,
     reachBuilds: () => builds,

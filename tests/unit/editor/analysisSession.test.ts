@@ -6,6 +6,7 @@ import { annularSector } from '@shared/geometry/annularSector';
 import { polygonsArea } from '@shared/geometry/area';
 import { positionsToRing } from '@shared/geometry/geojson';
 import type { ArmReach } from '@shared/analysis/types';
+import type { Polygon2 } from '@shared/geometry/types';
 import type { LayoutContent } from '@shared/schemas/layout';
 import { contentWithPose, createAnalysisSession, placePolygons } from '../../../frontend/src/workers/analysisSession';
 
@@ -14,7 +15,8 @@ const diskBuilder = (calls: string[]) => (params: unknown, restrict: { j1Min: nu
   const R = (params as { R: number }).R;
   calls.push(`${R}|${restrict ? `${restrict.j1Min},${restrict.j1Max}` : '-'}`);
   const full = [annularSector({ cx: 0, cy: 0, rInner: 0, rOuter: R, startDeg: restrict?.j1Min ?? 0, endDeg: restrict?.j1Max ?? 360 })];
-  return { maxReach: R, zMin: 0, zMax: 2000, restricted: full, bandAt: () => full, restrictedBelow: () => full, margin: (x, y) => R - Math.hypot(x, y) };
+  const envelope = { profile: [[[[0, 0], [R, 0], [R, 2000], [0, 2000]]]] as Polygon2[], toleranceMm: 0, j1RangeDeg: { min: restrict?.j1Min ?? -180, max: restrict?.j1Max ?? 180 }, lateralMm: { min: 0, max: 0 } };
+  return { maxReach: R, zMin: 0, zMax: 2000, restricted: full, bandAt: () => full, restrictedBelow: () => full, margin: (x, y) => R - Math.hypot(x, y), envelope };
 };
 
 const content = (): LayoutContent => ({

@@ -32,4 +32,11 @@ describe('editor keys', () => {
     expect(commandForKey(key('Delete'), { ...arm, drawing: true })).toBeNull();
     expect(commandForKey(key('z', { altKey: true, ctrlKey: true }), none)).toBeNull();
   });
+
+  it('S picks the section tool (not with Ctrl/⌘, nor while a shape is being drawn)', () => {
+    expect(commandForKey(key('s'), none)).toEqual({ kind: 'section-tool' });
+    expect(commandForKey(key('S', { shiftKey: true }), arm)).toBeNull(); // Shift S is not the key
+    expect(commandForKey(key('s', { ctrlKey: true }), none)).toBeNull();
+    expect(commandForKey(key('s'), { ...none, drawing: true })).toBeNull();
+  });
 });

@@ -21,6 +21,7 @@ function setup(tool: EditorTool = 'select', readOnly = false) {
     onVertexMoved: record('vertex'),
     onShapeDrawn: record('shape'),
     onPointPlaced: record('point'),
+    onSectionDrawn: record('section'),
     onHint: record('hint'),
   };
   const state: SceneState = { content, view: null, selection: null, highlightArms: new Set(), findingGeometry: null, tool, bandHeight: null, readOnly };
@@ -145,5 +146,22 @@ describe('tool dispatcher', () => {
     const s = setup('select');
     s.tools.click(s.ev(0, 0, { type: 'click' }));
     expect(s.calls).toEqual([['select', null]]);
+  });
+
+  it('draws a section line by two clicks; the pointer is followed in between, Esc drops it, a slip is ignored', () => {
+    const t = setup('section');
+    t.tools.click(t.ev(100, 200, { type: 'click' }));
+    expect(t.tools.isDrawing()).toBe(true);
+    t.tools.pointerMove(t.ev(900, 250));
+    expect(t.tools.sectionDraft()).toEqual({ start: [100, 200], cursor: [900, 250] });
+    t.tools.click(t.ev(103, 202, { type: 'click' })); // closer than MIN_SECTION_PX: a slip
+    expect(t.tools.isDrawing()).toBe(true);
+    t.tools.click(t.ev(3000.04, 250, { type: 'click' }));
+    expect(t.calls.filter((c) => c[0] === 'section')).toEqual([['section', [[100, 200], [3000, 250]]]]);
+    expect(t.tools.isDrawing()).toBe(false);
+    t.tools.click(t.ev(0, 0, { type: 'click' }));
+    t.tools.cancelDraw();
+    expect(t.tools.sectionDraft()).toBeNull();
+    expect(t.calls.filter((c) => c[0] === 'section')).toHaveLength(1);
   });
 });

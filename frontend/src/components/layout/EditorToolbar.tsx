@@ -12,6 +12,7 @@ const TOOLS: ReadonlyArray<{ tool: EditorTool; text: string; title: string }> = 
   { tool: 'opening', text: 'Opening', title: 'Cut an access opening: two clicks on a fence' },
   { tool: 'keepout', text: 'Keep-out', title: 'Draw a keep-out area: click at least 3 corners' },
   { tool: 'operator', text: 'Operator area', title: 'Draw an area where people work: click at least 3 corners' },
+  { tool: 'section', text: 'Section', title: 'Draw a section line (S): click its start A and end A′; the side view appears below the plan' },
 ];
 
 export interface EditorToolbarProps {

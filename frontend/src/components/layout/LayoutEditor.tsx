@@ -20,6 +20,7 @@ import { ConflictDialog } from './ConflictDialog';
 import { EditorToolbar } from './EditorToolbar';
 import { FindingsPanel } from './FindingsPanel';
 import { LayoutPanels } from './LayoutPanels';
+import { SectionView } from './SectionView';
 import { createLayoutScene, type EditorTool, type LayoutScene, type ShapeTool } from './layoutScene';
 import type { LayoutSelection } from './panelTypes';
 import { WorkHeightsEditor } from './WorkHeightsEditor';
@@ -65,6 +66,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
   const [focusHeightOf, setFocusHeightOf] = useState<string | null>(null);
   const [conflictOpen, setConflictOpen] = useState(true);
   const [canvas, setCanvas] = useState<PlanCanvas | null>(null);
+  const [sectionLine, setSectionLine] = useState<[[number, number], [number, number]] | null>(null);
   const scene = useRef<LayoutScene | null>(null);
   const contentRef = useRef(content);
   useLayoutEffect(() => {
@@ -78,7 +80,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
     () => (floorPlan ? { geometry: floorPlan.geometry, layers: floorPlan.layers.map((l) => ({ name: l.name, role: l.role, height: l.height })) } : null),
     [floorPlan],
   );
-  const live = useAnalysisWorker({ models, floor, content });
+  const live = useAnalysisWorker({ models, floor, content, sectionLine });
   const findings = live.view?.analysis.findings ?? null;
   const selectedFinding = selection?.kind === 'finding' ? (findings?.find((f) => f.id === selection.id) ?? null) : null;
   const highlightArms = useMemo(() => (selectedFinding ? new Set(selectedFinding.arms) : NO_HIGHLIGHT), [selectedFinding]);
@@ -132,6 +134,11 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
       onVertexMoved: (...a) => handlers.current.onVertexMoved(...a),
       onShapeDrawn: (...a) => handlers.current.onShapeDrawn(...a),
       onPointPlaced: (p) => handlers.current.onPointPlaced(p),
+      onSectionDrawn: (line) => {
+        setSectionLine(line);
+        setTool('select');
+        setHint('Section drawn: the side view is below the plan. Drag an arm to see its cut follow; S draws a new line.');
+      },
       onHint: (t) => setHint(t),
     });
     scene.current = s;
@@ -151,8 +158,9 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
       tool: readOnly ? 'select' : tool,
       bandHeight,
       readOnly,
+      sectionLine,
     });
-  }, [canvas, content, live.view, selection, highlightArms, selectedFinding, tool, bandHeight, readOnly]);
+  }, [canvas, content, live.view, selection, highlightArms, selectedFinding, tool, bandHeight, readOnly, sectionLine]);
 
   const selectedArm = selection?.kind === 'arm' ? content.arms.find((a) => a.id === selection.id) : undefined;
   const selectedZone = selection?.kind === 'zone' ? content.zones.find((z) => z.id === selection.id) : undefined;
@@ -204,6 +212,11 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
           break;
         case 'finish':
           scene.current?.finishDraw();
+          break;
+        case 'section-tool':
+          if (readOnly) return;
+          setTool('section');
+          setSelection(null);
           break;
         case 'cancel':
           if (scene.current?.isDrawing()) scene.current.cancelDraw();
@@ -288,6 +301,9 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
           </div>
         </aside>
       </div>
+      {!readOnly && (
+        <SectionView section={sectionLine ? (live.view?.section ?? null) : null} hasLine={sectionLine !== null} arms={content.arms} busy={live.busy} onClear={() => setSectionLine(null)} />
+      )}
       <LayoutPanels
         content={content}
         analysis={live.view?.analysis ?? null}

@@ -20,5 +20,6 @@ export const LAYOUT_OVERLAYS = {
   zoneMarks: { name: 'layout-zone-marks', space: 'screen', order: 1 },
   arms: { name: 'layout-arms', space: 'screen', order: 5 },
   handles: { name: 'layout-handles', space: 'screen', order: 6 },
+  section: { name: 'layout-section', space: 'screen', order: 3 },
   draft: { name: 'layout-draft', space: 'screen', order: 7 },
 } as const satisfies Record<string, LayoutOverlay>;

@@ -1,7 +1,7 @@
 /**
  * The layout editor on the plan canvas: overlays for arms, reach, shared zones, zones and work
  * points, with the pointer work handed to the tools (tools/: select, move arm, turn arm, drag
- * vertex, draw zone, add point) through one dispatcher. Imperative, like the canvas: React hands it
+ * vertex, draw zone, add point, section line) through one dispatcher. Imperative, like the canvas: React hands it
  * state with `update`, it hands edits back through callbacks — a drag's pose lives in its tool and
  * is committed once, on pointer up. Plan mm (x east, y north), yaw degrees CCW from +x.
  */
@@ -24,7 +24,7 @@ import {
   drawZoneMarks,
   type ArmRegionsDatum,
 } from './sceneDraw';
-import { drawArmMarks, drawDraft, drawVertexHandles } from './sceneMarks';
+import { drawArmMarks, drawDraft, drawSectionLine, drawVertexHandles } from './sceneMarks';
 import type { HeldEdit, ToolHost, ToolPointer } from './tools/tool';
 import { ToolDispatcher, zoneUnder } from './tools/toolDispatcher';
 
@@ -161,6 +161,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
     const zone = c.zones.find((z) => z.id === selectedZone());
     const corners = zone && !s.readOnly ? zone.points.map((p, index) => ({ zoneId: zone.id, index, at: p as XY })) : [];
     show(LAYOUT_OVERLAYS.handles, (l) => drawVertexHandles(l, corners, view, (e, el, d) => tools.pressVertex(e, el, d)));
+    show(LAYOUT_OVERLAYS.section, (l) => drawSectionLine(l, s.sectionLine ?? null, tools.sectionDraft(), view));
     show(LAYOUT_OVERLAYS.draft, (l) => drawDraft(l, tools.draft(), view));
   }
 

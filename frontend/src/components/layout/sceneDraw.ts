@@ -20,6 +20,8 @@ export const SCENE_COLOURS = {
   selected: 'var(--color-accent)',
   finding: 'var(--color-finding-warning)',
   paper: 'var(--color-paper-raised, #fff)',
+  /** The section line and its end marks. */
+  section: 'var(--color-ink, #1c2230)',
 } as const;
 
 /** How a kind of mark is drawn on screen. */

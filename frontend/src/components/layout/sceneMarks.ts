@@ -136,3 +136,69 @@ export function drawDraft(layer: G, draft: Draft | null, view: PlanViewState): v
     .attr('pointer-events', 'none')
     .style('fill', SCENE_COLOURS.selected);
 }
+
+/** Screen length of the ticks across the ends of the section line, px. */
+const SECTION_TICK_PX = 14;
+
+/**
+ * The section line (screen px): dashed, a tick across each end with its letter, A at the start and
+ * A′ at the end, and an arrowhead on each tick pointing the way the side view looks (to the line's
+ * left, so s grows to the right in the view). A line under way follows the pointer.
+ */
+export function drawSectionLine(layer: G, line: readonly [XY, XY] | null, draft: { start: XY; cursor: XY | null } | null, view: PlanViewState): void {
+  const ends: Array<[XY, XY]> = [];
+  if (draft) ends.push([draft.start, draft.cursor ?? draft.start]);
+  else if (line) ends.push([line[0], line[1]]);
+  const data = ends.map(([a, b]) => {
+    const pa = view.toScreen({ x: a[0], y: a[1] });
+    const pb = view.toScreen({ x: b[0], y: b[1] });
+    const len = Math.hypot(pb[0] - pa[0], pb[1] - pa[1]) || 1;
+    // Screen y points down: the plan's left of A→A′ is (dy, −dx) on screen.
+    const nx = (pb[1] - pa[1]) / len;
+    const ny = -(pb[0] - pa[0]) / len;
+    return { pa, pb, nx, ny, drafting: !!draft, short: len < 2 };
+  });
+  const g = layer
+    .selectAll<SVGGElement, (typeof data)[number]>('g.section-line')
+    .data(data)
+    .join((enter) => {
+      const e = enter.append('g').attr('class', 'section-line').attr('pointer-events', 'none');
+      e.append('path').attr('class', 'section-run');
+      e.append('path').attr('class', 'section-ticks');
+      e.append('text').attr('class', 'section-a').attr('data-section-end', 'A');
+      e.append('text').attr('class', 'section-b').attr('data-section-end', 'A′');
+      return e;
+    });
+  const ink = SCENE_COLOURS.section;
+  g.select('path.section-run')
+    .attr('d', (d) => `M${d.pa[0]},${d.pa[1]}L${d.pb[0]},${d.pb[1]}`)
+    .style('fill', 'none')
+    .style('stroke', ink)
+    .style('stroke-width', 1.75)
+    .style('stroke-dasharray', '10 4 2 4');
+  const tick = (p: XY, nx: number, ny: number) => {
+    const h = SECTION_TICK_PX / 2;
+    const tip: XY = [p[0] + nx * (h + 6), p[1] + ny * (h + 6)];
+    return `M${p[0] - nx * h},${p[1] - ny * h}L${p[0] + nx * h},${p[1] + ny * h}M${tip[0] - ny * 4 - nx * 5},${tip[1] + nx * 4 - ny * 5}L${tip[0]},${tip[1]}L${tip[0] + ny * 4 - nx * 5},${tip[1] - nx * 4 - ny * 5}`;
+  };
+  g.select('path.section-ticks')
+    .attr('d', (d) => (d.short ? tick(d.pa, 0, -1) : tick(d.pa, d.nx, d.ny) + tick(d.pb, d.nx, d.ny)))
+    .style('fill', 'none')
+    .style('stroke', ink)
+    .style('stroke-width', 2.5)
+    .style('stroke-linejoin', 'round');
+  const label = (sel: Selection<SVGTextElement, (typeof data)[number], SVGGElement, unknown>, which: 'a' | 'b') =>
+    sel
+      .attr('x', (d) => (which === 'a' ? d.pa : d.pb)[0] - d.nx * 16)
+      .attr('y', (d) => (which === 'a' ? d.pa : d.pb)[1] - d.ny * 16 + 4)
+      .attr('text-anchor', 'middle')
+      .attr('display', (d) => (which === 'b' && d.short ? 'none' : null))
+      .attr('paint-order', 'stroke')
+      .style('font', '700 13px var(--font-sans, sans-serif)')
+      .style('fill', ink)
+      .style('stroke', SCENE_COLOURS.paper)
+      .style('stroke-width', 3)
+      .text(which === 'a' ? 'A' : 'A′');
+  label(g.select<SVGTextElement>('text.section-a'), 'a');
+  label(g.select<SVGTextElement>('text.section-b'), 'b');
+}

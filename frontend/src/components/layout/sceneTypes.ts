@@ -10,9 +10,11 @@ import type { LayoutSelection } from './panelTypes';
 
 export type XY = [number, number];
 
-export type EditorTool = 'select' | 'point' | 'fence' | 'keepout' | 'operator' | 'opening';
+export type EditorTool = 'select' | 'point' | 'fence' | 'keepout' | 'operator' | 'opening' | 'section';
 /** Tools that draw a zone. */
-export type ShapeTool = Exclude<EditorTool, 'select' | 'point'>;
+export type ShapeTool = Exclude<EditorTool, 'select' | 'point' | 'section'>;
+/** A section line on the plan: start A, end A′, plan mm. */
+export type SectionLineXY = [XY, XY];
 
 export interface SceneState {
   content: LayoutContent;
@@ -25,6 +27,8 @@ export interface SceneState {
   /** Work height whose reach band is drawn, mm; null = none. */
   bandHeight: number | null;
   readOnly: boolean;
+  /** The section line drawn on the plan, or null. */
+  sectionLine?: SectionLineXY | null;
 }
 
 export interface SceneCallbacks {
@@ -37,6 +41,8 @@ export interface SceneCallbacks {
   onShapeDrawn(kind: ShapeTool, points: XY[]): void;
   /** The point tool clicked the plan at p (mm). */
   onPointPlaced(p: XY): void;
+  /** The section tool finished a line from A to A′ (mm). */
+  onSectionDrawn?(line: SectionLineXY): void;
   /** A line for the status bar while drawing (or null). */
   onHint(text: string | null): void;
 }

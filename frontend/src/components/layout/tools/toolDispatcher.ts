@@ -11,17 +11,19 @@ import { AddPointTool } from './addPointTool';
 import { DragVertexTool } from './dragVertexTool';
 import { DrawZoneTool, type Draft } from './drawZoneTool';
 import { MoveArmTool } from './moveArmTool';
+import { SectionTool, type SectionDraft } from './sectionTool';
 import { SelectTool } from './selectTool';
 import type { Tool, ToolHost, ToolPointer, VertexAt } from './tool';
 import { TurnArmTool } from './turnArmTool';
 
-type ChosenTool = SelectTool | AddPointTool | DrawZoneTool;
+type ChosenTool = SelectTool | AddPointTool | DrawZoneTool | SectionTool;
 
 export class ToolDispatcher {
   private readonly select: SelectTool;
   private readonly moveArm: MoveArmTool;
   private readonly turnArm: TurnArmTool;
   private readonly dragVertex: DragVertexTool;
+  private readonly section: SectionTool;
   private readonly chosen: Record<EditorTool, ChosenTool>;
   /** The drag under way and the element holding its pointer capture. */
   private drag: { tool: Tool<never>; el: Element } | null = null;
@@ -36,8 +38,9 @@ export class ToolDispatcher {
     this.moveArm = new MoveArmTool(host);
     this.turnArm = new TurnArmTool(host);
     this.dragVertex = new DragVertexTool(host);
+    this.section = new SectionTool(host);
     const draw = (kind: ShapeTool) => new DrawZoneTool(host, kind);
-    this.chosen = { select: this.select, point: new AddPointTool(host), fence: draw('fence'), keepout: draw('keepout'), operator: draw('operator'), opening: draw('opening') };
+    this.chosen = { select: this.select, point: new AddPointTool(host), fence: draw('fence'), keepout: draw('keepout'), operator: draw('operator'), opening: draw('opening'), section: this.section };
   }
 
   private get tool(): ChosenTool {
@@ -64,7 +67,13 @@ export class ToolDispatcher {
     return this.drawTool()?.draft() ?? null;
   }
 
+  /** The section line being drawn (its start and the pointer), or null. */
+  sectionDraft(): SectionDraft | null {
+    return this.tool === this.section ? this.section.draft() : null;
+  }
+
   isDrawing(): boolean {
+    if (this.tool === this.section) return this.section.isDrawing();
     return this.drawTool()?.isDrawing() ?? false;
   }
 
