@@ -14,7 +14,8 @@ const diskBuilder = (calls: string[]) => (params: unknown, restrict: { j1Min: nu
   const R = (params as { R: number }).R;
   calls.push(`${R}|${restrict ? `${restrict.j1Min},${restrict.j1Max}` : '-'}`);
   const full = [annularSector({ cx: 0, cy: 0, rInner: 0, rOuter: R, startDeg: restrict?.j1Min ?? 0, endDeg: restrict?.j1Max ?? 360 })];
-  return { maxReach: R, zMin: 0, zMax: 2000, restricted: full, bandAt: () => full, restrictedBelow: () => full, margin: (x, y) => R - Math.hypot(x, y) };
+  const envelope = { profile: [[[[0, 0], [R, 0], [R, 2000], [0, 2000]]]] as Array<Array<Array<[number, number]>>>, toleranceMm: 0, j1RangeDeg: { min: restrict?.j1Min ?? 0, max: restrict?.j1Max ?? 360 }, lateralMm: { min: 0, max: 0 } };
+  return { maxReach: R, zMin: 0, zMax: 2000, restricted: full, envelope, bandAt: () => full, restrictedBelow: () => full, margin: (x, y) => R - Math.hypot(x, y) };
 };
 
 const content = (): LayoutContent => ({
