@@ -133,7 +133,8 @@ export function ArmModelEditor({ initial, readOnly, submitLabel, onSubmit, onCha
           />
         )}
         <p className="border-l-4 border-finding-warning pl-3 text-xs text-ink-muted">
-          Reach drawn from nominal kinematics is a planning estimate. It does not replace a risk assessment (ISO 12100), the
+          Reach drawn from nominal kinematics is a planning estimate. The whole-arm outline grows each link by the link sizes
+          entered; cables, dress pack and the base are not in it. It does not replace a risk assessment (ISO 12100), the
           robot-system safety requirements (ISO 10218-2) or the arm maker's stopping data; safeguarding is designed and validated
           by a competent person under local codes and regulations.
         </p>
