@@ -738,6 +738,13 @@ function chainEnvelope(p: ChainParams): EnvelopeProfile {
 
 /* ---------------------------------------------------------------- entry points */
 
+/** The whole-arm envelope profile, built afresh (the tool-point profile it starts from is cached), mm. */
+export function buildEnvelopeProfile(model: ArmParams): EnvelopeProfile {
+  if (model.family === 'scara') return scaraEnvelope(model);
+  if (model.family === 'chain') return chainEnvelope(model);
+  return planarEnvelope(model);
+}
+
 const ENVELOPE_CACHE_SIZE = 64;
 const envelopeCache = new Map<string, EnvelopeProfile>();
 
@@ -750,12 +757,7 @@ export function envelopeProfileOf(model: ArmParams): EnvelopeProfile {
     envelopeCache.set(key, hit);
     return hit;
   }
-  const env =
-    model.family === 'scara'
-      ? scaraEnvelope(model)
-      : model.family === 'chain'
-        ? chainEnvelope(model)
-        : planarEnvelope(model);
+  const env = buildEnvelopeProfile(model);
   envelopeCache.set(key, env);
   while (envelopeCache.size > ENVELOPE_CACHE_SIZE) envelopeCache.delete(envelopeCache.keys().next().value as string);
   return env;
