@@ -1,6 +1,5 @@
 import { canonicalJson as stableKey } from '../canonicalJson';
-import { clipOffset } from '../geometry/clipper';
-import { armReach, familyOf, j1KinematicRange, parseArmParams, reachProfileOf, spaceGrowth } from '../kinematics';
+import { armReach, parseArmParams } from '../kinematics';
 import type { ArmPlacement } from '../schemas/layout';
 import type { ArmReach } from './types';
 
@@ -21,14 +20,8 @@ export function armReachFor(params: unknown, restrict: ArmPlacement['restrict'])
     // Bands and below-height regions depend only on the height: keep each one once built.
     const bands = new Map<number, ReturnType<ArmReach['bandAt']>>();
     const below = new Map<number, ReturnType<ArmReach['restrictedBelow']>>();
-    // Envelope for the section: the tool-point profile grown as the plan spaces are (payload, tilting tool).
-    const profile = reachProfileOf(model);
-    const e = familyOf(model).lateralOffset(model);
-    const grownBy = spaceGrowth(model);
-    const envelopeProfile = grownBy > 0 ? clipOffset(profile.polygons, grownBy, { join: 'round', arcToleranceMm: 0.5 }) : profile.polygons;
     r = {
       ...base,
-      envelope: { profile: envelopeProfile, toleranceMm: profile.toleranceMm + (grownBy > 0 ? 0.5 : 0), j1RangeDeg: j1KinematicRange(model, restrict ?? null), lateralMm: { min: e, max: e } },
       bandAt: (z) => {
         let b = bands.get(z);
         if (!b) bands.set(z, (b = base.bandAt(z)));

@@ -1,6 +1,7 @@
 export {
   type AnalysisInput,
   type AnalysisResult,
+  type ArmEnvelope,
   type ArmReach,
   type ArmReachFactory,
   type Finding,
@@ -13,5 +14,5 @@ export {
 } from './types';
 export { type FloorLayer, prepareFloor } from './floor';
 export { type Analyzer, createAnalyzer, FAR_MM, FENCE_CLEARANCE_MM, MIN_FENCE_HEIGHT_MM } from './analyze';
-export { findingId, parseFindingId, sortFindings } from './messages';
-export { isReached, roundMargin } from './reached';
+export { findingId, m2, m2Text, mm, parseFindingId, SEVERITY_OF, sortFindings } from './messages';
+export { isReached, roundMargin, shortfallText } from './reached';

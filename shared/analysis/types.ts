@@ -46,26 +46,29 @@ export interface Finding {
 export interface ArmReach {
   /** Largest plan distance of the restricted space from the J1 axis, mm. */
   maxReach: number;
-  /** Lowest and highest tool-point height the arm reaches, arm frame mm. */
+  /** Lowest and highest point of the whole-arm envelope (links, tool, payload), arm frame mm. */
   zMin: number;
   zMax: number;
-  /** Restricted space (the placement's restricting J1 limits applied), plan projection, arm frame. */
+  /** Restricted space: the whole-arm envelope under the placement's restricting J1 limits, plan projection, arm frame. */
   restricted: Polygon2[];
-  /** Reach band at a height above the base plate (arm frame z), mm. */
+  /** Reach band of the tool point at a height above the base plate (arm frame z), mm. */
   bandAt(zArm: number): Polygon2[];
-  /** Plan projection of the restricted space of the part of the reach below a height (arm frame z). */
+  /** Plan projection of the part of the whole-arm envelope below a height (arm frame z), restricting limits applied. */
   restrictedBelow(zArmTop: number): Polygon2[];
-  /** Signed margin of a point given in the arm frame (mm, positive = reached). */
+  /** Signed margin of a point given in the arm frame (mm, positive = reached); follows the tool point. */
   margin(x: number, y: number, z: number, approach: 'top' | 'any'): number;
-  /** The space as a side profile swept over J1: profile polygons in (r, z) arm frame, mm; J1 range kinematic degrees (restricting limits applied); sideways spread of the reach plane, mm. */
+  /** The whole-arm envelope in the arm's (r, z) plane turned over J1, for section views (see docs/kinematics.md). */
   envelope: ArmEnvelope;
 }
 
-/** An arm's space as a side profile turned about J1 (what a section cuts), arm frame, mm and degrees. */
+/** An arm's whole-arm envelope as a side profile turned about J1 (what a section cuts), arm frame, mm and degrees. */
 export interface ArmEnvelope {
+  /** (r, z) arm frame, mm: r the signed plan distance from the J1 axis, z above the base plate. */
   profile: Polygon2[];
   toleranceMm: number;
+  /** Kinematic J1 range, degrees, restricting limits applied. */
   j1RangeDeg: { min: number; max: number };
+  /** Sideways spread of the envelope's points off the plane through J1, mm. */
   lateralMm: { min: number; max: number };
 }
 

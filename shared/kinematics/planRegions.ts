@@ -1,6 +1,6 @@
 import { toRadians } from '../geometry/angles';
 import { appendArc, circleRing } from '../geometry/arc';
-import { clipIntersect, clipOffset, clipUnion } from '../geometry/clipper';
+import { clipIntersect, clipUnion } from '../geometry/clipper';
 import { polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
 import { DEFAULT_CHORD_TOLERANCE_MM } from '../geometry/tolerance';
 import type { Polygon2, Pt } from '../geometry/types';
@@ -8,6 +8,8 @@ import type { ArmParams, ScaraParams } from '../schemas/armModel';
 import { familyOf, reachProfileOf } from './families';
 import { profileProjection, profileSliceAt } from './profile';
 import { scaraPlanRegion } from './scara';
+import { envelopeProfileOf, scaraPlanEnvelope } from './envelope';
+import type { ReachProfile } from './types';
 
 /**
  * Plan regions of an arm in its ARM frame (origin on the J1 axis at the base plate, x along J1's
@@ -19,12 +21,12 @@ import { scaraPlanRegion } from './scara';
  *   sliced at z + toolLength; a chain's profile is of its tool point and is sliced at z. The radial
  *   intervals become annular sectors over the J1 range (negative r: turned 180°). A scara's band is
  *   its planar 2R region whenever the flange height is inside the stroke.
- * - Maximum space: the profile projected over all heights (a down-pointing tool only extends the
- *   profile downward, which does not change its plan projection) over the full J1 range, grown in
- *   plan by payloadRadius — and, for articulated and chain arms, by toolLength as well, because a
- *   wrist can tilt the tool. Restricted space: the same under the placement's restricting J1 limits.
- * - The arm's own link bodies and base are not part of these regions (they are tool/payload
- *   envelopes); plan sheets carry the caution that regions are planning estimates.
+ * - Maximum space: the whole-arm envelope (envelope.ts: links, tool and payload as capsules) projected
+ *   over all heights and turned over the full J1 range, its edges moved out by the envelope's
+ *   sideways spread. Restricted space: the same under the placement's restricting J1 limits. A
+ *   scara's is the union of its links' plan sweeps. The base below the J2 axis is not included.
+ * - A chain's tool point swings to the side of the plane through J1: bands turn their edges by its
+ *   full sideways spread over the sampled poses (spreadSectors).
  * Arcs: outer arcs circumscribed, inner arcs inscribed (chord tolerance 1 mm), erring toward space.
  */
 
@@ -65,13 +67,6 @@ export function toolDrop(model: ArmParams): number {
   return model.family === 'chain' ? 0 : (model.toolLength ?? 0);
 }
 
-/** Plan growth of the spaces, mm: payloadRadius, plus toolLength where the tool can tilt (articulated, chain). */
-export function spaceGrowth(model: ArmParams): number {
-  const tool = model.toolLength ?? 0;
-  const payload = model.payloadRadius ?? 0;
-  return model.family === 'articulated' || model.family === 'chain' ? tool + payload : payload;
-}
-
 /**
  * Plan region swept by the in-plane radial interval [r0, r1] (signed r, mm) of a reach plane offset
  * laterally by e (mm) as its bearing turns over [a0, a1] (radians): annular sectors for e = 0
@@ -106,21 +101,78 @@ export function bandSectors(r0: number, r1: number, a0: number, a1: number, e = 
 }
 
 /**
- * Sectors of profile intervals over a J1 range. Profile r carries the plan distance from the J1 axis
- * (sign = side); with a lateral offset e the in-plane radius is ±√(r² − e²).
+ * Plan region swept by the radial interval [r0, r1] (signed plan distance from the J1 axis, mm) of
+ * a reach plane whose points lie anywhere from yLo to yHi to its side (mm), as its bearing turns
+ * over [a0, a1] (radians). A point at plan distance ρ and side distance y has bearing
+ * J1 + asin(y/ρ) (in front of the axis) or J1 + π − asin(y/ρ) (behind it), so the start and end
+ * edges are straight lines parallel to the limit bearings at side distances yLo / yHi (in front) or
+ * yHi / yLo (behind); within max(|yLo|, |yHi|) of the axis a disc. yLo = yHi = 0 is bandSectors.
  */
-function sectorsOver(intervals: ReadonlyArray<[number, number]>, range: { min: number; max: number }, e: number, tol: number): Polygon2[] {
+export function spreadSectors(r0: number, r1: number, a0: number, a1: number, yLo: number, yHi: number, tol = DEFAULT_CHORD_TOLERANCE_MM): Polygon2[] {
+  if (yLo === 0 && yHi === 0) return bandSectors(r0, r1, a0, a1, 0, tol);
+  const out: Polygon2[] = [];
+  const yAbs = Math.max(Math.abs(yLo), Math.abs(yHi));
+  let disc = false;
+  const parts: Array<[number, number]> = r0 < 0 && r1 > 0 ? [[r0, 0], [0, r1]] : [[r0, r1]];
+  for (const [p0, p1] of parts) {
+    if (!(p1 > p0)) continue;
+    const front = p1 > 0;
+    const rhoOut = Math.max(Math.abs(p0), Math.abs(p1));
+    const rhoIn = Math.min(Math.abs(p0), Math.abs(p1));
+    if (rhoIn <= yAbs) disc = true;
+    if (rhoOut <= yAbs) continue;
+    const yStart = front ? yLo : yHi;
+    const yEnd = front ? yHi : yLo;
+    const shift = (y: number, rho: number) => {
+      const t = Math.asin(Math.max(-1, Math.min(1, y / rho)));
+      return front ? t : Math.PI - t;
+    };
+    const sOut = a0 + shift(yStart, rhoOut);
+    const eOut = a1 + shift(yEnd, rhoOut);
+    if (eOut - sOut >= 2 * Math.PI - 1e-12) {
+      const poly: Polygon2 = [circleRing(0, 0, rhoOut, 'outer', tol)];
+      if (rhoIn > tol) poly.push(circleRing(0, 0, rhoIn, 'inner', tol).reverse());
+      out.push(poly);
+      continue;
+    }
+    const ring: Pt[] = [];
+    appendArc(ring, 0, 0, rhoOut, sOut, eOut, 'outer', tol);
+    if (rhoIn > yAbs) {
+      appendArc(ring, 0, 0, rhoIn, a1 + shift(yEnd, rhoIn), a0 + shift(yStart, rhoIn), 'inner', tol);
+    } else {
+      // the edge lines down to their foot on the J1 axis' perpendicular; the disc covers the rest
+      ring.push([-Math.sin(a1) * yEnd, Math.cos(a1) * yEnd]);
+      ring.push([-Math.sin(a0) * yStart, Math.cos(a0) * yStart]);
+    }
+    out.push([ring]);
+  }
+  if (disc && yAbs > 0) out.push([circleRing(0, 0, yAbs, 'outer', tol)]);
+  return out;
+}
+
+/**
+ * Sectors of profile intervals over a J1 range. Profile r carries the plan distance from the J1
+ * axis (sign = side); the plane's points lie from yLo to yHi to its side (spreadSectors).
+ */
+function sectorsOver(intervals: ReadonlyArray<[number, number]>, range: { min: number; max: number }, yLo: number, yHi: number, tol: number): Polygon2[] {
   const a0 = toRadians(range.min);
   const a1 = toRadians(range.max);
-  const inPlane = (r: number) => (e === 0 ? r : Math.sign(r) * Math.sqrt(Math.max(0, r * r - e * e)));
   const polys: Polygon2[] = [];
-  for (const [r0, r1] of intervals) polys.push(...bandSectors(inPlane(r0), inPlane(r1), a0, a1, e, tol));
+  for (const [r0, r1] of intervals) polys.push(...spreadSectors(r0, r1, a0, a1, yLo, yHi, tol));
   return polys.length ? clipUnion(polys) : [];
 }
 
-function grow(polys: Polygon2[], by: number, tol: number): Polygon2[] {
-  if (!(by > 0) || polys.length === 0) return polys;
-  return clipOffset(polys, by, { join: 'round', arcToleranceMm: Math.min(tol, by / 4) });
+/**
+ * Sideways spread of the tool point off the plane through J1, mm: the full range over the sampled
+ * poses for a chain (a wrist swings the tool sideways), 0 for the families whose tool point stays
+ * in that plane.
+ */
+export function toolLateralSpread(model: ArmParams): { min: number; max: number } {
+  if (model.family !== 'chain') return { min: 0, max: 0 };
+  const lat = (reachProfileOf(model) as ReachProfile & { lateral?: { min: number; max: number } }).lateral;
+  if (!lat) return { min: 0, max: 0 };
+  const clean = (v: number) => (Math.abs(v) < 1e-9 ? 0 : v);
+  return { min: clean(lat.min), max: clean(lat.max) };
 }
 
 /** Reach band of the tool point at arm-frame height zArm (mm) over the (restricted) J1 range: plan polygons, arm frame, mm. */
@@ -134,29 +186,22 @@ export function bandPolygons(model: ArmParams, zArm: number, restrict?: Readonly
     return scaraPlanRegion(s, range, tol);
   }
   const profile = reachProfileOf(model);
-  return sectorsOver(profileSliceAt(profile, zFlange), range, familyOf(model).lateralOffset(model), tol);
+  const spread = toolLateralSpread(model);
+  return sectorsOver(profileSliceAt(profile, zFlange), range, spread.min, spread.max, tol);
 }
 
-/** Space (tool and payload envelope) over all heights under the given J1 range, plan polygons, arm frame, mm. */
+/** Whole-arm envelope in plan, the part below arm-frame height zTop, under the given J1 range, arm frame, mm. */
 function spacePolygons(model: ArmParams, range: { min: number; max: number }, zTop: number, tol: number): Polygon2[] {
-  let base: Polygon2[];
-  if (model.family === 'scara') {
-    const s = model as ScaraParams;
-    const lowest = s.strokeMin - toolDrop(model) - (s.payloadRadius ?? 0);
-    base = zTop >= lowest ? scaraPlanRegion(s, range, tol) : [];
-  } else {
-    const profile = reachProfileOf(model);
-    // A part of the space below zTop comes from profile points up to zTop + tool drop (+ payload).
-    const zCut = zTop + toolDrop(model) + (model.payloadRadius ?? 0);
-    let polys = profile.polygons;
-    if (zCut < profile.zMax) {
-      const r = profile.maxReach + 10;
-      const box: Polygon2 = [[[-r, profile.zMin - 10], [r, profile.zMin - 10], [r, zCut], [-r, zCut]]];
-      polys = zCut <= profile.zMin ? [] : clipIntersect(profile.polygons, [box]);
-    }
-    base = sectorsOver(profileProjection({ polygons: polys }), range, familyOf(model).lateralOffset(model), tol);
+  const env = envelopeProfileOf(model);
+  if (zTop < env.zMin) return [];
+  if (model.family === 'scara') return scaraPlanEnvelope(model as ScaraParams, range, tol);
+  let polys = env.polygons;
+  if (zTop < env.zMax) {
+    const r = env.maxReach + 10;
+    const box: Polygon2 = [[[-r, env.zMin - 10], [r, env.zMin - 10], [r, zTop], [-r, zTop]]];
+    polys = clipIntersect(env.polygons, [box]);
   }
-  return grow(base, spaceGrowth(model), tol);
+  return sectorsOver(profileProjection({ polygons: polys }), range, env.lateralMm.min, env.lateralMm.max, tol);
 }
 
 /** Maximum space in plan over the model's full J1 range (see the file comment), arm frame, mm. */

@@ -7,8 +7,9 @@ import { armPose } from '../geometry/frames';
 import { planPoint, type Polygon2 } from '../geometry/types';
 import type { ArmParams, ScaraParams } from '../schemas/armModel';
 import type { ReachProfile } from './types';
-import { familyOf, reachProfileOf } from './families';
-import { bandPolygons, j1KinematicRange, restrictedBelowPolygons, restrictedSpacePolygons, toolDrop, type J1Restrict } from './planRegions';
+import { reachProfileOf } from './families';
+import { bandPolygons, j1KinematicRange, restrictedBelowPolygons, restrictedSpacePolygons, toolDrop, toolLateralSpread, type J1Restrict } from './planRegions';
+import { envelopeProfileOf, type EnvelopeProfile } from './envelope';
 import { scaraPlanRegion } from './scara';
 
 /**
@@ -115,7 +116,13 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
   // A point exactly on a J1 limit is reached: allow the same 1e-9 as the axis limit checks.
   const a0 = toRadians(range.min) - 1e-9;
   const a1 = toRadians(range.max) + 1e-9;
-  const e = familyOf(model).lateralOffset(model);
+  // The tool point's side distance off the plane through J1 lies anywhere in [yLo, yHi] (a chain's
+  // wrist swings it; 0 for the other families): the J1 window at plan distance ρ widens to
+  // [a0 + asin(yLo/ρ), a1 + asin(yHi/ρ)] in front of the axis, [a0 + π − asin(yHi/ρ), a1 + π − asin(yLo/ρ)] behind it.
+  const spread = toolLateralSpread(model);
+  const yLo = spread.min;
+  const yHi = spread.max;
+  const sideways = yLo !== 0 || yHi !== 0;
   // The region and its grid depend on the profile alone, not on the restricting limits: shared.
   let region = regionCache.get(profile);
   if (!region) {
@@ -135,39 +142,36 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
     return anyGrid;
   };
   const hasNegative = polygons.some((p) => p[0].some(([r]) => r < 0));
-  const e2 = e * e;
-  const absE = Math.abs(e);
   const TWO_PI = 2 * Math.PI;
-  const span = a1 - a0;
-  const unlimited = span >= TWO_PI - 1e-9;
-  /** Arc length (mm) at radius rho from bearing b to the nearer J1 edge: positive inside, negative outside. */
-  const arcAt = (b: number, rho: number): number => {
-    if (unlimited) return Infinity;
-    let t = b - a0;
+  /** Arc length (mm) at radius rho from bearing b to the nearer edge of the window [lo, hi]: positive inside, negative outside. */
+  const arcIn = (b: number, lo: number, hi: number, rho: number): number => {
+    const span = hi - lo;
+    if (span >= TWO_PI - 1e-9) return Infinity;
+    let t = b - lo;
     t -= TWO_PI * Math.floor(t / TWO_PI);
     if (t <= span) return rho * (t < span - t ? t : span - t);
     const o = t - span;
     const u = TWO_PI - t;
     return -rho * (o < u ? o : u);
   };
+  const asinClamped = (v: number) => Math.asin(v > 1 ? 1 : v < -1 ? -1 : v);
+  /** J1 arc margins of the way in front of the axis (A) and behind it (B) for a point at bearing b, plan distance rho. */
+  const arcFront = (b: number, rho: number): number =>
+    sideways ? arcIn(b, a0 + asinClamped(yLo / rho), a1 + asinClamped(yHi / rho), rho) : arcIn(b, a0, a1, rho);
+  const arcBack = (b: number, rho: number): number =>
+    sideways
+      ? arcIn(b, a0 + Math.PI - asinClamped(yHi / rho), a1 + Math.PI - asinClamped(yLo / rho), rho)
+      : arcIn(b, a0 + Math.PI, a1 + Math.PI, rho);
   return (x, y, z, approach) => {
     const tilt = approach === 'any' && tiltable && reachTool > 0;
     const g = tilt ? anyGridOf() : grid;
     const zt = tilt ? z : z + drop;
-    const rho2 = x * x + y * y;
-    const rho = Math.sqrt(rho2);
+    const rho = Math.sqrt(x * x + y * y);
     // On the J1 axis every bearing is the same point: no J1 edge applies there.
     if (rho < 1e-9) return g.signedDistance(0, zt);
-    // Profiles carry the plan distance from the J1 axis as |r| (a chain's includes its lateral
-    // offset); the in-plane radius rIn only sets the bearing shift atan2(e, ±rIn). The shifted
-    // bearing is one atan2 of the point turned back by the shift: atan2(y, x) − atan2(v, u) =
-    // atan2(y·u − x·v, x·u + y·v).
-    let rIn = rho;
-    if (e !== 0) {
-      if (rho2 < e2) return combine(g.signedDistance(0, zt), rho - absE);
-      rIn = Math.sqrt(rho2 - e2);
-    }
-    const arcA = arcAt(e === 0 ? Math.atan2(y, x) : Math.atan2(y * rIn - x * e, x * rIn + y * e), rho);
+    // Profiles carry the plan distance from the J1 axis as |r|.
+    const bearing = Math.atan2(y, x);
+    const arcA = arcFront(bearing, rho);
     if (!hasNegative) return combine(g.signedDistance(rho, zt), arcA);
     // combine(d, arc) ≤ min(d, arc), and the grid bounds d from above without visiting an edge, so
     // an option is looked up (or even its arc computed) only when its upper bound can beat the
@@ -177,13 +181,12 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
     if (ubA >= gB) {
       const mA = combine(g.signedDistance(rho, zt), arcA);
       if (gB <= mA) return mA;
-      // the way behind the J1 axis: bearing turned by 180°, or by atan2(e, −rIn)
-      const arcB = arcAt(e === 0 ? Math.atan2(y, x) - Math.PI : Math.atan2(-y * rIn - x * e, -x * rIn + y * e), rho);
+      const arcB = arcBack(bearing, rho);
       if (arcB <= mA) return mA;
       const mB = combine(g.signedDistance(-rho, zt), arcB);
       return mA > mB ? mA : mB;
     }
-    const arcB = arcAt(e === 0 ? Math.atan2(y, x) - Math.PI : Math.atan2(-y * rIn - x * e, -x * rIn + y * e), rho);
+    const arcB = arcBack(bearing, rho);
     const ubB = Math.min(arcB, gB);
     if (ubA >= ubB) {
       const mA = combine(g.signedDistance(rho, zt), arcA);
@@ -233,24 +236,41 @@ export function pointReach(model: ArmParams, placement: Readonly<ReachPlacement>
   return { reached: isReached(m), marginMm: m };
 }
 
+/** The whole-arm envelope as the analysis hands it on: (r, z) profile, tolerance, J1 range and sideways spread. */
+export interface ArmEnvelope {
+  /** (r, z) arm frame, mm: r the signed plan distance from the J1 axis, z above the base plate. */
+  profile: Polygon2[];
+  toleranceMm: number;
+  /** Kinematic J1 range, degrees, restricting limits applied. */
+  j1RangeDeg: { min: number; max: number };
+  /** Sideways spread of the reach plane's points off the plane through J1, mm. */
+  lateralMm: { min: number; max: number };
+}
+
 /**
  * Everything the layout analysis needs of one model under restricting limits, arm frame, mm:
- * restricted space, bands, the restricted space below a height, margins, and the vertical extent
- * of the space (lowest tool point … highest flange/wrist point).
+ * restricted space (the whole-arm envelope), bands and margins (the tool point), the restricted
+ * space below a height, and the envelope's vertical extent and (r, z) profile.
  */
 export function armReach(model: ArmParams, restrict?: J1Restrict | null) {
   const restricted = restrictedSpacePolygons(model, restrict);
   let maxReach = 0;
   for (const p of restricted) for (const [x, y] of p[0]) maxReach = Math.max(maxReach, Math.hypot(x, y));
-  const profile = reachProfileOf(model);
+  const env: EnvelopeProfile = envelopeProfileOf(model);
   const margin = marginFnOf(model, restrict);
-  const payload = model.payloadRadius ?? 0;
+  const envelope: ArmEnvelope = {
+    profile: env.polygons,
+    toleranceMm: env.toleranceMm,
+    j1RangeDeg: j1KinematicRange(model, restrict),
+    lateralMm: { ...env.lateralMm },
+  };
   return {
     key: canonicalJson({ model, restrict: restrict ?? null }),
     maxReach,
-    zMin: profile.zMin - toolDrop(model) - payload,
-    zMax: profile.zMax + payload,
+    zMin: env.zMin,
+    zMax: env.zMax,
     restricted,
+    envelope,
     bandAt: (zArm: number): Polygon2[] => bandPolygons(model, zArm, restrict),
     restrictedBelow: (zArmTop: number): Polygon2[] => restrictedBelowPolygons(model, zArmTop, restrict),
     margin: (x: number, y: number, z: number, approach: 'top' | 'any' = 'top'): number => margin(x, y, z, approach),

@@ -14,11 +14,11 @@ import type { ReachProfile } from './types';
  * dead points) and into chunks of < 360° of the first joint. The image of each piece is then the
  * region bounded by the image of the piece's boundary: the joint-limit curves (each limit held
  * while the other joint sweeps) and the stretched/folded arcs. Each boundary edge is traced by
- * adaptive bisection in joint space until every mapped chord lies within tol/2 of the curve (for
- * the circular arcs of constant-joint edges the mid-parameter point is the point of largest
- * deviation, so the bound is exact); the pieces are united with integer clipping (clipper-lib) and
- * the union is grown outward by tol/2 (plus the 0.01 mm grid), so the polygon contains the true
- * region and exceeds it by at most tol. A handful of pieces with a few hundred vertices each keeps
+ * adaptive bisection in joint space until the curve's points at a quarter, half and three quarters
+ * of each step lie within tol/2 of the chord (a four-bar near toggle bends unevenly, so the midpoint
+ * alone is not enough); the pieces are united with integer clipping (clipper-lib) and the union is
+ * grown outward by the larger of tol/2 and the worst chord error accepted (plus the 0.01 mm
+ * grid), so the polygon contains the true region and exceeds it by at most about tol. A handful of pieces with a few hundred vertices each keeps
  * this fast (a few ms), unlike unions of thousands of strips.
  */
 
@@ -31,17 +31,34 @@ export type JointPiece = Array<[number, number]>;
 const MIN_PARAM_STEP = 0.05;
 const MAX_DEPTH = 22;
 
+/** Largest distance of the map's points at a quarter, a half and three quarters of a joint-space step from the chord p0–p1, mm. */
+function chordError(map: JointMap, u0: number, v0: number, u1: number, v1: number, p0: Pt, p1: Pt, pm: Pt): number {
+  const q: Pt = [0, 0];
+  let dev = pointSegmentDistance(pm[0], pm[1], p0[0], p0[1], p1[0], p1[1]);
+  for (const f of [0.25, 0.75]) {
+    map(u0 + f * (u1 - u0), v0 + f * (v1 - v0), q);
+    dev = Math.max(dev, pointSegmentDistance(q[0], q[1], p0[0], p0[1], p1[0], p1[1]));
+  }
+  return dev;
+}
+
+/** Worst chord error accepted while tracing (mm), kept per traceRegion call so the outward growth can cover it. */
+let acceptedChordError = 0;
+
 function traceEdge(map: JointMap, u0: number, v0: number, u1: number, v1: number, p0: Pt, p1: Pt, tolHalf: number, out: Pt[], depth: number): void {
   const um = (u0 + u1) / 2;
   const vm = (v0 + v1) / 2;
   const pm: Pt = [0, 0];
   map(um, vm, pm);
-  const dev = pointSegmentDistance(pm[0], pm[1], p0[0], p0[1], p1[0], p1[1]);
+  // the midpoint alone misses chords whose curve bends unevenly (a four-bar near toggle): the
+  // quarter points are checked as well, and the worst error accepted is measured
+  const dev = chordError(map, u0, v0, u1, v1, p0, p1, pm);
   if (dev > tolHalf && depth < MAX_DEPTH) {
     traceEdge(map, u0, v0, um, vm, p0, pm, tolHalf, out, depth + 1);
     traceEdge(map, um, vm, u1, v1, pm, p1, tolHalf, out, depth + 1);
     return;
   }
+  if (dev > acceptedChordError) acceptedChordError = dev;
   out.push(p1);
 }
 
@@ -80,6 +97,7 @@ export function tracePiece(map: JointMap, piece: Readonly<JointPiece>, tolHalf: 
 export function traceRegion(map: JointMap, pieces: ReadonlyArray<JointPiece>, tol: number = DEFAULT_CHORD_TOLERANCE_MM): Polygon2[] {
   if (!(tol > 0)) throw new Error('tol must be greater than 0');
   const tolHalf = tol / 2;
+  acceptedChordError = 0;
   const rings: Polygon2[] = [];
   for (const piece of pieces) {
     if (piece.length < 3) continue;
@@ -87,7 +105,9 @@ export function traceRegion(map: JointMap, pieces: ReadonlyArray<JointPiece>, to
     if (ring.length >= 3) rings.push([ring]);
   }
   if (rings.length === 0) return [];
-  return clipOffset(clipUnion(rings), tolHalf + GRID_MM, { join: 'miter' });
+  // grown by the larger of tol/2 and the worst chord error accepted (above tol/2 only where the
+  // bisection depth ran out)
+  return clipOffset(clipUnion(rings), Math.max(tolHalf, acceptedChordError) + GRID_MM, { join: 'miter' });
 }
 
 /** Clips a convex joint-space polygon to the half-plane a·u + b·v ≤ c (Sutherland–Hodgman). */

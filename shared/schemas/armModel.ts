@@ -35,6 +35,32 @@ const commonFields = {
   payloadKg: nonNegativeNumber('payloadKg').max(100_000).optional(),
 };
 
+/**
+ * Link sizes (mm): the half-width of each moving link, so the envelope can grow each link's
+ * centre line into a capsule. Every field is optional; `linkSizesOf` in shared/kinematics/envelope.ts
+ * fills what is missing from its documented defaults, so stored models stay valid.
+ */
+const linkRadius = (what: string) => nonNegativeMm(what).refine((v) => v <= 5000, { message: `${what} must be at most 5000 mm` }).optional();
+
+export const scaraLinkSizesSchema = z.object({
+  innerLinkRadius: linkRadius('linkSizes.innerLinkRadius'),
+  outerLinkRadius: linkRadius('linkSizes.outerLinkRadius'),
+  toolRadius: linkRadius('linkSizes.toolRadius'),
+});
+export const articulatedLinkSizesSchema = z.object({
+  upperArmRadius: linkRadius('linkSizes.upperArmRadius'),
+  forearmRadius: linkRadius('linkSizes.forearmRadius'),
+  toolRadius: linkRadius('linkSizes.toolRadius'),
+});
+export const linkageLinkSizesSchema = articulatedLinkSizesSchema.extend({
+  rearLength: linkRadius('linkSizes.rearLength'),
+  rearRadius: linkRadius('linkSizes.rearRadius'),
+});
+export const chainLinkSizesSchema = z.object({
+  linkRadius: linkRadius('linkSizes.linkRadius'),
+  toolRadius: linkRadius('linkSizes.toolRadius'),
+});
+
 const axes = (count: number, labels: string) =>
   z.array(axisSchema, { error: `axes must be a list of ${count} axes (${labels})` }).length(count, { message: `Give exactly ${count} axes (${labels})` });
 
@@ -46,6 +72,7 @@ export const scaraParamsSchema = z
     strokeMin: lengthMm('strokeMin'),
     strokeMax: lengthMm('strokeMax'),
     axes: axes(2, 'J1, J2'),
+    linkSizes: scaraLinkSizesSchema.optional(),
     ...commonFields,
   })
   .superRefine((p, ctx) => {
@@ -65,6 +92,7 @@ export const articulatedParamsSchema = z.object({
   family: z.literal('articulated', { error: "family must be 'articulated'" }),
   ...armFields,
   axes: axes(3, 'J1, J2, J3'),
+  linkSizes: articulatedLinkSizesSchema.optional(),
   ...commonFields,
 });
 export type ArticulatedParams = z.infer<typeof articulatedParamsSchema>;
@@ -90,6 +118,7 @@ export const linkageParamsSchema = z
     fourBar: fourBarParamsSchema.nullable(),
     interiorAngle: z.object({ min: degrees('interiorAngle.min'), max: degrees('interiorAngle.max') }),
     axes: axes(3, 'J1, J2 motor, J3 motor'),
+    linkSizes: linkageLinkSizesSchema.optional(),
     ...commonFields,
   })
   .superRefine((p, ctx) => {
@@ -165,6 +194,7 @@ export const chainParamsSchema = z
     stopDistanceMm: nonNegativeNumber('stopDistanceMm', notFinite('stopDistanceMm')).optional(),
     maxSpeedMmS: positiveNumber('maxSpeedMmS', notFinite('maxSpeedMmS')).optional(),
     payloadKg: nonNegativeNumber('payloadKg', notFinite('payloadKg')).optional(),
+    linkSizes: chainLinkSizesSchema.optional(),
   })
   .superRefine((p, ctx) => {
     const first = p.joints[0];

@@ -1,11 +1,12 @@
-// Kinematics core benchmark: reach profile time per family (target ≤ 50 ms each) and point-reach
+// Kinematics core benchmark: reach profile and whole-arm envelope time per family (target ≤ 50 ms each) and point-reach
 // throughput (target ≥ 5 million checks per second on one core). Prints figures and ratios.
 // "region built" is the first marginFnOf call: the (cached) reach profile, for a chain the outline
 // simplified outward by half a raster cell, and the distance grid over it.
 import { readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { familyOf } from '@shared/kinematics/families';
+import { buildEnvelopeProfile } from '@shared/kinematics/envelope';
+import { familyOf, reachProfileOf } from '@shared/kinematics/families';
 import { makePointReach, marginFnOf } from '@shared/kinematics/pointReach';
 import { scaraPlanRegion } from '@shared/kinematics/scara';
 import { ArmModelInput, type ArmParams, type ScaraParams } from '@shared/schemas/armModel';
@@ -54,6 +55,26 @@ for (const m of models.filter((x) => x.params.family === 'scara')) {
   }
   const ms = median(times);
   console.log(`  ${'scara plan'.padEnd(12)} ${m.name.padEnd(24)} ${ms.toFixed(2).padStart(7)} ms  (exact, 2R plan region)  target ≤ ${PROFILE_TARGET_MS} ms  ratio ${(PROFILE_TARGET_MS / ms).toFixed(1)}× ${ms <= PROFILE_TARGET_MS ? 'OK' : 'SLOW'}`);
+}
+
+// The whole-arm envelope (links, tool, payload as capsules): built afresh each run from the cached
+// tool-point profile (its own time is the line above).
+console.log('\nwhole-arm envelope (uncached, tool-point profile cached; median of 9 after 2 warm-up runs)');
+for (const m of models) {
+  reachProfileOf(m.params);
+  for (let i = 0; i < 2; i++) buildEnvelopeProfile(m.params);
+  const times: number[] = [];
+  let env = buildEnvelopeProfile(m.params);
+  for (let i = 0; i < 9; i++) {
+    const t = performance.now();
+    env = buildEnvelopeProfile(m.params);
+    times.push(performance.now() - t);
+  }
+  const ms = median(times);
+  const verts = env.polygons.reduce((n, p) => n + p.reduce((k, r) => k + r.length, 0), 0);
+  console.log(
+    `  ${m.params.family.padEnd(12)} ${m.name.padEnd(24)} ${ms.toFixed(2).padStart(7)} ms  (${env.method}, ${verts} vertices, ±${env.toleranceMm.toFixed(2)} mm)  target ≤ ${PROFILE_TARGET_MS} ms  ratio ${(PROFILE_TARGET_MS / ms).toFixed(1)}× ${ms <= PROFILE_TARGET_MS ? 'OK' : 'SLOW'}`,
+  );
 }
 
 console.log('\npoint reach (arm-frame points in a box of ±1.2 × max reach, z over the profile heights ± 300 mm)');

@@ -70,6 +70,12 @@ describe('arm catalogue in Chromium', () => {
     expect(await page.locator('g.pose-greyed').count()).toBe(1);
     await page.screenshot({ path: path.join(SCREENS, 'catalogue-pose-unreachable.png'), fullPage: true });
 
+    // the whole-arm envelope is the second outline, with its legend; a wider upper arm grows it
+    await page.locator('.legend-envelope').waitFor();
+    const envelopeBefore = await page.locator('path.envelope').getAttribute('d');
+    expect(envelopeBefore?.length ?? 0).toBeGreaterThan(10);
+    await page.getByLabel('Upper arm radius (mm)').fill('400');
+    await expect.poll(() => page.locator('path.envelope').getAttribute('d'), { timeout: 10_000 }).not.toBe(envelopeBefore);
     await page.getByRole('button', { name: 'Save model' }).click();
     await page.getByText('Saved.').waitFor();
     await page.goto(`${e.server.url}/catalogue`);

@@ -15,7 +15,9 @@ function lensArea(r: number, R: number, d: number): number {
 
 // A SCARA with equal links and full J1/J2 ranges reaches the whole disk of radius a1 + a2
 // (planar 2R reach annulus |a1 − a2| … a1 + a2: Spong et al., planar elbow arm). Large links keep the
-// 1 mm chord tolerance (outer arcs circumscribed) well inside 0.1 % of the area.
+// 1 mm chord tolerance (outer arcs circumscribed) well inside 0.1 % of the area. Link sizes 0: the
+// links are their centre lines, which sweep inside the same disk.
+const noLinkSizes = { innerLinkRadius: 0, outerLinkRadius: 0, toolRadius: 0 };
 const fullScara = {
   family: 'scara',
   innerLink: 1500,
@@ -23,7 +25,11 @@ const fullScara = {
   strokeMin: 0,
   strokeMax: 300,
   axes: [{ min: -180, max: 180 }, { min: -180, max: 180 }],
+  linkSizes: noLinkSizes,
 };
+// The same arm with a 100 mm half-width outer link: its plan envelope is the disk of radius
+// a1 + a2 + 100 (the disk grown by the link radius — Minkowski sum of a disk and a disk).
+const fatScara = { ...fullScara, linkSizes: { ...noLinkSizes, outerLinkRadius: 100 } };
 
 // An articulated arm whose wrist stays in front of J1 (θ2 ∈ [0°, 90°], θ3 ∈ [−90°, 0°]): its plan
 // projection is the radial interval 0 … a2 + a3 (anthropomorphic arm closed form, Siciliano et al. §2.9.3).
@@ -34,6 +40,8 @@ const bigFrontArticulated = {
   upperArm: 1700,
   forearm: 1300,
   axes: [{ min: -170, max: 170 }, { min: 0, max: 90 }, { min: -90, max: 0 }],
+  // centre lines only: the upper arm and forearm sweep radii 0 … a2 + a3 as the wrist does
+  linkSizes: { upperArmRadius: 0, forearmRadius: 0, toolRadius: 0 },
 };
 const frontArticulated = {
   family: 'articulated',
@@ -45,7 +53,7 @@ const frontArticulated = {
 };
 
 const smallScara = { ...fullScara, innerLink: 500, outerLink: 500 };
-const MODELS: Record<number, unknown> = { 1: fullScara, 2: frontArticulated, 3: bigFrontArticulated, 4: smallScara };
+const MODELS: Record<number, unknown> = { 1: fullScara, 2: frontArticulated, 3: bigFrontArticulated, 4: smallScara, 5: fatScara };
 const analyzer = () => createAnalyzer((id, restrict) => armReachFor(MODELS[id], restrict));
 const empty = (): AnalysisInput => ({ arms: [], workPoints: [], zones: [], workHeights: [], floor: null });
 const place = (id: string, armModelId: number, x: number, y: number, extra: object = {}) => ({ id, armModelId, label: '', x, y, yaw: 0, mountHeight: 0, ...extra });
@@ -58,6 +66,15 @@ describe('shared zones and spaces against published formulas', () => {
       expect(r.overlaps).toHaveLength(1);
       expect(Math.abs(r.overlaps[0].areaM2 - expected) / expected).toBeLessThan(0.001);
       expect(r.overlaps[0].areaM2).toBeGreaterThanOrEqual(expected * (1 - 1e-6)); // errs toward more space
+    }
+    // with the outer link's half-width 100 mm, the envelopes are disks of 3100 mm; the offset's
+    // arcs err outward by up to 2 mm on the radius (chord tolerance of the disk and of the offset)
+    for (const d of [1500, 4800]) {
+      const r = analyzer().analyze({ ...empty(), arms: [place('R1', 5, 0, 0), place('R2', 5, d, 0)] });
+      const expected = lensArea(3100, 3100, d) / 1e6;
+      const outer = lensArea(3102, 3102, d) / 1e6;
+      expect(r.overlaps[0].areaM2).toBeLessThanOrEqual(outer);
+      expect(r.overlaps[0].areaM2).toBeGreaterThanOrEqual(expected * (1 - 1e-6));
     }
     // r = R = 1, d = 1 → 1.22837 (MathWorld's tabulated value, scaled to metres here)
     expect(lensArea(1000, 1000, 1000) / 1e6).toBeCloseTo(1.22837, 5);

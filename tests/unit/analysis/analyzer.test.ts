@@ -14,10 +14,10 @@ const diskReach: ArmReachFactory = (modelId) => {
     zMin: 0,
     zMax: 2000,
     restricted: full,
+    envelope: { profile: [[[[0, 0], [R, 0], [R, 2000], [0, 2000]]]], toleranceMm: 0, j1RangeDeg: { min: -180, max: 180 }, lateralMm: { min: 0, max: 0 } },
     bandAt: () => full,
     restrictedBelow: (z) => (z >= 1000 ? full : disk(R * 0.7)),
     margin: (x, y) => R - Math.hypot(x, y),
-    envelope: { profile: [[[[0, 0], [R, 0], [R, 2000], [0, 2000]]]], toleranceMm: 0, j1RangeDeg: { min: -180, max: 180 }, lateralMm: { min: 0, max: 0 } },
   };
   return reach;
 };

@@ -15,6 +15,12 @@ function boxEnvelope(r0: number, r1: number, z0: number, z1: number, j1 = { min:
   return { profile: [[[[r0, z0], [r1, z0], [r1, z1], [r0, z1]]]], toleranceMm: 0, j1RangeDeg: j1, lateralMm: { min: 0, max: 0 } };
 }
 
+/** The tool point's side profile as an envelope over full J1: the section geometry checked against closed forms. */
+function toolEnvelope(raw: unknown): ArmEnvelope {
+  const prof = reachProfileOf(parseArmParams(raw));
+  return { profile: prof.polygons, toleranceMm: prof.toleranceMm, j1RangeDeg: { min: -180, max: 180 }, lateralMm: { min: 0, max: 0 } };
+}
+
 const input = (over: Partial<SectionInput>): SectionInput => ({ line: [[0, 0], [5000, 0]], floor: null, zones: [], arms: [], ...over });
 
 describe('section: an arm space cut through its J1 axis', () => {
@@ -22,7 +28,7 @@ describe('section: an arm space cut through its J1 axis', () => {
     // Planar 2R reach (Spong, Hutchinson & Vidyasagar, "Robot Modeling and Control", planar elbow
     // arm; law of cosines): outer radius l1 + l2, inner √(l1² + l2² + 2·l1·l2·cos ψmax) for |ψ| ≤ ψmax < 180°.
     const params = { family: 'scara', innerLink: 325, outerLink: 275, strokeMin: 480, strokeMax: 680, axes: [ax(-180, 180), ax(-145, 145)] };
-    const env = armReachFor(params, undefined).envelope;
+    const env = toolEnvelope(params);
     const outer = 325 + 275;
     const inner = Math.sqrt(325 ** 2 + 275 ** 2 + 2 * 325 * 275 * Math.cos((145 * Math.PI) / 180));
     const c = 2500;
@@ -47,7 +53,7 @@ describe('section: an arm space cut through its J1 axis', () => {
     // radii |l2 − l3| … l2 + l3 (planar 2R workspace, Spong et al.). At a height dz above the shoulder
     // its outer half-width is √((l2 + l3)² − dz²).
     const params = parseArmParams({ family: 'articulated', shoulderHeight: 900, shoulderOffset: 0, upperArm: 500, forearm: 300, axes: [ax(-180, 180), ax(-180, 180), ax(-180, 180)] });
-    const env = armReachFor(params, undefined).envelope;
+    const env = toolEnvelope(params);
     const tol = env.toleranceMm + 1; // the profile's stated tolerance plus one sample step
     const c = 2000;
     const cut = sectionCutOf([[c, -3000], [c, 3000]], { id: 'R3', label: 'Packer', pose: { x: c, y: 0, yaw: 0, mountHeight: 0 }, envelope: env })!;
@@ -65,6 +71,17 @@ describe('section: an arm space cut through its J1 axis', () => {
     const atShoulder = widthAt(cut.polygons, 900);
     expect(atShoulder).toHaveLength(2);
     expect(Math.abs(atShoulder[0][1] - 3000 + 200)).toBeLessThan(tol);
+  });
+
+  it('the whole-arm envelope cuts at least as wide as the tool point alone', () => {
+    const params = { family: 'scara', innerLink: 325, outerLink: 275, strokeMin: 480, strokeMax: 680, axes: [ax(-180, 180), ax(-145, 145)] };
+    const line: [[number, number], [number, number]] = [[0, 0], [5000, 0]];
+    const pose = { x: 2500, y: 0, yaw: 30, mountHeight: 400 };
+    const tool = sectionCutOf(line, { id: 'R1', label: '', pose, envelope: toolEnvelope(params) })!;
+    const whole = sectionCutOf(line, { id: 'R1', label: '', pose, envelope: armReachFor(params, undefined).envelope })!;
+    expect(whole.spans[0][0]).toBeLessThanOrEqual(tool.spans[0][0]);
+    expect(whole.spans[whole.spans.length - 1][1]).toBeGreaterThanOrEqual(tool.spans[tool.spans.length - 1][1]);
+    expect(whole.zMax).toBeGreaterThanOrEqual(tool.zMax);
   });
 
   it('a line that misses the arm gives no cut', () => {

@@ -65,3 +65,29 @@ describe('linkage forward kinematics', () => {
     expect(linkageInteriorDeg(-Math.PI / 2)).toBeCloseTo(90, 12);
   });
 });
+
+describe('linkage profile strictly contains the flange points', () => {
+  it('Demo Palletizer 3100: 40 000 motor poses, dense near the four-bar toggle, all inside the traced profile', async () => {
+    const { readFileSync } = await import('node:fs');
+    const { ArmModelInput } = await import('@shared/schemas/armModel');
+    const { buildDistanceGrid } = await import('@shared/geometry/distanceGrid');
+    const { linkageReachProfile, linkageForward } = await import('@shared/kinematics/linkage');
+    const m = ArmModelInput.parse(JSON.parse(readFileSync(new URL('../../../samples/arm-models/demo-palletizer-3100.json', import.meta.url), 'utf8'))).params;
+    if (m.family !== 'linkage') throw new Error('expected a linkage');
+    const grid = buildDistanceGrid(linkageReachProfile(m).polygons);
+    let seed = 11;
+    const rnd = () => ((seed = (seed * 1103515245 + 12345) >>> 0) / 4294967296);
+    let worst = Infinity;
+    const [, j2, j3] = m.axes;
+    for (let k = 0; k < 40000; k++) {
+      // half the poses at the J2 limits (constant-J2 edges), where the chord error showed
+      const a = k % 2 === 0 ? (rnd() < 0.5 ? j2.min : j2.max) : j2.min + rnd() * (j2.max - j2.min);
+      const b = j3.min + rnd() * (j3.max - j3.min);
+      const fk = linkageForward(m, [0, a, b]);
+      if (!fk.ok) continue;
+      worst = Math.min(worst, grid.signedDistance(fk.wrist.x, fk.wrist.z));
+    }
+    // inside, to the clipping grid (0.01 mm)
+    expect(worst).toBeGreaterThanOrEqual(-0.01);
+  }, 60_000);
+});

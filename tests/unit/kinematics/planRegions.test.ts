@@ -14,6 +14,7 @@ import {
   restrictedSpacePolygons,
 } from '@shared/kinematics/planRegions';
 import { profileProjection, profileSliceAt } from '@shared/kinematics/profile';
+import { envelopeProfileOf } from '@shared/kinematics/envelope';
 import { ax, articulatedSets, deepFreeze, linkageSets, scaraSets } from './fixtures';
 
 const full = [ax(-180, 180), ax(-180, 180)];
@@ -84,10 +85,14 @@ describe('reach bands and spaces', () => {
     expect(farthest).toBeLessThan(rMax + a.toolLength + 200 + 3);
   });
 
-  it('restricted space below a height shrinks to nothing under the lowest tool point', () => {
+  it('restricted space below a height shrinks to nothing under the whole-arm envelope', () => {
     const m = linkageSets[0];
     const prof = reachProfileOf(m);
-    expect(restrictedBelowPolygons(m, prof.zMin - m.toolLength - 10)).toEqual([]);
+    const env = envelopeProfileOf(m);
+    // the envelope reaches at least the tool point's lowest height, less the tool
+    expect(env.zMin).toBeLessThanOrEqual(prof.zMin - m.toolLength + 1e-9);
+    expect(restrictedBelowPolygons(m, env.zMin - 1)).toEqual([]);
+    expect(restrictedBelowPolygons(m, env.zMin + 1).length).toBeGreaterThan(0);
     const all = polygonsArea(restrictedSpacePolygons(m));
     const low = polygonsArea(restrictedBelowPolygons(m, prof.zMin + 200));
     expect(low).toBeGreaterThan(0);

@@ -203,9 +203,12 @@ describe('chain margins from the outward-simplified outline', () => {
         const rho = Math.hypot(x, y);
         if (rho < 1) return; // within the lateral offset of the J1 axis the bearing test is not used (see pointReach.ts)
         const b = Math.atan2(y, x);
-        const arc = (ang: number) => rho * angularMargin(ang, a0, a1);
-        const mA = combine(signedDistanceToPolygons(rho, z, prof.polygons), arc(b));
-        const mB = combine(signedDistanceToPolygons(-rho, z, prof.polygons), arc(b - Math.PI));
+        // the J1 window widened by the tool point's full sideways spread (docs/kinematics.md, "Point reach")
+        const lat = (prof as unknown as { lateral: { min: number; max: number } }).lateral;
+        const as = (v: number) => Math.asin(Math.max(-1, Math.min(1, v / rho)));
+        const arcW = (ang: number, lo: number, hi: number) => (hi - lo >= 2 * Math.PI - 1e-9 ? Infinity : rho * angularMargin(ang, lo, hi));
+        const mA = combine(signedDistanceToPolygons(rho, z, prof.polygons), arcW(b, a0 + as(lat.min), a1 + as(lat.max)));
+        const mB = combine(signedDistanceToPolygons(-rho, z, prof.polygons), arcW(b - Math.PI, a0 - as(lat.max), a1 - as(lat.min)));
         const plain = behind ? Math.max(mA, mB) : mA;
         const got = fast(x, y, z);
         expect(got).toBeGreaterThanOrEqual(plain - slack);

@@ -8,7 +8,7 @@ import type { PlanSheetInput, SheetKind, SheetSize } from './types';
 /** The cautions every page carries (docs/product.md "Cautions", in the product's wording). */
 export const CAUTIONS: readonly string[] = [
   'Reach regions, distances and margins on this sheet are planning estimates from nominal kinematics and catalogue axis limits.',
-  "Regions follow the tool point and payload only; the arm's own links, cables and dress pack are not included.",
+  "Restricted spaces cover the links, tool and payload as sized in the arm model (link radii are estimates); cables, dress pack and the base are not included.",
   "This sheet does not replace the risk assessment (ISO 12100), the robot-system safety requirements of ISO 10218-2 or the arm maker's stopping data.",
   'Safeguarding must be designed and validated by a competent person under the local codes and regulations.',
 ];

@@ -15,6 +15,7 @@ import type { ArmModelFormValues } from './familyDefaults';
 import { ArmModelInput, FAMILY_LABELS } from './modelCore';
 import { PosePanel } from './PosePanel';
 import { ProfilePlot } from './ProfilePlot';
+import { LinkSizeFields } from './LinkSizeFields';
 import { StoppingFields } from './StoppingFields';
 import { useLiveProfile } from './useLiveProfile';
 import { usePose } from './usePose';
@@ -74,9 +75,17 @@ export function ArmModelEditor({ initial, readOnly, submitLabel, onSubmit, onCha
   const profileView = useMemo(
     () =>
       live.profile
-        ? { polygons: live.profile.polygons, maxReach: live.profile.maxReach, minReach: live.profile.minReach, toleranceMm: live.profile.toleranceMm, method: live.profile.method }
+        ? {
+            polygons: live.profile.polygons,
+            maxReach: live.profile.maxReach,
+            minReach: live.profile.minReach,
+            toleranceMm: live.profile.toleranceMm,
+            method: live.profile.method,
+            envelope: live.envelope?.polygons ?? null,
+            envelopeToleranceMm: live.envelope?.toleranceMm,
+          }
         : null,
-    [live.profile],
+    [live.profile, live.envelope],
   );
 
   const submit = handleSubmit(async (values) => {
@@ -105,6 +114,7 @@ export function ArmModelEditor({ initial, readOnly, submitLabel, onSubmit, onCha
           {family === 'articulated' && <ArticulatedFields register={register} errors={errors} />}
           {family === 'linkage' && <LinkageFields control={control} register={register} setValue={setValue} getValues={getValues} errors={errors} readOnly={readOnly} />}
           {family === 'chain' && <ChainFields control={control} register={register} errors={errors} readOnly={readOnly} />}
+          <LinkSizeFields family={family} register={register} errors={errors} />
           <StoppingFields register={register} errors={errors} />
         </fieldset>
         {!readOnly && onSubmit && (
@@ -133,7 +143,8 @@ export function ArmModelEditor({ initial, readOnly, submitLabel, onSubmit, onCha
           />
         )}
         <p className="border-l-4 border-finding-warning pl-3 text-xs text-ink-muted">
-          Reach drawn from nominal kinematics is a planning estimate. It does not replace a risk assessment (ISO 12100), the
+          Reach drawn from nominal kinematics is a planning estimate. The whole-arm outline grows each link by the link sizes
+          entered; cables, dress pack and the base are not in it. It does not replace a risk assessment (ISO 12100), the
           robot-system safety requirements (ISO 10218-2) or the arm maker's stopping data; safeguarding is designed and validated
           by a competent person under local codes and regulations.
         </p>

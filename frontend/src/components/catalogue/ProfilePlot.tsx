@@ -65,6 +65,11 @@ export function ProfilePlot({ profile, pose = null, stale = false, height = 420,
             <span className="text-ink-muted">
               Boundary {formatTolerance(profile.toleranceMm)} ({profile.method === 'exact' ? 'traced from the joint limits' : 'sampled joint space'})
             </span>
+            {profile.envelope?.length ? (
+              <span className="text-ink-muted" data-testid="envelope-tolerance">
+                Whole-arm envelope {formatTolerance(profile.envelopeToleranceMm ?? 0)} (links, tool and payload)
+              </span>
+            ) : null}
             {stale && <span className="font-bold text-finding-warning">Showing the last valid profile</span>}
           </>
         ) : (

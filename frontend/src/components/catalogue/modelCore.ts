@@ -6,6 +6,7 @@ import type { z } from 'zod';
 import { familyOf, FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel, reachProfileOf } from '@shared/kinematics/families';
 import type { AxisInfo, ForwardResult, ReachProfile } from '@shared/kinematics/types';
 import type { ArmParams } from '@shared/schemas/armModel';
+import { envelopeProfileOf, type EnvelopeProfile } from '@shared/kinematics/envelope';
 
 export const ArmModelParams = feasibleArmParamsSchema;
 export type ArmModelParams = ArmParams;
@@ -28,6 +29,11 @@ export function forwardOf(params: ArmModelParams, joints: readonly number[]): Fo
 /** The side reach profile of the tool point (or wrist centre / flange, per family), arm-frame (r, z) mm. */
 export function profileOf(params: ArmModelParams): ReachProfile {
   return reachProfileOf(params);
+}
+
+/** The whole-arm envelope (links, tool and payload as capsules) in the same (r, z) frame, mm. */
+export function envelopeOf(params: ArmModelParams): EnvelopeProfile {
+  return envelopeProfileOf(params);
 }
 
 /** Axes in controller units (deg / mm) for the pose panel. */

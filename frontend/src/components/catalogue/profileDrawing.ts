@@ -16,6 +16,9 @@ export interface ProfileView {
   minReach: number;
   toleranceMm: number;
   method: string;
+  /** The whole-arm envelope (links, tool, payload) in the same (r, z) frame, drawn as a second outline. */
+  envelope?: Polygon2[] | null;
+  envelopeToleranceMm?: number;
 }
 
 /** The arm in one pose, in the side view: joint positions (r, z) mm from base to tool. */
@@ -70,6 +73,7 @@ function extentOf(profile: ProfileView | null, pose: PoseView | null): [number, 
     z1 = Math.max(z1, z);
   };
   for (const poly of profile?.polygons ?? []) for (const ring of poly) for (const [r, z] of ring) take(r, z);
+  for (const poly of profile?.envelope ?? []) for (const ring of poly) for (const [r, z] of ring) take(r, z);
   for (const [r, z] of pose?.points ?? []) take(r, z);
   if (r1 - r0 < 100) r1 = r0 + 100;
   if (z1 - z0 < 100) z1 = z0 + 100;
@@ -86,7 +90,9 @@ export function createProfileDrawing(svg: SVGSVGElement): ProfileDrawing {
 
   const gGrid = root.append('g').attr('class', 'grid');
   const gAxes = root.append('g').attr('class', 'axes');
+  const envelope = root.append('path').attr('class', 'envelope').attr('fill-rule', 'evenodd');
   const region = root.append('path').attr('class', 'profile').attr('fill-rule', 'evenodd');
+  const gLegend = root.append('g').attr('class', 'legend');
   const gMarks = root.append('g').attr('class', 'marks');
   const gPose = root.append('g').attr('class', 'pose');
   const caption = root.append('text').attr('class', 'caption').attr('x', MARGIN.left).attr('y', 16).attr('font-size', 12).attr('fill', 'var(--color-ink-muted)');
@@ -199,6 +205,28 @@ export function createProfileDrawing(svg: SVGSVGElement): ProfileDrawing {
       .attr('stroke', 'var(--color-reach)')
       .attr('stroke-opacity', stale ? 0.35 : 1)
       .attr('stroke-width', 1.5);
+
+    envelope
+      .attr('d', profile?.envelope ? polygonsPath(profile.envelope, x, y) : '')
+      .attr('fill', 'none')
+      .attr('stroke', 'var(--color-ink)')
+      .attr('stroke-opacity', stale ? 0.35 : 0.9)
+      .attr('stroke-width', 1.5)
+      .attr('stroke-dasharray', '7 3');
+
+    // Legend: which outline is which, top right.
+    gLegend.selectAll('*').remove();
+    if (profile) {
+      const items: Array<{ label: string; dash: string | null; colour: string }> = [{ label: 'Tool-point reach', dash: null, colour: 'var(--color-reach)' }];
+      if (profile.envelope?.length) items.push({ label: 'Whole-arm envelope', dash: '7 3', colour: 'var(--color-ink)' });
+      items.forEach((it, i) => {
+        const gy = MARGIN.top + 40 + i * 16;
+        const gx = MARGIN.left + innerW - 150;
+        const g = gLegend.append('g').attr('class', `legend-item legend-${i === 0 ? 'tool' : 'envelope'}`);
+        g.append('line').attr('x1', gx).attr('x2', gx + 22).attr('y1', gy).attr('y2', gy).attr('stroke', it.colour).attr('stroke-width', 2).attr('stroke-dasharray', it.dash);
+        g.append('text').attr('x', gx + 28).attr('y', gy + 4).attr('font-size', 11).attr('fill', 'var(--color-ink)').text(it.label);
+      });
+    }
 
     gMarks.selectAll('*').remove();
     if (profile && profile.polygons.length) {

@@ -1,6 +1,7 @@
 import { useMemo, useState } from 'react';
 import type { ReachProfile } from '@shared/kinematics/types';
-import { ArmModelParams, profileOf } from './modelCore';
+import type { EnvelopeProfile } from '@shared/kinematics/envelope';
+import { ArmModelParams, envelopeOf, profileOf } from './modelCore';
 import { useDebouncedValue } from './useDebouncedValue';
 
 /** Pause after the last keystroke before the profile is recomputed, ms. */
@@ -10,6 +11,8 @@ export interface LiveProfile {
   /** The last parameters that parsed (null until the first). */
   params: ArmModelParams | null;
   profile: ReachProfile | null;
+  /** The whole-arm envelope of the same parameters (null until the first). */
+  envelope: EnvelopeProfile | null;
   /** The current input does not parse (or its profile failed): what is shown is the last valid one. */
   stale: boolean;
   /** Why the profile could not be computed from valid parameters, if it could not. */
@@ -28,7 +31,7 @@ export function useLiveProfile(values: unknown): LiveProfile {
   if (computed.kind === 'good' && computed.good !== lastGood) setLastGood(computed.good);
   return useMemo((): LiveProfile => {
     if (computed.kind === 'good') return { ...computed.good, stale: false, failure: null };
-    const shown = { params: lastGood?.params ?? null, profile: lastGood?.profile ?? null };
+    const shown = { params: lastGood?.params ?? null, profile: lastGood?.profile ?? null, envelope: lastGood?.envelope ?? null };
     if (computed.kind === 'invalid') return { ...shown, stale: lastGood !== null, failure: null };
     return { ...shown, stale: true, failure: computed.failure };
   }, [computed, lastGood]);
@@ -37,6 +40,7 @@ export function useLiveProfile(values: unknown): LiveProfile {
 interface GoodProfile {
   params: ArmModelParams;
   profile: ReachProfile;
+  envelope: EnvelopeProfile;
 }
 
 type Computed = { kind: 'good'; good: GoodProfile } | { kind: 'invalid' } | { kind: 'failed'; failure: string };
@@ -46,7 +50,7 @@ function computeProfile(json: string): Computed {
   const parsed = ArmModelParams.safeParse(JSON.parse(json));
   if (!parsed.success) return { kind: 'invalid' };
   try {
-    return { kind: 'good', good: { params: parsed.data, profile: profileOf(parsed.data) } };
+    return { kind: 'good', good: { params: parsed.data, profile: profileOf(parsed.data), envelope: envelopeOf(parsed.data) } };
   } catch (error) {
     return { kind: 'failed', failure: error instanceof Error ? error.message : 'The profile could not be computed.' };
   }

@@ -16,6 +16,7 @@ const SEVERITY_WASH: Record<Severity, string> = {
 /** The caution every findings list carries (docs/product.md "Cautions"). */
 export const PLANNING_CAUTION =
   'Planning estimates only: reach regions, shared zones and distances here come from nominal kinematics and the values entered. ' +
+  'Restricted spaces cover the links, tool and payload at the link sizes entered, not cables, dress pack or the base. ' +
   'They are no substitute for the risk assessment (ISO 12100), the robot-system safety requirements of ISO 10218-2 or the arm maker’s stopping data. ' +
   'Safeguarding must be designed and validated by a competent person under the local codes and regulations.';
 

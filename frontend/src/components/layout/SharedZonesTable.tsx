@@ -19,7 +19,8 @@ export function SharedZonesTable({ content, analysis, onSelect, selected }: Layo
     <section aria-label="Shared zones" className="flex flex-col gap-3">
       <p className="rounded-control border border-finding-warning bg-finding-warning-wash px-3 py-2 text-xs text-ink">
         Where two arms can be in the same place, plan interlocks or zone-sharing logic between their controllers.
-        Areas are planning estimates from nominal kinematics and the arms’ restricting limits. They are no
+        Areas are planning estimates from nominal kinematics and the arms’ restricting limits; they cover the
+        links, tool and payload at the link sizes entered, not cables or dress pack. They are no
         substitute for the risk assessment (ISO 12100), the requirements for robot systems (ISO 10218-2) or the
         arm maker’s stopping data; a competent person designs and validates the safeguarding under local codes
         and regulations.
