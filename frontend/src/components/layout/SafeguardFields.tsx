@@ -77,7 +77,7 @@ export function SafeguardFields({ zone, content, readOnly, onEdit }: Props) {
     );
 
   return (
-    <fieldset className="flex flex-col gap-3 border-t border-rule pt-3" aria-label="Safeguard">
+    <fieldset className="flex flex-col gap-3 border-t border-rule pt-3" aria-label="Safeguard of the opening">
       <SelectField
         label={SAFEGUARD_FIELD_LABEL.device}
         value={values.device}
