@@ -83,7 +83,7 @@ function crossesEdges(line: ReadonlyArray<readonly [number, number]>, closed: bo
  * True when a structure item enters the region. With no edge crossing, two simple shapes are either
  * nested or apart, so one vertex each way settles it.
  */
-export function itemHits(s: StructureItem, region: Polygon2[]): boolean {
+function itemHits(s: StructureItem, region: Polygon2[]): boolean {
   const edges = regionEdges(region);
   for (const poly of s.polygons) {
     for (const ring of poly) if (crossesEdges(ring, true, edges, s.bbox)) return true;

@@ -18,10 +18,10 @@ import {
   type SafeguardDevice,
 } from '../safety';
 import type { ArmPlacement, Zone } from '../schemas/layout';
-import { itemHits, makeFinding, type BBox } from './clearance';
+import { makeFinding, type BBox } from './clearance';
 import { mm } from './messages';
-import { polylineDistanceToPolygons, subtractOpenings } from './segments';
-import type { ArmReach, Finding, PreparedFloor, SafeguardFenceRow, SafeguardingResult, SafeguardOpeningRow } from './types';
+import { polylineDistanceToPolygons, segmentsIntersect, subtractOpenings } from './segments';
+import type { ArmReach, Finding, PreparedFloor, SafeguardFenceRow, SafeguardingResult, SafeguardOpeningRow, StructureItem } from './types';
 
 /** Fences farther than this from a restricted space need no reach-over or reach-through distance (the largest value of either table), mm. */
 export const FENCE_SAFEGUARD_RANGE_MM = Math.max(...REACH_OVER_ROWS.flatMap((r) => r.cMm), ...REACH_THROUGH_ROWS.map((r) => r.slot));
@@ -46,7 +46,7 @@ export interface SafeguardArm {
 
 /** Distances of one arm's restricted space to the safeguarded openings and nearby fences, and its crushing-gap findings. */
 export interface ArmSafeguardMeasure {
-  /** opening id → plan distance from the detection line, mm. */
+  /** opening id → plan distance from the detection line, mm (filled when an opening check needs it). */
   openings: Map<string, number>;
   /** fence id → plan distance from its solid parts, mm (only fences within FENCE_SAFEGUARD_RANGE_MM). */
   fences: Map<string, number>;
@@ -87,35 +87,19 @@ function guardedAreas(zones: ReadonlyArray<Zone>): Polygon2[] {
   return out;
 }
 
-/**
- * Shortest gap between a region (its edges, flat [ax, ay, bx, by, …]) and a set of segments, with
- * the spot midway across it; only region edges within `pad` of the segments' box are measured.
- * Crossings are not detected here (the caller has ruled them out).
- */
-function nearestGap(edges: Float64Array, segs: ReadonlyArray<readonly [readonly [number, number], readonly [number, number]]>, box: BBox, pad: number): { d: number; at: [number, number]; onItem: [number, number] } | null {
-  let best: { d: number; at: [number, number]; onItem: [number, number] } | null = null;
-  // (px, py) lies on the region when `fromRegion`, else on the item; the other end is its nearest point on the segment.
-  const consider = (px: number, py: number, ax: number, ay: number, bx: number, by: number, fromRegion: boolean) => {
-    const d = pointSegmentDistance(px, py, ax, ay, bx, by);
-    if (!best || d < best.d) {
-      const q = nearestPointOnSegment(px, py, ax, ay, bx, by);
-      best = { d, at: [(px + q[0]) / 2, (py + q[1]) / 2], onItem: fromRegion ? q : [px, py] };
-    }
-  };
-  for (let e = 0; e < edges.length; e += 4) {
-    const ax = edges[e], ay = edges[e + 1], bx = edges[e + 2], by = edges[e + 3];
-    if (Math.max(ax, bx) < box[0] - pad || Math.min(ax, bx) > box[2] + pad || Math.max(ay, by) < box[1] - pad || Math.min(ay, by) > box[3] + pad) continue;
-    for (const [c, d] of segs) {
-      consider(ax, ay, c[0], c[1], d[0], d[1], true);
-      consider(bx, by, c[0], c[1], d[0], d[1], true);
-      consider(c[0], c[1], ax, ay, bx, by, false);
-      consider(d[0], d[1], ax, ay, bx, by, false);
-    }
-  }
-  return best;
+/** A region's edges (flat [ax, ay, bx, by, …]) bucketed in square cells, so a query reads only the edges near it. */
+interface EdgeGrid {
+  edges: Float64Array;
+  cell: number;
+  cells: Map<number, number[]>;
+  stamp: Uint32Array;
+  query: number;
 }
 
-function regionEdges(region: Polygon2[]): Float64Array {
+const GRID_CELL_MM = 500;
+const cellKey = (ix: number, iy: number) => ix * 1_000_003 + iy;
+
+function edgeGrid(region: Polygon2[]): EdgeGrid {
   const out: number[] = [];
   for (const poly of region) {
     for (const ring of poly) {
@@ -126,7 +110,72 @@ function regionEdges(region: Polygon2[]): Float64Array {
       }
     }
   }
-  return Float64Array.from(out);
+  const edges = Float64Array.from(out);
+  const cells = new Map<number, number[]>();
+  for (let e = 0; e < edges.length; e += 4) {
+    const x0 = Math.floor(Math.min(edges[e], edges[e + 2]) / GRID_CELL_MM), x1 = Math.floor(Math.max(edges[e], edges[e + 2]) / GRID_CELL_MM);
+    const y0 = Math.floor(Math.min(edges[e + 1], edges[e + 3]) / GRID_CELL_MM), y1 = Math.floor(Math.max(edges[e + 1], edges[e + 3]) / GRID_CELL_MM);
+    for (let ix = x0; ix <= x1; ix++) {
+      for (let iy = y0; iy <= y1; iy++) {
+        const k = cellKey(ix, iy);
+        let list = cells.get(k);
+        if (!list) cells.set(k, (list = []));
+        list.push(e);
+      }
+    }
+  }
+  return { edges, cell: GRID_CELL_MM, cells, stamp: new Uint32Array(edges.length / 4), query: 0 };
+}
+
+/**
+ * Shortest gap between a region's edges and a set of segments, the spot midway across it and the
+ * nearest point on the segments; only edges in the grid cells within `pad` of the segments' box are
+ * measured (null when there are none). Crossings are not detected here (the caller rules them out).
+ */
+function nearestGap(g: EdgeGrid, segs: ReadonlyArray<readonly [readonly [number, number], readonly [number, number]]>, box: BBox, pad: number): { d: number; at: [number, number]; onItem: [number, number] } | null {
+  let best: { d: number; at: [number, number]; onItem: [number, number] } | null = null;
+  // (px, py) lies on the region when `fromRegion`, else on the item; the other end is its nearest point on the segment.
+  const consider = (px: number, py: number, ax: number, ay: number, bx: number, by: number, fromRegion: boolean) => {
+    const d = pointSegmentDistance(px, py, ax, ay, bx, by);
+    if (!best || d < best.d) {
+      const q = nearestPointOnSegment(px, py, ax, ay, bx, by);
+      best = { d, at: [(px + q[0]) / 2, (py + q[1]) / 2], onItem: fromRegion ? q : [px, py] };
+    }
+  };
+  const q = ++g.query;
+  const edges = g.edges;
+  const x0 = Math.floor((box[0] - pad) / g.cell), x1 = Math.floor((box[2] + pad) / g.cell);
+  const y0 = Math.floor((box[1] - pad) / g.cell), y1 = Math.floor((box[3] + pad) / g.cell);
+  for (let ix = x0; ix <= x1; ix++) {
+    for (let iy = y0; iy <= y1; iy++) {
+      const list = g.cells.get(cellKey(ix, iy));
+      if (!list) continue;
+      for (const e of list) {
+        if (g.stamp[e / 4] === q) continue;
+        g.stamp[e / 4] = q;
+        const ax = edges[e], ay = edges[e + 1], bx = edges[e + 2], by = edges[e + 3];
+        // Edges farther from the box than the best gap so far cannot beat it.
+        const r = best ? Math.min(pad, (best as { d: number }).d) : pad;
+        if (Math.max(ax, bx) < box[0] - r || Math.min(ax, bx) > box[2] + r || Math.max(ay, by) < box[1] - r || Math.min(ay, by) > box[3] + r) continue;
+        for (const [c, d] of segs) {
+          if (segmentsIntersect([ax, ay], [bx, by], c, d)) return { d: 0, at: [c[0], c[1]], onItem: [c[0], c[1]] };
+          consider(ax, ay, c[0], c[1], d[0], d[1], true);
+          consider(bx, by, c[0], c[1], d[0], d[1], true);
+          consider(c[0], c[1], ax, ay, bx, by, false);
+          consider(d[0], d[1], ax, ay, bx, by, false);
+        }
+      }
+    }
+  }
+  return best;
+}
+
+/** With no edge crossing, one vertex each way tells whether the item and the region are nested. */
+function itemInside(s: StructureItem, region: Polygon2[]): boolean {
+  const v = s.polygons[0]?.[0]?.[0] ?? s.lines[0]?.[0];
+  if (v && pointInPolygons(v[0], v[1], region)) return true;
+  const w = region[0]?.[0]?.[0];
+  return !!w && s.polygons.some((poly) => pointInPolygons(w[0], w[1], [poly]));
 }
 
 function segmentsOf(rings: ReadonlyArray<ReadonlyArray<readonly [number, number]>>, closed: boolean) {
@@ -150,23 +199,26 @@ export function measureArmSafeguarding(p: SafeguardArm, floor: PreparedFloor | n
   if (!p.restricted.length || !p.bbox) return out;
   const id = p.arm.id;
   const name = armName(p.arm);
-  for (const o of zones) {
-    if (o.kind === 'opening' && o.safeguard && o.points.length === 2) out.openings.set(o.id, polylineDistanceToPolygons(o.points, p.restricted));
-  }
-  let edges: Float64Array | null = null;
+  let grid: EdgeGrid | null = null;
   const guarded = guardedAreas(zones);
   for (const f of zones) {
     if (f.kind !== 'fence' || !boxNear(p.bbox, f.points, FENCE_SAFEGUARD_RANGE_MM)) continue;
     const solid = fenceSolidParts(f, zones).filter((l) => boxNear(p.bbox, l, FENCE_SAFEGUARD_RANGE_MM));
-    if (!solid.length) continue;
-    const d = Math.min(...solid.map((l) => polylineDistanceToPolygons(l, p.restricted)));
+    // Only segments that can come within range of the restricted space (it lies within maxReach of the base).
+    let d = Infinity;
+    for (const l of solid) {
+      for (let k = 0; k + 1 < l.length; k++) {
+        if (pointSegmentDistance(p.arm.x, p.arm.y, l[k][0], l[k][1], l[k + 1][0], l[k + 1][1]) - p.reach.maxReach > FENCE_SAFEGUARD_RANGE_MM) continue;
+        d = Math.min(d, polylineDistanceToPolygons([l[k], l[k + 1]], p.restricted));
+      }
+    }
     if (d > FENCE_SAFEGUARD_RANGE_MM) continue;
     out.fences.set(f.id, d);
     if (d > 0 && d < CRUSHING_GAP_BODY_MM) {
-      edges ??= regionEdges(p.restricted);
+      grid ??= edgeGrid(p.restricted);
       const segs = segmentsOf(solid, false);
       const b = solid.flat();
-      const gap = nearestGap(edges, segs, [Math.min(...b.map((q) => q[0])), Math.min(...b.map((q) => q[1])), Math.max(...b.map((q) => q[0])), Math.max(...b.map((q) => q[1]))], CRUSHING_GAP_BODY_MM);
+      const gap = nearestGap(grid, segs, [Math.min(...b.map((q) => q[0])), Math.min(...b.map((q) => q[1])), Math.max(...b.map((q) => q[0])), Math.max(...b.map((q) => q[1]))], CRUSHING_GAP_BODY_MM);
       out.crushing.push(makeFinding('crushing-gap', [id, f.id], {
         arms: [id], points: [], geometry: null, at: gap?.at ?? null,
         message: `${name}: a gap of only ${mm(d)} mm between the restricted space and fence ${f.label || f.id}; a person standing there can be crushed (ISO 13854 keeps at least ${CRUSHING_GAP_BODY_MM} mm for the body). Close the gap or widen it.`,
@@ -179,12 +231,17 @@ export function measureArmSafeguarding(p: SafeguardArm, floor: PreparedFloor | n
     for (const s of floor.structures) {
       const bb = s.bbox;
       if (bb[0] > p.bbox[2] + CRUSHING_GAP_BODY_MM || p.bbox[0] > bb[2] + CRUSHING_GAP_BODY_MM || bb[1] > p.bbox[3] + CRUSHING_GAP_BODY_MM || p.bbox[1] > bb[3] + CRUSHING_GAP_BODY_MM) continue;
-      // An item the restricted space enters is reach into structure (clearance.ts), not a gap.
-      if (itemHits(s, p.restricted)) continue;
-      edges ??= regionEdges(p.restricted);
+      // The restricted space lies within maxReach of the base: an item's box farther than that plus the gap is out.
+      const dx = Math.max(bb[0] - p.arm.x, 0, p.arm.x - bb[2]);
+      const dy = Math.max(bb[1] - p.arm.y, 0, p.arm.y - bb[3]);
+      if (Math.hypot(dx, dy) > p.reach.maxReach + CRUSHING_GAP_BODY_MM) continue;
+      grid ??= edgeGrid(p.restricted);
       const segs = [...segmentsOf(s.polygons.flat(), true), ...segmentsOf(s.lines, false)];
-      const gap = nearestGap(edges, segs, bb, CRUSHING_GAP_BODY_MM);
+      const gap = nearestGap(grid, segs, bb, CRUSHING_GAP_BODY_MM);
       if (!gap || gap.d <= 0 || gap.d >= CRUSHING_GAP_BODY_MM) continue;
+      // No edge crosses (nearestGap returns 0 then): an item inside the restricted space, or the
+      // restricted space inside the item, is reach into structure (clearance.ts), not a gap.
+      if (itemInside(s, p.restricted)) continue;
       if (guarded.length && !pointInPolygons(gap.onItem[0], gap.onItem[1], guarded)) continue;
       const prev = byLayer.get(s.layer);
       if (!prev) byLayer.set(s.layer, { d: gap.d, at: gap.at, items: 1, role: s.role });
@@ -223,7 +280,32 @@ function openingCheck(o: Zone, arms: ReadonlyArray<{ p: SafeguardArm; m: ArmSafe
   const g = o.safeguard!;
   const label = o.label || o.id;
   const stopField: SafeguardOpeningRow['stopField'] = g.stopCategory === 1 ? 'stopTimeCat1S' : 'stopTimeS';
-  const measured = measuredFor(arms, (m) => m.openings.get(o.id));
+  // Arms in order of a lower bound on their distance (the restricted space lies within maxReach of
+  // the base); an arm's exact distance is measured only when it could be the nearest or too close.
+  const [s0, s1] = o.points as Array<[number, number]>;
+  const cands = arms
+    .filter(({ p }) => p.restricted.length)
+    .map(({ p, m }) => ({ p, m, lb: Math.max(0, pointSegmentDistance(p.arm.x, p.arm.y, s0[0], s0[1], s1[0], s1[1]) - p.reach.maxReach) }))
+    .sort((a, b) => a.lb - b.lb || (a.p.arm.id < b.p.arm.id ? -1 : 1));
+  const measured: Measured[] = [];
+  let nearestD = Infinity;
+  for (const c of cands) {
+    const stop = c.p.reach.stopTimeS?.[g.stopCategory];
+    let sArm = 0;
+    if (stop !== undefined && g.device !== 'interlock-locking') {
+      try {
+        sArm = separationDistance({ ...g, stopTimeS: stop }).sMm;
+      } catch {
+        sArm = 0;
+      }
+    }
+    if (c.lb > nearestD && c.lb >= sArm) continue;
+    let d = c.m.openings.get(o.id);
+    if (d === undefined) c.m.openings.set(o.id, (d = polylineDistanceToPolygons(o.points, c.p.restricted)));
+    measured.push({ p: c.p, d });
+    nearestD = Math.min(nearestD, d);
+  }
+  measured.sort((a, b) => a.d - b.d || (a.p.arm.id < b.p.arm.id ? -1 : 1));
   const findings: Finding[] = [];
   const empty: SafeguardOpeningRow = { id: o.id, device: g.device, stopCategory: g.stopCategory, armId: null, armModelId: null, stopField, stopTimeS: null, tS: null, requiredMm: null, actualMm: null, ok: null, note: 'No arm with a restricted space is placed.' };
   if (!measured.length) return { row: empty, findings };
