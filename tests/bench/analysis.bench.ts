@@ -2,7 +2,9 @@
 // against a naive baseline in the same run (every pair through turf.intersect, every point through
 // turf.booleanPointInPolygon on the placed plan bands, no prefilter) — the same shared zones and the
 // same unreached points. Target: ≥ 10× faster and ≤ 100 ms. Then incremental re-analysis after one
-// arm moves with 100 arms × 50 000 points — target ≤ 16 ms. Prints figures and ratios.
+// arm moves with 100 arms × 50 000 points — target ≤ 16 ms. Between them, the same 40-arm layout with
+// fences and safeguarded openings (the safeguarding checks' cost; compare with a run before them).
+// Prints figures and ratios.
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
