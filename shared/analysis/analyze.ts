@@ -8,6 +8,7 @@ import { armClearance, bboxOverlap, centroidOf, fenceFindings, intersect, makeFi
 import { m2, m2Text, mm, sortFindings } from './messages';
 import { buildPointGrid, pointsNear, type PointGrid } from './pointGrid';
 import { isReached, roundMargin, shortfallText } from './reached';
+import { measureArmSafeguarding, safeguardingChecks, type ArmSafeguardMeasure } from './safeguarding';
 import type { AnalysisInput, AnalysisResult, ArmReach, ArmReachFactory, Finding, PreparedFloor, SharedZone } from './types';
 
 export { FENCE_CLEARANCE_MM, MIN_FENCE_HEIGHT_MM } from './clearance';
@@ -27,6 +28,7 @@ interface PlacedArm {
   below: Map<number, Polygon2[] | null>;
   geo: { restricted: AreaGeometry | null; bands: Map<number, AreaGeometry | null> };
   clearance: { key: string; findings: Finding[] } | null;
+  safeguard: { key: string; measure: ArmSafeguardMeasure } | null;
 }
 
 interface Column {
@@ -112,7 +114,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       const reach = reachFor(a.armModelId, a.restrict);
       const pose = armPose(a);
       const restricted = pose.placePolygons(reach.restricted);
-      p = { arm: a, pose, sig, reach, restricted, bbox: polygonsBounds(restricted) as BBox | null, bands: new Map(), bandBoxes: new Map(), below: new Map(), geo: { restricted: restricted.length ? polygonsToGeoJSON(restricted) : null, bands: new Map() }, clearance: null };
+      p = { arm: a, pose, sig, reach, restricted, bbox: polygonsBounds(restricted) as BBox | null, bands: new Map(), bandBoxes: new Map(), below: new Map(), geo: { restricted: restricted.length ? polygonsToGeoJSON(restricted) : null, bands: new Map() }, clearance: null, safeguard: null };
       arms.set(sig, p);
       stats.arms++;
     }
@@ -328,6 +330,14 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       }
       small.push(...fenceFindings(input.zones));
 
+      // Safeguarding: each arm's distances to openings, fences and structure cached like its clearance.
+      const measured = placed.map((p) => {
+        if (p.safeguard?.key !== envKey) p.safeguard = { key: envKey, measure: measureArmSafeguarding(p, input.floor, input.zones) };
+        return { p, m: p.safeguard.measure };
+      });
+      const safeguarding = safeguardingChecks(measured, input.zones);
+      small.push(...safeguarding.findings);
+
       // Most severe first; point findings (all critical) in work-point order after the other critical ones.
       sortFindings(small);
       const findings: Finding[] = [];
@@ -341,7 +351,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
         regions[p.arm.id] = { restricted: p.geo.restricted, bands: heights.map((h) => ({ height: h, geometry: p.geo.bands.get(h) ?? null })) };
       }
       const t1 = typeof performance !== 'undefined' ? performance.now() : Date.now();
-      return { findings, overlaps, coverage, regions, timingMs: Math.round((t1 - t0) * 100) / 100 };
+      return { findings, overlaps, coverage, regions, safeguarding: safeguarding.result, timingMs: Math.round((t1 - t0) * 100) / 100 };
     },
   };
 }

@@ -22,6 +22,7 @@ export function armReachFor(params: unknown, restrict: ArmPlacement['restrict'])
     const below = new Map<number, ReturnType<ArmReach['restrictedBelow']>>();
     r = {
       ...base,
+      stopTimeS: { 0: model.stopTimeS, 1: model.stopTimeCat1S },
       bandAt: (z) => {
         let b = bands.get(z);
         if (!b) bands.set(z, (b = base.bandAt(z)));

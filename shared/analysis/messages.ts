@@ -31,6 +31,11 @@ export const SEVERITY_OF: Record<FindingKind, Severity> = {
   'reach-into-keepout': 'critical',
   'unknown-model': 'critical',
   'computation-failed': 'warning',
+  'opening-too-close': 'critical',
+  'stopping-data-missing': 'warning',
+  'fence-reach-over': 'critical',
+  'fence-reach-through': 'critical',
+  'crushing-gap': 'warning',
 };
 
 const SEVERITY_RANK: Record<Severity, number> = { critical: 0, warning: 1, info: 2 };

@@ -20,6 +20,11 @@ export const FINDING_KINDS = [
   'reach-into-keepout',
   'unknown-model',
   'computation-failed',
+  'opening-too-close',
+  'stopping-data-missing',
+  'fence-reach-over',
+  'fence-reach-through',
+  'crushing-gap',
 ] as const;
 export type FindingKind = (typeof FINDING_KINDS)[number];
 
@@ -59,6 +64,8 @@ export interface ArmReach {
   margin(x: number, y: number, z: number, approach: 'top' | 'any'): number;
   /** The whole-arm envelope in the arm's (r, z) plane turned over J1, for section views (see docs/kinematics.md). */
   envelope: ArmEnvelope;
+  /** The model's stopping time per stop category, s (absent where the model does not give it). */
+  stopTimeS?: { 0?: number; 1?: number };
 }
 
 /** An arm's whole-arm envelope as a side profile turned about J1 (what a section cuts), arm frame, mm and degrees. */
@@ -112,6 +119,54 @@ export interface SharedZone {
   byHeight: Array<{ height: number; areaM2: number }>;
 }
 
+/** The ISO 13855 check of one safeguarded access opening against the arm that governs it. */
+export interface SafeguardOpeningRow {
+  id: string;
+  device: 'interlock' | 'interlock-locking' | 'light-curtain' | 'multi-beam' | 'single-beam';
+  stopCategory: 0 | 1;
+  /** The arm whose restricted space governs the opening (nearest, or the worst one too close); null with no arm placed. */
+  armId: string | null;
+  armModelId: number | null;
+  /** The arm model field the stopping time came from. */
+  stopField: 'stopTimeS' | 'stopTimeCat1S';
+  /** Stopping time used, s; null when the model does not give it. */
+  stopTimeS: number | null;
+  /** T = device response + arm stopping time, s; null when it cannot be formed. */
+  tS: number | null;
+  /** Required separation distance S, mm (0 for guard locking); null when it cannot be computed. */
+  requiredMm: number | null;
+  /** Plan distance from the opening's detection line to the arm's restricted space, mm. */
+  actualMm: number | null;
+  /** null = cannot be judged (stopping data missing, no arm placed). */
+  ok: boolean | null;
+  /** The formula with its numbers, or why there is none. */
+  note: string;
+}
+
+/** The ISO 13857 checks of one fence (reach over, and reach through its mesh) against the arm that governs it. */
+export interface SafeguardFenceRow {
+  id: string;
+  heightMm: number;
+  armId: string | null;
+  /** Hazard height a: top of the arm's envelope above the floor, mm. */
+  hazardHeightMm: number | null;
+  /** Horizontal distance c required against reaching over, mm; null when the table does not cover the fence or no arm is near. */
+  requiredMm: number | null;
+  /** Plan distance from the fence's solid parts to the arm's restricted space, mm. */
+  actualMm: number | null;
+  meshMm: number | null;
+  meshShape: 'slot' | 'square' | 'round' | null;
+  /** Safety distance s_r against reaching through the mesh, mm. */
+  reachThroughMm: number | null;
+  ok: boolean | null;
+  note: string;
+}
+
+export interface SafeguardingResult {
+  openings: SafeguardOpeningRow[];
+  fences: SafeguardFenceRow[];
+}
+
 export interface AnalysisResult {
   findings: Finding[];
   overlaps: SharedZone[];
@@ -119,5 +174,10 @@ export interface AnalysisResult {
   coverage: Record<string, Record<string, number>>;
   /** Placed regions per arm, plan mm, for drawing. */
   regions: Record<string, { restricted: AreaGeometry | null; bands: Array<{ height: number; geometry: AreaGeometry | null }> }>;
+  /**
+   * Safeguarding distances per safeguarded opening and per fence (ISO 13855, ISO 13857). Always set
+   * by the analyzer; absent only from revision snapshots frozen before these checks existed.
+   */
+  safeguarding?: SafeguardingResult;
   timingMs: number;
 }

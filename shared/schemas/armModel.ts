@@ -29,7 +29,10 @@ export type AxisParams = z.infer<typeof axisSchema>;
 const commonFields = {
   toolLength: nonNegativeMm('toolLength').default(0),
   payloadRadius: nonNegativeMm('payloadRadius').default(0),
+  /** Stopping time of a category 0 stop (power removed), s. */
   stopTimeS: positiveNumber('stopTimeS').max(60).optional(),
+  /** Stopping time of a category 1 stop (controlled stop, then power removed), s. */
+  stopTimeCat1S: positiveNumber('stopTimeCat1S').max(60).optional(),
   stopDistanceMm: nonNegativeMm('stopDistanceMm').optional(),
   maxSpeedMmS: positiveMm('maxSpeedMmS').optional(),
   payloadKg: nonNegativeNumber('payloadKg').max(100_000).optional(),
@@ -191,6 +194,7 @@ export const chainParamsSchema = z
     toolLength: nonNegativeNumber('toolLength', notFinite('toolLength')).optional(),
     payloadRadius: nonNegativeNumber('payloadRadius', notFinite('payloadRadius')).optional(),
     stopTimeS: positiveNumber('stopTimeS', notFinite('stopTimeS')).optional(),
+    stopTimeCat1S: positiveNumber('stopTimeCat1S', notFinite('stopTimeCat1S')).optional(),
     stopDistanceMm: nonNegativeNumber('stopDistanceMm', notFinite('stopDistanceMm')).optional(),
     maxSpeedMmS: positiveNumber('maxSpeedMmS', notFinite('maxSpeedMmS')).optional(),
     payloadKg: nonNegativeNumber('payloadKg', notFinite('payloadKg')).optional(),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { finiteNumber, positiveId, singleLineText } from './fields';
+import { finiteNumber, nonNegativeNumber, positiveId, positiveNumber, singleLineText } from './fields';
 
 const Id = z
   .string()
@@ -47,6 +47,43 @@ export const WorkPoint = z
   .strict();
 export type WorkPoint = z.infer<typeof WorkPoint>;
 
+/** Safeguarding devices an access opening can carry (the same list as SAFEGUARD_DEVICES of shared/safety). */
+export const SAFEGUARD_DEVICE_NAMES = ['interlock', 'interlock-locking', 'light-curtain', 'multi-beam', 'single-beam'] as const;
+/** Shapes of a fence's mesh openings (the same list as MESH_SHAPES of shared/safety). */
+export const MESH_SHAPE_NAMES = ['slot', 'square', 'round'] as const;
+
+/**
+ * The safeguard of an access opening: its device, the device's response time (s), the stop category
+ * the device triggers (0 or 1; the arm model gives the stopping time of each) and what the device's
+ * ISO 13855 distance needs: a light curtain's resolution (mm), a multi-beam device's beams, a
+ * parallel (horizontal) detection zone's height above the floor (mm).
+ */
+export const Safeguard = z
+  .object({
+    device: z.enum(SAFEGUARD_DEVICE_NAMES, { error: `Device must be one of ${SAFEGUARD_DEVICE_NAMES.join(', ')}` }),
+    responseTimeS: nonNegativeNumber('Response time').refine((v) => v <= 30, { message: 'Response time must be at most 30 s' }),
+    stopCategory: z.union([z.literal(0), z.literal(1)], { error: 'Stop category must be 0 or 1' }),
+    resolutionMm: positiveNumber('Resolution').refine((v) => v <= 300, { message: 'Resolution must be at most 300 mm' }).optional(),
+    beams: z.number({ error: 'Beams must be a number' }).int('Beams must be a whole number').min(2, 'A multi-beam device has 2 to 8 beams').max(8, 'A multi-beam device has 2 to 8 beams').optional(),
+    approach: z.enum(['normal', 'parallel'], { error: 'Approach must be normal or parallel' }).default('normal'),
+    heightMm: nonNegativeNumber('Detection height').refine((v) => v <= 1000, { message: 'Detection height must be at most 1000 mm (ISO 13855)' }).optional(),
+  })
+  .strict()
+  .superRefine((g, ctx) => {
+    if (g.device === 'light-curtain' && g.approach === 'normal' && g.resolutionMm === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['resolutionMm'], message: 'Give the light curtain its resolution (mm)' });
+    }
+    if (g.approach === 'parallel') {
+      if (g.device !== 'light-curtain') ctx.addIssue({ code: 'custom', path: ['approach'], message: 'A parallel approach applies to light curtains only' });
+      else if (g.heightMm === undefined) ctx.addIssue({ code: 'custom', path: ['heightMm'], message: 'Give the height of the detection zone above the floor (mm)' });
+      else if (g.resolutionMm !== undefined && g.heightMm < 15 * (g.resolutionMm - 50)) {
+        ctx.addIssue({ code: 'custom', path: ['heightMm'], message: `With a resolution of ${g.resolutionMm} mm the detection zone must be at least ${15 * (g.resolutionMm - 50)} mm above the floor` });
+      }
+    }
+    if (g.beams !== undefined && g.device !== 'multi-beam') ctx.addIssue({ code: 'custom', path: ['beams'], message: 'Beams apply to a multi-beam device only' });
+  });
+export type Safeguard = z.infer<typeof Safeguard>;
+
 export const ZONE_KINDS = ['fence', 'keepout', 'operator', 'opening'] as const;
 export const Zone = z
   .object({
@@ -58,6 +95,12 @@ export const Zone = z
     height: finiteNumber('Height').positive('Height must be above 0').optional(),
     /** For an opening: the fence it is cut into. */
     fenceId: Id.optional(),
+    /** For an opening: the device guarding it. */
+    safeguard: Safeguard.optional(),
+    /** For a fence: the size e of its mesh openings (slot width, square side or round diameter), mm. */
+    meshMm: positiveNumber('Mesh size').refine((v) => v <= 120, { message: 'Mesh size must be at most 120 mm (larger openings let a body through: draw an access opening)' }).optional(),
+    /** For a fence: the shape of its mesh openings. */
+    meshShape: z.enum(MESH_SHAPE_NAMES, { error: `Mesh shape must be one of ${MESH_SHAPE_NAMES.join(', ')}` }).optional(),
   })
   .strict()
   .superRefine((z0, ctx) => {
@@ -70,6 +113,15 @@ export const Zone = z
     }
     if (z0.kind === 'fence' && z0.height === undefined) {
       ctx.addIssue({ code: 'custom', path: ['height'], message: 'Give the fence its height' });
+    }
+    if (z0.safeguard && z0.kind !== 'opening') {
+      ctx.addIssue({ code: 'custom', path: ['safeguard'], message: 'Only an access opening carries a safeguard' });
+    }
+    if ((z0.meshMm !== undefined || z0.meshShape !== undefined) && z0.kind !== 'fence') {
+      ctx.addIssue({ code: 'custom', path: [z0.meshMm !== undefined ? 'meshMm' : 'meshShape'], message: 'Only a fence has a mesh' });
+    }
+    if (z0.kind === 'fence' && (z0.meshMm === undefined) !== (z0.meshShape === undefined)) {
+      ctx.addIssue({ code: 'custom', path: [z0.meshMm === undefined ? 'meshMm' : 'meshShape'], message: z0.meshMm === undefined ? 'Give the mesh size (mm) with its shape' : 'Give the mesh shape with its size' });
     }
     if (z0.kind === 'opening' && !z0.fenceId) {
       ctx.addIssue({ code: 'custom', path: ['fenceId'], message: 'Say which fence the opening is in' });

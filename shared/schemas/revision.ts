@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { FeatureCollection, MultiPolygon, Polygon } from 'geojson';
 import { LayerRole } from './floorPlan';
-import { LayoutContent } from './layout';
+import { LayoutContent, MESH_SHAPE_NAMES, SAFEGUARD_DEVICE_NAMES } from './layout';
 
 /**
  * A revision's frozen snapshot and its comparison with the revision before, as stored (JSONB) and
@@ -42,6 +42,11 @@ const FINDING_KIND_NAMES = [
   'reach-into-keepout',
   'unknown-model',
   'computation-failed',
+  'opening-too-close',
+  'stopping-data-missing',
+  'fence-reach-over',
+  'fence-reach-through',
+  'crushing-gap',
 ] as const;
 
 const PlanXY = z.tuple([z.number(), z.number()]);
@@ -57,6 +62,42 @@ export const SnapshotFinding = z.object({
   at: PlanXY.nullable(),
   message: z.string(),
   data: z.record(z.string(), z.union([z.number(), z.string()])).optional(),
+});
+
+const num = z.number();
+/** Safeguarding rows of the analysis (distances mm, times s); see SafeguardingResult of the analysis. */
+export const SnapshotSafeguarding = z.object({
+  openings: z.array(
+    z.object({
+      id: z.string(),
+      device: z.enum(SAFEGUARD_DEVICE_NAMES),
+      stopCategory: z.union([z.literal(0), z.literal(1)]),
+      armId: z.string().nullable(),
+      armModelId: num.nullable(),
+      stopField: z.enum(['stopTimeS', 'stopTimeCat1S']),
+      stopTimeS: num.nullable(),
+      tS: num.nullable(),
+      requiredMm: num.nullable(),
+      actualMm: num.nullable(),
+      ok: z.boolean().nullable(),
+      note: z.string(),
+    }),
+  ),
+  fences: z.array(
+    z.object({
+      id: z.string(),
+      heightMm: num,
+      armId: z.string().nullable(),
+      hazardHeightMm: num.nullable(),
+      requiredMm: num.nullable(),
+      actualMm: num.nullable(),
+      meshMm: num.nullable(),
+      meshShape: z.enum(MESH_SHAPE_NAMES).nullable(),
+      reachThroughMm: num.nullable(),
+      ok: z.boolean().nullable(),
+      note: z.string(),
+    }),
+  ),
 });
 
 /** The analysis result frozen with the layout (areas m², distances and margins mm). */
@@ -77,6 +118,8 @@ export const SnapshotAnalysis = z.object({
     z.string(),
     z.object({ restricted: AreaGeometry.nullable(), bands: z.array(z.object({ height: z.number(), geometry: AreaGeometry.nullable() })) }),
   ),
+  /** Absent from snapshots frozen before the analysis made safeguarding checks. */
+  safeguarding: SnapshotSafeguarding.optional(),
   timingMs: z.number(),
 });
 

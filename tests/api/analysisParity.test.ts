@@ -33,13 +33,21 @@ describe('server and worker analyses', () => {
     const worker = session.run()!.analysis;
     const server = await analyzeLayout(layout);
 
-    const strip = (r: typeof server) => ({ findings: r.findings, overlaps: r.overlaps, coverage: JSON.parse(JSON.stringify(r.coverage)), regions: r.regions });
+    const strip = (r: typeof server) => ({ findings: r.findings, overlaps: r.overlaps, coverage: JSON.parse(JSON.stringify(r.coverage)), regions: r.regions, safeguarding: r.safeguarding });
     expect(strip(worker)).toEqual(strip(server));
     expect(server.findings.length).toBeGreaterThan(3);
+    // The demo's access opening carries a safeguard: both sides measure it the same.
+    expect(server.safeguarding!.openings.map((o) => o.id)).toEqual(['O1']);
+    expect(server.safeguarding!.openings[0].requiredMm).toBeGreaterThan(0);
+    expect(server.safeguarding!.fences.length).toBeGreaterThan(0);
 
     // Move R2 in the worker (as a drag would), then commit the same move on the server.
     const moved = { ...content, arms: content.arms.map((a) => (a.id === 'R2' ? { ...a, x: a.x + 400 } : a)) };
-    session.receive({ type: 'drag', seq: 2, pose: { armId: 'R2', x: moved.arms[1].x, y: moved.arms[1].y, yaw: moved.arms[1].yaw } });
+    // …and with the door switched to a light curtain, so a second safeguard kind is compared too.
+    const curtain = { device: 'light-curtain' as const, resolutionMm: 30, responseTimeS: 0.02, stopCategory: 0 as const, approach: 'normal' as const };
+    moved.zones = content.zones.map((z) => (z.id === 'O1' ? { ...z, safeguard: curtain } : z));
+    session.receive({ type: 'content', seq: 2, content: { ...content, zones: moved.zones } });
+    session.receive({ type: 'drag', seq: 3, pose: { armId: 'R2', x: moved.arms[1].x, y: moved.arms[1].y, yaw: moved.arms[1].yaw } });
     const during = session.run()!.analysis;
     const after = await analyzeLayout(layout, moved);
     expect(strip(during)).toEqual(strip(after));

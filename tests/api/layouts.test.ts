@@ -109,3 +109,34 @@ describe('layout analysis endpoint', () => {
     expect(bad.body.error.fields).toHaveProperty(['arms.0.x']);
   });
 });
+
+describe('layout analysis endpoint: safeguarding', () => {
+  it('returns the safeguarding rows and findings, and refuses a bad safeguard naming its field', async () => {
+    const planner = await buildUser({ role: 'planner' });
+    // Reach 1000 mm (500 + 500 mm links), category 0 stopping time only.
+    const model = await buildArmModel({ params: { family: 'scara', innerLink: 500, outerLink: 500, strokeMin: 0, strokeMax: 300, stopTimeS: 0.5, axes: [{ min: -180, max: 180 }, { min: -180, max: 180 }] } });
+    const project = await buildProject();
+    const zones = (safeguard: Record<string, unknown>) => [
+      { id: 'F1', kind: 'fence', points: [[1500, -4000], [1500, 4000]], height: 2000 },
+      { id: 'O1', kind: 'opening', points: [[1500, -500], [1500, 500]], fenceId: 'F1', safeguard },
+    ];
+    const content = { arms: [{ id: 'R1', armModelId: model.id, label: '', x: 0, y: 0, yaw: 0, mountHeight: 0 }], workPoints: [], zones: zones({ device: 'interlock', responseTimeS: 0.1, stopCategory: 0 }), workHeights: [100] };
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: null, name: 'Guarded', content, createdBy: null });
+    const agent = await signedIn(t.app, planner.email, TEST_PASSWORD);
+    const res = await agent.post(`/api/layouts/${layout.id}/analysis`).send({});
+    expect(res.status).toBe(200);
+    // ISO 13855, interlocked guard: S = 1600 mm/s × (0.1 + 0.5) s = 960 mm; the door is about 500 mm from the restricted space.
+    expect(res.body.safeguarding.openings).toHaveLength(1);
+    expect(res.body.safeguarding.openings[0]).toMatchObject({ id: 'O1', device: 'interlock', armId: 'R1', tS: 0.6, requiredMm: 960, ok: false });
+    expect(res.body.safeguarding.fences.map((f: { id: string }) => f.id)).toEqual(['F1']);
+    expect(res.body.findings.map((f: { id: string }) => f.id)).toContain('opening-too-close:O1+R1');
+    // A category 1 safeguard on a model without the category 1 time: no distance, a finding that says so.
+    const cat1 = await agent.post(`/api/layouts/${layout.id}/analysis`).send({ content: { ...content, zones: zones({ device: 'interlock', responseTimeS: 0.1, stopCategory: 1 }) } });
+    expect(cat1.status).toBe(200);
+    expect(cat1.body.safeguarding.openings[0]).toMatchObject({ requiredMm: null, ok: null });
+    expect(cat1.body.findings.map((f: { id: string }) => f.id)).toContain('stopping-data-missing:O1+R1');
+    const bad = await agent.post(`/api/layouts/${layout.id}/analysis`).send({ content: { ...content, zones: zones({ device: 'light-curtain', responseTimeS: 0.02, stopCategory: 0 }) } });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty(['zones.1.safeguard.resolutionMm']);
+  });
+});

@@ -11,6 +11,7 @@ import { readDemoLayout } from '../../backend/src/db/demoLayout';
 import { ArmModel, FloorPlan, Layout } from '../../backend/src/models';
 import { importDxf } from '../../backend/src/services/dxf';
 import { CAUTIONS, DRAFT_MARK, loadLayoutSheetInput, renderPlanSheet } from '../../backend/src/services/planSheet';
+import { SAFEGUARDING_CAUTION } from '../../backend/src/services/planSheet/safeguardingSheet';
 import { LATO_RANGES, latoHas, sheetText } from '../../backend/src/services/planSheet/fonts';
 import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
@@ -187,6 +188,48 @@ describe('plan sheet PDF', () => {
     }
   });
 
+  it('prints the Safeguarding sheet: per opening and fence the distances and verdicts, the stopping data and its source, the caution', async () => {
+    const a = await signedIn(t.app, planner.email, TEST_PASSWORD);
+    const fetchPdf = async (id: number) => {
+      const res = await a.get(`/api/layouts/${id}/plan-sheet.pdf?sheets=safeguarding`).buffer(true).parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
+      expect(res.status).toBe(200);
+      return (await pages(res.body as Buffer)).map((p) => p.text).join(' ');
+    };
+    const demo = await fetchPdf(demoLayoutId);
+    const input = await loadLayoutSheetInput((await Layout.findByPk(demoLayoutId))!);
+    const door = input.analysis.safeguarding!.openings[0];
+    // The demo door: interlocked, category 1, the palletizer's category 1 time; ISO 13855 S = 1600·T.
+    expect(door).toMatchObject({ id: 'O1', device: 'interlock', stopField: 'stopTimeCat1S' });
+    expect(door.requiredMm).toBeCloseTo(1600 * door.tS!, 6);
+    for (const text of ['Safeguarding', 'separation distance (ISO 13855)', 'O1 Pallet exchange', 'interlocked guard', String(Math.round(door.requiredMm!)), String(Math.round(door.actualMm!)), 'too close',
+      'reach over and reach through (ISO 13857)', 'F1 Cell guard', 'Stopping data used', 'stop time, category 1', `${door.stopTimeS} s`, 'competent person under ISO 13855']) {
+      expect(demo).toContain(text);
+    }
+    const model = input.models.find((m) => m.id === door.armModelId)!;
+    expect(demo).toContain(model.name.slice(0, 20));
+    // A model without a category 1 time behind a category 1 door: said where the value would be.
+    const bare = await ArmModel.create({ name: `No stop data (${process.pid})`, family: 'scara', params: { family: 'scara', innerLink: 500, outerLink: 500, strokeMin: 0, strokeMax: 300, axes: [{ min: -180, max: 180 }, { min: -180, max: 180 }] }, createdBy: null });
+    const project = await buildProject();
+    const lacking = await Layout.create({
+      projectId: project.id, floorPlanId: null, name: 'Door without stop data', createdBy: planner.id,
+      content: {
+        arms: [{ id: 'R1', armModelId: bare.id, label: '', x: 0, y: 0, yaw: 0, mountHeight: 0 }], workPoints: [], workHeights: [],
+        zones: [
+          { id: 'F1', kind: 'fence', label: '', points: [[1500, -3000], [1500, 3000]], height: 2000 },
+          { id: 'O1', kind: 'opening', label: '', points: [[1500, -500], [1500, 500]], fenceId: 'F1', safeguard: { device: 'interlock', responseTimeS: 0.1, stopCategory: 1, approach: 'normal' } },
+        ],
+      },
+    });
+    const text = await fetchPdf(lacking.id);
+    expect(text).toContain('not computed');
+    expect(text).toContain('not given in the arm model');
+    expect(text).toContain('data missing');
+  });
+
   it('reviewers may fetch the working copy; clients and strangers may not', async () => {
     const rv = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
     expect((await rv.get(`/api/layouts/${pairLayoutId}/plan-sheet.pdf?sheets=plan`)).status).toBe(200);
@@ -209,7 +252,7 @@ describe('plan sheet PDF', () => {
       });
       expect(ranges).toEqual(LATO_RANGES.map(([a, b]) => [a, b]));
     }
-    for (const text of [...CAUTIONS, DRAFT_MARK, 'Reach band at 900 mm', 'Area m²', 'Yaw °', '−12', '×']) {
+    for (const text of [...CAUTIONS, SAFEGUARDING_CAUTION, DRAFT_MARK, 'Reach band at 900 mm', 'Area m²', 'Yaw °', '−12', '×']) {
       for (const ch of text) expect(latoHas(ch.codePointAt(0)!), `${text}: ${ch}`).toBe(true);
     }
     for (const missing of ['✓', '✗', '→', '↑']) expect(latoHas(missing.codePointAt(0)!)).toBe(false);

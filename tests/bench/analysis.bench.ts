@@ -2,7 +2,9 @@
 // against a naive baseline in the same run (every pair through turf.intersect, every point through
 // turf.booleanPointInPolygon on the placed plan bands, no prefilter) — the same shared zones and the
 // same unreached points. Target: ≥ 10× faster and ≤ 100 ms. Then incremental re-analysis after one
-// arm moves with 100 arms × 50 000 points — target ≤ 16 ms. Prints figures and ratios.
+// arm moves with 100 arms × 50 000 points — target ≤ 16 ms. Between them, the same 40-arm layout with
+// fences and safeguarded openings (the safeguarding checks' cost; compare with a run before them).
+// Prints figures and ratios.
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -13,7 +15,7 @@ import { armReachFor } from '@shared/analysis/armReach';
 import { armPose } from '@shared/geometry/frames';
 import { polygonsToGeoJSON } from '@shared/geometry/geojson';
 import { polygonsArea } from '@shared/geometry/area';
-import type { ArmPlacement, WorkPoint } from '@shared/schemas/layout';
+import type { ArmPlacement, WorkPoint, Zone } from '@shared/schemas/layout';
 
 const FULL_TARGET_MS = 100;
 const SPEEDUP_TARGET = 10;
@@ -143,6 +145,35 @@ console.log(`  baseline ${naiveMs.toFixed(1)} ms (turf.intersect per pair, boole
 console.log(`  speed-up ${(naiveMs / full).toFixed(1)}× (target ≥ ${SPEEDUP_TARGET}×) ${naiveMs / full >= SPEEDUP_TARGET ? 'OK' : 'MISSED'}`);
 console.log(`  same shared zones: ${sameShared ? 'yes' : 'NO'} (${ours.shared.length}); unreached points ${a.size} vs ${b.size}` +
   (onlyOurs.length + onlyBase.length ? `, differing ${onlyOurs.length + onlyBase.length} (within the 1 mm chord tolerance of a band edge)` : ', identical'));
+
+// ---- full analysis with fences and safeguarded openings (ISO 13855/13857/13854 checks)
+function withGuards(base: AnalysisInput): AnalysisInput {
+  const cols = Math.ceil(Math.sqrt(base.arms.length * 1.6));
+  const rows = Math.ceil(base.arms.length / cols);
+  const w = 2000 + cols * 3200;
+  const h = 2000 + rows * 3200;
+  const zones: Zone[] = [{ id: 'F0', kind: 'fence', label: '', points: [[0, 0], [w, 0], [w, h], [0, h], [0, 0]], height: 2000, meshMm: 30, meshShape: 'square' }];
+  for (let r = 0; r + 1 < rows; r++) {
+    const y = 2000 + r * 3200 + 1900;
+    zones.push({ id: `F${r + 1}`, kind: 'fence', label: '', points: [[0, y], [w, y]], height: 1400 });
+    for (let c = 0; c < cols; c++) {
+      const x = 2000 + c * 3200 + 1000;
+      zones.push({ id: `O${r + 1}-${c + 1}`, kind: 'opening', label: '', points: [[x, y], [x + 1000, y]], fenceId: `F${r + 1}`, safeguard: { device: c % 2 ? 'light-curtain' : 'interlock', resolutionMm: c % 2 ? 30 : undefined, responseTimeS: 0.05, stopCategory: 0, approach: 'normal' } });
+    }
+  }
+  return { ...base, zones };
+}
+const guarded = withGuards(input);
+createAnalyzer(reachFor).analyze(guarded);
+const guardTimes: number[] = [];
+let guardedResult = createAnalyzer(reachFor).analyze(guarded);
+for (let i = 0; i < 5; i++) {
+  const t = performance.now();
+  guardedResult = createAnalyzer(reachFor).analyze(guarded);
+  guardTimes.push(performance.now() - t);
+}
+console.log(`full analysis with ${guarded.zones.filter((z) => z.kind === 'fence').length} fences and ${guarded.zones.filter((z) => z.kind === 'opening').length} safeguarded openings, same layout`);
+console.log(`  ${median(guardTimes).toFixed(1)} ms (median of 5); ${guardedResult.findings.length} findings, ${guardedResult.safeguarding?.openings.length ?? 0} opening rows`);
 
 // ---- incremental
 const big = layout(100, 50_000, 7);

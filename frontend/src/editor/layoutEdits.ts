@@ -212,6 +212,35 @@ export function updateZone(content: LayoutContent, zoneId: string, patch: { labe
   return { ...content, zones };
 }
 
+/**
+ * Sets an opening's safeguard or a fence's mesh; null removes the field (only openings carry a
+ * safeguard, only fences a mesh — the layout schema checks the values).
+ */
+export function setZoneSafeguarding(
+  content: LayoutContent,
+  zoneId: string,
+  patch: { safeguard?: Zone['safeguard'] | null; mesh?: { meshMm: number; meshShape: NonNullable<Zone['meshShape']> } | null },
+): LayoutContent {
+  const zi = content.zones.findIndex((z) => z.id === zoneId);
+  if (zi < 0) throw new Error(`zoneId: no zone ${zoneId} on this layout`);
+  const z = content.zones[zi];
+  if (patch.safeguard !== undefined && z.kind !== 'opening') throw new Error(`safeguard: zone ${zoneId} is not an access opening`);
+  if (patch.mesh !== undefined && z.kind !== 'fence') throw new Error(`mesh: zone ${zoneId} is not a fence`);
+  const next: Zone = { ...z };
+  if (patch.safeguard === null) delete next.safeguard;
+  else if (patch.safeguard) next.safeguard = patch.safeguard;
+  if (patch.mesh === null) {
+    delete next.meshMm;
+    delete next.meshShape;
+  } else if (patch.mesh) {
+    next.meshMm = patch.mesh.meshMm;
+    next.meshShape = patch.mesh.meshShape;
+  }
+  const zones = content.zones.slice();
+  zones[zi] = next;
+  return { ...content, zones };
+}
+
 /** Removes a zone; removing a fence removes the openings cut into it. */
 export function removeZone(content: LayoutContent, zoneId: string): LayoutContent {
   if (!content.zones.some((z) => z.id === zoneId)) throw new Error(`zoneId: no zone ${zoneId} on this layout`);

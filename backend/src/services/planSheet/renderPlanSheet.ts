@@ -4,6 +4,7 @@ import { summarizeArms } from './armSummary';
 import { embedLato } from './fonts';
 import { autoScale, drawingArea } from './paper';
 import { drawPlan, planExtent } from './planDrawing';
+import { drawSafeguarding } from './safeguardingSheet';
 import { SheetPages } from './sheetPages';
 import { drawCoverage, drawFindings, drawHistory, drawSchedule, drawZonesSheet } from './tableSheets';
 import { SCALE_SERIES, SHEET_KINDS, SHEET_SIZES, type PlanSheetInput, type PlanSheetOptions, type SheetKind } from './types';
@@ -52,6 +53,7 @@ export async function renderPlanSheet(input: PlanSheetInput, opts: PlanSheetOpti
     } else if (kind === 'schedule') drawSchedule(pages, arms);
     else if (kind === 'coverage') drawCoverage(pages, input, arms);
     else if (kind === 'zones') drawZonesSheet(pages, input);
+    else if (kind === 'safeguarding') drawSafeguarding(pages, input);
     else if (kind === 'findings') drawFindings(pages, input);
     else drawHistory(pages, input);
   }

@@ -10,13 +10,14 @@ export function StoppingFields({ register, errors }: { register: UseFormRegister
   return (
     <FieldGroup
       title="Tooling, payload and stopping"
-      lead="Stopping data comes from the arm maker's documentation for the real arm; leave a field empty when it is not known."
+      lead="Stopping data comes from the arm maker's measured values for the real arm; leave a field empty when it is not known. Safeguard distances are computed only from values given here."
     >
       <div className="grid grid-cols-3 gap-3">
         {f('params.toolLength', 'Tool length', 'mm', 'Reaches beyond the tool point')}
         {f('params.payloadRadius', 'Payload radius', 'mm', 'Grows maximum space')}
         {f('params.payloadKg', 'Payload', 'kg')}
-        {f('params.stopTimeS', 'Stop time', 's')}
+        {f('params.stopTimeS', 'Stop time, category 0', 's', 'Power removed at once')}
+        {f('params.stopTimeCat1S', 'Stop time, category 1', 's', 'Controlled stop, then power removed')}
         {f('params.stopDistanceMm', 'Stop distance', 'mm')}
         {f('params.maxSpeedMmS', 'Max tool speed', 'mm/s')}
       </div>

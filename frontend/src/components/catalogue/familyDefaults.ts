@@ -14,7 +14,10 @@ export const DEFAULT_FOUR_BAR = (upperArm: number) => {
   return { ground, crank: 300, coupler: ground + 10, rocker: 320, groundAngle: 0, branch: 'crossed' as const, rockerToForearm: 0 };
 };
 
-/** Starting parameters of a new model per family: a plausible arm to edit from (lengths mm, angles deg). */
+/**
+ * Starting parameters of a new model per family: a plausible arm to edit from (lengths mm, angles deg).
+ * Stopping data is left empty: it must come from the maker's measured values for the real arm.
+ */
 export function defaultParams(family: string): ArmModelFormValues['params'] {
   switch (family) {
     case 'scara':
@@ -30,7 +33,6 @@ export function defaultParams(family: string): ArmModelFormValues['params'] {
         ],
         toolLength: 50,
         payloadKg: 6,
-        stopTimeS: 0.2,
       };
     case 'articulated':
       return {
@@ -47,7 +49,6 @@ export function defaultParams(family: string): ArmModelFormValues['params'] {
         ],
         toolLength: 100,
         payloadKg: 10,
-        stopTimeS: 0.4,
       };
     case 'linkage':
       return {
@@ -67,7 +68,6 @@ export function defaultParams(family: string): ArmModelFormValues['params'] {
         ],
         toolLength: 250,
         payloadKg: 120,
-        stopTimeS: 0.8,
       };
     case 'chain':
     default:
@@ -81,7 +81,6 @@ export function defaultParams(family: string): ArmModelFormValues['params'] {
         ],
         tool: { x: 0, y: 0, z: 0 },
         payloadKg: 10,
-        stopTimeS: 0.3,
       };
   }
 }

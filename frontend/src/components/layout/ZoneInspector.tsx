@@ -4,6 +4,7 @@ import { parseNumber } from '../../editor/armForm';
 import { removeZone, updateZone } from '../../editor/layoutEdits';
 import { Button } from '../Button';
 import { TextField } from '../Field';
+import { MeshFields, SafeguardFields } from './SafeguardFields';
 
 const KIND_TEXT: Record<Zone['kind'], string> = {
   fence: 'Guard fence',
@@ -22,7 +23,7 @@ export interface ZoneInspectorProps {
   onDeselect(): void;
 }
 
-/** The selected zone: kind, label, a fence's height; delete. Vertices are dragged on the plan. */
+/** The selected zone: kind, label, a fence's height and mesh, an opening's safeguard; delete. Vertices are dragged on the plan. */
 export function ZoneInspector({ zone, content, readOnly, focusHeight, onEdit, onDeselect }: ZoneInspectorProps) {
   const [label, setLabel] = useState(zone.label);
   const [height, setHeight] = useState(zone.height !== undefined ? String(zone.height) : '');
@@ -90,6 +91,8 @@ export function ZoneInspector({ zone, content, readOnly, focusHeight, onEdit, on
           className="tabular-nums"
         />
       )}
+      {zone.kind === 'fence' && <MeshFields zone={zone} content={content} readOnly={readOnly} onEdit={onEdit} />}
+      {zone.kind === 'opening' && <SafeguardFields zone={zone} content={content} readOnly={readOnly} onEdit={onEdit} />}
       {!readOnly && (
         <>
           <p className="text-xs text-ink-muted">Drag the square handles on the plan to move its corners.</p>
