@@ -58,6 +58,17 @@ export const Zone = z
     height: finiteNumber('Height').positive('Height must be above 0').optional(),
     /** For an opening: the fence it is cut into. */
     fenceId: Id.optional(),
+    /** For an opening: the device that safeguards it (ISO 13855 inputs). */
+    safeguard: z
+      .object({
+        device: z.enum(['interlock', 'interlock-locking', 'light-curtain', 'multi-beam', 'single-beam']),
+        responseTimeS: finiteNumber('Response time').min(0).max(30),
+        stopCategory: z.union([z.literal(0), z.literal(1), z.literal(2)]).optional(),
+      })
+      .optional(),
+    /** For a fence: mesh opening (slot width, square side or round diameter), mm, and its shape. */
+    meshMm: finiteNumber('Mesh size').positive('Mesh size must be above 0').optional(),
+    meshShape: z.enum(['slot', 'square', 'round']).optional(),
   })
   .strict()
   .superRefine((z0, ctx) => {
