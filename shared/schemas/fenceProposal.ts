@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { finiteNumber } from './fields';
+import { LayoutContent } from './layout';
 
 /** Mesh shapes of a fence panel (ISO 13857's opening shapes). */
 export const FENCE_MESH_SHAPES = ['slot', 'square', 'round'] as const;
@@ -43,3 +44,6 @@ export type FenceSystem = z.output<typeof FenceSystemInput>;
 
 /** The fence system with every default filled in. */
 export const DEFAULT_FENCE_SYSTEM: FenceSystem = FenceSystemInput.parse({});
+
+/** The proposal request: the fence system, and optionally the editor's unsaved layout content. */
+export const FenceProposalRequest = FenceSystemInput.extend({ content: LayoutContent.optional() });
