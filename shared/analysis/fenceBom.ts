@@ -204,7 +204,10 @@ export function fenceParts(lines: ReadonlyArray<FenceLine>, system: Readonly<Fen
         const L = sAt[i] - sAt[i - 1];
         const t = L > 0 ? Math.min(1, Math.max(0, ((q[0] - a[0]) * (b[0] - a[0]) + (q[1] - a[1]) * (b[1] - a[1])) / (L * L))) : 0;
         const d = Math.hypot(a[0] + (b[0] - a[0]) * t - q[0], a[1] + (b[1] - a[1]) * t - q[1]);
-        if (d < best) (best = d), (bestS = sAt[i - 1] + t * L);
+        if (d < best) {
+          best = d;
+          bestS = sAt[i - 1] + t * L;
+        }
       }
       return bestS;
     };

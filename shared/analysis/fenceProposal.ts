@@ -87,6 +87,8 @@ export interface FenceProposal {
   rings: ProposedRing[];
   required: RequiredDistance[];
   parts: FenceParts;
+  /** The fence system the proposal was built from. */
+  system: FenceSystem;
 }
 
 interface Placed {
@@ -519,7 +521,7 @@ export function proposeFence(input: Readonly<FenceProposalInput>): FenceProposal
 
   const parts = fenceParts(fenceLinesOf(zones), system, faces);
   const areaEnclosedM2 = Math.round(rings.reduce((s, r) => s + r.areaM2, 0) * 1000) / 1000;
-  return { zones, bom: parts.bom, lengthMm: Math.round(parts.lengthMm), areaEnclosedM2, notes, rings, required: placed.map((p) => p.required), parts };
+  return { zones, bom: parts.bom, lengthMm: Math.round(parts.lengthMm), areaEnclosedM2, notes, rings, required: placed.map((p) => p.required), parts, system: { ...system } };
 }
 
 /** The layout's zones with its fences and openings replaced by a proposal's (other zones kept, in order). */
