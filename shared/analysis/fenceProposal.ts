@@ -125,8 +125,8 @@ function requiredFor(arm: ArmPlacement, reach: ArmReach, system: Readonly<FenceS
   return { armId: arm.id, reachThroughMm: through, reachOverMm: over, hazardHeightMm: r1(hazardHeightMm), clearanceMm: system.clearanceMm, requiredMm: Math.max(through, over) + system.clearanceMm };
 }
 
-/** Axis-aligned wall faces of the floor: wall items' edges and lines, and the floor boundary (the hall's own walls). */
-function wallFaces(floor: PreparedFloor | null): Array<[Pt, Pt]> {
+/** Wall faces of the floor (plan mm segments): full-height wall items' edges and lines, and the floor boundary (the hall's own walls). */
+export function wallFacesOf(floor: PreparedFloor | null): Array<[Pt, Pt]> {
   const out: Array<[Pt, Pt]> = [];
   if (!floor) return out;
   const addRing = (ring: ReadonlyArray<Pt>, closed: boolean) => {
@@ -411,7 +411,7 @@ export function proposeFence(input: Readonly<FenceProposalInput>): FenceProposal
   }
   groups = groups.sort((a, b) => a.box[0] - b.box[0] || a.box[1] - b.box[1]);
 
-  const faces = system.useWalls ? wallFaces(input.floor) : [];
+  const faces = system.useWalls ? wallFacesOf(input.floor) : [];
   const obstacles = obstacleBoxes(input.floor, post, !system.useWalls);
   const used = new Set(input.zones.filter((z) => z.kind !== 'fence' && z.kind !== 'opening').map((z) => z.id));
   const zones: Zone[] = [];

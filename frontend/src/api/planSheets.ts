@@ -10,6 +10,7 @@ export const SHEET_KINDS = [
   { kind: 'schedule', text: 'Arm schedule' },
   { kind: 'coverage', text: 'Coverage matrix' },
   { kind: 'zones', text: 'Shared zones' },
+  { kind: 'fences', text: 'Fence parts' },
   { kind: 'findings', text: 'Findings' },
   { kind: 'history', text: 'Revision history' },
 ] as const;
