@@ -1,5 +1,6 @@
 // Accepting the proposal for the Fernhill demo: the layout analysed again has no fence, opening or
-// reach-over problem caused by the proposal. The reach-over check here is ISO 13857 Table 2 itself.
+// reach-over problem caused by the proposal. The reach-over check here reads ISO 13857:2019's
+// high-risk reach-over table itself (rows 2000…2700 [pub], lower rows [mem]: values from memory).
 import { describe, expect, it } from 'vitest';
 import { createAnalyzer, prepareFloor, type FloorLayer } from '@shared/analysis';
 import { armReachFor } from '@shared/analysis/armReach';

@@ -19,9 +19,11 @@ const diskReach: ArmReachFactory = (modelId) => {
 const arm = (id: string, x: number, y: number, R = 1000): ArmPlacement => ({ id, armModelId: R, label: '', x, y, yaw: 0, mountHeight: 0 });
 const restrictedOf = (a: ArmPlacement): Polygon2[] => diskReach(a.armModelId, undefined).restricted.map((p) => p.map((r) => r.map(([x, y]) => [x + a.x, y + a.y] as Pt)));
 
-// ISO 13857 Table 4 (reach through, age 14+): square opening 12 < e ≤ 20 mm → s_r = 120 mm.
-// ISO 13857 Table 2 (reach over, high risk): hazard a = 2000 mm, structure b = 2000 mm → c = 600 mm.
-// Clearance 150 mm: common practice (the analysis keeps the same 150 mm).
+// ISO 13857:2019 reaching through regular openings (age 14 and over): square 12 < e ≤ 20 mm →
+// s_r = 120 mm [pub]. ISO 13857:2019 reaching over, high risk: hazard height a = 2000 mm, structure
+// height b = 2000 mm → c = 600 mm [pub] (the 2000…2700 rows were checked against a published
+// reproduction of the table). Clearance 150 mm [practice] (common practice: 120–200 mm).
+// The required distance is the larger of the two plus the clearance [derived].
 const REQUIRED_MM = Math.max(120, 600) + 150;
 
 /** Smallest distance between the fence lines (every 10 mm along them) and a region's edges, brute force. */
