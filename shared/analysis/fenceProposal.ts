@@ -19,6 +19,7 @@ import { polygonsArea } from '../geometry/area';
 import { polygonsBounds } from '../geometry/bounds';
 import { clipDifference, clipUnion } from '../geometry/clipper';
 import { armPose } from '../geometry/frames';
+import { distanceToBoundary, pointInPolygons } from '../geometry/pointInPolygon';
 import type { Polygon2, Pt, Ring } from '../geometry/types';
 import { NotCoveredError, reachOverDistance, reachThroughDistance, SafeguardInputError, separationDistance } from '../safety';
 import type { FenceSystem } from '../schemas/fenceProposal';
@@ -509,6 +510,10 @@ export function proposeFence(input: Readonly<FenceProposalInput>): FenceProposal
 
     const areaM2 = Math.abs(polygonsArea([[r.ring]])) / 1e6;
     rings.push({ id: ringId, arms: g.members.map((m) => m.arm.id), ring: r.ring, wallStretches: r.split.wall, worstMarginMm: r1(r.margin), areaM2: Math.round(areaM2 * 1000) / 1000 });
+    const boundary = input.floor?.boundary ?? [];
+    if (boundary.length && r.ring.some(([x, y]) => !pointInPolygons(x, y, boundary) && distanceToBoundary(x, y, boundary) > 1)) {
+      notes.push(`${ringLabel}: part of the ring lies outside the floor boundary; move the arms or close that side by hand.`);
+    }
     if (r.margin < -0.5) notes.push(`${ringLabel}: a fence line comes ${r1(-r.margin)} mm nearer to a restricted space than required; check the plan.`);
     if (r.split.wall.length) notes.push(`${ringLabel}: ${r.split.wall.length} stretch${r.split.wall.length === 1 ? '' : 'es'} closed by a wall (no panels there); the wall must be solid to the panel height at least.`);
   });

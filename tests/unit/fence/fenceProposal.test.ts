@@ -136,6 +136,15 @@ describe('guard-ring proposal', () => {
     expect(pointInPolygons(1750, 0, [[p.rings[0].ring]])).toBe(true);
   });
 
+  it('says so when a ring leaves the floor, and closes it on the floor boundary when walls may be used', () => {
+    const floor: PreparedFloor = { boundary: [[[[0, 0], [3000, 0], [3000, 6000], [0, 6000]]]], structures: [] };
+    const open = propose([arm('R1', 1200, 3000)], { floor, useWalls: false });
+    expect(open.notes.join(' ')).toMatch(/outside the floor boundary/);
+    const walled = propose([arm('R1', 1200, 3000)], { floor });
+    expect(walled.notes.join(' ')).not.toMatch(/outside the floor boundary/);
+    expect(walled.rings[0].wallStretches.length).toBeGreaterThan(0);
+  });
+
   it('puts a door with an interlock at the operator area', () => {
     const op: Zone = { id: 'OP1', kind: 'operator', label: 'Loading', points: [[-1000, -3500], [1000, -3500], [1000, -2000], [-1000, -2000]] };
     const p = propose([arm('R1', 0, 0)], { zones: [op] });
