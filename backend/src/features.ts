@@ -8,6 +8,7 @@ import { adminAuditRouter } from './routes/adminAudit';
 import { adminMailRouter } from './routes/adminMail';
 import { armModelsRouter } from './routes/armModels';
 import { commentsRouter } from './routes/comments';
+import { fenceProposalsRouter } from './routes/fenceProposals';
 import { floorPlansRouter } from './routes/floorPlans';
 import { invitationsRouter } from './routes/invitations';
 import { kinematicsRouter } from './routes/kinematics';
@@ -28,6 +29,7 @@ export function featureRouters(ctx: FeatureContext): Router[] {
     armModelsRouter(ctx.sequelize),
     kinematicsRouter(),
     safeguardingRouter(),
+    fenceProposalsRouter(),
     planSheetsRouter(),
     revisionsRouter(ctx),
     commentsRouter(ctx),

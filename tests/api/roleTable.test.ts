@@ -112,6 +112,8 @@ const ROWS: Row[] = [
     body: () => ({ version: 1, name: 'Renamed layout' }),
     expect: { anon: 401, client: 403, reviewer: 403, planner: 200, admin: 200 },
   },
+  // The role-table layout has no arms: planners and admins get the 400 sentence, the others no access.
+  { method: 'post', path: (c) => `/api/layouts/${c.layoutId}/fence-proposal`, body: () => ({}), expect: { anon: 401, client: 403, reviewer: 403, planner: 400, admin: 400 } },
   // Revisions: the submitted one belongs to a layout of the client's project; clients never see it.
   { method: 'get', path: (c) => `/api/projects/${c.projectId}/revisions`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
   { method: 'get', path: (c) => `/api/layouts/${c.layoutId}/revisions`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },

@@ -11,6 +11,7 @@ export const SHEET_KINDS = [
   { kind: 'coverage', text: 'Coverage matrix' },
   { kind: 'zones', text: 'Shared zones' },
   { kind: 'safeguarding', text: 'Safeguarding' },
+  { kind: 'fences', text: 'Fence parts' },
   { kind: 'findings', text: 'Findings' },
   { kind: 'history', text: 'Revision history' },
 ] as const;

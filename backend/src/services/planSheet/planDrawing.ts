@@ -56,7 +56,7 @@ function rings(g: Geometry): { polygons: Polygon2[]; lines: Position[][] } {
   }
 }
 
-function drawFloor(doc: jsPDF, input: PlanSheetInput, toPaper: ToPaper): void {
+export function drawFloor(doc: jsPDF, input: PlanSheetInput, toPaper: ToPaper): void {
   const fp = input.floorPlan;
   if (!fp) return;
   const roles = new Map(fp.layers.map((l) => [l.name, l.role]));
@@ -93,7 +93,7 @@ function drawFloor(doc: jsPDF, input: PlanSheetInput, toPaper: ToPaper): void {
   }
 }
 
-function label(doc: jsPDF, text: string, x: number, y: number, pt: number, rgb: Rgb = INK, bold = false, align: 'left' | 'center' | 'right' = 'left'): void {
+export function label(doc: jsPDF, text: string, x: number, y: number, pt: number, rgb: Rgb = INK, bold = false, align: 'left' | 'center' | 'right' = 'left'): void {
   doc.setFont('Lato', bold ? 'bold' : 'normal');
   doc.setFontSize(pt);
   doc.setTextColor(rgb[0], rgb[1], rgb[2]);
@@ -223,7 +223,7 @@ function niceStep(paperTarget: number, n: number): number {
 }
 
 /** Scale bar (five alternating segments with their lengths) and the ratio text, paper mm. */
-function drawScaleBar(doc: jsPDF, x: number, y: number, n: number, sizeName: string): void {
+export function drawScaleBar(doc: jsPDF, x: number, y: number, n: number, sizeName: string): void {
   const step = niceStep(12, n); // plan mm per segment, at least 12 mm on paper each
   const segPaper = step / n;
   for (let i = 0; i < 5; i++) {

@@ -3,18 +3,19 @@ import { jsPDF } from 'jspdf';
 import { summarizeArms } from './armSummary';
 import { embedLato } from './fonts';
 import { autoScale, drawingArea } from './paper';
+import { drawFenceParts } from './fenceSheet';
 import { drawPlan, planExtent } from './planDrawing';
 import { drawSafeguarding } from './safeguardingSheet';
 import { SheetPages } from './sheetPages';
 import { drawCoverage, drawFindings, drawHistory, drawSchedule, drawZonesSheet } from './tableSheets';
-import { SCALE_SERIES, SHEET_KINDS, SHEET_SIZES, type PlanSheetInput, type PlanSheetOptions, type SheetKind } from './types';
+import { DEFAULT_SHEET_KINDS, SCALE_SERIES, SHEET_KINDS, SHEET_SIZES, type PlanSheetInput, type PlanSheetOptions, type SheetKind } from './types';
 
 /** Checks the options (throws a short message naming the option). */
 function checkOptions(opts: PlanSheetOptions): SheetKind[] {
   if (!SHEET_SIZES.includes(opts.size)) throw new RangeError(`size: use one of ${SHEET_SIZES.join(', ')}`);
   if (opts.scale !== undefined && !(SCALE_SERIES as readonly number[]).includes(opts.scale)) throw new RangeError(`scale: use one of ${SCALE_SERIES.join(', ')}`);
   if (!(opts.createdAt instanceof Date) || Number.isNaN(opts.createdAt.getTime())) throw new RangeError('createdAt: must be a valid date');
-  const sheets = opts.sheets ?? [...SHEET_KINDS];
+  const sheets = opts.sheets ?? [...DEFAULT_SHEET_KINDS];
   for (const s of sheets) if (!SHEET_KINDS.includes(s)) throw new RangeError(`sheets: unknown sheet "${String(s)}"`);
   if (!sheets.length) throw new RangeError('sheets: choose at least one sheet');
   // Print order is fixed whatever order the caller gives.
@@ -54,6 +55,7 @@ export async function renderPlanSheet(input: PlanSheetInput, opts: PlanSheetOpti
     else if (kind === 'coverage') drawCoverage(pages, input, arms);
     else if (kind === 'zones') drawZonesSheet(pages, input);
     else if (kind === 'safeguarding') drawSafeguarding(pages, input);
+    else if (kind === 'fences') drawFenceParts(pages, input, extent, n);
     else if (kind === 'findings') drawFindings(pages, input);
     else drawHistory(pages, input);
   }

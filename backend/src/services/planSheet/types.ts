@@ -20,9 +20,9 @@
  *   size        paper size, always landscape: A3 (default in the route), A4 or A1.
  *   scale       N of the ratio 1:N from the standard series; omitted = the largest of the series that
  *               fits the floor plan (or the layout's extent) in the drawing area.
- *   sheets      which sheets, in print order plan → schedule → coverage → zones → safeguarding → findings →
- *               history;
- *               omitted = all.
+ *   sheets      which sheets, in print order plan → schedule → coverage → zones → safeguarding → fences →
+ *               findings → history; omitted = all but `fences` (the fence parts: plan with numbered panels
+ *               and the bill of materials), which is printed when named.
  *   draft       true = a diagonal "DRAFT — not for construction" mark on every page.
  *   createdAt   the date printed and written into the PDF metadata; same input + same createdAt →
  *               byte-identical PDF.
@@ -36,8 +36,10 @@ export const SHEET_SIZES: readonly SheetSize[] = ['A3', 'A4', 'A1'];
 /** Standard drawing scales 1:N. */
 export const SCALE_SERIES = [20, 25, 50, 100, 200, 250, 500] as const;
 export type SheetScale = (typeof SCALE_SERIES)[number];
-export const SHEET_KINDS = ['plan', 'schedule', 'coverage', 'zones', 'safeguarding', 'findings', 'history'] as const;
+export const SHEET_KINDS = ['plan', 'schedule', 'coverage', 'zones', 'safeguarding', 'fences', 'findings', 'history'] as const;
 export type SheetKind = (typeof SHEET_KINDS)[number];
+/** The sheets printed when none are named: all but the fence-parts sheet, which is asked for by name. */
+export const DEFAULT_SHEET_KINDS: readonly SheetKind[] = SHEET_KINDS.filter((k) => k !== 'fences');
 
 export interface PlanSheetFloorLayer {
   name: string;

@@ -1,9 +1,11 @@
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
+import { applyFenceProposal } from '@shared/analysis/fenceProposal';
 import type { Finding } from '@shared/analysis/types';
 import { padBounds, pointsBounds } from '@shared/geometry/bounds';
 import type { LayoutContent, LayoutDto } from '@shared/schemas/layout';
 import type { ArmModelDto } from '../../api/armModels';
+import type { FenceProposalDto } from '../../api/fenceProposals';
 import type { FloorPlanDto } from '../../api/floorPlans';
 import { useCreateLayout } from '../../api/layouts';
 import { commandForKey } from '../../editor/editorKeys';
@@ -19,6 +21,8 @@ import { ArmInspector } from './ArmInspector';
 import { ConflictDialog } from './ConflictDialog';
 import { EditorToolbar } from './EditorToolbar';
 import { FindingsPanel } from './FindingsPanel';
+import { GuardRingPanel } from './GuardRingPanel';
+import { drawGuardRingPreview, GUARD_RING_PREVIEW } from './guardRingPreview';
 import { LayoutPanels } from './LayoutPanels';
 import { SectionView } from './SectionView';
 import { createLayoutScene, type EditorTool, type LayoutScene, type ShapeTool } from './layoutScene';
@@ -67,6 +71,8 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
   const [conflictOpen, setConflictOpen] = useState(true);
   const [canvas, setCanvas] = useState<PlanCanvas | null>(null);
   const [sectionLine, setSectionLine] = useState<[[number, number], [number, number]] | null>(null);
+  const [ringOpen, setRingOpen] = useState(false);
+  const [ringProposal, setRingProposal] = useState<FenceProposalDto | null>(null);
   const scene = useRef<LayoutScene | null>(null);
   const contentRef = useRef(content);
   useLayoutEffect(() => {
@@ -161,6 +167,13 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
       sectionLine,
     });
   }, [canvas, content, live.view, selection, highlightArms, selectedFinding, tool, bandHeight, readOnly, sectionLine]);
+
+  // The proposed guard ring, drawn dashed over the plan until it is accepted or discarded.
+  useEffect(() => {
+    if (!canvas) return;
+    canvas.setOverlay(GUARD_RING_PREVIEW.name, (l) => drawGuardRingPreview(l, ringProposal, ringProposal?.system.postWidthMm ?? 0), GUARD_RING_PREVIEW);
+    return () => canvas.removeOverlay(GUARD_RING_PREVIEW.name);
+  }, [canvas, ringProposal]);
 
   const selectedArm = selection?.kind === 'arm' ? content.arms.find((a) => a.id === selection.id) : undefined;
   const selectedZone = selection?.kind === 'zone' ? content.zones.find((z) => z.id === selection.id) : undefined;
@@ -267,6 +280,10 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
         save={ed.save}
         onRetrySave={() => void ed.saveNow()}
         onExportSheet={() => setSheetOpen(true)}
+        onProposeGuardRing={() => {
+          setRingOpen(true);
+          setSelection(null);
+        }}
       />
       <PlanSheetDialog open={sheetOpen} onClose={() => setSheetOpen(false)} layoutId={layout.id} layoutName={layout.name} />
       <div className="rounded-control border border-rule bg-paper-raised px-3 py-2">
@@ -287,7 +304,28 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
           </p>
         </div>
         <aside className="flex min-h-0 flex-col gap-3" aria-label="Inspector and findings">
-          {(selectedArm || selectedZone) && (
+          {ringOpen && !readOnly && (
+            <div className="max-h-[70%] shrink-0 overflow-y-auto rounded-control border border-rule bg-paper-raised p-3">
+              <GuardRingPanel
+                layoutId={layout.id}
+                layoutName={layout.name}
+                content={content}
+                proposal={ringProposal}
+                onProposal={setRingProposal}
+                onAccept={(p) => {
+                  edit({ ...contentRef.current, zones: applyFenceProposal(contentRef.current.zones, p) }, `Accept guard ring (${p.zones.filter((z) => z.kind === 'fence').length} fences)`);
+                  setRingProposal(null);
+                  setRingOpen(false);
+                  setHint('Guard ring accepted as fences and doors; undo takes it back in one step.');
+                }}
+                onClose={() => {
+                  setRingProposal(null);
+                  setRingOpen(false);
+                }}
+              />
+            </div>
+          )}
+          {!ringOpen && (selectedArm || selectedZone) && (
             <div className="max-h-[55%] shrink-0 overflow-y-auto rounded-control border border-rule bg-paper-raised p-3">
               {selectedArm ? (
                 <ArmInspector arm={selectedArm} content={content} armModels={modelList} readOnly={readOnly} onEdit={edit} onSelectArm={(id) => setSelection(id ? { kind: 'arm', id } : null)} />

@@ -6,12 +6,13 @@ import type { LayoutPanelProps } from './panelTypes';
 type PanelModule = Record<string, unknown>;
 
 // The panels are separate modules; a tab appears once its module is part of the build.
-const MODULES = import.meta.glob<PanelModule>(['./WorkPointsPanel.tsx', './CoverageMatrix.tsx', './SharedZonesTable.tsx']);
+const MODULES = import.meta.glob<PanelModule>(['./WorkPointsPanel.tsx', './CoverageMatrix.tsx', './SharedZonesTable.tsx', './FencePartsPanel.tsx']);
 
 const TABS: ReadonlyArray<{ file: string; exportName: string; title: string }> = [
   { file: './WorkPointsPanel.tsx', exportName: 'WorkPointsPanel', title: 'Work points' },
   { file: './CoverageMatrix.tsx', exportName: 'CoverageMatrix', title: 'Coverage' },
   { file: './SharedZonesTable.tsx', exportName: 'SharedZonesTable', title: 'Shared zones' },
+  { file: './FencePartsPanel.tsx', exportName: 'FencePartsPanel', title: 'Fence parts' },
 ];
 
 function lazyPanel(file: string, exportName: string): LazyExoticComponent<ComponentType<LayoutPanelProps>> {

@@ -18,7 +18,8 @@ const fileBase = (name: string) => name.replace(/[^A-Za-z0-9._-]+/g, '-').replac
 export function PlanSheetDialog({ open, onClose, layoutId, layoutName }: PlanSheetDialogProps) {
   const [size, setSize] = useState<SheetSize>('A3');
   const [scale, setScale] = useState<PlanSheetRequest['scale']>('auto');
-  const [sheets, setSheets] = useState<SheetKind[]>(SHEET_KINDS.map((s) => s.kind));
+  // The fence-parts sheet is ticked by choice, as the server prints it only when named.
+  const [sheets, setSheets] = useState<SheetKind[]>(SHEET_KINDS.map((s) => s.kind).filter((k) => k !== 'fences'));
   const render = useRenderPlanSheet();
   const dxf = useLayoutDxf();
   const pdf = render.data ?? null;
