@@ -15,3 +15,18 @@ export { type FloorLayer, prepareFloor } from './floor';
 export { type Analyzer, createAnalyzer, FAR_MM, FENCE_CLEARANCE_MM, MIN_FENCE_HEIGHT_MM } from './analyze';
 export { findingId, parseFindingId, sortFindings } from './messages';
 export { isReached, roundMargin } from './reached';
+export {
+  cellReasonText,
+  type PlacementCandidate,
+  type PlacementMap,
+  type PlacementNames,
+  type PlacementPoint,
+  type PlacementProgress,
+  type PlacementQuery,
+  type PlacementResult,
+  placementSearch,
+  placementSteps,
+  type PointLimit,
+  REASON,
+  yawList,
+} from './placement';
