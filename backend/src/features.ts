@@ -12,6 +12,7 @@ import { floorPlansRouter } from './routes/floorPlans';
 import { invitationsRouter } from './routes/invitations';
 import { kinematicsRouter } from './routes/kinematics';
 import { layoutsRouter } from './routes/layouts';
+import { placementRouter } from './routes/placement';
 import { planSheetsRouter } from './routes/planSheets';
 import { revisionsRouter } from './routes/revisions';
 import { safeguardingRouter } from './routes/safeguarding';
@@ -24,6 +25,7 @@ export function featureRouters(ctx: FeatureContext): Router[] {
     armModelsRouter(ctx.sequelize),
     kinematicsRouter(),
     safeguardingRouter(),
+    placementRouter(),
     planSheetsRouter(),
     revisionsRouter(ctx),
     commentsRouter(ctx),

@@ -30,3 +30,14 @@ export {
   REASON,
   yawList,
 } from './placement';
+export {
+  autoLayout,
+  type AutoLayoutArm,
+  type AutoLayoutModel,
+  type AutoLayoutProgress,
+  type AutoLayoutQuery,
+  type AutoLayoutResult,
+  autoLayoutSteps,
+  layoutScore,
+  proposalContent,
+} from './autoLayout';

@@ -120,6 +120,8 @@ const MAP_MM = 50;
 /** Bound on how fast a worst margin changes as the base moves (mm per mm): 1 for distances; J1 arc margins can change up to about √(π² + 1) ≈ 3.3. */
 const MARGIN_SLOPE = 3.3;
 const MAX_YAWS = 721;
+/** How many other passing yaws a cell tries when the best one fails a site test. */
+const ALT_YAWS = 8;
 
 /** The yaws a query allows, deg: yawMin, yawMin + step, … ≤ yawMax; a full turn does not repeat its end. */
 export function yawList(minDeg: number, maxDeg: number, stepDeg: number): number[] {
@@ -224,10 +226,14 @@ function evalCell(ev: Evaluator, site: SiteContext, minMargin: number, x: number
   let v = site.test(x, y, r.yi);
   if (v.ok) return { m: r.m, yi: r.yi, reason: REASON.ok, ref: -1, value: 0 };
   const first = v;
-  for (const alt of ev.passingYaws(x, y)) {
-    if (alt.yi === r.yi) continue;
-    v = site.test(x, y, alt.yi);
-    if (v.ok) return { m: alt.m, yi: alt.yi, reason: REASON.ok, ref: -1, value: 0 };
+  if (!site.turnInvariant) {
+    // Other yaws that pass the margin, best first: up to ALT_YAWS of them, spread over the list.
+    const alts = ev.passingYaws(x, y).filter((a) => a.yi !== r.yi);
+    const stride = Math.max(1, Math.ceil(alts.length / ALT_YAWS));
+    for (let k = 0; k < alts.length; k += stride) {
+      v = site.test(x, y, alts[k].yi);
+      if (v.ok) return { m: alts[k].m, yi: alts[k].yi, reason: REASON.ok, ref: -1, value: 0 };
+    }
   }
   return { m: r.m, yi: r.yi, reason: SITE_REASON[(first as Exclude<SiteVerdict, { ok: true }>).kind], ref: 'ref' in first ? first.ref : -1, value: 0 };
 }
@@ -268,7 +274,7 @@ export function* placementSteps(q: PlacementQuery): Generator<PlacementProgress,
   const yaws = yawList(q.yawMinDeg, q.yawMaxDeg, q.yawStepDeg);
   const fine = q.gridMm ?? 10;
   const ev = evaluator(q, yaws);
-  const site = siteContext(q.reach, yaws, q.mountHeightMm, q.floor, q.zones);
+  const site = siteContext(q.reach, yaws, q.mountHeightMm, q.floor, q.zones, q.points);
   const names: PlacementNames = {
     points: q.points.map((p) => p.id),
     items: (q.floor?.structures ?? []).map((s) => ({ id: s.id, role: s.role })),
@@ -415,8 +421,8 @@ export function placementSearch(q: PlacementQuery): PlacementResult {
   }
 }
 
-/** Best margin one point alone can have anywhere (max over the arm frame, sampled at maxReach/60), mm. */
-function bestAlone(reach: ArmReach, zArm: number, approach: 'top' | 'any'): number {
+/** Best margin one point alone can have from any base (max over the arm frame, sampled at maxReach/60), mm; arm-frame height zArm. */
+export function bestAlone(reach: ArmReach, zArm: number, approach: 'top' | 'any'): number {
   const R = reach.maxReach;
   const step = Math.max(5, R / 60);
   let best = -Infinity;

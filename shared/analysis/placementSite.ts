@@ -37,6 +37,31 @@ interface TurnedRegion {
   polys: Polygon2[];
   edges: Float64Array;
   box: BBox | null;
+  /** Largest distance of the region from the J1 axis, mm. */
+  radius: number;
+}
+
+/** Whether a region looks the same at every yaw: every ring a circle about the J1 axis (to 1 mm). */
+export function isTurnInvariant(polys: ReadonlyArray<Polygon2>): boolean {
+  for (const poly of polys) {
+    for (const ring of poly) {
+      let lo = Infinity, hi = -Infinity;
+      for (const [u, v] of ring) {
+        const r = Math.hypot(u, v);
+        if (r < lo) lo = r;
+        if (r > hi) hi = r;
+      }
+      if (hi - lo > 1) return false;
+    }
+  }
+  return true;
+}
+
+/** Distance from (x, y) to a box, mm (0 inside). */
+function boxDistance(b: BBox, x: number, y: number): number {
+  const dx = x < b[0] ? b[0] - x : x > b[2] ? x - b[2] : 0;
+  const dy = y < b[1] ? b[1] - y : y > b[3] ? y - b[3] : 0;
+  return Math.hypot(dx, dy);
 }
 
 export interface SiteContext {
@@ -47,6 +72,8 @@ export interface SiteContext {
   areas: Array<SiteItem & { kind: 'keepout' | 'operator' }>;
   /** Test a base at plan (x, y) with the yaw of index `yawIndex`. */
   test(x: number, y: number, yawIndex: number): SiteVerdict;
+  /** True when the restricted space looks the same at every yaw (full J1 range): the site verdict does not depend on the yaw. */
+  turnInvariant: boolean;
   /** Whether the base point alone stands on the floor and off structure (no restricted-space test). */
   baseVerdict(x: number, y: number): SiteVerdict;
 }
@@ -56,12 +83,14 @@ function turn(polys: ReadonlyArray<Polygon2>, yawDeg: number): TurnedRegion {
   const c = Math.cos(a), s = Math.sin(a);
   const out: Polygon2[] = polys.map((poly) => poly.map((ring) => ring.map(([u, v]) => [c * u - s * v, s * u + c * v] as [number, number])));
   const edges: number[] = [];
+  let radius = 0;
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const poly of out) {
     for (const ring of poly) {
       for (let k = 0; k < ring.length; k++) {
         const p = ring[k], q = ring[(k + 1) % ring.length];
         edges.push(p[0], p[1], q[0], q[1]);
+        radius = Math.max(radius, Math.hypot(p[0], p[1]));
         if (p[0] < minX) minX = p[0];
         if (p[0] > maxX) maxX = p[0];
         if (p[1] < minY) minY = p[1];
@@ -69,11 +98,12 @@ function turn(polys: ReadonlyArray<Polygon2>, yawDeg: number): TurnedRegion {
       }
     }
   }
-  return { polys: out, edges: Float64Array.from(edges), box: out.length ? [minX, minY, maxX, maxY] : null };
+  return { polys: out, edges: Float64Array.from(edges), box: out.length ? [minX, minY, maxX, maxY] : null, radius };
 }
 
 /** True when the item, shifted by (−dx, −dy) into the turned region's frame, meets the region (edge crossing, or one inside the other). */
 function itemMeets(item: SiteItem, r: TurnedRegion, dx: number, dy: number): boolean {
+  if (boxDistance(item.bbox, dx, dy) > r.radius) return false;
   const b: BBox = [item.bbox[0] - dx, item.bbox[1] - dy, item.bbox[2] - dx, item.bbox[3] - dy];
   if (!bboxOverlap(r.box, b)) return false;
   const shift = (p: readonly [number, number]): [number, number] => [p[0] - dx, p[1] - dy];
@@ -116,11 +146,18 @@ const boxOf = (polys: Polygon2[]): BBox => {
 
 /**
  * Builds the site tests for one arm reach at the given yaws (deg) and mount height (mm), against the
- * floor's structure and the layout's keep-outs and operator areas. Turned regions are built lazily,
+ * floor's structure and the layout's keep-outs and operator areas (obstacles under the work points
+ * excepted for the restricted space). Turned regions are built lazily,
  * once per yaw (and per structure height), so only yaws that pass the margin test cost anything.
  */
-export function siteContext(reach: ArmReach, yawsDeg: ReadonlyArray<number>, mountHeightMm: number, floor: PreparedFloor | null, zones: ReadonlyArray<Zone>): SiteContext {
+export function siteContext(reach: ArmReach, yawsDeg: ReadonlyArray<number>, mountHeightMm: number, floor: PreparedFloor | null, zones: ReadonlyArray<Zone>, workPoints: ReadonlyArray<{ x: number; y: number }> = []): SiteContext {
   const items: SiteItem[] = (floor?.structures ?? []).map((s) => ({ id: s.id, label: s.id, polygons: s.polygons, lines: s.lines, bbox: s.bbox, top: s.top }));
+  // An obstacle under one of the chosen work points is the machine the arm serves: the reach must
+  // enter it, so it only blocks the base. Walls and columns always count.
+  const served = new Set<number>();
+  (floor?.structures ?? []).forEach((s, i) => {
+    if (s.role === 'obstacle' && s.polygons.length && workPoints.some((p) => pointInPolygons(p.x, p.y, s.polygons))) served.add(i);
+  });
   const areas = zones
     .filter((z): z is Zone & { kind: 'keepout' | 'operator' } => z.kind === 'keepout' || z.kind === 'operator')
     .map((z) => {
@@ -128,13 +165,16 @@ export function siteContext(reach: ArmReach, yawsDeg: ReadonlyArray<number>, mou
       return { id: z.id, label: z.label || z.id, kind: z.kind, polygons, lines: [], bbox: boxOf(polygons), top: Infinity };
     });
   const restricted = new Map<number, TurnedRegion>();
+  const invariant = isTurnInvariant(reach.restricted);
   const below = new Map<string, TurnedRegion | null>();
-  const restrictedAt = (yi: number) => {
+  const restrictedAt = (yi0: number) => {
+    const yi = invariant ? 0 : yi0;
     let r = restricted.get(yi);
     if (!r) restricted.set(yi, (r = turn(reach.restricted, yawsDeg[yi])));
     return r;
   };
-  const belowAt = (yi: number, top: number): TurnedRegion | null => {
+  const belowAt = (yi0: number, top: number): TurnedRegion | null => {
+    const yi = invariant ? 0 : yi0;
     const zTop = top - mountHeightMm;
     if (zTop >= reach.zMax) return restrictedAt(yi);
     if (zTop <= reach.zMin) return null;
@@ -158,6 +198,7 @@ export function siteContext(reach: ArmReach, yawsDeg: ReadonlyArray<number>, mou
     items,
     areas,
     baseVerdict,
+    turnInvariant: invariant,
     test(x, y, yi) {
       const base = baseVerdict(x, y);
       if (!base.ok) return base;
@@ -168,7 +209,7 @@ export function siteContext(reach: ArmReach, yawsDeg: ReadonlyArray<number>, mou
         if (bboxOverlap(reachBox, areas[i].bbox) && itemMeets(areas[i], full, x, y)) return { ok: false, kind: areas[i].kind === 'operator' ? 'into-operator' : 'into-keepout', ref: i };
       }
       for (let i = 0; i < items.length; i++) {
-        if (!bboxOverlap(reachBox, items[i].bbox)) continue;
+        if (served.has(i) || !bboxOverlap(reachBox, items[i].bbox)) continue;
         const region = belowAt(yi, items[i].top);
         if (region && itemMeets(items[i], region, x, y)) return { ok: false, kind: 'into-structure', ref: i };
       }
