@@ -30,6 +30,8 @@ export interface EditorToolbarProps {
   onRetrySave(): void;
   /** Opens the plan sheet export (shown to everyone who may read the layout). */
   onExportSheet?(): void;
+  /** Opens the placement search ("Find a place"). */
+  onFindPlace?(): void;
 }
 
 /** The row above the plan: add arm, drawing tools, undo/redo, save state, key help. */
@@ -89,6 +91,11 @@ export function EditorToolbar(p: EditorToolbarProps) {
         {p.readOnly && <span className="px-1 text-xs font-bold text-ink-muted">Read only — findings are shown as the planner sees them.</span>}
         <div className="ml-auto flex items-center gap-2">
           <SaveIndicator save={p.save} onRetry={p.onRetrySave} />
+          {p.onFindPlace && !p.readOnly && (
+            <Button size="sm" onClick={p.onFindPlace}>
+              Find a place
+            </Button>
+          )}
           {p.onExportSheet && (
             <Button size="sm" onClick={p.onExportSheet}>
               Export plan sheet
