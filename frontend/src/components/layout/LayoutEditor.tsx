@@ -24,7 +24,7 @@ import { EditorToolbar } from './EditorToolbar';
 import { FindingsPanel } from './FindingsPanel';
 import { LayoutPanels } from './LayoutPanels';
 import { PlacementPanel } from './PlacementPanel';
-import { cellAt, drawPlacement } from './placementMapDraw';
+import { cellAt, drawPlacementMap, drawPlacementMarks } from './placementMapDraw';
 import { createLayoutScene, type EditorTool, type LayoutScene, type ShapeTool } from './layoutScene';
 import type { LayoutSelection } from './panelTypes';
 import { WorkHeightsEditor } from './WorkHeightsEditor';
@@ -180,8 +180,18 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
     if (!canvas) return;
     const shown = placeOpen ? placing.map?.map ?? null : null;
     const proposed = placeOpen && placing.proposal ? placing.proposal.content.arms.map((a) => ({ id: a.id, x: a.x, y: a.y })) : [];
-    drawPlacement(canvas, shown, placeOpen ? { candidates: placing.result?.candidates ?? [], proposed, onPick: placeCandidate } : null);
+    drawPlacementMap(canvas, shown);
+    const marks = placeOpen ? { candidates: placing.result?.candidates ?? [], proposed, onPick: placeCandidate } : null;
+    drawPlacementMarks(canvas, marks);
+    return canvas.onView(() => drawPlacementMarks(canvas, marks));
   }, [canvas, placeOpen, placing.map, placing.result, placing.proposal, placeCandidate]);
+
+  // A finished search shows its map whole (with 1.5 m around it).
+  useEffect(() => {
+    const m = placing.result?.map;
+    if (!canvas || !m || m.cols === 0) return;
+    canvas.fit({ minX: m.origin[0] - 1500, minY: m.origin[1] - 1500, maxX: m.origin[0] + m.cols * m.gridMm + 1500, maxY: m.origin[1] + m.rows * m.gridMm + 1500 }, { animate: true });
+  }, [canvas, placing.result]);
 
   useEffect(() => {
     const m = placeOpen ? placing.map : null;

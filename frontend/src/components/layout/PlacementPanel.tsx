@@ -82,7 +82,16 @@ export function PlacementPanel(p: PlacementPanelProps) {
         A planning estimate from nominal kinematics (tool point and payload only); it does not replace a risk assessment or the guarding design of a competent person under local codes.
       </p>
       {mode === 'one' ? (
-        <SelectField label="Arm" value={who} onChange={(e) => setWho(e.target.value)}>
+        <SelectField
+          label="Arm"
+          value={who}
+          onChange={(e) => {
+            setWho(e.target.value);
+            // A placed arm keeps its mount height and restricting limits unless they are changed here.
+            const a = e.target.value.startsWith('arm:') ? p.content.arms.find((x) => x.id === e.target.value.slice(4)) : undefined;
+            if (a) setF((o) => ({ ...o, mount: String(a.mountHeight), j1Min: a.restrict ? String(a.restrict.j1Min) : '', j1Max: a.restrict ? String(a.restrict.j1Max) : '' }));
+          }}
+        >
           <optgroup label="New arm of a model">
             {p.armModels.map((m) => <option key={m.id} value={`model:${m.id}`}>{m.name}</option>)}
           </optgroup>

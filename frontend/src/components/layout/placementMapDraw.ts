@@ -66,8 +66,8 @@ export interface PlacementMarks {
   onPick(index: number): void;
 }
 
-/** Draws (or, with null, removes) the map and the marks. */
-export function drawPlacement(canvas: PlanCanvas, map: PlacementMap | null, marks: PlacementMarks | null): void {
+/** Draws (or, with null, removes) the map (plan mm: it follows zoom and pan by itself). */
+export function drawPlacementMap(canvas: PlanCanvas, map: PlacementMap | null): void {
   if (!map) canvas.removeOverlay(MAP_OVERLAY.name);
   else {
     const href = mapImage(map, marginScale(map));
@@ -85,6 +85,10 @@ export function drawPlacement(canvas: PlanCanvas, map: PlacementMap | null, mark
         .style('image-rendering', 'pixelated');
     }, MAP_OVERLAY);
   }
+}
+
+/** Draws (or, with null, removes) the candidate and proposal marks (screen px: call again on every view change). */
+export function drawPlacementMarks(canvas: PlanCanvas, marks: PlacementMarks | null): void {
   if (!marks || (marks.candidates.length === 0 && marks.proposed.length === 0)) {
     canvas.removeOverlay(MARK_OVERLAY.name);
     return;
