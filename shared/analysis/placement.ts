@@ -52,7 +52,7 @@ export interface PlacementQuery {
 }
 
 /** Cell reason codes (`PlacementMap.reason`). */
-export const REASON = { ok: 0, pointShort: 1, offFloor: 2, baseOnStructure: 3, intoStructure: 4, intoKeepout: 5, intoOperator: 6 } as const;
+export const REASON = { ok: 0, pointShort: 1, offFloor: 2, baseOnStructure: 3, intoStructure: 4, intoKeepout: 5, intoOperator: 6, farShort: 7 } as const;
 
 /** The placement map: cell (i, j) has its centre at origin + ((i + ½)·gridMm, (j + ½)·gridMm), index j·cols + i. */
 export interface PlacementMap {
@@ -316,20 +316,22 @@ export function* placementSteps(q: PlacementQuery): Generator<PlacementProgress,
   // Map level: subdivide every coarse cell that may hold a passing spot.
   const sub = COARSE_MM / MAP_MM;
   const map = emptyMap(MAP_MM, [ox, oy], ccols * sub, crows * sub);
-  const reach = MARGIN_SLOPE * COARSE_MM * Math.SQRT1_2;
+  const pruneBy = MARGIN_SLOPE * COARSE_MM * Math.SQRT1_2;
   let lastYield = 0;
   for (let cj = 0; cj < crows; cj++) {
     for (let ci = 0; ci < ccols; ci++) {
       const ck = cj * ccols + ci;
       const cm = coarse.reason[ck] === REASON.ok ? coarse.worstMarginMm[ck] : coarse.yawDeg[ck];
-      const prune = coarse.reason[ck] === REASON.pointShort && cm + reach < q.minMarginMm;
+      const prune = coarse.reason[ck] === REASON.pointShort && cm + pruneBy < q.minMarginMm;
       for (let sj = 0; sj < sub; sj++) {
         for (let si = 0; si < sub; si++) {
           const i = ci * sub + si, j = cj * sub + sj, k = j * map.cols + i;
           if (prune) {
-            map.reason[k] = REASON.pointShort;
+            // Not evaluated: short by at least the coarse shortfall less the slope over the distance.
+            const d = Math.hypot((si + 0.5) * MAP_MM - COARSE_MM / 2, (sj + 0.5) * MAP_MM - COARSE_MM / 2);
+            map.reason[k] = REASON.farShort;
             map.reasonRef[k] = coarse.reasonRef[ck];
-            map.reasonValue[k] = coarse.reasonValue[ck];
+            map.reasonValue[k] = coarse.reasonValue[ck] - MARGIN_SLOPE * d;
             continue;
           }
           const o = evalCell(ev, site, q.minMarginMm, ox + (i + 0.5) * MAP_MM, oy + (j + 0.5) * MAP_MM, hint);
@@ -441,6 +443,7 @@ export function cellReasonText(map: PlacementMap, names: PlacementNames, k: numb
   switch (map.reason[k]) {
     case REASON.ok: return null;
     case REASON.pointShort: return `${names.points[ref] ?? 'a work point'} out of reach by ${mmText(map.reasonValue[k])} mm`;
+    case REASON.farShort: return `out of reach by at least ${mmText(map.reasonValue[k])} mm (${names.points[ref] ?? 'a work point'} is short nearby)`;
     case REASON.offFloor: return 'base outside the floor';
     case REASON.baseOnStructure: return `base on ${names.items[ref]?.role ?? 'structure'} ${names.items[ref]?.id ?? ''}`.trim();
     case REASON.intoStructure: return `restricted space enters ${names.items[ref]?.role ?? 'structure'} ${names.items[ref]?.id ?? ''}`.trim();
@@ -460,7 +463,7 @@ function pointLimits(q: PlacementQuery, yaws: number[], map: PlacementMap, names
   }
   const siteCounts = new Map<string, number>();
   for (let k = 0; k < map.reason.length; k++) {
-    if (map.reason[k] === REASON.ok || map.reason[k] === REASON.pointShort) continue;
+    if (map.reason[k] === REASON.ok || map.reason[k] === REASON.pointShort || map.reason[k] === REASON.farShort) continue;
     const t = cellReasonText(map, names, k)!;
     siteCounts.set(t, (siteCounts.get(t) ?? 0) + 1);
   }

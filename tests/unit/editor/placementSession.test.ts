@@ -82,3 +82,21 @@ describe('placement edits', () => {
     expect(() => placeAtCandidate(content, { x: 0, y: 0, yawDeg: 0 }, { armId: 'R9' })).toThrow(/No arm R9/);
   });
 });
+
+describe('placement worker session: auto-layout', () => {
+  it('posts a proposal with both layouts scored by the same analysis', () => {
+    const out: FromPlacementWorker[] = [];
+    const queue: Array<() => void> = [];
+    const s = createPlacementSession(armReachFor, (m) => out.push(m), (fn) => queue.push(fn));
+    s.receive({ type: 'auto', id: 4, request: { models: [{ armModelId: 1, count: 2 }], pointIds: ['P1', 'P2', 'P3'], minMarginMm: 0, mountHeightMm: 0, seed: 1, timeLimitS: 30 }, content, models, floor: null });
+    while (queue.length) queue.shift()!();
+    const done = out.find((m) => m.type === 'proposed');
+    expect(done?.type).toBe('proposed');
+    if (done?.type !== 'proposed') return;
+    // The current layout's R1 stands 3 m away: every point unreached; the proposal reaches them all.
+    expect(done.scores.current.unreachedPoints).toBe(3);
+    expect(done.scores.proposal.unreachedPoints).toBe(0);
+    expect(done.proposal.arms).toHaveLength(1);
+    expect(done.proposal.workPoints.every((p) => p.assignedArm === done.proposal.arms[0].id)).toBe(true);
+  });
+});

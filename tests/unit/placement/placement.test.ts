@@ -3,7 +3,8 @@
 // spots that reach a point form the same annulus around it, and the spot that reaches every point of
 // a circle best is its centre.
 import { describe, expect, it } from 'vitest';
-import { createAnalyzer, placementSearch, type PlacementQuery } from '@shared/analysis';
+import { cellReasonText, createAnalyzer, placementSearch, type PlacementQuery } from '@shared/analysis';
+import { cellAt } from '../../../frontend/src/components/layout/placementMapDraw';
 import { armReachFor } from '@shared/analysis/armReach';
 import type { WorkPoint, Zone } from '@shared/schemas/layout';
 import { polygonsArea } from '@shared/geometry/area';
@@ -94,6 +95,10 @@ describe('placement search', () => {
     expect(p7.reason).toMatch(/^P7 is out of reach at its height/);
     // Flange target 1 200 mm over a stroke ending at 400 mm: 800 mm short (scara stroke margin).
     expect(p7.shortMm).toBeCloseTo(800, 0);
+    // Cells that far short are not evaluated one by one: their text gives a lower bound (800 mm less
+    // the margin's largest change across a coarse cell) and the point that limits nearby.
+    const texts = new Set(Array.from(r.map.reason, (_v, k) => cellReasonText(r.map, r.names, k)!.replace(/\d+/, 'N')));
+    expect([...texts]).toEqual(['out of reach by at least N mm (P7 is short nearby)']);
   });
 
   it('gives a feasible area for one point equal to the annulus π(R² − r²) within 1 %', () => {
@@ -102,6 +107,12 @@ describe('placement search', () => {
     const r = placementSearch(query({ reach, points: [{ id: 'P1', x: centre.x, y: centre.y, z: 200, approach: 'top' }] }));
     const ring = (Math.PI * (600 ** 2 - 100 ** 2)) / 1e6; // ring area formula, m²
     expect(Math.abs(r.feasibleAreaM2 - ring) / ring).toBeLessThan(0.01);
+    // A base right under the point is inside the 100 mm hole: the hover text says by how much.
+    const k = cellAt(r.map, centre.x + 1, centre.y + 1);
+    const short = 100 - Math.hypot(r.map.origin[0] + ((k % r.map.cols) + 0.5) * 50 - centre.x, r.map.origin[1] + (Math.floor(k / r.map.cols) + 0.5) * 50 - centre.y);
+    const text = cellReasonText(r.map, r.names, k)!;
+    expect(text).toMatch(/^P1 out of reach by \d+ mm$/);
+    expect(Math.abs(Number(/by (\d+)/.exec(text)![1]) - short)).toBeLessThanOrEqual(1.5); // the margin's distance grid is exact to about 1 mm
   });
 
   it('refuses a query it cannot answer with a message naming the field', () => {
