@@ -1,5 +1,6 @@
 // Find a place in Chromium on the seeded demo: search where the first picker may stand for the
-// handover point, see the map and the candidates, place the arm at the best one (one undo step).
+// handover point, see the map and the candidates, place the arm at the best one (one undo step);
+// then propose arms for it and discard the proposal.
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SCREENS, signInPage, startE2e, type E2e } from '../support/e2e';
@@ -11,7 +12,7 @@ beforeAll(async () => {
 afterAll(async () => e?.close());
 
 describe('placement search in the editor', () => {
-  it('draws the map and candidates for the demo and places the arm at a candidate', async () => {
+  it('draws the map and candidates for the demo, places the arm at a candidate, and previews a proposal', async () => {
     const page = await e.browser.newPage({ viewport: { width: 1440, height: 1100 } });
     await signInPage(page, e.server.url, 'planner@fernhill.test');
     const ids = await page.evaluate(async () => {
@@ -51,6 +52,19 @@ describe('placement search in the editor', () => {
     // One undo step puts the arm back where it stood.
     await page.keyboard.press('Control+z');
     await expect.poll(async () => { const a = await stored(); return [a.x, a.y]; }, { timeout: 10_000 }).toEqual([before.x, before.y]);
+
+    // Propose arms: one SCARA for the handover point, shown beside the current layout with both scores.
+    await panel.getByRole('tab', { name: 'Propose arms' }).click();
+    await panel.getByLabel('Demo SCARA 600').fill('1');
+    await panel.getByLabel('Mount height (mm)').fill('400');
+    await panel.getByRole('button', { name: 'Propose' }).click();
+    const proposal = panel.locator('[data-proposal]');
+    await proposal.waitFor({ timeout: 20_000 });
+    expect(await proposal.getByRole('row', { name: /^Arms/ }).textContent()).toMatch(/^Arms41$/);
+    expect(await page.locator('g.placement-proposed').count()).toBe(1);
+    await proposal.getByRole('button', { name: 'Discard' }).click();
+    await expect.poll(() => page.locator('g.placement-proposed').count()).toBe(0);
+    expect((await stored()).x).toBe(before.x);
     await page.close();
   });
 });
