@@ -13,6 +13,7 @@ import { floorPlansRouter } from './routes/floorPlans';
 import { invitationsRouter } from './routes/invitations';
 import { kinematicsRouter } from './routes/kinematics';
 import { layoutsRouter } from './routes/layouts';
+import { placementRouter } from './routes/placement';
 import { planSheetsRouter } from './routes/planSheets';
 import { revisionsRouter } from './routes/revisions';
 import { safeguardingRouter } from './routes/safeguarding';
@@ -30,6 +31,7 @@ export function featureRouters(ctx: FeatureContext): Router[] {
     kinematicsRouter(),
     safeguardingRouter(),
     fenceProposalsRouter(),
+    placementRouter(),
     planSheetsRouter(),
     revisionsRouter(ctx),
     commentsRouter(ctx),

@@ -142,6 +142,12 @@ const ROWS: Row[] = [
   { method: 'delete', path: (c) => `/api/invitations/${c.invitationId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 403, admin: 204 } },
   { method: 'get', path: () => '/api/invitations/token/not-a-real-token-at-all-000', expect: { anon: 404, client: 404, reviewer: 404, planner: 404, admin: 404 } },
   { method: 'get', path: (c) => `/api/layouts/${c.layoutId}/plan-sheet.pdf?sheets=plan`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
+  {
+    method: 'post',
+    path: (c) => `/api/layouts/${c.layoutId}/placement-search`,
+    body: (c) => ({ armModelId: c.armModelId, pointIds: ['P1'] }),
+    expect: { anon: 401, client: 403, reviewer: 400, planner: 400, admin: 400 },
+  },
   { method: 'get', path: (c) => `/api/layouts/${c.layoutId}/layout.dxf`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
   // A layout with released revisions is a record: 409 (archive it instead); one without goes.
   { method: 'delete', path: (c) => `/api/layouts/${c.layoutId}`, expect: { anon: 401, client: 403, reviewer: 403, planner: 409, admin: 409 } },

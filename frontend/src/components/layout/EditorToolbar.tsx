@@ -33,6 +33,8 @@ export interface EditorToolbarProps {
   onExportSheet?(): void;
   /** Opens the guard-ring proposal (editors only). */
   onProposeGuardRing?(): void;
+  /** Opens the placement search ("Find a place"). */
+  onFindPlace?(): void;
 }
 
 /** The row above the plan: add arm, drawing tools, undo/redo, save state, key help. */
@@ -92,6 +94,11 @@ export function EditorToolbar(p: EditorToolbarProps) {
         {p.readOnly && <span className="px-1 text-xs font-bold text-ink-muted">Read only — findings are shown as the planner sees them.</span>}
         <div className="ml-auto flex items-center gap-2">
           <SaveIndicator save={p.save} onRetry={p.onRetrySave} />
+          {p.onFindPlace && !p.readOnly && (
+            <Button size="sm" onClick={p.onFindPlace}>
+              Find a place
+            </Button>
+          )}
           {!p.readOnly && p.onProposeGuardRing && (
             <Button size="sm" onClick={p.onProposeGuardRing}>
               Propose guard ring

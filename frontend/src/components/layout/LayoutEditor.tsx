@@ -11,6 +11,9 @@ import { useCreateLayout } from '../../api/layouts';
 import { commandForKey } from '../../editor/editorKeys';
 import { addArm, addWorkPoint, addZone, duplicateArm, moveArm, moveZoneVertex, nudgeArm, removeArm, removeZone, rotateArm, roundMm, setArmYaw } from '../../editor/layoutEdits';
 import { useAnalysisWorker } from '../../editor/useAnalysisWorker';
+import { placeAtCandidate } from '../../editor/placementEdits';
+import { usePlacementWorker } from '../../editor/usePlacementWorker';
+import { cellReasonText } from '@shared/analysis/placement';
 import { useLayoutEditor } from '../../editor/useLayoutEditor';
 import { PlanView } from '../../plan/PlanView';
 import type { PlanCanvas } from '../../plan/planTypes';
@@ -25,6 +28,8 @@ import { GuardRingPanel } from './GuardRingPanel';
 import { drawGuardRingPreview, GUARD_RING_PREVIEW } from './guardRingPreview';
 import { LayoutPanels } from './LayoutPanels';
 import { SectionView } from './SectionView';
+import { PlacementPanel } from './PlacementPanel';
+import { cellAt, drawPlacementMap, drawPlacementMarks } from './placementMapDraw';
 import { createLayoutScene, type EditorTool, type LayoutScene, type ShapeTool } from './layoutScene';
 import type { LayoutSelection } from './panelTypes';
 import { WorkHeightsEditor } from './WorkHeightsEditor';
@@ -87,6 +92,11 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
     [floorPlan],
   );
   const live = useAnalysisWorker({ models, floor, content, sectionLine });
+  const placing = usePlacementWorker();
+  const [placeOpen, setPlaceOpen] = useState(false);
+  const [placeHover, setPlaceHover] = useState<string | null>(null);
+  // What the last search was for, so a candidate can be placed as the search meant it.
+  const [placeFor, setPlaceFor] = useState<{ armId?: string; armModelId: number; mountHeight: number; restrict?: { j1Min: number; j1Max: number } } | null>(null);
   const findings = live.view?.analysis.findings ?? null;
   const selectedFinding = selection?.kind === 'finding' ? (findings?.find((f) => f.id === selection.id) ?? null) : null;
   const highlightArms = useMemo(() => (selectedFinding ? new Set(selectedFinding.arms) : NO_HIGHLIGHT), [selectedFinding]);
@@ -174,6 +184,49 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
     canvas.setOverlay(GUARD_RING_PREVIEW.name, (l) => drawGuardRingPreview(l, ringProposal, ringProposal?.system.postWidthMm ?? 0), GUARD_RING_PREVIEW);
     return () => canvas.removeOverlay(GUARD_RING_PREVIEW.name);
   }, [canvas, ringProposal]);
+
+  const placeCandidate = useCallback(
+    (index: number) => {
+      const c = placing.result?.candidates[index];
+      if (!c || !placeFor || readOnly) return;
+      const r = placeAtCandidate(contentRef.current, c, placeFor.armId ? { armId: placeFor.armId } : { armModelId: placeFor.armModelId, mountHeight: placeFor.mountHeight, restrict: placeFor.restrict });
+      edit(r.content, placeFor.armId ? `Move ${r.id} to candidate ${index + 1}` : `Place ${r.id} at candidate ${index + 1}`);
+      setSelection({ kind: 'arm', id: r.id });
+      setHint(`${r.id} placed at candidate ${index + 1} (worst margin ${c.worstMarginMm.toFixed(0)} mm); undo puts it back.`);
+    },
+    [placing.result, placeFor, readOnly, edit],
+  );
+
+  useEffect(() => {
+    if (!canvas) return;
+    const shown = placeOpen ? placing.map?.map ?? null : null;
+    const proposed = placeOpen && placing.proposal ? placing.proposal.content.arms.map((a) => ({ id: a.id, x: a.x, y: a.y })) : [];
+    drawPlacementMap(canvas, shown);
+    const marks = placeOpen ? { candidates: placing.result?.candidates ?? [], proposed, onPick: placeCandidate } : null;
+    drawPlacementMarks(canvas, marks);
+    return canvas.onView(() => drawPlacementMarks(canvas, marks));
+  }, [canvas, placeOpen, placing.map, placing.result, placing.proposal, placeCandidate]);
+
+  // A finished search shows its map whole (with 1.5 m around it).
+  useEffect(() => {
+    const m = placing.result?.map;
+    if (!canvas || !m || m.cols === 0) return;
+    canvas.fit({ minX: m.origin[0] - 1500, minY: m.origin[1] - 1500, maxX: m.origin[0] + m.cols * m.gridMm + 1500, maxY: m.origin[1] + m.rows * m.gridMm + 1500 }, { animate: true });
+  }, [canvas, placing.result]);
+
+  useEffect(() => {
+    const m = placeOpen ? placing.map : null;
+    if (!canvas || !m) return;
+    const onMove = (e: PointerEvent) => {
+      const pt = canvas.view().toPlan(e.clientX, e.clientY);
+      const k = cellAt(m.map, pt.x, pt.y);
+      if (k < 0) return setPlaceHover(null);
+      const why = cellReasonText(m.map, m.names, k);
+      setPlaceHover(why ?? `worst margin ${m.map.worstMarginMm[k].toFixed(0)} mm at yaw ${m.map.yawDeg[k]}°`);
+    };
+    canvas.svg.addEventListener('pointermove', onMove);
+    return () => canvas.svg.removeEventListener('pointermove', onMove);
+  }, [canvas, placeOpen, placing.map]);
 
   const selectedArm = selection?.kind === 'arm' ? content.arms.find((a) => a.id === selection.id) : undefined;
   const selectedZone = selection?.kind === 'zone' ? content.zones.find((z) => z.id === selection.id) : undefined;
@@ -284,6 +337,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
           setRingOpen(true);
           setSelection(null);
         }}
+        onFindPlace={() => setPlaceOpen(true)}
       />
       <PlanSheetDialog open={sheetOpen} onClose={() => setSheetOpen(false)} layoutId={layout.id} layoutName={layout.name} />
       <div className="rounded-control border border-rule bg-paper-raised px-3 py-2">
@@ -325,7 +379,35 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
               />
             </div>
           )}
-          {!ringOpen && (selectedArm || selectedZone) && (
+          {placeOpen && (
+            <div className="max-h-[70%] shrink-0 overflow-y-auto">
+              <PlacementPanel
+                content={content}
+                armModels={modelList}
+                selectedPointId={selection?.kind === 'point' ? selection.id : null}
+                work={placing}
+                hover={placeHover}
+                readOnly={readOnly}
+                onSearch={(request) => {
+                  setPlaceFor({ armId: request.armId, armModelId: request.armModelId, mountHeight: request.mountHeightMm, restrict: request.restrict });
+                  placing.search(request, { content: contentRef.current, models, floor });
+                }}
+                onPropose={(request) => placing.propose(request, { content: contentRef.current, models, floor })}
+                onPlace={placeCandidate}
+                onAcceptProposal={() => {
+                  if (!placing.proposal) return;
+                  edit(placing.proposal.content, `Take the proposed layout (${placing.proposal.content.arms.length} arms)`);
+                  placing.clear();
+                }}
+                onClose={() => {
+                  placing.cancel();
+                  setPlaceOpen(false);
+                  setPlaceHover(null);
+                }}
+              />
+            </div>
+          )}
+          {!ringOpen && !placeOpen && (selectedArm || selectedZone) && (
             <div className="max-h-[55%] shrink-0 overflow-y-auto rounded-control border border-rule bg-paper-raised p-3">
               {selectedArm ? (
                 <ArmInspector arm={selectedArm} content={content} armModels={modelList} readOnly={readOnly} onEdit={edit} onSelectArm={(id) => setSelection(id ? { kind: 'arm', id } : null)} />

@@ -1,0 +1,30 @@
+import { placementSearch, prepareFloor, type FloorLayer } from '@shared/analysis';
+import { armReachFor } from '@shared/analysis/armReach';
+import { placementQueryOf, presentPlacement } from '@shared/analysis/placementRequest';
+import type { LayoutContent } from '@shared/schemas/layout';
+import type { PlacementSearchDto, PlacementSearchInput } from '@shared/schemas/placement';
+import { badRequest } from '../http/errors';
+import { ArmModel, FloorPlan, type Layout } from '../models';
+
+/** The placement search on a stored layout: its floor plan, zones, placed arms and the models' stored parameters. */
+export async function searchPlacement(layout: Layout, input: PlacementSearchInput): Promise<PlacementSearchDto> {
+  const content = layout.content as LayoutContent;
+  const modelIds = [...new Set([input.armModelId, ...content.arms.map((a) => a.armModelId)])];
+  const models = await ArmModel.findAll({ where: { id: modelIds }, attributes: ['id', 'params'] });
+  const params = new Map(models.map((m) => [m.id, m.params]));
+  if (!params.has(input.armModelId)) throw badRequest(`Unknown arm model ${input.armModelId}.`, { armModelId: 'Choose an arm model of the catalogue' });
+  const fp = layout.floorPlanId ? await FloorPlan.findByPk(layout.floorPlanId, { attributes: ['id', 'geometry', 'layers'] }) : null;
+  const floor = fp ? prepareFloor(fp.geometry, fp.layers as FloorLayer[]) : null;
+  const reachFor = (id: number, restrict: Parameters<typeof armReachFor>[1]) => {
+    const p = params.get(id);
+    if (!p) throw new Error(`arm model ${id} does not exist`);
+    return armReachFor(p, restrict);
+  };
+  let query;
+  try {
+    query = placementQueryOf(input, content, floor, reachFor);
+  } catch (err) {
+    throw badRequest(`The placement search cannot run: ${err instanceof Error ? err.message : String(err)}.`);
+  }
+  return presentPlacement(placementSearch(query));
+}
