@@ -25,6 +25,24 @@ export default tseslint.config(
     rules: { 'import-x/no-cycle': ['error', { ignoreExternal: true }] },
   },
   {
+    // Outside shared/, shared folders that have a barrel are imported through it.
+    files: ['backend/**/*.ts', 'frontend/src/**/*.{ts,tsx}'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['@shared/analysis/*', '@shared/geometry/*', '@shared/kinematics/*', '@shared/safety/*'],
+              message: 'Import shared code through its folder barrel (e.g. @shared/analysis, not @shared/analysis/reached).',
+            },
+            { group: ['**/../shared/*'], message: 'Use the @shared/* alias for shared code.' },
+          ],
+        },
+      ],
+    },
+  },
+  {
     files: ['frontend/src/**/*.{ts,tsx}'],
     plugins: { 'react-hooks': reactHooks },
     rules: reactHooks.configs.recommended.rules,

@@ -58,6 +58,8 @@ export default defineConfig({
           testTimeout: 90000,
           hookTimeout: 120000,
           fileParallelism: false,
+          // Polls wait for the page, which is slower while the other projects run beside it.
+          expect: { poll: { timeout: 10000 } },
         },
       },
     ],

@@ -4,7 +4,7 @@
 // Exit code 0 when every file was read, 1 when any was refused, 2 when FOLDER cannot be read.
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
-import { checkDrawingUnit, lengthText } from '@shared/geometry/drawingScale';
+import { checkDrawingUnit, lengthText } from '@shared/geometry';
 import { LAYER_ROLES, type ImportResult } from '@shared/schemas/floorPlan';
 import { isDxfImportError } from '../src/services/dxf/errors';
 import { parseInWorker } from '../src/services/dxf/parseInWorker';

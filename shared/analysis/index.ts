@@ -8,6 +8,9 @@ export {
   FINDING_KINDS,
   type FindingKind,
   type PreparedFloor,
+  type SafeguardFenceRow,
+  type SafeguardingResult,
+  type SafeguardOpeningRow,
   type Severity,
   type SharedZone,
   type StructureItem,
@@ -17,10 +20,12 @@ export { type Analyzer, createAnalyzer, FAR_MM, FENCE_CLEARANCE_MM, MIN_FENCE_HE
 export { findingId, m2, m2Text, mm, parseFindingId, SEVERITY_OF, sortFindings } from './messages';
 export { isReached, roundMargin, shortfallText } from './reached';
 export {
+  bestAlone,
   cellReasonText,
   type PlacementCandidate,
   type PlacementMap,
   type PlacementNames,
+  type PlacementNeighbour,
   type PlacementPoint,
   type PlacementProgress,
   type PlacementQuery,
@@ -42,3 +47,69 @@ export {
   layoutScore,
   proposalContent,
 } from './autoLayout';
+export { armReachFor } from './armReach';
+export {
+  ANCHORS_PER_POST,
+  bomCsv,
+  type BomLine,
+  CORNER_DEG,
+  doorItem,
+  type FenceLine,
+  fenceLinesOf,
+  fenceParts,
+  type FenceParts,
+  MIN_CUT_PANEL_MM,
+  type PlacedDoor,
+  type PlacedPanel,
+  type PlacedPost,
+  type PostKind,
+  type RunPanel,
+  SINGLE_LEAF_MAX_MM,
+  splitRun,
+  WALL_TOUCH_MM,
+} from './fenceBom';
+export {
+  applyFenceProposal,
+  DOOR_INTERLOCK_RESPONSE_S,
+  type FenceProposal,
+  FenceProposalError,
+  type FenceProposalInput,
+  type ProposedRing,
+  proposeFence,
+  type RequiredDistance,
+} from './fenceProposal';
+export {
+  type Box,
+  boxOverlap,
+  boxUnion,
+  obstacleBoxes,
+  perimeter,
+  routeAroundObstacles,
+  snapToWalls,
+  splitOnWalls,
+  WALL_SNAP_MM,
+  wallFacesOf,
+} from './fenceRing';
+export { placementQueryOf, presentPlacement } from './placementRequest';
+export {
+  checkSectionLine,
+  type SectionArm,
+  type SectionCut,
+  sectionCutOf,
+  type SectionDimension,
+  type SectionFence,
+  type SectionInput,
+  type SectionLine,
+  sectionOf,
+  type SectionOpening,
+  type SectionResult,
+  type SectionStructure,
+} from './section';
+export {
+  type ArmSafeguardMeasure,
+  FENCE_SAFEGUARD_RANGE_MM,
+  fenceSolidParts,
+  measureArmSafeguarding,
+  type SafeguardArm,
+  safeguardingChecks,
+} from './safeguarding';

@@ -59,3 +59,5 @@ export {
 export { clipDifference, clipIntersect, clipOffset, clipUnion } from './clipper';
 export { buildDistanceGrid, type DistanceGrid } from './distanceGrid';
 export { simplifyPolygons, simplifyPolygonsOutward, simplifyRing } from './simplify';
+export { checkDrawingUnit, lengthText, PLAUSIBLE_EXTENT_MM, type UnitCheck } from './drawingScale';
+export { convexHull, ringPerimeter } from './hull';

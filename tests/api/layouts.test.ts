@@ -79,7 +79,9 @@ describe('layouts', () => {
 describe('layout analysis endpoint', () => {
   it('analyses the stored layout and unsaved content with the shared engine; bad content is a 400', async () => {
     const reviewer = await buildUser({ role: 'reviewer' });
-    const model = await buildArmModel({ params: { family: 'scara', innerLink: 500, outerLink: 500, strokeMin: 0, strokeMax: 300, axes: [{ min: -180, max: 180 }, { min: -180, max: 180 }] } });
+    // Links of zero radius: the whole-arm envelope of a full-range SCARA is then the disk of l1 + l2.
+    const linkSizes = { innerLinkRadius: 0, outerLinkRadius: 0, toolRadius: 0 };
+    const model = await buildArmModel({ params: { family: 'scara', innerLink: 500, outerLink: 500, strokeMin: 0, strokeMax: 300, axes: [{ min: -180, max: 180 }, { min: -180, max: 180 }], linkSizes } });
     const project = await buildProject();
     const content = {
       arms: [

@@ -39,7 +39,7 @@ describe('arm catalogue in Chromium', () => {
     expect(await page.getByLabel('Upper arm (mm)').isDisabled()).toBe(true);
     await page.screenshot({ path: path.join(SCREENS, 'catalogue-built-in.png'), fullPage: true });
     await page.getByRole('button', { name: 'Duplicate' }).click();
-    await expect.poll(() => page.getByLabel('Model name').inputValue()).toBe('Demo Articulated 1400 (copy)');
+    await expect.poll(() => page.getByLabel('Model name').inputValue(), { timeout: 10_000 }).toBe('Demo Articulated 1400 (copy)');
     const before = await plottedMaxReach(page);
     expect(before).toBeGreaterThan(1000);
 

@@ -1,7 +1,7 @@
 import { Router, type RequestHandler, type Response } from 'express';
 import multer from 'multer';
 import type { Sequelize } from 'sequelize';
-import { checkDrawingUnit } from '@shared/geometry/drawingScale';
+import { checkDrawingUnit } from '@shared/geometry';
 import { FloorPlanPatch, SavedLayerRoles, type ImportResult, type SavedLayerRole, type UnitName } from '@shared/schemas/floorPlan';
 import type { SessionUser } from '../auth/passport';
 import { allow, currentUser } from '../auth/guards';

@@ -1,6 +1,6 @@
 import type { z } from 'zod';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel } from '@shared/kinematics/families';
+import { FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel } from '@shared/kinematics';
 import type { ArmParams } from '@shared/schemas/armModel';
 import { fieldErrors } from '@shared/schemas/errors';
 import { badRequest, notFound } from '../http/errors';

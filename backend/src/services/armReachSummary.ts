@@ -1,4 +1,4 @@
-import { feasibleArmParamsSchema, reachProfileOf } from '@shared/kinematics/families';
+import { feasibleArmParamsSchema, reachProfileOf } from '@shared/kinematics';
 import type { ArmParams } from '@shared/schemas/armModel';
 
 /**

@@ -1,6 +1,6 @@
 import { prepareFloor, type FloorLayer } from '@shared/analysis';
-import { armReachFor } from '@shared/analysis/armReach';
-import { FenceProposalError, proposeFence, type FenceProposal } from '@shared/analysis/fenceProposal';
+import { armReachFor } from '@shared/analysis';
+import { FenceProposalError, proposeFence, type FenceProposal } from '@shared/analysis';
 import type { FenceSystem } from '@shared/schemas/fenceProposal';
 import type { LayoutContent } from '@shared/schemas/layout';
 import { badRequest } from '../http/errors';

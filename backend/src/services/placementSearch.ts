@@ -1,6 +1,6 @@
 import { placementSearch, prepareFloor, type FloorLayer } from '@shared/analysis';
-import { armReachFor } from '@shared/analysis/armReach';
-import { placementQueryOf, presentPlacement } from '@shared/analysis/placementRequest';
+import { armReachFor } from '@shared/analysis';
+import { placementQueryOf, presentPlacement } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
 import type { PlacementSearchDto, PlacementSearchInput } from '@shared/schemas/placement';
 import { badRequest } from '../http/errors';

@@ -2,10 +2,10 @@
 // analysis, reach profiles and bands, arm models' reach summaries, plan-sheet rendering. Pure work on plain data: no database.
 import type { FeatureCollection } from 'geojson';
 import { createAnalyzer, prepareFloor, type AnalysisResult, type FloorLayer } from '@shared/analysis';
-import { armReachFor } from '@shared/analysis/armReach';
-import { reachProfileOf } from '@shared/kinematics/families';
-import { bandAt } from '@shared/kinematics/planRegions';
-import type { AreaGeometry } from '@shared/geometry/geojson';
+import { armReachFor } from '@shared/analysis';
+import { reachProfileOf } from '@shared/kinematics';
+import { bandAt } from '@shared/kinematics';
+import type { AreaGeometry } from '@shared/geometry';
 import type { ArmParams } from '@shared/schemas/armModel';
 import type { LayoutContent } from '@shared/schemas/layout';
 import { reachSummaryOf, type ArmReachSummary } from '../services/armReachSummary';

@@ -1,5 +1,5 @@
 import { useMutation } from '@tanstack/react-query';
-import type { FenceProposal } from '@shared/analysis/fenceProposal';
+import type { FenceProposal } from '@shared/analysis';
 import type { FenceSystemInput } from '@shared/schemas/fenceProposal';
 import type { LayoutContent } from '@shared/schemas/layout';
 import { api } from './client';

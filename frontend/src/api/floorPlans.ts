@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { FeatureCollection, Geometry } from 'geojson';
-import type { UnitCheck } from '@shared/geometry/drawingScale';
+import type { UnitCheck } from '@shared/geometry';
 import type { FloorPlanPatch, ImportBounds, ImportGaps, ImportLayer, ImportNotes, PlanFeatureProps, PlanOrigin, SavedLayerRole, UnitName } from '@shared/schemas/floorPlan';
 import type { ApiErrorBody } from '@shared/schemas/errors';
 import { api, ApiError } from './client';

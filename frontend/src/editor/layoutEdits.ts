@@ -2,7 +2,7 @@
  * Pure edits of a layout's content (plan mm, x east, y north; yaw in degrees CCW from +x). Every
  * function returns new content and leaves its input untouched, so the history can keep both.
  */
-import { nearestPointOnSegment, pointSegmentDistance } from '@shared/geometry/segmentDistance';
+import { nearestPointOnSegment, pointSegmentDistance } from '@shared/geometry';
 import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
 
 type XY = [number, number];

@@ -2,7 +2,7 @@
  * Layout edits of the placement search and auto-layout (pure; one call = one undo step): which
  * work points a search is for, placing or moving an arm at a candidate, taking a proposal.
  */
-import type { PlacementCandidate } from '@shared/analysis/placement';
+import type { PlacementCandidate } from '@shared/analysis';
 import type { ArmPlacement, LayoutContent } from '@shared/schemas/layout';
 import { nextFreeId, normalizeYaw, roundMm } from './layoutEdits';
 

@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { FeatureCollection } from 'geojson';
-import type { FloorLayer } from '@shared/analysis/floor';
+import type { FloorLayer } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
 import type { AnalysisView, DragPose, FromWorker, ToWorker, WorkerArmModel } from '../workers/analysisProtocol';
 

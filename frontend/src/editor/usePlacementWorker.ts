@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
-import type { AutoLayoutResult } from '@shared/analysis/autoLayout';
-import type { PlacementMap, PlacementNames, PlacementResult } from '@shared/analysis/placement';
+import type { AutoLayoutResult } from '@shared/analysis';
+import type { PlacementMap, PlacementNames, PlacementResult } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
 import type { AutoLayoutInput, PlacementSearchInput } from '@shared/schemas/placement';
 import type { FromPlacementWorker, LayoutScores, PlacementJobInput, ToPlacementWorker } from '../workers/placementProtocol';

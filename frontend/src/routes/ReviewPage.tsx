@@ -1,6 +1,6 @@
 import { useCallback, useState, type FormEvent } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import type { Finding } from '@shared/analysis/types';
+import type { Finding } from '@shared/analysis';
 import { can } from '@shared/policy';
 import { useSessionUser } from '../api/auth';
 import { isApiError } from '../api/client';

@@ -4,7 +4,7 @@
  * life of the editor page, with the same reach adapter the server's analysis uses. Messages that
  * arrive while an analysis runs are folded together: only the latest input is analysed next.
  */
-import { armReachFor } from '@shared/analysis/armReach';
+import { armReachFor } from '@shared/analysis';
 import type { FromWorker, ToWorker } from './analysisProtocol';
 import { createAnalysisSession } from './analysisSession';
 

@@ -4,10 +4,10 @@
  * drag it gets only the dragged arm's pose, at most once per animation frame.
  */
 import type { FeatureCollection } from 'geojson';
-import type { FloorLayer } from '@shared/analysis/floor';
-import type { SectionResult } from '@shared/analysis/section';
-import type { AnalysisResult } from '@shared/analysis/types';
-import type { AreaGeometry } from '@shared/geometry/geojson';
+import type { FloorLayer } from '@shared/analysis';
+import type { SectionResult } from '@shared/analysis';
+import type { AnalysisResult } from '@shared/analysis';
+import type { AreaGeometry } from '@shared/geometry';
 import type { LayoutContent } from '@shared/schemas/layout';
 
 /** An arm model as the worker needs it: its id and kinematic parameters (as the catalogue API sends them). */

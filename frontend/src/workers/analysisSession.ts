@@ -4,13 +4,13 @@
  * restricting limits), the prepared floor, the latest content and the pose being dragged. Pure
  * apart from its own caches, so it runs the same in a test as in the worker.
  */
-import { createAnalyzer, type Analyzer } from '@shared/analysis/analyze';
-import { prepareFloor } from '@shared/analysis/floor';
-import { checkSectionLine, sectionOf, type SectionArm, type SectionLine, type SectionResult } from '@shared/analysis/section';
-import type { ArmReach, PreparedFloor } from '@shared/analysis/types';
-import { armPose } from '@shared/geometry/frames';
-import { polygonsToGeoJSON, type AreaGeometry } from '@shared/geometry/geojson';
-import type { Polygon2 } from '@shared/geometry/types';
+import { createAnalyzer, type Analyzer } from '@shared/analysis';
+import { prepareFloor } from '@shared/analysis';
+import { checkSectionLine, sectionOf, type SectionArm, type SectionLine, type SectionResult } from '@shared/analysis';
+import type { ArmReach, PreparedFloor } from '@shared/analysis';
+import { armPose } from '@shared/geometry';
+import { polygonsToGeoJSON, type AreaGeometry } from '@shared/geometry';
+import type { Polygon2 } from '@shared/geometry';
 import type { ArmPlacement, LayoutContent } from '@shared/schemas/layout';
 import type { AnalysisView, DragPose, ToWorker, WorkerArmModel } from './analysisProtocol';
 

@@ -3,7 +3,7 @@
  * Placement search and auto-layout off the main thread, with the reach adapter the server uses, so
  * the editor's map and candidates are the server's (POST /api/layouts/:id/placement-search).
  */
-import { armReachFor } from '@shared/analysis/armReach';
+import { armReachFor } from '@shared/analysis';
 import type { FromPlacementWorker, ToPlacementWorker } from './placementProtocol';
 import { createPlacementSession } from './placementSession';
 

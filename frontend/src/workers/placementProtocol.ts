@@ -3,9 +3,9 @@
  * plan mm, angles degrees. Each job has an id; `cancel` stops it between steps.
  */
 import type { FeatureCollection } from 'geojson';
-import type { AutoLayoutResult } from '@shared/analysis/autoLayout';
-import type { FloorLayer } from '@shared/analysis/floor';
-import type { PlacementMap, PlacementNames, PlacementResult } from '@shared/analysis/placement';
+import type { AutoLayoutResult } from '@shared/analysis';
+import type { FloorLayer } from '@shared/analysis';
+import type { PlacementMap, PlacementNames, PlacementResult } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
 import type { AutoLayoutInput, PlacementSearchInput } from '@shared/schemas/placement';
 import type { WorkerArmModel } from './analysisProtocol';

@@ -3,12 +3,12 @@
  * search or an auto-layout runs as the shared generators, in slices of about SLICE_MS, posting the
  * map as it refines (at most every MAP_EVERY_MS) and stopping between slices when cancelled.
  */
-import { autoLayoutSteps, layoutScore, proposalContent } from '@shared/analysis/autoLayout';
-import { createAnalyzer } from '@shared/analysis/analyze';
-import { prepareFloor } from '@shared/analysis/floor';
-import { placementSteps } from '@shared/analysis/placement';
-import { placementQueryOf } from '@shared/analysis/placementRequest';
-import type { ArmReachFactory, PreparedFloor } from '@shared/analysis/types';
+import { autoLayoutSteps, layoutScore, proposalContent } from '@shared/analysis';
+import { createAnalyzer } from '@shared/analysis';
+import { prepareFloor } from '@shared/analysis';
+import { placementSteps } from '@shared/analysis';
+import { placementQueryOf } from '@shared/analysis';
+import type { ArmReachFactory, PreparedFloor } from '@shared/analysis';
 import type { FromPlacementWorker, PlacementJobInput, ToPlacementWorker } from './placementProtocol';
 
 const SLICE_MS = 12;

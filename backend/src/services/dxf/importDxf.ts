@@ -2,7 +2,7 @@ import type { Feature, Geometry, Polygon } from 'geojson';
 import type { ImportGaps, ImportLayer, ImportResult, PlanFeatureProps, UnitName } from '@shared/schemas/floorPlan';
 import { drawEntities, localTolerance, newBlockWalk } from './blocks';
 import { DxfImportError } from './errors';
-import { checkDrawingUnit } from '@shared/geometry/drawingScale';
+import { checkDrawingUnit } from '@shared/geometry';
 import { scanGroups, sliceWithEdits, type GroupScan } from './groupScan';
 import { joinPaths, MAX_LISTED_ENDS, type JoinStats } from './join';
 import { colorHex, defaultLayerHeight, guessLayerRole } from './layerRoles';

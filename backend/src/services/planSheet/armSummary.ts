@@ -1,6 +1,6 @@
-import { armPose } from '@shared/geometry/frames';
-import { geoJSONToPolygons } from '@shared/geometry/geojson';
-import type { Polygon2 } from '@shared/geometry/types';
+import { armPose } from '@shared/geometry';
+import { geoJSONToPolygons } from '@shared/geometry';
+import type { Polygon2 } from '@shared/geometry';
 import { maximumSpacePolygons, parseArmParams } from '@shared/kinematics';
 import type { ArmPlacement, LayoutContent } from '@shared/schemas/layout';
 import type { PlanSheetInput } from './types';

@@ -1,6 +1,6 @@
-import { fenceLinesOf, fenceParts, type FenceParts } from '@shared/analysis/fenceBom';
-import { prepareFloor, type FloorLayer } from '@shared/analysis/floor';
-import { wallFacesOf } from '@shared/analysis/fenceRing';
+import { fenceLinesOf, fenceParts, type FenceParts } from '@shared/analysis';
+import { prepareFloor, type FloorLayer } from '@shared/analysis';
+import { wallFacesOf } from '@shared/analysis';
 import { DEFAULT_FENCE_SYSTEM } from '@shared/schemas/fenceProposal';
 import { ZONE_STYLES } from '@shared/style/zoneStyles';
 import { autoScale, planToPaper, type Box, type Extent } from './paper';

@@ -1,6 +1,6 @@
 import Drawing from 'dxf-writer';
-import { geoJSONToPolygons } from '@shared/geometry/geojson';
-import type { Polygon2 } from '@shared/geometry/types';
+import { geoJSONToPolygons } from '@shared/geometry';
+import type { Polygon2 } from '@shared/geometry';
 import { ZONE_STYLES, type DxfLook } from '@shared/style/zoneStyles';
 import { summarizeArms } from './armSummary';
 import { moveDxfEntities } from './dxfOrigin';

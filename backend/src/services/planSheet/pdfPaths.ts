@@ -1,6 +1,6 @@
 import { GState, type jsPDF } from 'jspdf';
-import { addToBounds, emptyBounds, isEmptyBounds } from '@shared/geometry/bounds';
-import type { Polygon2 } from '@shared/geometry/types';
+import { addToBounds, emptyBounds, isEmptyBounds } from '@shared/geometry';
+import type { Polygon2 } from '@shared/geometry';
 
 export type Rgb = readonly [number, number, number];
 export type ToPaper = (x: number, y: number) => [number, number];

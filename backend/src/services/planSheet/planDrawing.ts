@@ -1,10 +1,10 @@
 import type { jsPDF } from 'jspdf';
 import type { Geometry, Position } from 'geojson';
-import { isReached } from '@shared/analysis/reached';
-import { addToBounds, emptyBounds, isEmptyBounds, padBounds } from '@shared/geometry/bounds';
-import { armPose } from '@shared/geometry/frames';
-import { geoJSONToPolygons } from '@shared/geometry/geojson';
-import type { Polygon2 } from '@shared/geometry/types';
+import { isReached } from '@shared/analysis';
+import { addToBounds, emptyBounds, isEmptyBounds, padBounds } from '@shared/geometry';
+import { armPose } from '@shared/geometry';
+import { geoJSONToPolygons } from '@shared/geometry';
+import type { Polygon2 } from '@shared/geometry';
 import type { Zone } from '@shared/schemas/layout';
 import { ZONE_STYLES } from '@shared/style/zoneStyles';
 import type { ArmSummary } from './armSummary';

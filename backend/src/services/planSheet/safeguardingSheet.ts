@@ -4,7 +4,7 @@
  * c required, actual, verdict), the stopping data used and where it came from, and the caution that
  * these are planning checks.
  */
-import type { SafeguardFenceRow, SafeguardOpeningRow } from '@shared/analysis/types';
+import type { SafeguardFenceRow, SafeguardOpeningRow } from '@shared/analysis';
 import type { SheetPages } from './sheetPages';
 import { drawTable, type Cell, type Column, type Row } from './table';
 import type { PlanSheetInput } from './types';

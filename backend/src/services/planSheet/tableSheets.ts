@@ -1,5 +1,5 @@
-import { isReached } from '@shared/analysis/reached';
-import type { Severity } from '@shared/analysis/types';
+import { isReached } from '@shared/analysis';
+import type { Severity } from '@shared/analysis';
 import type { ArmSummary } from './armSummary';
 import type { SheetPages } from './sheetPages';
 import { drawTable, type Column, type Row } from './table';

@@ -28,7 +28,7 @@
  *               byte-identical PDF.
  */
 import type { FeatureCollection } from 'geojson';
-import type { AnalysisResult } from '@shared/analysis/types';
+import type { AnalysisResult } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
 
 export type SheetSize = 'A3' | 'A4' | 'A1';

@@ -5,7 +5,7 @@ import { applyServerErrors } from '../../lib/serverErrors';
 import { Button } from '../Button';
 import { TextField } from '../Field';
 import { ErrorNotice } from '../Notice';
-import { axisKinematicDeg } from '@shared/kinematics/articulated';
+import { axisKinematicDeg } from '@shared/kinematics';
 import { ArticulatedFields } from './ArticulatedFields';
 import { ChainFields } from './ChainFields';
 import { FourBarDiagram } from './FourBarDiagram';

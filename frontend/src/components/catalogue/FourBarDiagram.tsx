@@ -1,4 +1,4 @@
-import { fourBarPose, grashofClass, type GrashofClass } from '@shared/kinematics/fourBar';
+import { fourBarPose, grashofClass, type GrashofClass } from '@shared/kinematics';
 import type { FourBarParams } from '@shared/schemas/armModel';
 
 const CLASS_TEXT: Record<GrashofClass, string> = {

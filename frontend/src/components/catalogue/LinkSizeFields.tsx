@@ -1,5 +1,5 @@
 import type { FieldErrors, UseFormRegister } from 'react-hook-form';
-import { LINK_SIZE_DEFAULTS } from '@shared/kinematics/envelope';
+import { LINK_SIZE_DEFAULTS } from '@shared/kinematics';
 import type { ArmModelFormValues } from './familyDefaults';
 import { FieldGroup, NumberField } from './formFields';
 

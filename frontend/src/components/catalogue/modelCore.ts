@@ -3,10 +3,10 @@
  * server validates with), forward kinematics and the side reach profile, computed in the browser.
  */
 import type { z } from 'zod';
-import { familyOf, FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel, reachProfileOf } from '@shared/kinematics/families';
-import type { AxisInfo, ForwardResult, ReachProfile } from '@shared/kinematics/types';
+import { familyOf, FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel, reachProfileOf } from '@shared/kinematics';
+import type { AxisInfo, ForwardResult, ReachProfile } from '@shared/kinematics';
 import type { ArmParams } from '@shared/schemas/armModel';
-import { envelopeProfileOf, type EnvelopeProfile } from '@shared/kinematics/envelope';
+import { envelopeProfileOf, type EnvelopeProfile } from '@shared/kinematics';
 
 export const ArmModelParams = feasibleArmParamsSchema;
 export type ArmModelParams = ArmParams;

@@ -6,7 +6,7 @@
  * React owns the data; this module owns everything under the one svg it is given.
  */
 import * as d3 from 'd3';
-import type { Polygon2 } from '@shared/kinematics/types';
+import type { Polygon2 } from '@shared/kinematics';
 import { niceStepAtLeast } from '../../plan/scaleBar';
 
 /** What the drawing shows of a profile; lengths mm in the arm frame. */

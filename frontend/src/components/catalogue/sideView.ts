@@ -1,4 +1,4 @@
-import type { Frame } from '@shared/kinematics/types';
+import type { Frame } from '@shared/kinematics';
 
 /**
  * The frames of one pose in the side view: each origin as (r, z) mm in the vertical plane through

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
-import type { ReachProfile } from '@shared/kinematics/types';
-import type { EnvelopeProfile } from '@shared/kinematics/envelope';
+import type { ReachProfile } from '@shared/kinematics';
+import type { EnvelopeProfile } from '@shared/kinematics';
 import { ArmModelParams, envelopeOf, profileOf } from './modelCore';
 import { useDebouncedValue } from './useDebouncedValue';
 

@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import type { AxisInfo, ForwardResult } from '@shared/kinematics/types';
+import type { AxisInfo, ForwardResult } from '@shared/kinematics';
 import { axesOf, forwardOf, type ArmModelParams } from './modelCore';
 import type { PoseView } from './profileDrawing';
 import { sideViewPoints } from './sideView';

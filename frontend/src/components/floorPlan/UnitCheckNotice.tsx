@@ -1,4 +1,4 @@
-import type { UnitCheck } from '@shared/geometry/drawingScale';
+import type { UnitCheck } from '@shared/geometry';
 import { UNIT_NAMES, type UnitName } from '@shared/schemas/floorPlan';
 import { Button } from '../Button';
 

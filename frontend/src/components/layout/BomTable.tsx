@@ -1,5 +1,5 @@
-import type { BomLine } from '@shared/analysis/fenceBom';
-import { bomCsv } from '@shared/analysis/fenceBom';
+import type { BomLine } from '@shared/analysis';
+import { bomCsv } from '@shared/analysis';
 import { saveBlob } from '../../api/planSheets';
 import { Button } from '../Button';
 

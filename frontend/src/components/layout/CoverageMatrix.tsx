@@ -1,5 +1,5 @@
-import { FAR_MM } from '@shared/analysis/analyze';
-import { isReached } from '@shared/analysis/reached';
+import { FAR_MM } from '@shared/analysis';
+import { isReached } from '@shared/analysis';
 import { useEffect, useEffectEvent, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { axisBottom, scaleLinear, select } from 'd3';
 import { cn } from '../../lib/cn';

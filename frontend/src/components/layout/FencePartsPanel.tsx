@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { fenceLinesOf, fenceParts } from '@shared/analysis/fenceBom';
+import { fenceLinesOf, fenceParts } from '@shared/analysis';
 import { DEFAULT_FENCE_SYSTEM } from '@shared/schemas/fenceProposal';
 import { BomTable } from './BomTable';
 import type { LayoutPanelProps } from './panelTypes';

@@ -1,4 +1,4 @@
-import type { Finding, Severity } from '@shared/analysis/types';
+import type { Finding, Severity } from '@shared/analysis';
 import { cn } from '../../lib/cn';
 
 const SEVERITY_TEXT: Record<Severity, string> = { critical: 'Critical', warning: 'Warning', info: 'Note' };

@@ -1,8 +1,8 @@
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
-import { applyFenceProposal } from '@shared/analysis/fenceProposal';
-import type { Finding } from '@shared/analysis/types';
-import { padBounds, pointsBounds } from '@shared/geometry/bounds';
+import { applyFenceProposal } from '@shared/analysis';
+import type { Finding } from '@shared/analysis';
+import { padBounds, pointsBounds } from '@shared/geometry';
 import type { LayoutContent, LayoutDto } from '@shared/schemas/layout';
 import type { ArmModelDto } from '../../api/armModels';
 import type { FenceProposalDto } from '../../api/fenceProposals';
@@ -13,7 +13,7 @@ import { addArm, addWorkPoint, addZone, duplicateArm, moveArm, moveZoneVertex, n
 import { useAnalysisWorker } from '../../editor/useAnalysisWorker';
 import { placeAtCandidate } from '../../editor/placementEdits';
 import { usePlacementWorker } from '../../editor/usePlacementWorker';
-import { cellReasonText } from '@shared/analysis/placement';
+import { cellReasonText } from '@shared/analysis';
 import { useLayoutEditor } from '../../editor/useLayoutEditor';
 import { PlanView } from '../../plan/PlanView';
 import type { PlanCanvas } from '../../plan/planTypes';

@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import type { PlacementResult } from '@shared/analysis/placement';
+import type { PlacementResult } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
 import { AutoLayoutInput, PlacementSearchInput } from '@shared/schemas/placement';
 import { chosenPoints, pointTags, type PointChoice } from '../../editor/placementEdits';

@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
-import type { SectionResult } from '@shared/analysis/section';
+import type { SectionResult } from '@shared/analysis';
 import type { ArmPlacement } from '@shared/schemas/layout';
 import { Button } from '../Button';
 import { drawSection, SECTION_ARM_COLOURS } from './sectionDraw';

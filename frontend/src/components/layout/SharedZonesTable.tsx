@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { findingId } from '@shared/analysis/messages';
+import { findingId } from '@shared/analysis';
 import { cn } from '../../lib/cn';
 import type { LayoutPanelProps } from './panelTypes';
 import { sharedZoneRows } from './sharedZoneRows';

@@ -1,4 +1,4 @@
-import { isReached } from '@shared/analysis/reached';
+import { isReached } from '@shared/analysis';
 import { useCallback, useEffect, useEffectEvent, useMemo, useRef, useState } from 'react';
 import { getCoreRowModel, getSortedRowModel, useReactTable, type ColumnDef, type SortingState, flexRender } from '@tanstack/react-table';
 import type { WorkPoint } from '@shared/schemas/layout';

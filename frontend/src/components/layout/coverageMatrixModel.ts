@@ -1,6 +1,6 @@
 import { interpolateRgb, scaleDiverging, type ScaleDiverging } from 'd3';
-import type { AnalysisResult } from '@shared/analysis/types';
-import { isReached } from '@shared/analysis/reached';
+import type { AnalysisResult } from '@shared/analysis';
+import { isReached } from '@shared/analysis';
 import type { WorkPoint } from '@shared/schemas/layout';
 
 /** Row orders of the coverage matrix. */

@@ -4,7 +4,7 @@
  * mm, y north; strokes keep their screen width). d3 joins only.
  */
 import type { Selection } from 'd3';
-import type { FenceProposal } from '@shared/analysis/fenceProposal';
+import type { FenceProposal } from '@shared/analysis';
 import type { OverlayOptions } from '../../plan/planTypes';
 
 type G = Selection<SVGGElement, unknown, null, undefined>;

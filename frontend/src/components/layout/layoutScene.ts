@@ -6,7 +6,7 @@
  * is committed once, on pointer up. Plan mm (x east, y north), yaw degrees CCW from +x.
  */
 import { select, type Selection } from 'd3';
-import { parseFindingId } from '@shared/analysis/messages';
+import { parseFindingId } from '@shared/analysis';
 import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
 import { moveZoneVertex } from '../../editor/layoutEdits';
 import type { OverlayRender, PlanCanvas, PlanViewState } from '../../plan/planTypes';

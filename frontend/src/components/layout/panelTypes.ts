@@ -1,4 +1,4 @@
-import type { AnalysisResult } from '@shared/analysis/types';
+import type { AnalysisResult } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
 
 /** What the editor selects: an arm, a work point, a zone or a finding, by id. */

@@ -5,7 +5,7 @@
  * Pure drawing on the canvas' overlay groups; state stays with the React component.
  */
 import { interpolateYlGnBu, scaleSequential, type ScaleSequential } from 'd3';
-import type { PlacementCandidate, PlacementMap } from '@shared/analysis/placement';
+import type { PlacementCandidate, PlacementMap } from '@shared/analysis';
 import type { PlanCanvas } from '../../plan/planTypes';
 
 const MAP_OVERLAY = { name: 'placement-map', space: 'plan', order: 3 } as const;

@@ -4,8 +4,8 @@
  * labels, handles; screen px). d3 joins only; no state and no event handling here.
  */
 import type { Selection } from 'd3';
-import { isReached } from '@shared/analysis/reached';
-import type { AreaGeometry } from '@shared/geometry/geojson';
+import { isReached } from '@shared/analysis';
+import type { AreaGeometry } from '@shared/geometry';
 import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
 import { ZONE_STYLES, type MarkKind, type ScreenLook } from '@shared/style/zoneStyles';
 import { geometryPath } from '../../plan/pathData';

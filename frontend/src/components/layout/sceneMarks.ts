@@ -3,7 +3,7 @@
  * J1-zero tick and turn handle, the selected zone's corner handles, and the shape being drawn
  * (screen px). d3 joins only; the press handlers come from the tool dispatcher.
  */
-import { armPose } from '@shared/geometry/frames';
+import { armPose } from '@shared/geometry';
 import type { Selection } from 'd3';
 import type { ArmPlacement } from '@shared/schemas/layout';
 import { ZONE_STYLES } from '@shared/style/zoneStyles';

@@ -3,7 +3,7 @@
  * scene and the callbacks through which the scene hands edits back. Plan mm (x east, y north),
  * yaw degrees CCW from +x.
  */
-import type { AreaGeometry } from '@shared/geometry/geojson';
+import type { AreaGeometry } from '@shared/geometry';
 import type { LayoutContent } from '@shared/schemas/layout';
 import type { AnalysisView, DragPose } from '../../workers/analysisProtocol';
 import type { LayoutSelection } from './panelTypes';

@@ -4,7 +4,7 @@
  * come from the worker (shared/analysis/section.ts), nothing is computed here but the view scale.
  */
 import { select, type Selection } from 'd3';
-import type { SectionDimension, SectionResult } from '@shared/analysis/section';
+import type { SectionDimension, SectionResult } from '@shared/analysis';
 
 /** Colours of the arms' cuts, by the arm's place in the layout (the first is the plan's reach blue). */
 export const SECTION_ARM_COLOURS = ['#3a78c2', '#c2562f', '#2f8a5b', '#b0457a', '#a0671a', '#2a8fa3'] as const;

@@ -1,4 +1,4 @@
-import type { SharedZone } from '@shared/analysis/types';
+import type { SharedZone } from '@shared/analysis';
 
 /** One line of the shared-zones table: the pair in id order (as finding ids use it), areas m², points inside. */
 export interface SharedZoneRow {

@@ -1,6 +1,6 @@
 import { WorkPoint } from '@shared/schemas/layout';
-import type { AnalysisResult } from '@shared/analysis/types';
-import { isReached } from '@shared/analysis/reached';
+import type { AnalysisResult } from '@shared/analysis';
+import { isReached } from '@shared/analysis';
 import { parseNumberCell } from './workPointsCsv';
 
 /** What the analysis says about one point: best margin (mm, positive = reached) and who reaches it. */

@@ -1,6 +1,6 @@
 import Papa from 'papaparse';
 import { WorkPoint } from '@shared/schemas/layout';
-import type { AnalysisResult } from '@shared/analysis/types';
+import type { AnalysisResult } from '@shared/analysis';
 
 /** The columns a work-point CSV file carries, in the order export writes them. */
 export const WORK_POINT_COLUMNS = ['id', 'x', 'y', 'z', 'approach', 'tag', 'assignedArm'] as const;

@@ -1,5 +1,5 @@
 import { useState, type FormEvent } from 'react';
-import type { Finding } from '@shared/analysis/types';
+import type { Finding } from '@shared/analysis';
 import type { ReviewCommentDto } from '../../api/revisions';
 import { formatDateTime } from '../../lib/format';
 import { cn } from '../../lib/cn';

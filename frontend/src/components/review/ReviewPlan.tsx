@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
-import type { Finding } from '@shared/analysis/types';
-import { padBounds, pointsBounds } from '@shared/geometry/bounds';
+import type { Finding } from '@shared/analysis';
+import { padBounds, pointsBounds } from '@shared/geometry';
 import type { ReviewCommentDto, RevisionSnapshotDto } from '../../api/revisions';
 import { PlanView } from '../../plan/PlanView';
 import type { PlanCanvas, PlanViewState } from '../../plan/planTypes';
