@@ -2,7 +2,7 @@ import { polygonsArea } from '../geometry/area';
 import { polygonsBounds } from '../geometry/bounds';
 import { armPose, type ArmPose } from '../geometry/frames';
 import { polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
-import { planPoint, type Polygon2 } from '../geometry/types';
+import { type Polygon2 } from '../geometry/types';
 import type { ArmPlacement, WorkPoint } from '../schemas/layout';
 import { armClearance, bboxOverlap, centroidOf, fenceFindings, intersect, makeFinding, MIN_AREA_MM2, type BBox } from './clearance';
 import { m2, m2Text, mm, sortFindings } from './messages';
@@ -143,8 +143,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     const pose = p.pose;
     for (let k = 0; k < near.length; k++) {
       const pt = points[near[k]];
-      const [u, v] = pose.toArm(planPoint(pt.x, pt.y));
-      margins[k] = p.reach.margin(u, v, pose.toArmZ(pt.z), pt.approach ?? 'top');
+      margins[k] = p.reach.margin(pose.armX(pt.x, pt.y), pose.armY(pt.x, pt.y), pose.toArmZ(pt.z), pt.approach ?? 'top');
     }
     stats.columns++;
     return { armId: p.arm.id, near, margins };

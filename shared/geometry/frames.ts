@@ -38,6 +38,9 @@ export interface ArmPose {
   toArm(p: Readonly<PlanPoint>): ArmPoint;
   /** An arm-frame point on the plan, mm. */
   toPlan(p: Readonly<ArmPoint>): PlanPoint;
+  /** toArm without allocating, for hot loops: the arm-frame x and y of the plan point (px, py), mm. */
+  armX(px: Millimetres, py: Millimetres): Millimetres;
+  armY(px: Millimetres, py: Millimetres): Millimetres;
   /** A plan height (above floor) as an arm-frame height (above the mounting face), mm. */
   toArmZ(zPlanMm: Millimetres): Millimetres;
   /** Arm-frame polygons on the plan (new arrays; the input is untouched), mm. */
@@ -70,6 +73,8 @@ export function armPose(placement: Readonly<PosePlacement>): ArmPose {
       const dy = py - y0;
       return [c * dx + s * dy, -s * dx + c * dy] as ArmPoint;
     },
+    armX: (px, py) => c * (px - x0) + s * (py - y0),
+    armY: (px, py) => -s * (px - x0) + c * (py - y0),
     toPlan: (p) => place(p) as PlanPoint,
     toArmZ: (zPlanMm) => zPlanMm - mountHeightMm,
     placePolygons: (polys) => polys.map((poly) => poly.map((ring) => ring.map(place))),
