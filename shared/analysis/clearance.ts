@@ -45,7 +45,7 @@ export interface ClearanceArm {
 
 /** A region's edges as a flat list [ax, ay, bx, by, …], built once per region (regions are cached per arm). */
 const edgeCache = new WeakMap<Polygon2[], Float64Array>();
-function regionEdges(region: Polygon2[]): Float64Array {
+export function regionEdges(region: Polygon2[]): Float64Array {
   let e = edgeCache.get(region);
   if (!e) {
     const out: number[] = [];

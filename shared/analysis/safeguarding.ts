@@ -18,7 +18,7 @@ import {
   type SafeguardDevice,
 } from '../safety';
 import type { ArmPlacement, Zone } from '../schemas/layout';
-import { makeFinding, type BBox } from './clearance';
+import { makeFinding, regionEdges, type BBox } from './clearance';
 import { mm } from './messages';
 import { polylineDistanceToPolygons, segmentsIntersect, subtractOpenings } from './segments';
 import type { ArmReach, Finding, PreparedFloor, SafeguardFenceRow, SafeguardingResult, SafeguardOpeningRow, StructureItem } from './types';
@@ -100,17 +100,7 @@ const GRID_CELL_MM = 500;
 const cellKey = (ix: number, iy: number) => ix * 1_000_003 + iy;
 
 function edgeGrid(region: Polygon2[]): EdgeGrid {
-  const out: number[] = [];
-  for (const poly of region) {
-    for (const ring of poly) {
-      for (let k = 0; k < ring.length; k++) {
-        const a = ring[k];
-        const b = ring[(k + 1) % ring.length];
-        out.push(a[0], a[1], b[0], b[1]);
-      }
-    }
-  }
-  const edges = Float64Array.from(out);
+  const edges = regionEdges(region);
   const cells = new Map<number, number[]>();
   for (let e = 0; e < edges.length; e += 4) {
     const x0 = Math.floor(Math.min(edges[e], edges[e + 2]) / GRID_CELL_MM), x1 = Math.floor(Math.max(edges[e], edges[e + 2]) / GRID_CELL_MM);
