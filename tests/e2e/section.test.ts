@@ -169,4 +169,33 @@ describe('section view in Chromium', () => {
     await page.screenshot({ path: '/tmp/section-plan-line.png', clip: { x: box.x - 60, y: box.y - 60, width: box.width + 120, height: box.height + 120 } });
     await page.close();
   });
+
+  it('lets a reviewer draw a section on a read-only layout: the side view shows, nothing is edited', async () => {
+    const page = await e.browser.newPage({ viewport: { width: 1440, height: 1500 } });
+    await signInPage(page, e.server.url, 'reviewer@fernhill.test');
+    const d = await demo(page);
+    const versionBefore = await page.evaluate(async (id) => (await (await fetch(`/api/layouts/${id}`)).json()).layout.version as number, d.layoutId);
+    await page.goto(`${e.server.url}/projects/${d.projectId}/layouts/${d.layoutId}`);
+    await page.locator('[data-layout-editor]').waitFor();
+    await page.locator('[data-analysis-state="idle"]').waitFor();
+    await page.locator('g.arm-mark').first().waitFor({ state: 'attached' });
+    await page.getByText(/Read only/).first().waitFor();
+    const [p, q] = [d.arms[0], d.arms.find((a) => Math.hypot(a.x - d.arms[0].x, a.y - d.arms[0].y) > 500)!];
+    const [ps, qs] = [await baseCentre(page, p.id), await baseCentre(page, q.id)];
+    const k = Math.hypot(qs[0] - ps[0], qs[1] - ps[1]) / Math.hypot(q.x - p.x, q.y - p.y);
+    const toScreen = (x: number, y: number): [number, number] => [ps[0] + (x - p.x) * k, ps[1] - (y - p.y) * k];
+    const arm = d.arms.reduce((a, b) => (b.x > a.x ? b : a));
+    const fenceEast = Math.max(...d.fences[0].points.map((pt) => pt[0]));
+    const a = toScreen(arm.x - 1500, arm.y);
+    const b = toScreen(fenceEast + 800, arm.y);
+    await page.getByRole('group', { name: 'Tools' }).getByRole('button', { name: 'Section' }).click();
+    await page.mouse.click(a[0], a[1]);
+    await page.mouse.click(b[0], b[1]);
+    await page.locator(`[data-section-view] path[data-section-cut="${arm.id}"]`).waitFor({ state: 'attached' });
+    await page.locator(`[data-section-dimensions] li[data-fence="${d.fences[0].id}"]`).first().waitFor();
+    await page.screenshot({ path: path.join(SCREENS, 'section-reviewer.png'), fullPage: true });
+    const versionAfter = await page.evaluate(async (id) => (await (await fetch(`/api/layouts/${id}`)).json()).layout.version as number, d.layoutId);
+    expect(versionAfter).toBe(versionBefore);
+    await page.close();
+  });
 });

@@ -15,6 +15,9 @@ const TOOLS: ReadonlyArray<{ tool: EditorTool; text: string; title: string }> = 
   { tool: 'section', text: 'Section', title: 'Draw a section line (S): click its start A and end A′; the side view appears below the plan' },
 ];
 
+
+/** The one tool a read-only layout offers: a section line is a view, not an edit. */
+const SECTION_TOOL = TOOLS.find((t) => t.tool === 'section')!;
 export interface EditorToolbarProps {
   readOnly: boolean;
   tool: EditorTool;
@@ -91,7 +94,25 @@ export function EditorToolbar(p: EditorToolbarProps) {
             </Button>
           </>
         )}
-        {p.readOnly && <span className="px-1 text-xs font-bold text-ink-muted">Read only — findings are shown as the planner sees them.</span>}
+        {p.readOnly && (
+          <>
+            <div role="group" aria-label="Tools" className="flex items-center gap-1">
+              <button
+                type="button"
+                title={SECTION_TOOL.title}
+                aria-pressed={p.tool === 'section'}
+                onClick={() => p.onTool(p.tool === 'section' ? 'select' : 'section')}
+                className={cn(
+                  'h-7 rounded-control border px-2.5 text-xs font-bold',
+                  p.tool === 'section' ? 'border-accent bg-accent-wash text-accent-strong' : 'border-rule-strong bg-paper-raised text-ink hover:bg-paper-sunk',
+                )}
+              >
+                {SECTION_TOOL.text}
+              </button>
+            </div>
+            <span className="px-1 text-xs font-bold text-ink-muted">Read only — findings are shown as the planner sees them; a section line changes nothing.</span>
+          </>
+        )}
         <div className="ml-auto flex items-center gap-2">
           <SaveIndicator save={p.save} onRetry={p.onRetrySave} />
           {p.onFindPlace && !p.readOnly && (

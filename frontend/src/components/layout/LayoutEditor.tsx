@@ -171,7 +171,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
       selection,
       highlightArms,
       findingGeometry: selectedFinding?.geometry ?? null,
-      tool: readOnly ? 'select' : tool,
+      tool: readOnly && tool !== 'section' ? 'select' : tool,
       bandHeight,
       readOnly,
       sectionLine,
@@ -280,7 +280,6 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
           scene.current?.finishDraw();
           break;
         case 'section-tool':
-          if (readOnly) return;
           setTool('section');
           setSelection(null);
           break;
@@ -421,9 +420,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
           </div>
         </aside>
       </div>
-      {!readOnly && (
-        <SectionView section={sectionLine ? (live.view?.section ?? null) : null} hasLine={sectionLine !== null} arms={content.arms} busy={live.busy} onClear={() => setSectionLine(null)} />
-      )}
+      <SectionView section={sectionLine ? (live.view?.section ?? null) : null} hasLine={sectionLine !== null} arms={content.arms} busy={live.busy} onClear={() => setSectionLine(null)} />
       <LayoutPanels
         content={content}
         analysis={live.view?.analysis ?? null}

@@ -79,7 +79,7 @@ export function PlacementPanel(p: PlacementPanelProps) {
         <Button size="sm" variant="quiet" onClick={p.onClose} aria-label="Close Find a place">Close</Button>
       </div>
       <p className="text-xs text-ink-muted">
-        A planning estimate from nominal kinematics (tool point and payload only); it does not replace a risk assessment or the guarding design of a competent person under local codes.
+        A planning estimate from nominal kinematics (reach of the tool point; spaces of the whole moving arm at the link sizes entered); it does not replace a risk assessment or the guarding design of a competent person under local codes.
       </p>
       {mode === 'one' ? (
         <SelectField

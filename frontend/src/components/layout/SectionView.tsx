@@ -6,7 +6,7 @@ import { drawSection, SECTION_ARM_COLOURS } from './sectionDraw';
 
 /** The caution under every section (docs/product.md "Cautions"), in the section's own terms. */
 export const SECTION_CAUTION =
-  'Planning estimate: the cut shows the tool point and payload from nominal kinematics, and the distances are read off it. ' +
+  'Planning estimate: the cut shows the whole moving arm (links, tool and payload at the link sizes entered) from nominal kinematics, and the distances are read off it. ' +
   'Check them against the arm maker’s data; they do not replace the risk assessment (ISO 12100), ISO 10218-2 or the maker’s stopping data. ' +
   'Guarding must be designed and validated by a competent person under the local codes and regulations.';
 

@@ -185,7 +185,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
       if (state && next.content !== state.content) held = null;
       state = next;
       if (from !== next.tool) tools.toolChanged(from);
-      svg.style.cursor = next.tool === 'select' || next.readOnly ? '' : 'crosshair';
+      svg.style.cursor = next.tool === 'select' || (next.readOnly && next.tool !== 'section') ? '' : 'crosshair';
       renderPlan();
       renderMarks();
     },

@@ -146,7 +146,8 @@ export class ToolDispatcher {
     this.pressedOnMark = false;
     if (fromMark || target.closest('[data-plan-drag]')) return;
     const s = this.host.state();
-    const tool = s.readOnly ? this.select : this.tool;
+    // A read-only layout may still draw a section line (a view, not an edit); every other tool selects.
+    const tool = s.readOnly && s.tool !== 'section' ? this.select : this.tool;
     tool.up(this.toPointer(e));
   }
 
