@@ -11,7 +11,7 @@
 import { pointSegmentDistance } from '../geometry/segmentDistance';
 import type { Pt } from '../geometry/types';
 import type { FenceSystem } from '../schemas/fenceProposal';
-import type { Zone } from '../schemas/layout';
+import type { Boundary } from '../schemas/layout';
 
 /** A bend sharper than this between two fence segments is a corner (a corner post), degrees. */
 export const CORNER_DEG = 1;
@@ -287,14 +287,14 @@ function countBom(panels: ReadonlyArray<PlacedPanel>, posts: ReadonlyArray<Place
 }
 
 /** Fence lines of a layout's fences (hand-drawn or accepted), with the openings cut into them as doors. */
-export function fenceLinesOf(zones: ReadonlyArray<Zone>): FenceLine[] {
-  return zones
+export function fenceLinesOf(boundaries: ReadonlyArray<Boundary>): FenceLine[] {
+  return boundaries
     .filter((z) => z.kind === 'fence' && z.points.length >= 2)
     .map((f) => ({
       fenceId: f.id,
       points: f.points.map(([x, y]) => [x, y] as Pt),
       heightMm: f.height ?? 0,
-      doors: zones.filter((o) => o.kind === 'opening' && o.fenceId === f.id && o.points.length === 2).map((o) => ({ id: o.id, a: [o.points[0][0], o.points[0][1]] as Pt, b: [o.points[1][0], o.points[1][1]] as Pt })),
+      doors: boundaries.filter((o) => o.kind === 'opening' && o.fenceId === f.id && o.points.length === 2).map((o) => ({ id: o.id, a: [o.points[0][0], o.points[0][1]] as Pt, b: [o.points[1][0], o.points[1][1]] as Pt })),
     }));
 }
 

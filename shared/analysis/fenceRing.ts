@@ -23,7 +23,7 @@ export const boxUnion = (a: Box, b: Box): Box => [Math.min(a[0], b[0]), Math.min
 export const perimeter = (b: Box) => 2 * (b[2] - b[0] + b[3] - b[1]);
 const boxRing = (b: Box): Ring => [[b[0], b[1]], [b[2], b[1]], [b[2], b[3]], [b[0], b[3]]];
 
-/** Wall faces of the floor (plan mm segments): full-height wall items' edges and lines, and the floor boundary (the hall's own walls). */
+/** Wall faces of the floor (plan mm segments): full-height wall items' edges and lines, and the floor outline (the hall's own walls). */
 export function wallFacesOf(floor: PreparedFloor | null): Array<[Pt, Pt]> {
   const out: Array<[Pt, Pt]> = [];
   if (!floor) return out;
@@ -36,7 +36,7 @@ export function wallFacesOf(floor: PreparedFloor | null): Array<[Pt, Pt]> {
     for (const poly of s.polygons) for (const ring of poly) addRing(ring, true);
     for (const l of s.lines) addRing(l, false);
   }
-  for (const poly of floor.boundary) for (const ring of poly) addRing(ring, true);
+  for (const poly of floor.outline) for (const ring of poly) addRing(ring, true);
   return out;
 }
 

@@ -5,7 +5,7 @@ import type { PreparedFloor, StructureItem } from './types';
 
 export interface FloorLayer {
   name: string;
-  role: 'boundary' | 'wall' | 'column' | 'obstacle' | 'ignore';
+  role: 'outline' | 'wall' | 'column' | 'obstacle' | 'ignore';
   /** mm above the floor; null = full height. */
   height: number | null;
 }
@@ -46,20 +46,20 @@ function shapes(g: Geometry): { polygons: Polygon2[]; lines: Array<Array<[number
 
 /**
  * Turns an imported floor plan (plan mm) and its layer roles into what the analysis checks against:
- * the floor boundary (union of the boundary layers' closed rings) and one item per wall, column or
+ * the floor outline (union of the outline layers' closed rings) and one item per wall, column or
  * obstacle feature with its top height (null → full height).
  */
 export function prepareFloor(geometry: Readonly<FeatureCollection>, layers: ReadonlyArray<FloorLayer>): PreparedFloor {
   const byName = new Map(layers.map((l) => [l.name, l]));
-  const boundaryPolys: Polygon2[] = [];
+  const outlinePolys: Polygon2[] = [];
   const structures: StructureItem[] = [];
   geometry.features.forEach((f, index) => {
     const layerName = String((f.properties as { layer?: string } | null)?.layer ?? '');
     const layer = byName.get(layerName);
     if (!layer || layer.role === 'ignore' || !f.geometry) return;
     const { polygons, lines } = shapes(f.geometry);
-    if (layer.role === 'boundary') {
-      boundaryPolys.push(...polygons);
+    if (layer.role === 'outline') {
+      outlinePolys.push(...polygons);
       return;
     }
     if (polygons.length === 0 && lines.length === 0) return;
@@ -73,5 +73,5 @@ export function prepareFloor(geometry: Readonly<FeatureCollection>, layers: Read
       bbox: bboxOf(polygons, lines),
     });
   });
-  return { boundary: boundaryPolys.length ? clipUnion(boundaryPolys) : [], structures };
+  return { outline: outlinePolys.length ? clipUnion(outlinePolys) : [], structures };
 }

@@ -8,13 +8,13 @@ import type { ArmReachFactory, PreparedFloor } from './types';
 /**
  * The placement search of a layout, as the server and the editor's worker both ask it: the request's
  * points looked up in the content, the other placed arms' restricted spaces for ranking, the
- * layout's zones and floor. Throws a message naming the problem for unknown points or arms.
+ * layout's boundaries and floor. Throws a message naming the problem for unknown points or arms.
  */
 export function placementQueryOf(req: Readonly<PlacementSearchInput>, content: Readonly<LayoutContent>, floor: PreparedFloor | null, reachFor: ArmReachFactory): PlacementQuery {
   const byId = new Map(content.workPoints.map((p) => [p.id, p]));
   const missing = req.pointIds.filter((id) => !byId.has(id));
-  if (missing.length) throw new Error(`No work point ${missing.slice(0, 3).join(', ')}${missing.length > 3 ? ' …' : ''} on this layout`);
-  if (req.armId && !content.arms.some((a) => a.id === req.armId)) throw new Error(`No arm ${req.armId} on this layout`);
+  if (missing.length) throw new Error(`No work point ${missing.slice(0, 3).join(', ')}${missing.length > 3 ? ' …' : ''} on this cell layout`);
+  if (req.armId && !content.arms.some((a) => a.id === req.armId)) throw new Error(`No arm ${req.armId} on this cell layout`);
   const neighbours = content.arms
     .filter((a) => a.id !== req.armId)
     .flatMap((a) => {
@@ -33,7 +33,7 @@ export function placementQueryOf(req: Readonly<PlacementSearchInput>, content: R
     yawStepDeg: req.yawStepDeg,
     mountHeightMm: req.mountHeightMm,
     floor,
-    zones: content.zones,
+    boundaries: content.boundaries,
     neighbours,
     gridMm: req.gridMm,
   };

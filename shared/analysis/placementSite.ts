@@ -1,6 +1,6 @@
 import { pointInPolygons } from '../geometry/pointInPolygon';
 import type { Polygon2 } from '../geometry/types';
-import type { Zone } from '../schemas/layout';
+import type { Boundary } from '../schemas/layout';
 import { bboxOverlap, type BBox } from './clearance';
 import { segmentsIntersect } from './segments';
 import type { ArmReach, PreparedFloor } from './types';
@@ -150,7 +150,7 @@ const boxOf = (polys: Polygon2[]): BBox => {
  * excepted for the restricted space). Turned regions are built lazily,
  * once per yaw (and per structure height), so only yaws that pass the margin test cost anything.
  */
-export function siteContext(reach: ArmReach, yawsDeg: ReadonlyArray<number>, mountHeightMm: number, floor: PreparedFloor | null, zones: ReadonlyArray<Zone>, workPoints: ReadonlyArray<{ x: number; y: number }> = []): SiteContext {
+export function siteContext(reach: ArmReach, yawsDeg: ReadonlyArray<number>, mountHeightMm: number, floor: PreparedFloor | null, boundaries: ReadonlyArray<Boundary>, workPoints: ReadonlyArray<{ x: number; y: number }> = []): SiteContext {
   const items: SiteItem[] = (floor?.structures ?? []).map((s) => ({ id: s.id, label: s.id, polygons: s.polygons, lines: s.lines, bbox: s.bbox, top: s.top }));
   // An obstacle under one of the chosen work points is the machine the arm serves: the reach must
   // enter it, so it only blocks the base. Walls and columns always count.
@@ -158,8 +158,8 @@ export function siteContext(reach: ArmReach, yawsDeg: ReadonlyArray<number>, mou
   (floor?.structures ?? []).forEach((s, i) => {
     if (s.role === 'obstacle' && s.polygons.length && workPoints.some((p) => pointInPolygons(p.x, p.y, s.polygons))) served.add(i);
   });
-  const areas = zones
-    .filter((z): z is Zone & { kind: 'keepout' | 'operator' } => z.kind === 'keepout' || z.kind === 'operator')
+  const areas = boundaries
+    .filter((z): z is Boundary & { kind: 'keepout' | 'operator' } => z.kind === 'keepout' || z.kind === 'operator')
     .map((z) => {
       const polygons: Polygon2[] = [[z.points.map(([x, y]) => [x, y] as [number, number])]];
       return { id: z.id, label: z.label || z.id, kind: z.kind, polygons, lines: [], bbox: boxOf(polygons), top: Infinity };
@@ -184,7 +184,7 @@ export function siteContext(reach: ArmReach, yawsDeg: ReadonlyArray<number>, mou
   };
 
   function baseVerdict(x: number, y: number): SiteVerdict {
-    if (floor && floor.boundary.length && !pointInPolygons(x, y, floor.boundary)) return { ok: false, kind: 'off-floor' };
+    if (floor && floor.outline.length && !pointInPolygons(x, y, floor.outline)) return { ok: false, kind: 'off-floor' };
     for (let i = 0; i < items.length; i++) {
       const s = items[i];
       if (x < s.bbox[0] || x > s.bbox[2] || y < s.bbox[1] || y > s.bbox[3]) continue;

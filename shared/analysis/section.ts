@@ -1,6 +1,6 @@
 import { pointInPolygons } from '../geometry/pointInPolygon';
 import type { Polygon2, Pt } from '../geometry/types';
-import type { Zone } from '../schemas/layout';
+import type { Boundary } from '../schemas/layout';
 import { frameOf, sectionCutOf, type Frame, type SectionArm, type SectionCut, type SectionLine } from './sectionCut';
 import { subtractOpenings } from './segments';
 import type { PreparedFloor, StructureItem } from './types';
@@ -19,7 +19,7 @@ export { checkSectionLine, sectionCutOf, type SectionArm, type SectionCut, type 
 export interface SectionInput {
   line: SectionLine;
   floor: PreparedFloor | null;
-  zones: ReadonlyArray<Zone>;
+  boundaries: ReadonlyArray<Boundary>;
   arms: ReadonlyArray<SectionArm>;
 }
 
@@ -65,7 +65,7 @@ export interface SectionDimension {
 export interface SectionResult {
   line: [[number, number], [number, number]];
   lengthMm: number;
-  /** s-intervals where the line is over the floor (the whole line when the plan has no boundary). */
+  /** s-intervals where the line is over the floor (the whole line when the plan has no floor outline). */
   floor: Array<[number, number]>;
   structures: SectionStructure[];
   fences: SectionFence[];
@@ -130,15 +130,15 @@ function structuresCrossed(f: Frame, floor: PreparedFloor | null): SectionStruct
  */
 export function sectionOf(input: Readonly<SectionInput>): SectionResult {
   const f = frameOf(input.line);
-  const floor = input.floor && input.floor.boundary.length ? insideIntervals(f, input.floor.boundary) : [[0, f.length] as [number, number]];
+  const floor = input.floor && input.floor.outline.length ? insideIntervals(f, input.floor.outline) : [[0, f.length] as [number, number]];
   const structures = structuresCrossed(f, input.floor);
 
   const fences: SectionFence[] = [];
   const openings: SectionOpening[] = [];
-  const openingZones = input.zones.filter((z) => z.kind === 'opening');
-  for (const z of input.zones) {
+  const openingBoundaries = input.boundaries.filter((z) => z.kind === 'opening');
+  for (const z of input.boundaries) {
     if (z.kind === 'fence') {
-      const cuts = openingZones.filter((o) => o.fenceId === z.id).map((o) => [o.points[0], o.points[1]] as const);
+      const cuts = openingBoundaries.filter((o) => o.fenceId === z.id).map((o) => [o.points[0], o.points[1]] as const);
       for (const part of subtractOpenings(z.points, cuts)) {
         for (const s of polylineCrossings(f, part)) fences.push({ id: z.id, label: z.label || z.id, s, height: z.height ?? 0 });
       }

@@ -1,6 +1,6 @@
 import type { AreaGeometry } from '../geometry/geojson';
 import type { Polygon2 } from '../geometry/types';
-import type { ArmPlacement, WorkPoint, Zone } from '../schemas/layout';
+import type { ArmPlacement, WorkPoint, Boundary } from '../schemas/layout';
 
 export type Severity = 'info' | 'warning' | 'critical';
 
@@ -97,15 +97,15 @@ export interface StructureItem {
 }
 
 export interface PreparedFloor {
-  /** Union of the floor boundary rings (empty when the plan has no boundary layer). */
-  boundary: Polygon2[];
+  /** Union of the floor outline rings (empty when the plan has no outline layer). */
+  outline: Polygon2[];
   structures: StructureItem[];
 }
 
 export interface AnalysisInput {
   arms: ReadonlyArray<ArmPlacement>;
   workPoints: ReadonlyArray<WorkPoint>;
-  zones: ReadonlyArray<Zone>;
+  boundaries: ReadonlyArray<Boundary>;
   workHeights: ReadonlyArray<number>;
   floor: PreparedFloor | null;
 }
@@ -169,7 +169,7 @@ export interface SafeguardingResult {
 
 export interface AnalysisResult {
   findings: Finding[];
-  overlaps: SharedZone[];
+  sharedZones: SharedZone[];
   /** pointId → armId → margin mm (positive = reached). */
   coverage: Record<string, Record<string, number>>;
   /** Placed regions per arm, plan mm, for drawing. */

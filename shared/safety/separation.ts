@@ -1,6 +1,6 @@
 /**
  * Separation distance of a safeguard on an opening (ISO 13855): the minimum distance S (mm)
- * between the detection zone (or the guard) and the hazard, so that a person approaching at a
+ * between the detection boundary (or the guard) and the hazard, so that a person approaching at a
  * standard speed cannot reach the hazard before the machine has stopped.
  *
  *   S = K·T + C,  T = device response time + the machine's stopping time (s)
@@ -11,7 +11,7 @@
  *   below 500 mm;
  * - light curtain with d > 40 mm and multi-beam devices: S = 1600·T + 850;
  * - single beam: S = 1600·T + 1200;
- * - parallel approach (a horizontal detection zone at height H above the floor):
+ * - parallel approach (a horizontal detection boundary at height H above the floor):
  *   S = 1600·T + (1200 − 0.4·H), with H ≤ 1000 mm and H ≥ 15(d − 50), and C never below 850 mm;
  * - interlocked guard without guard locking: S = 1600·T (T from the guard starting to open);
  * - interlocked guard with guard locking: the guard stays shut until the hazard has stopped, so
@@ -32,7 +32,7 @@ export interface SeparationInput {
   /** Number of beams of a multi-beam device. */
   beams?: number;
   approach?: Approach;
-  /** Height of a parallel (horizontal) detection zone above the floor, mm. */
+  /** Height of a parallel (horizontal) detection boundary above the floor, mm. */
   heightMm?: number;
   /** Response time of the device, s. */
   responseTimeS: number;
@@ -80,15 +80,15 @@ function result(k: number, t: number, c: number, s: number, formula: string): Se
   return { sMm: Math.round(s * 10) / 10, kMmPerS: k, cMm: Math.round(c * 10) / 10, tS: t, formula };
 }
 
-/** Parallel approach (horizontal detection zone): S = 1600·T + (1200 − 0.4·H), C ≥ 850 mm, H ≤ 1000 mm and ≥ 15(d − 50). */
+/** Parallel approach (horizontal detection boundary): S = 1600·T + (1200 − 0.4·H), C ≥ 850 mm, H ≤ 1000 mm and ≥ 15(d − 50). */
 function parallel(t: number, input: SeparationInput): Separation {
   const h = input.heightMm;
-  if (h === undefined || !Number.isFinite(h)) throw new SafeguardInputError('heightMm', 'Height of the detection zone above the floor is required for a parallel approach (mm).');
-  if (h < 0) throw new SafeguardInputError('heightMm', 'Height of the detection zone cannot be negative.');
-  if (h > 1000) throw new SafeguardInputError('heightMm', `A parallel detection zone at ${h} mm is above the 1000 mm that ISO 13855 allows; lower it.`);
+  if (h === undefined || !Number.isFinite(h)) throw new SafeguardInputError('heightMm', 'Height of the detection boundary above the floor is required for a parallel approach (mm).');
+  if (h < 0) throw new SafeguardInputError('heightMm', 'Height of the detection boundary cannot be negative.');
+  if (h > 1000) throw new SafeguardInputError('heightMm', `A parallel detection boundary at ${h} mm is above the 1000 mm that ISO 13855 allows; lower it.`);
   const d = input.resolutionMm;
   if (d !== undefined && Number.isFinite(d) && h < 15 * (d - 50)) {
-    throw new SafeguardInputError('heightMm', `With a resolution of ${d} mm the detection zone must be at least ${fmt(15 * (d - 50))} mm above the floor (15·(d − 50)).`);
+    throw new SafeguardInputError('heightMm', `With a resolution of ${d} mm the detection boundary must be at least ${fmt(15 * (d - 50))} mm above the floor (15·(d − 50)).`);
   }
   const c = Math.max(850, 1200 - 0.4 * h);
   const s = K_WALK * t + c;

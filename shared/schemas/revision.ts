@@ -103,7 +103,7 @@ export const SnapshotSafeguarding = z.object({
 /** The analysis result frozen with the layout (areas m², distances and margins mm). */
 export const SnapshotAnalysis = z.object({
   findings: z.array(SnapshotFinding),
-  overlaps: z.array(
+  sharedZones: z.array(
     z.object({
       arms: z.tuple([z.string(), z.string()]),
       areaM2: z.number(),
@@ -169,3 +169,38 @@ export const RevisionDiff = z.object({
   findings: z.object({ added: z.array(FindingBrief), removed: z.array(FindingBrief) }),
 });
 export type RevisionDiff = z.infer<typeof RevisionDiff>;
+
+/**
+ * A snapshot frozen under the product's older names read with today's: layout content `zones` →
+ * `boundaries`, analysis `overlaps` → `sharedZones`, the floor-plan layer role `boundary` →
+ * `outline`. The stored JSON never changes (its checksum is taken over it as stored); this is how it
+ * is read. Returns the same object when there is nothing to rename.
+ */
+export function upgradeSnapshotNames<T>(snapshot: T): T {
+  const s = snapshot as Record<string, unknown> | null;
+  if (!s || typeof s !== 'object') return snapshot;
+  let out: Record<string, unknown> = s;
+  const layout = s.layout as { content?: Record<string, unknown> } | undefined;
+  if (layout?.content && 'zones' in layout.content && !('boundaries' in layout.content)) {
+    const { zones, ...rest } = layout.content;
+    out = { ...out, layout: { ...layout, content: { ...rest, boundaries: zones } } };
+  }
+  const analysis = s.analysis as Record<string, unknown> | undefined;
+  if (analysis && 'overlaps' in analysis && !('sharedZones' in analysis)) {
+    const { overlaps, ...rest } = analysis;
+    out = { ...out, analysis: { ...rest, sharedZones: overlaps } };
+  }
+  const fp = s.floorPlan as Record<string, unknown> | null | undefined;
+  if (fp && typeof fp === 'object') {
+    const up = upgradeFloorPlanNames(fp);
+    if (up !== fp) out = { ...out, floorPlan: up };
+  }
+  return out as T;
+}
+
+/** A frozen floor plan with layer role `boundary` read as `outline` (same object when none). */
+export function upgradeFloorPlanNames<T>(floorPlan: T): T {
+  const fp = floorPlan as { layers?: Array<{ role?: string }> } | null;
+  if (!fp?.layers?.some((l) => l.role === 'boundary')) return floorPlan;
+  return { ...fp, layers: fp.layers.map((l) => (l.role === 'boundary' ? { ...l, role: 'outline' } : l)) } as T;
+}

@@ -33,7 +33,7 @@ describe('server and worker analyses', () => {
     const worker = session.run()!.analysis;
     const server = await analyzeLayout(layout);
 
-    const strip = (r: typeof server) => ({ findings: r.findings, overlaps: r.overlaps, coverage: JSON.parse(JSON.stringify(r.coverage)), regions: r.regions, safeguarding: r.safeguarding });
+    const strip = (r: typeof server) => ({ findings: r.findings, sharedZones: r.sharedZones, coverage: JSON.parse(JSON.stringify(r.coverage)), regions: r.regions, safeguarding: r.safeguarding });
     expect(strip(worker)).toEqual(strip(server));
     expect(server.findings.length).toBeGreaterThan(3);
     // The demo's access opening carries a safeguard: both sides measure it the same.
@@ -45,8 +45,8 @@ describe('server and worker analyses', () => {
     const moved = { ...content, arms: content.arms.map((a) => (a.id === 'R2' ? { ...a, x: a.x + 400 } : a)) };
     // …and with the door switched to a light curtain, so a second safeguard kind is compared too.
     const curtain = { device: 'light-curtain' as const, resolutionMm: 30, responseTimeS: 0.02, stopCategory: 0 as const, approach: 'normal' as const };
-    moved.zones = content.zones.map((z) => (z.id === 'O1' ? { ...z, safeguard: curtain } : z));
-    session.receive({ type: 'content', seq: 2, content: { ...content, zones: moved.zones } });
+    moved.boundaries = content.boundaries.map((z) => (z.id === 'O1' ? { ...z, safeguard: curtain } : z));
+    session.receive({ type: 'content', seq: 2, content: { ...content, boundaries: moved.boundaries } });
     session.receive({ type: 'drag', seq: 3, pose: { armId: 'R2', x: moved.arms[1].x, y: moved.arms[1].y, yaw: moved.arms[1].yaw } });
     const during = session.run()!.analysis;
     const after = await analyzeLayout(layout, moved);
@@ -60,7 +60,7 @@ describe('server and worker analyses', () => {
     const expected = sectionOf({
       line,
       floor: prepareFloor(plan.geometry, plan.layers as FloorLayer[]),
-      zones: moved.zones,
+      boundaries: moved.boundaries,
       arms: moved.arms.map((a) => ({ id: a.id, label: a.label, pose: a, envelope: armReachFor(params.get(a.armModelId), a.restrict).envelope })),
     });
     expect(view.section).toEqual(expected);

@@ -13,7 +13,7 @@ beforeAll(async () => {
 });
 afterAll(async () => t.close());
 
-const EMPTY = { arms: [], workPoints: [], zones: [], workHeights: [] };
+const EMPTY = { arms: [], workPoints: [], boundaries: [], workHeights: [] };
 
 async function projectWithRecords() {
   const client = await buildUser({ role: 'client' });
@@ -59,7 +59,7 @@ describe('deleting what holds records', () => {
     const returned = await Layout.create({ projectId: project.id, floorPlanId: null, name: 'Returned', content: EMPTY, createdBy: null });
     const { submitted, released } = await buildReleasedRevision(project.id, returned.id);
     await Revision.destroy({ where: { id: released.id } });
-    await submitted.update({ state: 'changes_requested', decidedAt: new Date() });
+    await submitted.update({ state: 'returned', decidedAt: new Date() });
     expect((await agent.delete(`/api/layouts/${returned.id}`)).status).toBe(204);
     expect(await Revision.count({ where: { layoutId: returned.id } })).toBe(0);
     expect((await agent.delete(`/api/projects/${project.id}`)).status).toBe(204);

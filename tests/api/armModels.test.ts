@@ -226,7 +226,7 @@ describe('arm models', () => {
       projectId: project.id,
       floorPlanId: null,
       name: 'Case packer bay',
-      content: { arms: [{ id: 'R1', armModelId: id, label: 'Packer', x: 0, y: 0, yaw: 0, mountHeight: 0 }], workPoints: [], zones: [], workHeights: [] },
+      content: { arms: [{ id: 'R1', armModelId: id, label: 'Packer', x: 0, y: 0, yaw: 0, mountHeight: 0 }], workPoints: [], boundaries: [], workHeights: [] },
       createdBy: null,
     });
     const del = await agent.delete(`/api/arm-models/${id}`);

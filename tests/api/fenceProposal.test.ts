@@ -22,8 +22,8 @@ describe('POST /api/layouts/:id/fence-proposal', () => {
     const before = layout.version;
     const r = await planner.post(`/api/layouts/${layout.id}/fence-proposal`).send({ panelWidthsMm: [500, 1000, 1500], clearanceMm: 150 });
     expect(r.status).toBe(200);
-    expect(r.body.zones.some((z: { kind: string }) => z.kind === 'fence')).toBe(true);
-    const doors = r.body.zones.filter((z: { kind: string }) => z.kind === 'opening');
+    expect(r.body.boundaries.some((z: { kind: string }) => z.kind === 'fence')).toBe(true);
+    const doors = r.body.boundaries.filter((z: { kind: string }) => z.kind === 'opening');
     expect(doors.length).toBeGreaterThan(0);
     for (const d of doors) expect(['interlock', 'interlock-locking']).toContain(d.safeguard.device);
     expect(r.body.bom.find((b: { item: string }) => b.item === 'floor anchor').quantity).toBeGreaterThan(0);
@@ -36,7 +36,7 @@ describe('POST /api/layouts/:id/fence-proposal', () => {
   });
 
   it('proposes for unsaved content sent with the options', async () => {
-    const content = { ...(layout.content as object), zones: [] };
+    const content = { ...(layout.content as object), boundaries: [] };
     const r = await planner.post(`/api/layouts/${layout.id}/fence-proposal`).send({ content });
     expect(r.status).toBe(200);
     expect(r.body.notes.join(' ')).not.toMatch(/replaces the fences/);
@@ -62,7 +62,7 @@ describe('POST /api/layouts/:id/fence-proposal', () => {
   });
 
   it('answers 400 with a sentence for a layout without arms', async () => {
-    const r = await planner.post(`/api/layouts/${layout.id}/fence-proposal`).send({ content: { arms: [], workPoints: [], zones: [], workHeights: [] } });
+    const r = await planner.post(`/api/layouts/${layout.id}/fence-proposal`).send({ content: { arms: [], workPoints: [], boundaries: [], workHeights: [] } });
     expect(r.status).toBe(400);
     expect(r.body.error.message).toMatch(/has no arms/);
   });

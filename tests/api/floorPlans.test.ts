@@ -49,7 +49,7 @@ describe('floor-plan upload', () => {
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ units: 'mm', unitsSource: 'header', bounds: { minX: 0, minY: 0, maxX: 10000, maxY: 6000 } });
     const roles = Object.fromEntries(res.body.layers.map((l: { name: string; role: string }) => [l.name, l.role]));
-    expect(roles).toEqual({ OUTLINE: 'boundary', WALLS: 'wall' });
+    expect(roles).toEqual({ OUTLINE: 'outline', WALLS: 'wall' });
     const full = await agent.get(`/api/floor-plans/${res.body.id}`);
     expect(full.body.geometry.type).toBe('FeatureCollection');
     expect(full.body.geometry.features.length).toBe(2);
@@ -122,7 +122,7 @@ describe('floor-plan upload', () => {
     const agent = await plannerAgent();
     const project = await buildProject();
     const up = await agent.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(tinyDxf()), 'hall.dxf');
-    const layout = await Layout.create({ projectId: project.id, floorPlanId: up.body.id, name: 'Cell layout', content: { arms: [], workPoints: [], zones: [], workHeights: [] }, createdBy: null });
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: up.body.id, name: 'Cell layout', content: { arms: [], workPoints: [], boundaries: [], workHeights: [] }, createdBy: null });
     const refused = await agent.delete(`/api/floor-plans/${up.body.id}`);
     expect(refused.status).toBe(409);
     expect(refused.body.error.message).toContain('Cell layout');
@@ -263,7 +263,7 @@ describe('real drawings: unit plausibility, local origin, saved layer roles', ()
       projectId: project.id,
       floorPlanId: up.body.id,
       name: 'On the site plan',
-      content: { arms: [], workPoints: [], workHeights: [], zones: [{ id: 'K1', kind: 'keepout', label: '', points: [[1000, 1000], [5000, 1000], [5000, 4000]] }] },
+      content: { arms: [], workPoints: [], workHeights: [], boundaries: [{ id: 'K1', kind: 'keepout', label: '', points: [[1000, 1000], [5000, 1000], [5000, 4000]] }] },
       createdBy: planner!.id,
     });
     const dxf = await agent.get(`/api/layouts/${layout.id}/layout.dxf`);
@@ -283,7 +283,7 @@ describe('real drawings: unit plausibility, local origin, saved layer roles', ()
     expect(await ProjectLayerRoles.count({ where: { projectId: project.id } })).toBe(0);
     const saved = await agent
       .put(`/api/projects/${project.id}/layer-roles`)
-      .send({ layers: [{ name: 'L-17', role: 'boundary', height: null }, { name: 'L-20', role: 'wall', height: 2400 }] });
+      .send({ layers: [{ name: 'L-17', role: 'outline', height: null }, { name: 'L-20', role: 'wall', height: 2400 }] });
     expect(saved.status).toBe(200);
     expect((await ProjectLayerRoles.findByPk(project.id))!.layers).toHaveLength(2);
     // without the saved roles both layers would be guessed as obstacles
@@ -292,7 +292,7 @@ describe('real drawings: unit plausibility, local origin, saved layer roles', ()
       .attach('file', Buffer.from(squareDxf(20_000, { layer: 'l-17', wall: 'L-20' })), 'next.dxf');
     expect(up.status).toBe(201);
     const roles = Object.fromEntries(up.body.layers.map((l: { name: string; role: string; height: number | null }) => [l.name, [l.role, l.height]]));
-    expect(roles).toEqual({ 'l-17': ['boundary', null], 'L-20': ['wall', 2400] });
+    expect(roles).toEqual({ 'l-17': ['outline', null], 'L-20': ['wall', 2400] });
     expect(up.body.warnings).toContain('2 layers take their roles from the roles saved for this project.');
     const other = await buildProject();
     const elsewhere = await agent.post(`/api/projects/${other.id}/floor-plans`).attach('file', Buffer.from(squareDxf(20_000, { layer: 'L-17' })), 'x.dxf');

@@ -12,7 +12,7 @@ afterAll(async () => t.close());
 const content = (armModelId: number) => ({
   arms: [{ id: 'R1', armModelId, label: 'Picker 1', x: 4000, y: 3000, yaw: 90, mountHeight: 0 }],
   workPoints: [{ id: 'P1', x: 4300, y: 3200, z: 900, approach: 'top', tag: 'infeed', assignedArm: 'R1' }],
-  zones: [
+  boundaries: [
     { id: 'F1', kind: 'fence', points: [[0, 0], [8000, 0], [8000, 6000]], height: 2000 },
     { id: 'O1', kind: 'opening', points: [[2000, 0], [3000, 0]], fenceId: 'F1' },
   ],
@@ -55,9 +55,9 @@ describe('layouts', () => {
     expect(dup.body.error.fields).toHaveProperty(['content.arms.1.id']);
     const poly = await a
       .post(`/api/projects/${project.id}/layouts`)
-      .send({ name: 'x', content: { ...c, zones: [{ id: 'K1', kind: 'keepout', points: [[0, 0], [1, 1]] }] } });
+      .send({ name: 'x', content: { ...c, boundaries: [{ id: 'K1', kind: 'keepout', points: [[0, 0], [1, 1]] }] } });
     expect(poly.status).toBe(400);
-    expect(poly.body.error.fields).toHaveProperty(['content.zones.0.points']);
+    expect(poly.body.error.fields).toHaveProperty(['content.boundaries.0.points']);
     expect(await Layout.count()).toBe(before);
   });
 
@@ -89,23 +89,23 @@ describe('layout analysis endpoint', () => {
         { id: 'R2', armModelId: model.id, label: '', x: 1000, y: 0, yaw: 0, mountHeight: 0 },
       ],
       workPoints: [{ id: 'P1', x: 500, y: 0, z: 100, approach: 'top', tag: '' }],
-      zones: [],
+      boundaries: [],
       workHeights: [100],
     };
     const layout = await Layout.create({ projectId: project.id, floorPlanId: null, name: 'Analysed', content, createdBy: null });
     const agent = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
     const res = await agent.post(`/api/layouts/${layout.id}/analysis`).send({});
     expect(res.status).toBe(200);
-    expect(res.body.overlaps).toHaveLength(1);
+    expect(res.body.sharedZones).toHaveLength(1);
     // two unit disks 1 m apart share 1.22837 m² (Wolfram MathWorld, "Circle-Circle Intersection"); 1 mm chord tolerance errs outward
-    expect(res.body.overlaps[0].areaM2).toBeGreaterThan(1.2283);
-    expect(res.body.overlaps[0].areaM2).toBeLessThan(1.2283 * 1.002);
+    expect(res.body.sharedZones[0].areaM2).toBeGreaterThan(1.2283);
+    expect(res.body.sharedZones[0].areaM2).toBeLessThan(1.2283 * 1.002);
     expect(res.body.coverage.P1.R1).toBeGreaterThan(0);
     expect(res.body.findings.map((f: { id: string }) => f.id)).toContain('shared-zone:R1+R2');
     expect(typeof res.body.timingMs).toBe('number');
     const moved = await agent.post(`/api/layouts/${layout.id}/analysis`).send({ content: { ...content, arms: [content.arms[0], { ...content.arms[1], x: 5000 }] } });
     expect(moved.status).toBe(200);
-    expect(moved.body.overlaps).toHaveLength(0);
+    expect(moved.body.sharedZones).toHaveLength(0);
     const bad = await agent.post(`/api/layouts/${layout.id}/analysis`).send({ content: { ...content, arms: [{ ...content.arms[0], x: 'east' }] } });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields).toHaveProperty(['arms.0.x']);
@@ -118,11 +118,11 @@ describe('layout analysis endpoint: safeguarding', () => {
     // Reach 1000 mm (500 + 500 mm links), category 0 stopping time only.
     const model = await buildArmModel({ params: { family: 'scara', innerLink: 500, outerLink: 500, strokeMin: 0, strokeMax: 300, stopTimeS: 0.5, axes: [{ min: -180, max: 180 }, { min: -180, max: 180 }] } });
     const project = await buildProject();
-    const zones = (safeguard: Record<string, unknown>) => [
+    const boundaries = (safeguard: Record<string, unknown>) => [
       { id: 'F1', kind: 'fence', points: [[1500, -4000], [1500, 4000]], height: 2000 },
       { id: 'O1', kind: 'opening', points: [[1500, -500], [1500, 500]], fenceId: 'F1', safeguard },
     ];
-    const content = { arms: [{ id: 'R1', armModelId: model.id, label: '', x: 0, y: 0, yaw: 0, mountHeight: 0 }], workPoints: [], zones: zones({ device: 'interlock', responseTimeS: 0.1, stopCategory: 0 }), workHeights: [100] };
+    const content = { arms: [{ id: 'R1', armModelId: model.id, label: '', x: 0, y: 0, yaw: 0, mountHeight: 0 }], workPoints: [], boundaries: boundaries({ device: 'interlock', responseTimeS: 0.1, stopCategory: 0 }), workHeights: [100] };
     const layout = await Layout.create({ projectId: project.id, floorPlanId: null, name: 'Guarded', content, createdBy: null });
     const agent = await signedIn(t.app, planner.email, TEST_PASSWORD);
     const res = await agent.post(`/api/layouts/${layout.id}/analysis`).send({});
@@ -133,12 +133,12 @@ describe('layout analysis endpoint: safeguarding', () => {
     expect(res.body.safeguarding.fences.map((f: { id: string }) => f.id)).toEqual(['F1']);
     expect(res.body.findings.map((f: { id: string }) => f.id)).toContain('opening-too-close:O1+R1');
     // A category 1 safeguard on a model without the category 1 time: no distance, a finding that says so.
-    const cat1 = await agent.post(`/api/layouts/${layout.id}/analysis`).send({ content: { ...content, zones: zones({ device: 'interlock', responseTimeS: 0.1, stopCategory: 1 }) } });
+    const cat1 = await agent.post(`/api/layouts/${layout.id}/analysis`).send({ content: { ...content, boundaries: boundaries({ device: 'interlock', responseTimeS: 0.1, stopCategory: 1 }) } });
     expect(cat1.status).toBe(200);
     expect(cat1.body.safeguarding.openings[0]).toMatchObject({ requiredMm: null, ok: null });
     expect(cat1.body.findings.map((f: { id: string }) => f.id)).toContain('stopping-data-missing:O1+R1');
-    const bad = await agent.post(`/api/layouts/${layout.id}/analysis`).send({ content: { ...content, zones: zones({ device: 'light-curtain', responseTimeS: 0.02, stopCategory: 0 }) } });
+    const bad = await agent.post(`/api/layouts/${layout.id}/analysis`).send({ content: { ...content, boundaries: boundaries({ device: 'light-curtain', responseTimeS: 0.02, stopCategory: 0 }) } });
     expect(bad.status).toBe(400);
-    expect(bad.body.error.fields).toHaveProperty(['zones.1.safeguard.resolutionMm']);
+    expect(bad.body.error.fields).toHaveProperty(['boundaries.1.safeguard.resolutionMm']);
   });
 });

@@ -55,7 +55,7 @@ beforeAll(async () => {
           { id: 'A1', armModelId: scara, label: 'West', x: 0, y: 0, yaw: 0, mountHeight: 0 },
           { id: 'A2', armModelId: scara, label: 'East', x: 10000, y: 0, yaw: 0, mountHeight: 0 },
         ],
-        workPoints: [], zones: [], workHeights: [],
+        workPoints: [], boundaries: [], workHeights: [],
       },
     })
   ).id;
@@ -103,7 +103,7 @@ describe('plan sheet PDF', () => {
     // 40 characters (always on the first line at this column width) are what can be matched.
     expect(input.analysis.findings.length).toBeGreaterThan(0);
     for (const f of input.analysis.findings) expect(all).toContain(f.message.slice(0, 40));
-    expect(all).toMatch(/critical|warning/);
+    expect(all).toMatch(/Critical|Warning/); // severities in words (SEVERITY_LABEL), never raw values
     // Cautions on every page: the standards named and the competent-person sentence.
     for (const p of ps) {
       expect(p.text).toContain('ISO 12100');
@@ -218,7 +218,7 @@ describe('plan sheet PDF', () => {
       projectId: project.id, floorPlanId: null, name: 'Door without stop data', createdBy: planner.id,
       content: {
         arms: [{ id: 'R1', armModelId: bare.id, label: '', x: 0, y: 0, yaw: 0, mountHeight: 0 }], workPoints: [], workHeights: [],
-        zones: [
+        boundaries: [
           { id: 'F1', kind: 'fence', label: '', points: [[1500, -3000], [1500, 3000]], height: 2000 },
           { id: 'O1', kind: 'opening', label: '', points: [[1500, -500], [1500, 500]], fenceId: 'F1', safeguard: { device: 'interlock', responseTimeS: 0.1, stopCategory: 1, approach: 'normal' } },
         ],

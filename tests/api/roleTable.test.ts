@@ -94,7 +94,7 @@ const ROWS: Row[] = [
   {
     method: 'patch',
     path: (c) => `/api/floor-plans/${c.floorPlanId}`,
-    body: () => ({ layers: [{ name: 'OUTLINE', role: 'boundary' }] }),
+    body: () => ({ layers: [{ name: 'OUTLINE', role: 'outline' }] }),
     expect: { anon: 401, client: 403, reviewer: 403, planner: 200, admin: 200 },
   },
   { method: 'post', path: (c) => `/api/projects/${c.projectId}/floor-plans`, expect: { anon: 401, client: 403, reviewer: 403, planner: 400, admin: 400 } },
@@ -123,7 +123,7 @@ const ROWS: Row[] = [
   { method: 'get', path: (c) => `/api/revisions/${c.releasedRevisionId}/plan-sheet.pdf`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
   { method: 'post', path: (c) => `/api/revisions/${c.submittedRevisionId}/comments`, body: () => ({ body: 'Role table note', point: { x: 1, y: 2 } }), expect: { anon: 401, client: 403, reviewer: 201, planner: 201, admin: 201 } },
   { method: 'patch', path: (c) => `/api/comments/${c.commentId}`, body: () => ({ resolved: true }), expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
-  { method: 'post', path: (c) => `/api/revisions/${c.submittedRevisionId}/decision`, body: () => ({ decision: 'request_changes' }), expect: { anon: 401, client: 403, reviewer: 400, planner: 403, admin: 403 } },
+  { method: 'post', path: (c) => `/api/revisions/${c.submittedRevisionId}/decision`, body: () => ({ decision: 'return' }), expect: { anon: 401, client: 403, reviewer: 400, planner: 403, admin: 403 } },
   { method: 'post', path: (c) => `/api/revisions/${c.submittedRevisionId}/release`, expect: { anon: 401, client: 403, reviewer: 403, planner: 409, admin: 409 } },
   { method: 'post', path: (c) => `/api/revisions/${c.releasedRevisionId}/release/retry-mail`, expect: { anon: 401, client: 403, reviewer: 403, planner: 409, admin: 409 } },
   { method: 'post', path: (c) => `/api/revisions/${c.releasedRevisionId}/acknowledge`, expect: { anon: 401, client: 200, reviewer: 403, planner: 403, admin: 403 } },
@@ -228,11 +228,11 @@ describe('role × route table', () => {
       units: 'mm',
       unitsSource: 'header',
       bounds: { minX: 0, minY: 0, maxX: 1, maxY: 1 },
-      layers: [{ name: 'OUTLINE', role: 'boundary', height: null, entityCount: 1, color: '#000000' }],
+      layers: [{ name: 'OUTLINE', role: 'outline', height: null, entityCount: 1, color: '#000000' }],
       geometry: { type: 'FeatureCollection', features: [] },
       createdBy: null,
     });
-    const layout = await Layout.create({ projectId, floorPlanId: null, name: 'L', content: { arms: [], workPoints: [], zones: [], workHeights: [] }, createdBy: null });
+    const layout = await Layout.create({ projectId, floorPlanId: null, name: 'L', content: { arms: [], workPoints: [], boundaries: [], workHeights: [] }, createdBy: null });
     const { submitted, released } = await buildReleasedRevision(projectId, layout.id);
     const comment = await ReviewComment.create({ revisionId: submitted.id, authorId: null, findingId: null, pointX: 0, pointY: 0, body: 'Seed note' });
     const invitation = await Invitation.create({ email: `rt-${who}-${process.pid}@example.test`, role: 'planner', projectId: null, tokenHash: `${who}`.padEnd(64, '0'), expiresAt: new Date(Date.now() + 3600e3), invitedBy: null, createdAt: new Date() });
@@ -243,9 +243,9 @@ describe('role × route table', () => {
       invitationId: invitation.id,
       floorPlanId: fp.id,
       layoutId: layout.id,
-      plainLayoutId: (await Layout.create({ projectId, floorPlanId: null, name: 'Plain', content: { arms: [], workPoints: [], zones: [], workHeights: [] }, createdBy: null })).id,
+      plainLayoutId: (await Layout.create({ projectId, floorPlanId: null, name: 'Plain', content: { arms: [], workPoints: [], boundaries: [], workHeights: [] }, createdBy: null })).id,
       archiveProjectId: (await buildProject()).id,
-      archiveLayoutId: (await Layout.create({ projectId, floorPlanId: null, name: 'To archive', content: { arms: [], workPoints: [], zones: [], workHeights: [] }, createdBy: null })).id,
+      archiveLayoutId: (await Layout.create({ projectId, floorPlanId: null, name: 'To archive', content: { arms: [], workPoints: [], boundaries: [], workHeights: [] }, createdBy: null })).id,
       projectId,
       otherProjectId: (await buildProject()).id,
       memberUserId: (await buildUser({ role: 'client' })).id,

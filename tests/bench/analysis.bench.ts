@@ -15,7 +15,7 @@ import { armReachFor } from '@shared/analysis/armReach';
 import { armPose } from '@shared/geometry/frames';
 import { polygonsToGeoJSON } from '@shared/geometry/geojson';
 import { polygonsArea } from '@shared/geometry/area';
-import type { ArmPlacement, WorkPoint, Zone } from '@shared/schemas/layout';
+import type { ArmPlacement, WorkPoint, Boundary } from '@shared/schemas/layout';
 
 const FULL_TARGET_MS = 100;
 const SPEEDUP_TARGET = 10;
@@ -67,11 +67,11 @@ function layout(arms: number, points: number, seed: number) {
     else features.push({ type: 'Feature', properties: { layer: 'WALLS' }, geometry: { type: 'LineString', coordinates: [[cx, cy], [cx + 1500, cy]] } });
   }
   const floor = prepareFloor({ type: 'FeatureCollection', features } as FeatureCollection, [
-    { name: 'OUTLINE', role: 'boundary', height: null },
+    { name: 'OUTLINE', role: 'outline', height: null },
     { name: 'COLUMNS', role: 'column', height: null },
     { name: 'WALLS', role: 'wall', height: 1200 },
   ]);
-  const input: AnalysisInput = { arms: armList, workPoints: pts, zones: [], workHeights: heights, floor };
+  const input: AnalysisInput = { arms: armList, workPoints: pts, boundaries: [], workHeights: heights, floor };
   return input;
 }
 
@@ -130,7 +130,7 @@ const base = naive(input);
 const naiveMs = performance.now() - tn;
 
 const ours = {
-  shared: result.overlaps.map((o) => [...o.arms].sort().join('+')).sort(),
+  shared: result.sharedZones.map((o) => [...o.arms].sort().join('+')).sort(),
   unreached: result.findings.filter((f) => f.kind === 'unreached-point').map((f) => f.points[0]),
 };
 const sameShared = JSON.stringify(ours.shared) === JSON.stringify(base.shared);
@@ -152,16 +152,16 @@ function withGuards(base: AnalysisInput): AnalysisInput {
   const rows = Math.ceil(base.arms.length / cols);
   const w = 2000 + cols * 3200;
   const h = 2000 + rows * 3200;
-  const zones: Zone[] = [{ id: 'F0', kind: 'fence', label: '', points: [[0, 0], [w, 0], [w, h], [0, h], [0, 0]], height: 2000, meshMm: 30, meshShape: 'square' }];
+  const boundaries: Boundary[] = [{ id: 'F0', kind: 'fence', label: '', points: [[0, 0], [w, 0], [w, h], [0, h], [0, 0]], height: 2000, meshMm: 30, meshShape: 'square' }];
   for (let r = 0; r + 1 < rows; r++) {
     const y = 2000 + r * 3200 + 1900;
-    zones.push({ id: `F${r + 1}`, kind: 'fence', label: '', points: [[0, y], [w, y]], height: 1400 });
+    boundaries.push({ id: `F${r + 1}`, kind: 'fence', label: '', points: [[0, y], [w, y]], height: 1400 });
     for (let c = 0; c < cols; c++) {
       const x = 2000 + c * 3200 + 1000;
-      zones.push({ id: `O${r + 1}-${c + 1}`, kind: 'opening', label: '', points: [[x, y], [x + 1000, y]], fenceId: `F${r + 1}`, safeguard: { device: c % 2 ? 'light-curtain' : 'interlock', resolutionMm: c % 2 ? 30 : undefined, responseTimeS: 0.05, stopCategory: 0, approach: 'normal' } });
+      boundaries.push({ id: `O${r + 1}-${c + 1}`, kind: 'opening', label: '', points: [[x, y], [x + 1000, y]], fenceId: `F${r + 1}`, safeguard: { device: c % 2 ? 'light-curtain' : 'interlock', resolutionMm: c % 2 ? 30 : undefined, responseTimeS: 0.05, stopCategory: 0, approach: 'normal' } });
     }
   }
-  return { ...base, zones };
+  return { ...base, boundaries };
 }
 const guarded = withGuards(input);
 createAnalyzer(reachFor).analyze(guarded);
@@ -172,7 +172,7 @@ for (let i = 0; i < 5; i++) {
   guardedResult = createAnalyzer(reachFor).analyze(guarded);
   guardTimes.push(performance.now() - t);
 }
-console.log(`full analysis with ${guarded.zones.filter((z) => z.kind === 'fence').length} fences and ${guarded.zones.filter((z) => z.kind === 'opening').length} safeguarded openings, same layout`);
+console.log(`full analysis with ${guarded.boundaries.filter((z) => z.kind === 'fence').length} fences and ${guarded.boundaries.filter((z) => z.kind === 'opening').length} safeguarded openings, same layout`);
 console.log(`  ${median(guardTimes).toFixed(1)} ms (median of 5); ${guardedResult.findings.length} findings, ${guardedResult.safeguarding?.openings.length ?? 0} opening rows`);
 
 // ---- incremental

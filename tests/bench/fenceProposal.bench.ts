@@ -14,7 +14,7 @@ function measure(name: string, input: ReturnType<typeof gridSheetInput>) {
   const params = new Map(input.models.map((m) => [m.id, m.params]));
   const floor = input.floorPlan ? prepareFloor(input.floorPlan.geometry, input.floorPlan.layers as FloorLayer[]) : null;
   const run = () =>
-    proposeFence({ arms: input.layout.content.arms, zones: input.layout.content.zones, floor, reachFor: (id, r) => armReachFor(params.get(id), r), system: DEFAULT_FENCE_SYSTEM });
+    proposeFence({ arms: input.layout.content.arms, boundaries: input.layout.content.boundaries, floor, reachFor: (id, r) => armReachFor(params.get(id), r), system: DEFAULT_FENCE_SYSTEM });
   run(); // warm-up: regions built and cached, code compiled
   const times: number[] = [];
   let last = run();

@@ -1,5 +1,5 @@
 // Placement search and auto-layout on the demo hall (24 m × 16 m, its columns, walls, machines and
-// zones). Search: 20 work points around the infeed for the demo SCARA, 10 mm final grid, 5° yaw
+// boundaries). Search: 20 work points around the infeed for the demo SCARA, 10 mm final grid, 5° yaw
 // steps — target ≤ 2 s, first map ≤ 300 ms. Auto-layout: 60 points in three groups, three arms of the demo catalogue —
 // target ≤ 10 s. Prints figure, target and ratio (figure / target; ≤ 1 meets it).
 import { autoLayout, placementSearch, placementSteps, prepareFloor, type FloorLayer } from '@shared/analysis';
@@ -74,7 +74,7 @@ const report = (what: string, ms: number, target: number, extra: string) =>
   const t0 = performance.now();
   const r = autoLayout({
     models: [{ armModelId: byName('Demo SCARA 600'), count: 1, reach: reachFor(byName('Demo SCARA 600')) }, { armModelId: byName('Demo Articulated 1400'), count: 2, reach: reachFor(byName('Demo Articulated 1400')) }],
-    points: pts, minMarginMm: 0, mountHeightMm: 400, floor, zones: demo.content.zones, seed: 1, timeLimitMs: 60_000,
+    points: pts, minMarginMm: 0, mountHeightMm: 400, floor, boundaries: demo.content.boundaries, seed: 1, timeLimitMs: 60_000,
   });
   const ms = performance.now() - t0;
   report('auto-layout, demo hall, 60 points, 3 arms', ms, AUTO_TARGET_MS, `${r.arms.length} arms placed, ${r.unassigned.length} points unassigned, ${r.unreachable.length} unreachable${r.timedOut ? ', timed out' : ''}`);

@@ -1,4 +1,4 @@
-// Plan-sheet benchmark: the full sheet set (plan, schedule, coverage, zones, findings, history) of a
+// Plan-sheet benchmark: the full sheet set (plan, schedule, coverage, boundaries, findings, history) of a
 // generated 40-arm layout, A3 draft. Targets: render ≤ 1 s, file ≤ 2 MB (printed with ratios).
 // The analysis is done once before timing (the route runs it too, but it is the analysis' own cost).
 // Run: npm run bench planSheet   (or node --import tsx tests/bench/planSheet.bench.ts [out.pdf])

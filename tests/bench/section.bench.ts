@@ -8,7 +8,7 @@ import { fileURLToPath } from 'node:url';
 import { armReachFor } from '../../shared/analysis/armReach';
 import { sectionOf, type SectionArm } from '../../shared/analysis/section';
 import { profileColumnAt, profileColumnIndex } from '../../shared/kinematics/profile';
-import type { Zone } from '../../shared/schemas/layout';
+import type { Boundary } from '../../shared/schemas/layout';
 
 const FRAME_TARGET_MS = 16;
 
@@ -23,16 +23,16 @@ const arms: SectionArm[] = content.arms.map((a: { id: string; label: string; x: 
   pose: a,
   envelope: armReachFor(model(byOrder[i]), a.restrict).envelope,
 }));
-const zones = content.zones as Zone[];
+const boundaries = content.boundaries as Boundary[];
 
 // A line from the pickers to beyond the fence's east side, bent so it passes every arm's reach.
 const line = (k: number): [[number, number], [number, number]] => [[11500, 6800 + k], [24500, 8200 + k]];
-for (let i = 0; i < 10; i++) sectionOf({ line: line(i), floor: null, zones, arms });
+for (let i = 0; i < 10; i++) sectionOf({ line: line(i), floor: null, boundaries, arms });
 const times: number[] = [];
 let cuts = 0;
 for (let i = 0; i < 40; i++) {
   const t = performance.now();
-  const r = sectionOf({ line: line(10 + i), floor: null, zones, arms });
+  const r = sectionOf({ line: line(10 + i), floor: null, boundaries, arms });
   times.push(performance.now() - t);
   cuts = r.arms.length;
 }

@@ -35,7 +35,7 @@ describe('guard-ring proposal in Chromium', () => {
     await page.goto(`${e.server.url}/projects/${projectId}/layouts/${layoutId}`);
     await page.locator('[data-layout-editor]').waitFor();
     await page.locator('[data-analysis-state="idle"]').waitFor();
-    const handDrawn = await page.locator('path.zone-line[data-kind="fence"]').evaluateAll((ps) => ps.map((p) => p.getAttribute('data-zone')));
+    const handDrawn = await page.locator('path.boundary-line[data-kind="fence"]').evaluateAll((ps) => ps.map((p) => p.getAttribute('data-boundary')));
     expect(handDrawn.length).toBeGreaterThan(0);
 
     await page.getByRole('button', { name: 'Propose guard ring' }).click();
@@ -65,9 +65,9 @@ describe('guard-ring proposal in Chromium', () => {
 
     // Accept: the proposal's fences and doors replace the hand-drawn ones; the preview goes.
     await panel.getByRole('button', { name: 'Accept' }).click();
-    await page.locator('path.zone-line[data-zone="GR1"]').waitFor({ state: 'attached' });
-    expect(await page.locator('path.zone-line[data-kind="opening"]').count()).toBeGreaterThan(0);
-    for (const id of handDrawn) expect(await page.locator(`path.zone-line[data-zone="${id}"]`).count()).toBe(0);
+    await page.locator('path.boundary-line[data-boundary="GR1"]').waitFor({ state: 'attached' });
+    expect(await page.locator('path.boundary-line[data-kind="opening"]').count()).toBeGreaterThan(0);
+    for (const id of handDrawn) expect(await page.locator(`path.boundary-line[data-boundary="${id}"]`).count()).toBe(0);
     expect(await page.locator('path[data-preview-fence]').count()).toBe(0);
     // The re-analysis has no fence or opening finding.
     await page.locator('[data-analysis-state="idle"]').waitFor();
@@ -76,13 +76,13 @@ describe('guard-ring proposal in Chromium', () => {
 
     // The Fence parts tab counts the accepted fences.
     await page.getByRole('tab', { name: 'Fence parts' }).click();
-    await page.getByRole('table', { name: 'Fence parts of the layout' }).waitFor();
+    await page.getByRole('table', { name: 'Fence parts of the cell layout' }).waitFor();
     await page.screenshot({ path: path.join(SCREENS, 'guard-ring-accepted.png') });
 
     // One undo step takes it all back.
     await page.getByRole('button', { name: 'Undo' }).click();
-    for (const id of handDrawn) await page.locator(`path.zone-line[data-zone="${id}"]`).waitFor({ state: 'attached' });
-    expect(await page.locator('path.zone-line[data-zone="GR1"]').count()).toBe(0);
+    for (const id of handDrawn) await page.locator(`path.boundary-line[data-boundary="${id}"]`).waitFor({ state: 'attached' });
+    expect(await page.locator('path.boundary-line[data-boundary="GR1"]').count()).toBe(0);
     await page.close();
   });
 });

@@ -43,7 +43,7 @@ async function demoLayout(page: Page): Promise<{ projectId: number; layoutId: nu
           arm('R4', 'Demo Palletizer', 19000, 6000, 90),
         ],
         workPoints: [],
-        zones: [],
+        boundaries: [],
         // Inside the stroke of the demo SCARA (mounted on the floor here), so every arm has a band.
         workHeights: [500],
       };
@@ -95,7 +95,7 @@ describe('layout editor in Chromium', () => {
 
     // The project page lists the layout with its counts.
     await page.goto(`${e.server.url}/projects/${projectId}`);
-    const row = page.getByRole('table', { name: 'Layouts' }).getByRole('row', { name: new RegExp(DEMO_LAYOUT) });
+    const row = page.getByRole('table', { name: 'Cell layouts' }).getByRole('row', { name: new RegExp(DEMO_LAYOUT) });
     await row.waitFor();
     await row.getByRole('link', { name: DEMO_LAYOUT }).click();
     await page.waitForURL(new RegExp(`/layouts/${layoutId}$`));
@@ -127,11 +127,11 @@ describe('layout editor in Chromium', () => {
     const [tx, ty] = centres.get(other)!;
     await page.mouse.move(sx, sy);
     await page.mouse.down();
-    const zone = page.locator(`path.shared-zone[data-shared="${key}"]`);
+    const boundary = page.locator(`path.shared-zone[data-shared="${key}"]`);
     let appeared = false;
     for (let f = 0.1; f <= 0.9 + 1e-9 && !appeared; f += 0.1) {
       await page.mouse.move(sx + (tx - sx) * f, sy + (ty - sy) * f, { steps: 4 });
-      appeared = await zone
+      appeared = await boundary
         .waitFor({ state: 'attached', timeout: 1500 })
         .then(() => true)
         .catch(() => false);
@@ -139,11 +139,11 @@ describe('layout editor in Chromium', () => {
     expect(appeared, 'shared zone drawn during the drag').toBe(true);
     await page.mouse.up();
 
-    // The finding is listed and the zone is drawn with the hatch pattern.
+    // The finding is listed and the boundary is drawn with the hatch pattern.
     const finding = page.locator(`[data-finding="shared-zone:${key}"]`);
     await finding.waitFor();
     expect(await finding.textContent()).toMatch(/share [\d.]+ m² of restricted space/);
-    const fill = await zone.evaluate((p) => getComputedStyle(p).fill);
+    const fill = await boundary.evaluate((p) => getComputedStyle(p).fill);
     expect(fill).toContain('rf-shared-hatch');
     expect(await page.locator('pattern#rf-shared-hatch').count()).toBe(1);
     await expect.poll(async () => (await storedArm(page, layoutId, mover)).x, { timeout: 10000 }).not.toBe(before.x);
@@ -153,17 +153,17 @@ describe('layout editor in Chromium', () => {
     await page.screenshot({ path: path.join(SCREENS, 'layout-editor-after-drag.png') });
 
     // Clicking the finding selects it, emphasises the arms involved and zooms onto the shared zone.
-    const zoneBox0 = (await zone.boundingBox())!;
+    const boundaryBox0 = (await boundary.boundingBox())!;
     await finding.click();
     expect(await finding.getAttribute('aria-pressed')).toBe('true');
-    await expect.poll(async () => (await zone.boundingBox())!.width, { timeout: 5000 }).toBeGreaterThan(zoneBox0.width * 1.5);
+    await expect.poll(async () => (await boundary.boundingBox())!.width, { timeout: 5000 }).toBeGreaterThan(boundaryBox0.width * 1.5);
     await page.waitForTimeout(400);
     await page.screenshot({ path: path.join(SCREENS, 'layout-editor-shared-zone.png') });
 
     // Undo (Ctrl+Z) puts the arm back; the shared zone goes; the server gets the old position again.
     await page.locator('body').click({ position: { x: 5, y: 5 } });
     await page.keyboard.press('Control+z');
-    await expect.poll(async () => zone.count(), { timeout: 10000 }).toBe(0);
+    await expect.poll(async () => boundary.count(), { timeout: 10000 }).toBe(0);
     await expect.poll(async () => storedArm(page, layoutId, mover), { timeout: 10000 }).toEqual(before);
     // Redo (Shift+Ctrl+Z) moves it again, and the save reaches the server.
     await page.keyboard.press('Shift+Control+z');
@@ -227,8 +227,8 @@ describe('layout editor in Chromium', () => {
     const layoutId = await page.evaluate(async (pid) => {
       const { floorPlans } = await (await fetch(`/api/projects/${pid}/floor-plans`)).json();
       const { armModels } = await (await fetch('/api/arm-models')).json();
-      const content = { arms: [{ id: 'R1', armModelId: armModels[0].id, label: '', x: 2500, y: 2500, yaw: 0, mountHeight: 0 }], workPoints: [], zones: [], workHeights: [900] };
-      const r = await fetch(`/api/projects/${pid}/layouts`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: 'Zones drawn by clicks', floorPlanId: floorPlans[0]?.id ?? null, content }) });
+      const content = { arms: [{ id: 'R1', armModelId: armModels[0].id, label: '', x: 2500, y: 2500, yaw: 0, mountHeight: 0 }], workPoints: [], boundaries: [], workHeights: [900] };
+      const r = await fetch(`/api/projects/${pid}/layouts`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: 'Boundaries drawn by clicks', floorPlanId: floorPlans[0]?.id ?? null, content }) });
       return (await r.json()).layout.id as number;
     }, projectId);
     await openEditor(page, projectId, layoutId);
@@ -250,41 +250,41 @@ describe('layout editor in Chromium', () => {
     await page.getByRole('button', { name: 'Opening', exact: true }).click();
     await page.mouse.click(...at(0.4, 0.305));
     await page.mouse.click(...at(0.5, 0.295));
-    await page.locator('path.zone-line[data-zone="G1"]').waitFor({ state: 'attached' });
+    await page.locator('path.boundary-line[data-boundary="O1"]').waitFor({ state: 'attached' });
 
     // Operator area: four corners, the last one double-clicked.
     await page.getByRole('button', { name: 'Operator area', exact: true }).click();
     for (const [fx, fy] of [[0.35, 0.45], [0.6, 0.45], [0.6, 0.6]]) await page.mouse.click(...at(fx, fy));
     await page.mouse.dblclick(...at(0.35, 0.6));
-    await page.locator('path.zone-area[data-kind="operator"][data-zone="A1"]').waitFor({ state: 'attached' });
-    expect(await page.locator('text.zone-label[data-zone="A1"]').textContent()).toMatch(/OPERATOR AREA/);
+    await page.locator('path.boundary-area[data-kind="operator"][data-boundary="OP1"]').waitFor({ state: 'attached' });
+    expect(await page.locator('text.boundary-label[data-boundary="OP1"]').textContent()).toMatch(/OPERATOR AREA/);
 
     const stored = async () =>
-      page.evaluate(async (id) => (await (await fetch(`/api/layouts/${id}`)).json()).layout as { version: number; content: { zones: Array<{ id: string; kind: string; points: number[][]; height?: number; fenceId?: string }>; arms: Array<{ x: number }> } }, layoutId);
-    await expect.poll(async () => (await stored()).content.zones.map((z) => z.id).sort(), { timeout: 10000 }).toEqual(['A1', 'F1', 'G1']);
-    const zones = (await stored()).content.zones;
-    const fence = zones.find((z) => z.id === 'F1')!;
-    const opening = zones.find((z) => z.id === 'G1')!;
+      page.evaluate(async (id) => (await (await fetch(`/api/layouts/${id}`)).json()).layout as { version: number; content: { boundaries: Array<{ id: string; kind: string; points: number[][]; height?: number; fenceId?: string }>; arms: Array<{ x: number }> } }, layoutId);
+    await expect.poll(async () => (await stored()).content.boundaries.map((z) => z.id).sort(), { timeout: 10000 }).toEqual(['F1', 'O1', 'OP1']);
+    const boundaries = (await stored()).content.boundaries;
+    const fence = boundaries.find((z) => z.id === 'F1')!;
+    const opening = boundaries.find((z) => z.id === 'O1')!;
     expect(fence.height).toBe(1200);
     expect(fence.points).toHaveLength(3);
     expect(opening.fenceId).toBe('F1');
     // Both ends lie on the fence's first run (horizontal on screen, so one plan y), between its corners.
     expect(opening.points[0][1]).toBeCloseTo(fence.points[0][1], 0);
     expect(opening.points[1][1]).toBeCloseTo(fence.points[0][1], 0);
-    expect(zones.find((z) => z.id === 'A1')!.points).toHaveLength(4);
+    expect(boundaries.find((z) => z.id === 'OP1')!.points).toHaveLength(4);
     await page.locator('[data-save-state="saved"]').waitFor();
 
     // Someone else saves the layout; the next edit here meets a newer version.
     const theirs = await page.evaluate(async (id) => {
       const { layout } = await (await fetch(`/api/layouts/${id}`)).json();
-      const r = await fetch(`/api/layouts/${id}`, { method: 'PUT', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ version: layout.version, name: 'Zones drawn by clicks (edited elsewhere)' }) });
+      const r = await fetch(`/api/layouts/${id}`, { method: 'PUT', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ version: layout.version, name: 'Boundaries drawn by clicks (edited elsewhere)' }) });
       return r.status;
     }, layoutId);
     expect(theirs).toBe(200);
     await page.keyboard.press('Escape');
     await page.locator('g.arm-mark[data-arm="R1"] circle.arm-base').click();
     await page.keyboard.press('ArrowRight');
-    const dialog = page.getByRole('dialog', { name: 'This layout was changed elsewhere' });
+    const dialog = page.getByRole('dialog', { name: 'This cell layout was changed elsewhere' });
     await dialog.waitFor();
     expect(await page.locator('[data-layout-editor]').getAttribute('data-read-only')).toBe('true');
     await dialog.getByRole('button', { name: 'Keep mine as a copy' }).click();
@@ -293,11 +293,11 @@ describe('layout editor in Chromium', () => {
     const copy = await page.evaluate(async (id) => (await (await fetch(`/api/layouts/${id}`)).json()).layout, copyId);
     expect(copy.name).toMatch(/\(my copy\)$/);
     expect(copy.content.arms[0].x).toBe(2510);
-    expect(copy.content.zones).toHaveLength(3);
+    expect(copy.content.boundaries).toHaveLength(3);
     // Theirs is untouched by my edit.
     expect((await stored()).content.arms[0].x).toBe(2500);
     await page.locator('[data-layout-editor]').waitFor();
-    await page.screenshot({ path: path.join(SCREENS, 'layout-editor-zones.png') });
+    await page.screenshot({ path: path.join(SCREENS, 'layout-editor-boundaries.png') });
     await page.close();
   });
 
@@ -318,7 +318,7 @@ describe('layout editor in Chromium', () => {
           { id: 'R4', armModelId: id('Demo Palletizer 3100'), label: '', x: 20200, y: 8300, yaw: 90, mountHeight: 0 },
         ],
         workPoints: [],
-        zones: [],
+        boundaries: [],
         workHeights: [900],
       };
       const r = await fetch(`/api/projects/${pid}/layouts`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: 'Points by CSV', floorPlanId: floorPlans[0]?.id ?? null, content }) });

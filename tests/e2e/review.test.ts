@@ -1,5 +1,5 @@
 // Review and release in Chromium: reviewer sends back with a comment on a finding, planner resubmits,
-// reviewer approves, planner releases, the client downloads the sheet and acknowledges it.
+// reviewer signs off, planner releases, the client downloads the sheet and acknowledges it.
 import { createHash } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
 import path from 'node:path';
@@ -42,7 +42,7 @@ async function submitFromEditor(page: Page, projectId: number, layoutId: number)
 }
 
 describe('review and release in Chromium', () => {
-  it('request changes on a finding → resubmit → approve → release → client downloads and acknowledges', async () => {
+  it('return for changes on a finding → resubmit → sign off → release → client downloads and acknowledges', async () => {
     const planner = await e.browser.newPage({ viewport: { width: 1440, height: 1000 } });
     const reviewer = await e.browser.newPage({ viewport: { width: 1440, height: 1000 } });
     const client = await e.browser.newPage({ viewport: { width: 1280, height: 1000 }, acceptDownloads: true });
@@ -70,11 +70,11 @@ describe('review and release in Chromium', () => {
     await reviewer.getByLabel(/^At x/).fill('Keep a 600 mm walkway along here.');
     await reviewer.getByRole('button', { name: 'Pin comment' }).click();
     await reviewer.getByRole('heading', { name: 'Comments on the plan' }).waitFor();
-    await reviewer.getByRole('button', { name: 'Send back for changes' }).click();
+    await reviewer.getByRole('button', { name: 'Return for changes' }).click();
     await reviewer.getByRole('alert').filter({ hasText: 'Say what needs to change' }).waitFor();
     await reviewer.getByLabel('Decision note (required to send it back)').fill('See the comment on the shared space.');
-    await reviewer.getByRole('button', { name: 'Send back for changes' }).click();
-    await reviewer.locator('[data-revision-state="changes_requested"]').first().waitFor();
+    await reviewer.getByRole('button', { name: 'Return for changes' }).click();
+    await reviewer.locator('[data-revision-state="returned"]').first().waitFor();
     await shot(reviewer, '1-changes-requested');
 
     // Planner moves the first arm by 300 mm east (through the API) and resubmits: revision B.
@@ -89,16 +89,16 @@ describe('review and release in Chromium', () => {
     await planner.getByRole('heading', { name: /revision B$/ }).waitFor();
     await planner.locator('[data-diff]').getByText(/moved 300 mm/).waitFor();
 
-    // Reviewer sees A's comment as history on the same finding, and approves B.
+    // Reviewer sees A's comment as history on the same finding, and signs off B.
     await reviewer.goto(`${e.server.url}/projects/${projectId}/revisions/${revB}`);
     const same = reviewer.locator(`[data-finding="${findingId}"]`);
     // The finding either persists (A's comment shown as its history) or is listed as gone in the diff.
     await reviewer.locator('[data-finding]').first().waitFor();
     if (await same.count()) await same.getByRole('list', { name: `Earlier comments on ${findingId}` }).getByText('Check this against the cell drawing and move the arm if you can.').waitFor();
     else await reviewer.locator('[data-diff]').getByText(findingId).waitFor();
-    await reviewer.getByRole('button', { name: 'Approve revision B' }).click();
-    await reviewer.locator('[data-revision-state="approved"]').first().waitFor();
-    await shot(reviewer, '2-approved');
+    await reviewer.getByRole('button', { name: 'Sign off revision B' }).click();
+    await reviewer.locator('[data-revision-state="signed_off"]').first().waitFor();
+    await shot(reviewer, '2-signed-off');
 
     // Planner releases.
     await planner.reload();

@@ -31,7 +31,7 @@ describe('safeguard of an access opening', () => {
     const tooClose = page.locator('[data-finding="opening-too-close:O1+R4"]');
     await tooClose.waitFor();
 
-    await page.locator('path.zone-line[data-zone="O1"]').dispatchEvent('click');
+    await page.locator('path.boundary-line[data-boundary="O1"]').dispatchEvent('click');
     const device = page.getByLabel('Safeguard', { exact: true });
     await device.waitFor();
     expect(await device.inputValue()).toBe('interlock');
@@ -63,7 +63,7 @@ describe('safeguard of an access opening', () => {
         async () =>
           page.evaluate(async (id) => {
             const { layout } = await (await fetch(`/api/layouts/${id}`)).json();
-            return layout.content.zones.find((z: { id: string }) => z.id === 'O1').safeguard ?? null;
+            return layout.content.boundaries.find((z: { id: string }) => z.id === 'O1').safeguard ?? null;
           }, layoutId),
         { timeout: 10000 },
       )

@@ -36,7 +36,7 @@ async function demo(page: Page): Promise<Demo> {
         projectId: project.id,
         layoutId: layout.id,
         arms: layout.content.arms.map((a: { id: string; x: number; y: number }) => ({ id: a.id, x: a.x, y: a.y })),
-        fences: layout.content.zones.filter((z: { kind: string }) => z.kind === 'fence'),
+        fences: layout.content.boundaries.filter((z: { kind: string }) => z.kind === 'fence'),
       };
     },
     { projectName: DEMO_PROJECT, layoutName: DEMO_LAYOUT },

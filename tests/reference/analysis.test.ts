@@ -55,7 +55,7 @@ const frontArticulated = {
 const smallScara = { ...fullScara, innerLink: 500, outerLink: 500 };
 const MODELS: Record<number, unknown> = { 1: fullScara, 2: frontArticulated, 3: bigFrontArticulated, 4: smallScara, 5: fatScara };
 const analyzer = () => createAnalyzer((id, restrict) => armReachFor(MODELS[id], restrict));
-const empty = (): AnalysisInput => ({ arms: [], workPoints: [], zones: [], workHeights: [], floor: null });
+const empty = (): AnalysisInput => ({ arms: [], workPoints: [], boundaries: [], workHeights: [], floor: null });
 const place = (id: string, armModelId: number, x: number, y: number, extra: object = {}) => ({ id, armModelId, label: '', x, y, yaw: 0, mountHeight: 0, ...extra });
 
 describe('shared zones and spaces against published formulas', () => {
@@ -63,9 +63,9 @@ describe('shared zones and spaces against published formulas', () => {
     for (const d of [1500, 3000, 4800]) {
       const r = analyzer().analyze({ ...empty(), arms: [place('R1', 1, 0, 0), place('R2', 1, d, 0)] });
       const expected = lensArea(3000, 3000, d) / 1e6;
-      expect(r.overlaps).toHaveLength(1);
-      expect(Math.abs(r.overlaps[0].areaM2 - expected) / expected).toBeLessThan(0.001);
-      expect(r.overlaps[0].areaM2).toBeGreaterThanOrEqual(expected * (1 - 1e-6)); // errs toward more space
+      expect(r.sharedZones).toHaveLength(1);
+      expect(Math.abs(r.sharedZones[0].areaM2 - expected) / expected).toBeLessThan(0.001);
+      expect(r.sharedZones[0].areaM2).toBeGreaterThanOrEqual(expected * (1 - 1e-6)); // errs toward more space
     }
     // with the outer link's half-width 100 mm, the envelopes are disks of 3100 mm; the offset's
     // arcs err outward by up to 2 mm on the radius (chord tolerance of the disk and of the offset)
@@ -73,8 +73,8 @@ describe('shared zones and spaces against published formulas', () => {
       const r = analyzer().analyze({ ...empty(), arms: [place('R1', 5, 0, 0), place('R2', 5, d, 0)] });
       const expected = lensArea(3100, 3100, d) / 1e6;
       const outer = lensArea(3102, 3102, d) / 1e6;
-      expect(r.overlaps[0].areaM2).toBeLessThanOrEqual(outer);
-      expect(r.overlaps[0].areaM2).toBeGreaterThanOrEqual(expected * (1 - 1e-6));
+      expect(r.sharedZones[0].areaM2).toBeLessThanOrEqual(outer);
+      expect(r.sharedZones[0].areaM2).toBeGreaterThanOrEqual(expected * (1 - 1e-6));
     }
     // r = R = 1, d = 1 → 1.22837 (MathWorld's tabulated value, scaled to metres here)
     expect(lensArea(1000, 1000, 1000) / 1e6).toBeCloseTo(1.22837, 5);
@@ -132,7 +132,7 @@ describe('clearance findings through the kinematics', () => {
     ],
   };
   const layers = [
-    { name: 'OUTLINE', role: 'boundary' as const, height: null },
+    { name: 'OUTLINE', role: 'outline' as const, height: null },
     { name: 'COLUMNS', role: 'column' as const, height: null },
   ];
 
@@ -142,7 +142,7 @@ describe('clearance findings through the kinematics', () => {
       ...empty(),
       floor,
       arms: [place('R1', 4, 0, 0), place('R2', 4, 5000, 0)],
-      zones: [
+      boundaries: [
         { id: 'F1', kind: 'fence', label: '', points: [[5900, -3000], [5900, 3000]], height: 2000 },
         { id: 'OP', kind: 'operator', label: '', points: [[4000, 700], [6000, 700], [6000, 2000], [4000, 2000]] },
       ],

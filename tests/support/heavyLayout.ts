@@ -23,7 +23,7 @@ export function heavyLayoutContent(modelIds: readonly number[], arms = 24, point
       approach: 'any' as const,
       tag: '',
     })),
-    zones: [],
+    boundaries: [],
     workHeights: heights,
   };
 }

@@ -16,7 +16,7 @@ function analyse(content: LayoutContent, models: Models, floorPlan: PlanSheetInp
   const params = new Map(models.map((m) => [m.id, m.params]));
   const analyzer = createAnalyzer((id, restrict) => armReachFor(params.get(id), restrict));
   const floor = floorPlan ? prepareFloor(floorPlan.geometry, floorPlan.layers as FloorLayer[]) : null;
-  return analyzer.analyze({ arms: content.arms, workPoints: content.workPoints, zones: content.zones, workHeights: content.workHeights, floor });
+  return analyzer.analyze({ arms: content.arms, workPoints: content.workPoints, boundaries: content.boundaries, workHeights: content.workHeights, floor });
 }
 
 /** The demo catalogue with ids 1… in file order. */
@@ -63,7 +63,7 @@ export function gridSheetInput(n: number): PlanSheetInput {
   const content: LayoutContent = {
     arms,
     workPoints,
-    zones: [{ id: 'F1', kind: 'fence', label: '', points: [[-3000, -3000], [w, -3000], [w, w], [-3000, w]], height: 2000 }],
+    boundaries: [{ id: 'F1', kind: 'fence', label: '', points: [[-3000, -3000], [w, -3000], [w, w], [-3000, w]], height: 2000 }],
     workHeights: [300],
   };
   return {

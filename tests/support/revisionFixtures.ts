@@ -32,7 +32,7 @@ export async function makeInlineRevisions(layout: Layout): Promise<number[]> {
   const snapshot = await buildSnapshot(layout);
   const at = new Date('2026-11-02T09:00:00Z');
   const base = { layoutId: layout.id, projectId: layout.projectId, snapshot, checksum: snapshotChecksum(snapshot), submittedBy: null, submittedAt: at };
-  const a = await Revision.create({ ...base, letter: 'A', state: 'changes_requested', decidedAt: at });
+  const a = await Revision.create({ ...base, letter: 'A', state: 'returned', decidedAt: at });
   const b = await Revision.create({ ...base, letter: 'B', state: 'submitted' });
   return [a.id, b.id];
 }

@@ -3,7 +3,7 @@ import type { FeatureCollection } from 'geojson';
 
 export interface FloorPlanLayer {
   name: string;
-  role: 'boundary' | 'wall' | 'column' | 'obstacle' | 'ignore';
+  role: 'outline' | 'wall' | 'column' | 'obstacle' | 'ignore';
   height: number | null;
   entityCount: number;
   color: string;

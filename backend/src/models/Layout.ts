@@ -5,7 +5,7 @@ export class Layout extends Model<InferAttributes<Layout>, InferCreationAttribut
   declare projectId: number;
   declare floorPlanId: number | null;
   declare name: string;
-  /** Arms, work points, zones and work heights (shared/schemas/layout.ts), plan mm / degrees. */
+  /** Arms, work points, boundaries and work heights (shared/schemas/layout.ts), plan mm / degrees. */
   declare content: Record<string, unknown>;
   /** Optimistic lock: a PUT must carry the version it edited. */
   declare version: CreationOptional<number>;

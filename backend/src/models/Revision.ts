@@ -1,7 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { StoredRevisionSnapshot } from '@shared/schemas/revision';
+import { upgradeSnapshotNames, type StoredRevisionSnapshot } from '@shared/schemas/revision';
 
-export const REVISION_STATES = ['submitted', 'changes_requested', 'approved', 'released'] as const;
+export const REVISION_STATES = ['submitted', 'returned', 'signed_off', 'released'] as const;
 export type RevisionState = (typeof REVISION_STATES)[number];
 
 /**
@@ -32,6 +32,11 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
   declare planSheet: CreationOptional<Buffer | null>;
   declare planSheetChecksum: CreationOptional<string | null>;
 
+  /** The snapshot JSON exactly as stored, older names included. */
+  storedSnapshot(): StoredRevisionSnapshot {
+    return this.getDataValue('snapshot');
+  }
+
   static initModel(sequelize: Sequelize) {
     Revision.init(
       {
@@ -39,7 +44,14 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
         layoutId: { type: DataTypes.INTEGER, allowNull: false },
         projectId: { type: DataTypes.INTEGER, allowNull: false },
         letter: { type: DataTypes.STRING(8), allowNull: false },
-        snapshot: { type: DataTypes.JSONB, allowNull: false },
+        // Read under today's names; `storedSnapshot()` gives the JSON as stored (what the checksum covers).
+        snapshot: {
+          type: DataTypes.JSONB,
+          allowNull: false,
+          get(this: Revision) {
+            return upgradeSnapshotNames(this.getDataValue('snapshot'));
+          },
+        },
         floorPlanChecksum: { type: DataTypes.STRING(64), allowNull: true },
         checksum: { type: DataTypes.STRING(64), allowNull: false },
         state: { type: DataTypes.STRING(24), allowNull: false },

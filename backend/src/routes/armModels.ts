@@ -98,7 +98,7 @@ export function armModelsRouter(sequelize: Sequelize): Router {
       const users = await layoutsUsingArmModel(sequelize, m.id, transaction);
       if (users.length) {
         const names = users.map((l) => `"${l.name}" (${l.projectName})`).join(', ');
-        throw conflict(`"${m.name}" is placed in ${users.length === 1 ? 'the layout' : 'the layouts'} ${names}; remove it from ${users.length === 1 ? 'that layout' : 'those layouts'} first.`, {
+        throw conflict(`"${m.name}" is placed in ${users.length === 1 ? 'the cell layout' : 'the cell layouts'} ${names}; remove it from ${users.length === 1 ? 'that cell layout' : 'those cell layouts'} first.`, {
           layouts: users,
         });
       }

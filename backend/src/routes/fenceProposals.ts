@@ -13,7 +13,7 @@ export function fenceProposalsRouter(): Router {
     const layout = await loadVisibleLayout(currentUser(req), idParam(req.params.id, 'Layout'));
     const { content, ...system } = parseOr400(FenceProposalRequest, req.body, 'The fence system');
     const p = await proposeLayoutFence(layout, system, content);
-    res.json({ zones: p.zones, bom: p.bom, lengthMm: p.lengthMm, areaEnclosedM2: p.areaEnclosedM2, notes: p.notes, rings: p.rings, required: p.required, parts: p.parts, system: p.system });
+    res.json({ boundaries: p.boundaries, bom: p.bom, lengthMm: p.lengthMm, areaEnclosedM2: p.areaEnclosedM2, notes: p.notes, rings: p.rings, required: p.required, parts: p.parts, system: p.system });
   });
 
   return r;

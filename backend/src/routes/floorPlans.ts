@@ -269,7 +269,7 @@ export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes:
     const fp = await loadVisiblePlan(user, idParam(req.params.id, 'Floor plan'), false);
     const users = await Layout.findAll({ where: { floorPlanId: fp.id }, attributes: ['id', 'name'] });
     if (users.length) {
-      throw conflict(`This floor plan is used by ${users.length === 1 ? 'the layout' : 'the layouts'} ${users.map((l) => `"${l.name}"`).join(', ')}; move or delete ${users.length === 1 ? 'it' : 'them'} first.`, {
+      throw conflict(`This floor plan is used by ${users.length === 1 ? 'the cell layout' : 'the cell layouts'} ${users.map((l) => `"${l.name}"`).join(', ')}; move or delete ${users.length === 1 ? 'it' : 'them'} first.`, {
         layouts: users.map((l) => ({ id: l.id, name: l.name })),
       });
     }

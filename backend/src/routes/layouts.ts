@@ -24,7 +24,7 @@ async function checkReferences(projectId: number, floorPlanId: number | null | u
     content.arms.forEach((a, i) => {
       if (!found.has(a.armModelId)) fields[`content.arms.${i}.armModelId`] = `Unknown arm model ${a.armModelId}`;
     });
-    if (Object.keys(fields).length) throw badRequest(`The layout names an arm model that does not exist (${Object.values(fields)[0]}).`, fields);
+    if (Object.keys(fields).length) throw badRequest(`The cell layout names an arm model that does not exist (${Object.values(fields)[0]}).`, fields);
   }
 }
 
@@ -39,7 +39,7 @@ export function layoutsRouter(sequelize: Sequelize): Router {
     res.json({
       layouts: layouts.map((l) => {
         const c = l.content as LayoutContent;
-        return { ...presentLayout(l), content: undefined, counts: { arms: c.arms?.length ?? 0, workPoints: c.workPoints?.length ?? 0, zones: c.zones?.length ?? 0 } };
+        return { ...presentLayout(l), content: undefined, counts: { arms: c.arms?.length ?? 0, workPoints: c.workPoints?.length ?? 0, boundaries: c.boundaries?.length ?? 0 } };
       }),
     });
   });
@@ -47,7 +47,7 @@ export function layoutsRouter(sequelize: Sequelize): Router {
   r.post('/projects/:id/layouts', allow('layout.write'), async (req, res) => {
     const user = currentUser(req);
     const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
-    const input = parseOr400(LayoutCreateInput, req.body, 'The layout');
+    const input = parseOr400(LayoutCreateInput, req.body, 'The cell layout');
     await checkReferences(project.id, input.floorPlanId, input.content);
     const layout = await sequelize.transaction(async (transaction) => {
       const l = await Layout.create({ projectId: project.id, floorPlanId: input.floorPlanId, name: input.name, content: input.content, createdBy: user.id }, { transaction });
@@ -66,13 +66,13 @@ export function layoutsRouter(sequelize: Sequelize): Router {
     const user = currentUser(req);
     const id = idParam(req.params.id, 'Layout');
     await loadVisibleLayout(user, id);
-    const input = parseOr400(LayoutUpdateInput, req.body, 'The layout');
+    const input = parseOr400(LayoutUpdateInput, req.body, 'The cell layout');
     const updated = await sequelize.transaction(async (transaction) => {
       // Lock the row so two saves cannot both pass the version check.
       const layout = await Layout.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!layout) throw notFound('Layout');
       if (layout.version !== input.version) {
-        throw conflict(`This layout was changed elsewhere (now version ${layout.version}, you edited ${input.version}). Reload it or keep your copy.`, {
+        throw conflict(`This cell layout was changed elsewhere (now version ${layout.version}, you edited ${input.version}). Reload it or keep your copy.`, {
           currentVersion: layout.version,
         });
       }
@@ -92,7 +92,7 @@ export function layoutsRouter(sequelize: Sequelize): Router {
   r.post('/layouts/:id/analysis', allow('layout.read'), async (req, res) => {
     const layout = await loadVisibleLayout(currentUser(req), idParam(req.params.id, 'Layout'));
     const body = (req.body ?? {}) as { content?: unknown };
-    const content = body.content === undefined ? undefined : parseOr400(LayoutContent, body.content, 'The layout content');
+    const content = body.content === undefined ? undefined : parseOr400(LayoutContent, body.content, 'The cell layout content');
     if (content) await checkReferences(layout.projectId, undefined, content);
     const result = await analyzeLayout(layout, content);
     res.json(result);

@@ -14,7 +14,7 @@ import { decideRevision, loadVisibleRevision, presentRevisionDetail, presentRevi
 import { loadVisibleProject } from '../services/projectAccess';
 
 const DecisionInput = z.object({
-  decision: z.enum(['approve', 'request_changes'], { error: 'Choose approve or request changes' }),
+  decision: z.enum(['sign_off', 'return'], { error: 'Choose to sign off or to return for changes' }),
   comment: multiLineText().max(10_000, 'Use at most 10 000 characters').default(''),
 });
 

@@ -2,7 +2,7 @@
  * Archiving: a released revision is a record the client holds, so a layout or project with
  * revisions that went out for review or release is never deleted (the database refuses too, by
  * RESTRICT foreign keys); it is archived instead — hidden from lists, read-only, restorable by an
- * admin. Revisions that were only sent back (changes requested) go with their layout as before.
+ * admin. Revisions that were only returned for changes go with their layout as before.
  */
 import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { SessionUser } from '../auth/passport';
@@ -10,8 +10,8 @@ import { conflict } from '../http/errors';
 import { Layout, Project, ReviewComment, Revision } from '../models';
 import { audit } from './audit/audit';
 
-/** Revision states that make a revision a record: in review, approved, released. */
-export const RECORD_STATES = ['submitted', 'approved', 'released'] as const;
+/** Revision states that make a revision a record: in review, signed off, released. */
+export const RECORD_STATES = ['submitted', 'signed_off', 'released'] as const;
 
 type Scope = { layoutId: number } | { projectId: number };
 
@@ -24,7 +24,7 @@ export async function refuseDeletingRecords(scope: Scope, what: 'layout' | 'proj
   );
 }
 
-/** Deletes the revisions that are not records (sent back), so their layout or project can go. */
+/** Deletes the revisions that are not records (returned for changes), so their layout or project can go. */
 export async function deleteReturnedRevisions(scope: Scope, transaction: Transaction): Promise<void> {
   await Revision.destroy({ where: { ...scope, state: { [Op.notIn]: RECORD_STATES as unknown as string[] } }, transaction });
 }

@@ -12,7 +12,7 @@ import { ArmModel, FloorPlan, type Layout } from '../models';
  */
 export async function proposeLayoutFence(layout: Layout, system: FenceSystem, contentOverride?: LayoutContent): Promise<FenceProposal> {
   const content = contentOverride ?? (layout.content as LayoutContent);
-  if (!content.arms.length) throw badRequest('The layout has no arms: place at least one arm before proposing a guard ring.');
+  if (!content.arms.length) throw badRequest('The cell layout has no arms: place at least one arm before proposing a guard ring.');
   const modelIds = [...new Set(content.arms.map((a) => a.armModelId))];
   const models = await ArmModel.findAll({ where: { id: modelIds }, attributes: ['id', 'params'] });
   const params = new Map(models.map((m) => [m.id, m.params as Record<string, unknown>]));
@@ -21,7 +21,7 @@ export async function proposeLayoutFence(layout: Layout, system: FenceSystem, co
   try {
     return proposeFence({
       arms: content.arms,
-      zones: content.zones,
+      boundaries: content.boundaries,
       floor,
       system,
       reachFor: (modelId, restrict) => {

@@ -23,7 +23,7 @@ export function assertAnalysisSize(content: Pick<LayoutContent, 'arms' | 'workPo
     throw new HttpError(
       413,
       'analysis_too_large',
-      `The layout asks for ${n(arms)} arms × ${n(points)} work points × ${n(heights)} work heights = ${n(checks)} reach checks; one analysis may hold at most ${n(maxChecks)}. Split the layout into smaller ones.`,
+      `The cell layout asks for ${n(arms)} arms × ${n(points)} work points × ${n(heights)} work heights = ${n(checks)} reach checks; one analysis may hold at most ${n(maxChecks)}. Split the cell layout into smaller ones.`,
       undefined,
       { limits: { arms, workPoints: points, workHeights: heights, checks, maxChecks } },
     );
@@ -32,7 +32,7 @@ export function assertAnalysisSize(content: Pick<LayoutContent, 'arms' | 'workPo
 
 /**
  * Runs the shared analysis on a layout as stored: its floor plan (layer roles and heights), the arm
- * models it places, its work points, zones and work heights. The database is read here; the
+ * models it places, its work points, boundaries and work heights. The database is read here; the
  * analysis itself runs in the heavy-work pool (services/workerPool.ts).
  */
 export async function analyzeLayout(layout: Layout, contentOverride?: LayoutContent): Promise<AnalysisResult> {
@@ -46,7 +46,7 @@ export async function analyzeLayout(layout: Layout, contentOverride?: LayoutCont
     job: {
       models: models.map((m) => [m.id, m.params]),
       floor: fp ? { geometry: fp.geometry, layers: fp.layers as FloorLayer[] } : null,
-      content: { arms: content.arms, workPoints: content.workPoints, zones: content.zones, workHeights: content.workHeights },
+      content: { arms: content.arms, workPoints: content.workPoints, boundaries: content.boundaries, workHeights: content.workHeights },
     },
   });
 }

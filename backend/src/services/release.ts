@@ -1,5 +1,5 @@
 /**
- * Release of an approved revision: the plan sheet rendered from the frozen snapshot (no DRAFT mark,
+ * Release of a signed-off revision: the plan sheet rendered from the frozen snapshot (no DRAFT mark,
  * dated with the release time, which is stored so the same bytes can be rendered again), kept with
  * the revision with its sha256, and mailed to the project's clients. A failed mail never undoes the
  * release: it is recorded in mail_deliveries and can be retried.
@@ -14,6 +14,7 @@ import { renderPlanSheetInPool } from './planSheet/renderInPool';
 import type { PlanSheetInput, PlanSheetOptions } from './planSheet/types';
 import { attemptDelivery, recordDelivery, releasedMail, type MailContext } from './reviewMail';
 import { loadRevisionSheetInput } from './revisions';
+import { REVISION_STATE_LABEL } from '@shared/words';
 
 /** Paper size of released sheets. */
 export const RELEASE_SHEET_SIZE = 'A3' as const;
@@ -39,12 +40,12 @@ function facts(rev: Revision) {
   return { projectName: snap.project.name, projectId: rev.projectId, revisionId: rev.id, layoutName: snap.layout.name, letter: rev.letter };
 }
 
-/** Renders, stores and mails the plan sheet of an approved revision (planner). 409 unless approved. */
+/** Renders, stores and mails the plan sheet of a signed-off revision (planner). 409 unless signed off. */
 export async function releaseRevision(sequelize: Sequelize, user: SessionUser, id: number, mail: MailContext, now: Date) {
   const rev = await sequelize.transaction(async (transaction) => {
     const r = await Revision.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
     if (!r) throw notFound('Revision');
-    if (r.state !== 'approved') throw conflict(r.state === 'released' ? `Revision ${r.letter} is already released.` : `Only an approved revision can be released; revision ${r.letter} is ${r.state.replace('_', ' ')}.`);
+    if (r.state !== 'signed_off') throw conflict(r.state === 'released' ? `Revision ${r.letter} is already released.` : `Only a signed-off revision can be released; revision ${r.letter} is ${REVISION_STATE_LABEL[r.state].toLowerCase()}.`);
     r.set({ state: 'released', releasedBy: user.id, releasedAt: now, sheetCreatedAt: now });
     const pdf = await render(await loadRevisionSheetInput(r), { size: RELEASE_SHEET_SIZE, draft: false, createdAt: now });
     r.set({ planSheet: pdf, planSheetChecksum: sha256Hex(pdf) });

@@ -56,19 +56,19 @@ export function submittedMail(ctx: MailContext, f: RevisionMailFacts, to: string
     to,
     subject: `${f.projectName}: revision ${f.letter} of ${f.layoutName} submitted for review`,
     text:
-      `${submitter} submitted revision ${f.letter} of the layout "${f.layoutName}" (project ${f.projectName}) for review.\n\n` +
+      `${submitter} submitted revision ${f.letter} of the cell layout "${f.layoutName}" (project ${f.projectName}) for review.\n\n` +
       `Review it here: ${link(ctx, `/projects/${f.projectId}/revisions/${f.revisionId}`)}\n`,
   };
 }
 
 /** To the submitting planner: the reviewer's decision. */
-export function decidedMail(ctx: MailContext, f: RevisionMailFacts, to: string[], reviewer: string, decision: 'approve' | 'request_changes', comment: string): OutgoingMail {
-  const what = decision === 'approve' ? 'approved' : 'sent back with requested changes';
+export function decidedMail(ctx: MailContext, f: RevisionMailFacts, to: string[], reviewer: string, decision: 'sign_off' | 'return', comment: string): OutgoingMail {
+  const what = decision === 'sign_off' ? 'signed off' : 'returned for changes';
   return {
     to,
-    subject: `${f.projectName}: revision ${f.letter} of ${f.layoutName} ${decision === 'approve' ? 'approved' : 'needs changes'}`,
+    subject: `${f.projectName}: revision ${f.letter} of ${f.layoutName} ${decision === 'sign_off' ? 'signed off' : 'returned for changes'}`,
     text:
-      `${reviewer} ${what} revision ${f.letter} of the layout "${f.layoutName}" (project ${f.projectName}).\n\n` +
+      `${reviewer} ${what} revision ${f.letter} of the cell layout "${f.layoutName}" (project ${f.projectName}).\n\n` +
       (comment ? `Reviewer's note:\n${comment}\n\n` : '') +
       `Open it here: ${link(ctx, `/projects/${f.projectId}/revisions/${f.revisionId}`)}\n`,
   };
@@ -80,7 +80,7 @@ export function releasedMail(ctx: MailContext, f: RevisionMailFacts, to: string[
     to,
     subject: `${f.projectName}: plan sheet, revision ${f.letter} released`,
     text:
-      `Revision ${f.letter} of the layout "${f.layoutName}" for ${f.projectName} has been released. The plan sheet is attached (PDF).\n\n` +
+      `Revision ${f.letter} of the cell layout "${f.layoutName}" for ${f.projectName} has been released. The plan sheet is attached (PDF).\n\n` +
       `You can also view it and acknowledge receipt here: ${link(ctx, `/projects/${f.projectId}/revisions/${f.revisionId}`)}\n\n` +
       'Reach regions and distances on the sheet are planning estimates from nominal kinematics. They do not replace the risk ' +
       'assessment (ISO 12100), the robot-system safety requirements (ISO 10218-2) or the arm maker’s stopping data; final ' +

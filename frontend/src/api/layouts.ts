@@ -4,7 +4,7 @@ import { api } from './client';
 import { layoutKeys } from './queryKeys';
 
 export interface LayoutSummaryDto extends Omit<LayoutDto, 'content'> {
-  counts: { arms: number; workPoints: number; zones: number };
+  counts: { arms: number; workPoints: number; boundaries: number };
 }
 
 /** A project's layouts (without their content): those in use, or those in use and the archived ones. */

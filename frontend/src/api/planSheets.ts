@@ -9,7 +9,7 @@ export const SHEET_KINDS = [
   { kind: 'plan', text: 'Plan' },
   { kind: 'schedule', text: 'Arm schedule' },
   { kind: 'coverage', text: 'Coverage matrix' },
-  { kind: 'zones', text: 'Shared zones' },
+  { kind: 'boundaries', text: 'Shared zones' },
   { kind: 'safeguarding', text: 'Safeguarding' },
   { kind: 'fences', text: 'Fence parts' },
   { kind: 'findings', text: 'Findings' },

@@ -3,7 +3,7 @@ import type { RevisionDiff, RevisionSnapshot } from '@shared/schemas/revision';
 import { api } from './client';
 import { layoutKeys } from './queryKeys';
 
-export type RevisionState = 'submitted' | 'changes_requested' | 'approved' | 'released';
+export type RevisionState = 'submitted' | 'returned' | 'signed_off' | 'released';
 export interface PersonRef {
   id: number;
   name: string;
@@ -108,7 +108,7 @@ export function useSubmitRevision(layoutId: number) {
 }
 
 export function useDecideRevision(id: number) {
-  return useRevisionMutation((input: { decision: 'approve' | 'request_changes'; comment: string }) =>
+  return useRevisionMutation((input: { decision: 'sign_off' | 'return'; comment: string }) =>
     api<{ revision: RevisionDetailDto }>(`/revisions/${id}/decision`, { method: 'POST', body: input }),
   );
 }

@@ -25,7 +25,7 @@ export type EditorCommand =
 export const KEY_HELP: ReadonlyArray<{ keys: string; does: string }> = [
   { keys: '← ↑ → ↓', does: `move the arm ${NUDGE_MM} mm (Shift: ${NUDGE_BIG_MM} mm)` },
   { keys: '[  ]', does: `turn the arm ${TURN_DEG}° clockwise / counter-clockwise (Shift: ${TURN_FINE_DEG}°)` },
-  { keys: 'Delete', does: 'remove the selected arm or zone' },
+  { keys: 'Delete', does: 'remove the selected arm or boundary' },
   { keys: 'Ctrl/⌘ D', does: 'duplicate the selected arm' },
   { keys: 'Ctrl/⌘ Z · Shift Ctrl/⌘ Z', does: 'undo · redo' },
   { keys: 'Enter · Esc', does: 'finish · cancel the shape being drawn' },
@@ -42,10 +42,10 @@ export interface KeyLike {
 }
 
 /**
- * The command a key press means, or null. `hasSelection` says whether an arm or zone is selected
+ * The command a key press means, or null. `hasSelection` says whether an arm or boundary is selected
  * (moving keys mean nothing without one, so the plan's own arrow-key pan keeps working).
  */
-export function commandForKey(e: KeyLike, ctx: { armSelected: boolean; zoneSelected: boolean; drawing: boolean }): EditorCommand | null {
+export function commandForKey(e: KeyLike, ctx: { armSelected: boolean; boundarySelected: boolean; drawing: boolean }): EditorCommand | null {
   const mod = e.ctrlKey || e.metaKey;
   if (e.altKey) return null;
   const key = e.key.length === 1 ? e.key.toLowerCase() : e.key;
@@ -61,8 +61,8 @@ export function commandForKey(e: KeyLike, ctx: { armSelected: boolean; zoneSelec
     return null;
   }
   if (key === 's' && !e.shiftKey) return { kind: 'section-tool' };
-  if (key === 'Escape' && (ctx.armSelected || ctx.zoneSelected)) return { kind: 'cancel' };
-  if ((key === 'Delete' || key === 'Backspace') && (ctx.armSelected || ctx.zoneSelected)) return { kind: 'delete' };
+  if (key === 'Escape' && (ctx.armSelected || ctx.boundarySelected)) return { kind: 'cancel' };
+  if ((key === 'Delete' || key === 'Backspace') && (ctx.armSelected || ctx.boundarySelected)) return { kind: 'delete' };
   if (!ctx.armSelected) return null;
   const step = e.shiftKey ? NUDGE_BIG_MM : NUDGE_MM;
   switch (key) {

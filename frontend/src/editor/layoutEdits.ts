@@ -3,13 +3,15 @@
  * function returns new content and leaves its input untouched, so the history can keep both.
  */
 import { nearestPointOnSegment, pointSegmentDistance } from '@shared/geometry';
-import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
+import type { ArmPlacement, LayoutContent, Boundary } from '@shared/schemas/layout';
+import { ID_PREFIX } from '@shared/words';
 
 type XY = [number, number];
-type ZoneKind = Zone['kind'];
+type BoundaryKind = Boundary['kind'];
 
-/** Id prefix of each zone kind: F fence, K keep-out, A operator area, G opening (gap). */
-export const ZONE_PREFIX: Record<ZoneKind, string> = { fence: 'F', keepout: 'K', operator: 'A', opening: 'G' };
+/** Id prefix of each boundary kind: F fence, K keep-out, A operator area, G opening (gap). */
+/** Id prefixes of new boundaries: the same as the demo's (F1, O1, K1, OP1). */
+export const BOUNDARY_PREFIX: Record<BoundaryKind, string> = { fence: ID_PREFIX.fence, keepout: ID_PREFIX.keepout, operator: ID_PREFIX.operator, opening: ID_PREFIX.opening };
 
 /** The lowest free id `prefix<n>` (n ≥ 1) among `ids`: R1, R2 … after a delete the gap is reused. */
 export function nextFreeId(prefix: string, ids: Iterable<string>): string {
@@ -31,7 +33,7 @@ export const roundMm = (v: number) => Math.round(v * 10) / 10;
 
 function armIndex(content: LayoutContent, id: string): number {
   const i = content.arms.findIndex((a) => a.id === id);
-  if (i < 0) throw new Error(`id: no arm ${id} on this layout`);
+  if (i < 0) throw new Error(`id: no arm ${id} on this cell layout`);
   return i;
 }
 
@@ -44,7 +46,7 @@ function withArm(content: LayoutContent, id: string, patch: (a: ArmPlacement) =>
 
 /** Places a new arm of a model at a plan point (mm) with the next free id R1, R2 …; returns the content and the id. */
 export function addArm(content: LayoutContent, armModelId: number, at: XY, yaw = 0): { content: LayoutContent; id: string } {
-  const id = nextFreeId('R', content.arms.map((a) => a.id));
+  const id = nextFreeId(ID_PREFIX.arm, content.arms.map((a) => a.id));
   const arm: ArmPlacement = { id, armModelId, label: '', x: roundMm(at[0]), y: roundMm(at[1]), yaw: normalizeYaw(yaw), mountHeight: 0 };
   return { content: { ...content, arms: [...content.arms, arm] }, id };
 }
@@ -52,7 +54,7 @@ export function addArm(content: LayoutContent, armModelId: number, at: XY, yaw =
 /** Adds a work point at a plan point (mm) and height z (mm), top approach, with the next free id P1, P2 …. */
 export function addWorkPoint(content: LayoutContent, at: XY, z: number): { content: LayoutContent; id: string } {
   if (!Number.isFinite(z)) throw new Error('z must be a finite number');
-  const id = nextFreeId('P', content.workPoints.map((p) => p.id));
+  const id = nextFreeId(ID_PREFIX.workPoint, content.workPoints.map((p) => p.id));
   const point = { id, x: roundMm(at[0]), y: roundMm(at[1]), z: roundMm(z), approach: 'top' as const, tag: '' };
   return { content: { ...content, workPoints: [...content.workPoints, point] }, id };
 }
@@ -91,7 +93,7 @@ export function updateArm(content: LayoutContent, id: string, patch: Partial<Omi
 /** Copies an arm with the next free id, offset by (dx, dy) mm (default 500 mm east and south). */
 export function duplicateArm(content: LayoutContent, id: string, offset: XY = [500, -500]): { content: LayoutContent; id: string } {
   const src = content.arms[armIndex(content, id)];
-  const newId = nextFreeId('R', content.arms.map((a) => a.id));
+  const newId = nextFreeId(ID_PREFIX.arm, content.arms.map((a) => a.id));
   const copy: ArmPlacement = { ...src, id: newId, x: roundMm(src.x + offset[0]), y: roundMm(src.y + offset[1]) };
   if (src.restrict) copy.restrict = { ...src.restrict };
   return { content: { ...content, arms: [...content.arms, copy] }, id: newId };
@@ -127,9 +129,9 @@ export function nearestOnPolyline(line: ReadonlyArray<XY>, p: XY): { point: XY; 
 }
 
 /** The fence nearest a plan point and the distance to it, mm; null when the layout has no fence. */
-export function nearestFence(content: LayoutContent, p: XY): { fence: Zone; distance: number } | null {
-  let best: { fence: Zone; distance: number } | null = null;
-  for (const z of content.zones) {
+export function nearestFence(content: LayoutContent, p: XY): { fence: Boundary; distance: number } | null {
+  let best: { fence: Boundary; distance: number } | null = null;
+  for (const z of content.boundaries) {
     if (z.kind !== 'fence') continue;
     const n = nearestOnPolyline(z.points as XY[], p);
     if (n && (!best || n.distance < best.distance)) best = { fence: z, distance: n.distance };
@@ -140,7 +142,7 @@ export function nearestFence(content: LayoutContent, p: XY): { fence: Zone; dist
 const roundXY = (p: XY): XY => [roundMm(p[0]), roundMm(p[1])];
 
 /** Both ends of an opening snapped onto its fence (nearest points of the fence polyline). */
-export function snapOpening(fence: Zone, a: XY, b: XY): [XY, XY] {
+export function snapOpening(fence: Boundary, a: XY, b: XY): [XY, XY] {
   const line = fence.points as XY[];
   const pa = nearestOnPolyline(line, a);
   const pb = nearestOnPolyline(line, b);
@@ -149,84 +151,84 @@ export function snapOpening(fence: Zone, a: XY, b: XY): [XY, XY] {
 }
 
 /**
- * Adds a zone drawn with the tools. Fences need a height; an opening's two clicks are snapped onto
+ * Adds a boundary drawn with the tools. Fences need a height; an opening's two clicks are snapped onto
  * the fence nearest the first click and carry its `fenceId`. Returns the content and the new id.
  */
-export function addZone(
+export function addBoundary(
   content: LayoutContent,
-  kind: ZoneKind,
+  kind: BoundaryKind,
   points: ReadonlyArray<XY>,
   opts: { height?: number; label?: string } = {},
 ): { content: LayoutContent; id: string } {
-  const id = nextFreeId(ZONE_PREFIX[kind], content.zones.map((z) => z.id));
-  let zone: Zone;
+  const id = nextFreeId(BOUNDARY_PREFIX[kind], content.boundaries.map((z) => z.id));
+  let boundary: Boundary;
   if (kind === 'opening') {
     if (points.length !== 2) throw new Error('points: an opening is two clicks on a fence');
     const near = nearestFence(content, points[0]);
     if (!near) throw new Error('points: draw a fence before its opening');
-    zone = { id, kind, label: opts.label ?? '', points: snapOpening(near.fence, points[0], points[1]), fenceId: near.fence.id };
+    boundary = { id, kind, label: opts.label ?? '', points: snapOpening(near.fence, points[0], points[1]), fenceId: near.fence.id };
   } else {
     const need = kind === 'fence' ? 2 : 3;
     if (points.length < need) throw new Error(`points: a ${kind === 'fence' ? 'fence' : 'polygon'} needs at least ${need} points`);
-    zone = { id, kind, label: opts.label ?? '', points: points.map(roundXY) };
+    boundary = { id, kind, label: opts.label ?? '', points: points.map(roundXY) };
     if (kind === 'fence') {
       if (!(opts.height !== undefined && opts.height > 0)) throw new Error('height: a fence needs a height above 0');
-      zone.height = opts.height;
+      boundary.height = opts.height;
     }
   }
-  return { content: { ...content, zones: [...content.zones, zone] }, id };
+  return { content: { ...content, boundaries: [...content.boundaries, boundary] }, id };
 }
 
-/** Moves one vertex of a zone; an opening's vertex stays on its fence, and a fence's openings follow it. */
-export function moveZoneVertex(content: LayoutContent, zoneId: string, index: number, to: XY): LayoutContent {
-  const zi = content.zones.findIndex((z) => z.id === zoneId);
-  if (zi < 0) throw new Error(`zoneId: no zone ${zoneId} on this layout`);
-  const zone = content.zones[zi];
-  if (!Number.isInteger(index) || index < 0 || index >= zone.points.length) throw new Error(`index: zone ${zoneId} has no vertex ${index}`);
-  const zones = content.zones.slice();
-  if (zone.kind === 'opening') {
-    const fence = zones.find((z) => z.id === zone.fenceId);
-    const pts = zone.points.slice() as XY[];
+/** Moves one vertex of a boundary; an opening's vertex stays on its fence, and a fence's openings follow it. */
+export function moveBoundaryVertex(content: LayoutContent, boundaryId: string, index: number, to: XY): LayoutContent {
+  const zi = content.boundaries.findIndex((z) => z.id === boundaryId);
+  if (zi < 0) throw new Error(`boundaryId: no boundary ${boundaryId} on this cell layout`);
+  const boundary = content.boundaries[zi];
+  if (!Number.isInteger(index) || index < 0 || index >= boundary.points.length) throw new Error(`index: boundary ${boundaryId} has no vertex ${index}`);
+  const boundaries = content.boundaries.slice();
+  if (boundary.kind === 'opening') {
+    const fence = boundaries.find((z) => z.id === boundary.fenceId);
+    const pts = boundary.points.slice() as XY[];
     pts[index] = to;
-    zones[zi] = { ...zone, points: fence ? snapOpening(fence, pts[0], pts[1]) : pts.map(roundXY) };
-    return { ...content, zones };
+    boundaries[zi] = { ...boundary, points: fence ? snapOpening(fence, pts[0], pts[1]) : pts.map(roundXY) };
+    return { ...content, boundaries };
   }
-  const pts = zone.points.slice() as XY[];
+  const pts = boundary.points.slice() as XY[];
   pts[index] = roundXY(to);
-  const moved: Zone = { ...zone, points: pts };
-  zones[zi] = moved;
-  if (zone.kind === 'fence') {
-    zones.forEach((z, i) => {
-      if (z.kind === 'opening' && z.fenceId === zone.id) zones[i] = { ...z, points: snapOpening(moved, z.points[0] as XY, z.points[1] as XY) };
+  const moved: Boundary = { ...boundary, points: pts };
+  boundaries[zi] = moved;
+  if (boundary.kind === 'fence') {
+    boundaries.forEach((z, i) => {
+      if (z.kind === 'opening' && z.fenceId === boundary.id) boundaries[i] = { ...z, points: snapOpening(moved, z.points[0] as XY, z.points[1] as XY) };
     });
   }
-  return { ...content, zones };
+  return { ...content, boundaries };
 }
 
-/** Changes a zone's label or (fences) height. */
-export function updateZone(content: LayoutContent, zoneId: string, patch: { label?: string; height?: number }): LayoutContent {
-  const zi = content.zones.findIndex((z) => z.id === zoneId);
-  if (zi < 0) throw new Error(`zoneId: no zone ${zoneId} on this layout`);
-  const zones = content.zones.slice();
-  zones[zi] = { ...zones[zi], ...patch };
-  return { ...content, zones };
+/** Changes a boundary's label or (fences) height. */
+export function updateBoundary(content: LayoutContent, boundaryId: string, patch: { label?: string; height?: number }): LayoutContent {
+  const zi = content.boundaries.findIndex((z) => z.id === boundaryId);
+  if (zi < 0) throw new Error(`boundaryId: no boundary ${boundaryId} on this cell layout`);
+  const boundaries = content.boundaries.slice();
+  boundaries[zi] = { ...boundaries[zi], ...patch };
+  return { ...content, boundaries };
 }
 
 /**
  * Sets an opening's safeguard or a fence's mesh; null removes the field (only openings carry a
  * safeguard, only fences a mesh — the layout schema checks the values).
  */
-export function setZoneSafeguarding(
+export function setBoundarySafeguarding(
   content: LayoutContent,
-  zoneId: string,
-  patch: { safeguard?: Zone['safeguard'] | null; mesh?: { meshMm: number; meshShape: NonNullable<Zone['meshShape']> } | null },
+  boundaryId: string,
+  patch: { safeguard?: Boundary['safeguard'] | null; mesh?: { meshMm: number; meshShape: NonNullable<Boundary['meshShape']> } | null },
 ): LayoutContent {
-  const zi = content.zones.findIndex((z) => z.id === zoneId);
-  if (zi < 0) throw new Error(`zoneId: no zone ${zoneId} on this layout`);
-  const z = content.zones[zi];
-  if (patch.safeguard !== undefined && z.kind !== 'opening') throw new Error(`safeguard: zone ${zoneId} is not an access opening`);
-  if (patch.mesh !== undefined && z.kind !== 'fence') throw new Error(`mesh: zone ${zoneId} is not a fence`);
-  const next: Zone = { ...z };
+  const zi = content.boundaries.findIndex((z) => z.id === boundaryId);
+  if (zi < 0) throw new Error(`boundaryId: no boundary ${boundaryId} on this cell layout`);
+  const z = content.boundaries[zi];
+  if (patch.safeguard !== undefined && z.kind !== 'opening') throw new Error(`safeguard: boundary ${boundaryId} is not an access opening`);
+  if (patch.mesh !== undefined && z.kind !== 'fence') throw new Error(`mesh: boundary ${boundaryId} is not a fence`);
+  const next: Boundary = { ...z };
   if (patch.safeguard === null) delete next.safeguard;
   else if (patch.safeguard) next.safeguard = patch.safeguard;
   if (patch.mesh === null) {
@@ -236,15 +238,15 @@ export function setZoneSafeguarding(
     next.meshMm = patch.mesh.meshMm;
     next.meshShape = patch.mesh.meshShape;
   }
-  const zones = content.zones.slice();
-  zones[zi] = next;
-  return { ...content, zones };
+  const boundaries = content.boundaries.slice();
+  boundaries[zi] = next;
+  return { ...content, boundaries };
 }
 
-/** Removes a zone; removing a fence removes the openings cut into it. */
-export function removeZone(content: LayoutContent, zoneId: string): LayoutContent {
-  if (!content.zones.some((z) => z.id === zoneId)) throw new Error(`zoneId: no zone ${zoneId} on this layout`);
-  return { ...content, zones: content.zones.filter((z) => z.id !== zoneId && !(z.kind === 'opening' && z.fenceId === zoneId)) };
+/** Removes a boundary; removing a fence removes the openings cut into it. */
+export function removeBoundary(content: LayoutContent, boundaryId: string): LayoutContent {
+  if (!content.boundaries.some((z) => z.id === boundaryId)) throw new Error(`boundaryId: no boundary ${boundaryId} on this cell layout`);
+  return { ...content, boundaries: content.boundaries.filter((z) => z.id !== boundaryId && !(z.kind === 'opening' && z.fenceId === boundaryId)) };
 }
 
 /** Work heights (mm above the floor): distinct, finite, sorted ascending. */

@@ -31,7 +31,7 @@ export function placeAtCandidate(
   arm: { armId: string } | { armModelId: number; mountHeight: number; restrict?: ArmPlacement['restrict'] },
 ): { content: LayoutContent; id: string } {
   if ('armId' in arm) {
-    if (!content.arms.some((a) => a.id === arm.armId)) throw new Error(`No arm ${arm.armId} on this layout`);
+    if (!content.arms.some((a) => a.id === arm.armId)) throw new Error(`No arm ${arm.armId} on this cell layout`);
     return { content: { ...content, arms: content.arms.map((a) => (a.id === arm.armId ? { ...a, x: roundMm(c.x), y: roundMm(c.y), yaw: normalizeYaw(c.yawDeg) } : a)) }, id: arm.armId };
   }
   const id = nextFreeId('R', content.arms.map((a) => a.id));

@@ -12,7 +12,7 @@ export interface PlanViewProps {
   bounds: PlanBounds | null | undefined;
   /** The plan point under the pointer (mm), or null when it leaves. Called per pointer move: keep it cheap. */
   onCursor?: (p: PlanPoint | null) => void;
-  /** Receives the canvas once created (and null on unmount), for overlays (arms, zones, findings). */
+  /** Receives the canvas once created (and null on unmount), for overlays (arms, boundaries, findings). */
   onCanvas?: (canvas: PlanCanvas | null) => void;
   /** Accessible name of the drawing. */
   label?: string;

@@ -9,7 +9,7 @@ import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import { formatDateTime } from '../lib/format';
 
-const ACTIONS = ['', 'revision.', 'revision.submit', 'revision.approve', 'revision.request_changes', 'revision.release', 'revision.acknowledge', 'comment.', 'invitation.', 'layout.', 'auth.login'];
+const ACTIONS = ['', 'revision.', 'revision.submit', 'revision.sign_off', 'revision.return', 'revision.release', 'revision.acknowledge', 'comment.', 'invitation.', 'layout.', 'auth.login'];
 const inputCls = 'h-9 rounded-control border border-rule-strong bg-paper-raised px-2 text-sm';
 
 /** `/admin/audit` — who did what and when, filtered and paged. */

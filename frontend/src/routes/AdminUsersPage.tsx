@@ -113,7 +113,7 @@ function UsersAdmin() {
     <>
       <PageHeader
         title="People"
-        lead="Accounts and roles. Planners build layouts, reviewers sign them off, clients receive released plan sheets."
+        lead="Accounts and roles. Planners build cell layouts, reviewers sign them off, clients receive released plan sheets."
         actions={
           <Button variant="primary" onClick={() => setCreating(true)}>
             New user

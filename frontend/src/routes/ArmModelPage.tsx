@@ -88,7 +88,7 @@ function ArmModelDetail({ model }: { model: ArmModelDto }) {
           ) : readOnly ? (
             'Your role can read the catalogue but not change it.'
           ) : (
-            'Changes redraw the side reach profile as you type; save to use them on layouts.'
+            'Changes redraw the side reach profile as you type; save to use them on cell layouts.'
           )
         }
         actions={readOnly ? actions : null}
@@ -125,7 +125,7 @@ function ArmModelDetail({ model }: { model: ArmModelDto }) {
           })
         }
       >
-        The model leaves the catalogue. A model that is placed on a layout cannot be deleted until it is removed there.
+        The model leaves the catalogue. A model that is placed on a cell layout cannot be deleted until it is removed there.
       </ConfirmDialog>
     </>
   );

@@ -6,7 +6,7 @@ import { useArmModels, type ArmModelDto } from '../api/armModels';
 import { useSessionUser } from '../api/auth';
 import { Button } from '../components/Button';
 import { BuiltInBadge } from '../components/catalogue/BuiltInBadge';
-import { FAMILY_LABELS } from '../components/catalogue/modelCore';
+import { familyLabel } from '@shared/words';
 import { formatMm } from '../components/catalogue/profileDrawing';
 import { DataTable } from '../components/DataTable';
 import { EmptyState, ErrorNotice, LoadingNotice } from '../components/Notice';
@@ -35,9 +35,9 @@ const COLUMNS = [
       </Link>
     ),
   }),
-  column.accessor((r) => FAMILY_LABELS[r.family] ?? r.family, { id: 'family', header: 'Family' }),
+  column.accessor((r) => familyLabel(r.family), { id: 'family', header: 'Family' }),
   column.accessor('maxReach', {
-    header: 'Max reach',
+    header: 'Tool-point reach',
     cell: (info) => (info.getValue() == null ? dash : <span className="tabular-nums">{formatMm(info.getValue()!)}</span>),
     enableGlobalFilter: false,
     sortUndefined: 'last',

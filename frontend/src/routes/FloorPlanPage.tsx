@@ -68,7 +68,7 @@ function FloorPlanDetail({ plan, projectName }: { plan: FloorPlanDto; projectNam
   const moved = plan.origin && (plan.origin.x !== 0 || plan.origin.y !== 0);
   const unitBusy = update.isPending && update.variables?.units !== undefined;
 
-  // Ends of the floor boundary that meet nothing: small rings in screen space, kept on zoom/pan.
+  // Ends of the floor outline that meet nothing: small rings in screen space, kept on zoom/pan.
   useEffect(() => {
     if (!canvas || !openEnds?.length) return;
     const draw = () =>
@@ -159,7 +159,7 @@ function FloorPlanDetail({ plan, projectName }: { plan: FloorPlanDto; projectNam
           <p className="text-sm text-ink-muted" data-origin={`${plan.origin.x},${plan.origin.y}`}>
             <span className="font-bold text-ink">Local origin. </span>
             The drawing lies far from its own 0,0 (map grid coordinates), so it is shown moved by{' '}
-            {metres(plan.origin.x)} east and {metres(plan.origin.y)} north. The layout's DXF export moves it back.
+            {metres(plan.origin.x)} east and {metres(plan.origin.y)} north. The cell layout's DXF export moves it back.
           </p>
         )}
         {update.isError && <ErrorNotice title="The change was not saved" error={update.error} />}
@@ -229,7 +229,7 @@ function FloorPlanDetail({ plan, projectName }: { plan: FloorPlanDto; projectNam
         onConfirm={() => remove.mutate(undefined, { onSuccess: () => void navigate(`${projectPath}#floor-plans`, { replace: true }) })}
       >
         <p>
-          <strong>{plan.fileName}</strong> and its layer roles will be deleted. A floor plan that a layout is drawn on cannot be
+          <strong>{plan.fileName}</strong> and its layer roles will be deleted. A floor plan that a cell layout is drawn on cannot be
           deleted until that layout is moved to another plan or deleted.
         </p>
       </ConfirmDialog>

@@ -41,7 +41,7 @@ function LayoutEditorLoader({ projectId, layoutId }: { projectId: number; layout
     const missing = layout.isError ? isApiError(layout.error, 404) : true;
     return (
       <div className="flex max-w-xl flex-col gap-4 py-6">
-        <h1 className="text-2xl font-bold">{missing ? 'Layout not found' : 'The layout could not be loaded'}</h1>
+        <h1 className="text-2xl font-bold">{missing ? 'Cell layout not found' : 'The cell layout could not be loaded'}</h1>
         {layout.isError && <ErrorNotice error={layout.error} />}
         {back}
       </div>
@@ -49,7 +49,7 @@ function LayoutEditorLoader({ projectId, layoutId }: { projectId: number; layout
   }
   if (models.isError) return <ErrorNotice title="The arm catalogue could not be loaded" error={models.error} />;
   if (floorPlanId !== null && plan.isError) return <ErrorNotice title="The floor plan could not be loaded" error={plan.error} />;
-  if (layout.isPending || models.isPending || (floorPlanId !== null && plan.isPending)) return <LoadingNotice label="Loading the layout…" />;
+  if (layout.isPending || models.isPending || (floorPlanId !== null && plan.isPending)) return <LoadingNotice label="Loading the cell layout…" />;
 
   const l = layout.data;
   const readOnly = !can(user.role, 'layout.write');
@@ -68,7 +68,7 @@ function LayoutEditorLoader({ projectId, layoutId }: { projectId: number; layout
           </span>
         }
         title={l.name}
-        lead={`Layout · ${plan.data ? `on ${plan.data.fileName}` : 'no floor plan'} · ${l.content.arms.length} arms, ${l.content.workPoints.length} work points, ${l.content.zones.length} zones`}
+        lead={`Cell layout · ${plan.data ? `on ${plan.data.fileName}` : 'no floor plan'} · ${l.content.arms.length} arms, ${l.content.workPoints.length} work points, ${l.content.boundaries.length} boundaries`}
         actions={can(user.role, 'revision.submit') ? <SubmitRevisionButton projectId={projectId} layoutId={l.id} /> : undefined}
       />
       <LayoutEditor layout={l} floorPlan={floorPlanId !== null ? (plan.data ?? null) : null} armModels={models.data} readOnly={readOnly} />

@@ -71,7 +71,7 @@ export default function ProjectsPage() {
         lead={
           user.role === 'client'
             ? 'Projects you have been invited to.'
-            : 'One project per customer job: its floor plans, layouts, revisions and plan sheets.'
+            : 'One project per customer job: its floor plans, cell layouts, revisions and plan sheets.'
         }
         actions={data.length > 0 ? newButton : null}
       />
@@ -96,7 +96,7 @@ export default function ProjectsPage() {
           action={newButton}
         >
           {mayCreate
-            ? 'A project holds one customer job: the client, the site, its floor plans and layouts.'
+            ? 'A project holds one customer job: the client, the site, its floor plans and cell layouts.'
             : user.role === 'client'
               ? 'When a planner invites you to a project, it appears here.'
               : 'Projects appear here as soon as a planner creates them.'}

@@ -25,7 +25,7 @@ const diskReach: ArmReachFactory = (modelId) => {
 const base = (): AnalysisInput => ({
   arms: [],
   workPoints: [],
-  zones: [],
+  boundaries: [],
   workHeights: [900],
   floor: null,
 });
@@ -37,8 +37,8 @@ describe('analysis engine', () => {
     // Lens area (Wolfram MathWorld, "Circle-Circle Intersection"): r = R = 1, d = 1 → 1.22837 (scaled by 1000² mm²).
     const a = createAnalyzer(diskReach);
     const r = a.analyze({ ...base(), arms: [arm('R1', 0, 0), arm('R2', 1000, 0)] });
-    expect(r.overlaps).toHaveLength(1);
-    expect(r.overlaps[0].areaM2).toBeCloseTo(1.22837, 2);
+    expect(r.sharedZones).toHaveLength(1);
+    expect(r.sharedZones[0].areaM2).toBeCloseTo(1.22837, 2);
     const f = r.findings.find((x) => x.kind === 'shared-zone')!;
     expect(f.id).toBe('shared-zone:R1+R2');
     expect(f.severity).toBe('warning');
@@ -70,7 +70,7 @@ describe('analysis engine', () => {
     const r = a.analyze({
       ...base(),
       arms: [arm('R1', 0, 0), arm('R2', 5000, 0)],
-      zones: [
+      boundaries: [
         { id: 'F1', kind: 'fence', label: '', points: [[900, -2000], [900, 2000]], height: 2000 },
         { id: 'F2', kind: 'fence', label: '', points: [[6100, -2000], [6100, 2000]], height: 1200 },
         { id: 'O1', kind: 'opening', label: '', points: [[900, -500], [900, 500]], fenceId: 'F1' },
@@ -84,7 +84,7 @@ describe('analysis engine', () => {
     expect(ids).toContain('fence-clearance:R2+F2');
     expect(ids).toContain('fence-too-low:F2');
     // without the opening the same fence is crossed
-    const r2 = a.analyze({ ...base(), arms: [arm('R1', 0, 0)], zones: [{ id: 'F1', kind: 'fence', label: '', points: [[900, -2000], [900, 2000]], height: 2000 }] });
+    const r2 = a.analyze({ ...base(), arms: [arm('R1', 0, 0)], boundaries: [{ id: 'F1', kind: 'fence', label: '', points: [[900, -2000], [900, 2000]], height: 2000 }] });
     expect(r2.findings.map((f) => f.id)).toContain('reach-beyond-fence:R1+F1');
   });
 
@@ -93,7 +93,7 @@ describe('analysis engine', () => {
     const r = a.analyze({
       ...base(),
       arms: [arm('R1', 0, 0)],
-      zones: [
+      boundaries: [
         { id: 'OP', kind: 'operator', label: 'pallet exchange', points: [[0, 0], [2000, 0], [2000, 2000], [0, 2000]] },
         { id: 'K1', kind: 'keepout', label: '', points: [[3000, 0], [4000, 0], [4000, 1000]] },
       ],
@@ -116,7 +116,7 @@ describe('analysis engine', () => {
       ],
     };
     const layers = [
-      { name: 'OUTLINE', role: 'boundary' as const, height: null },
+      { name: 'OUTLINE', role: 'outline' as const, height: null },
       { name: 'MACHINES', role: 'obstacle' as const, height: 900 },
       { name: 'COLUMNS', role: 'column' as const, height: null },
     ];
@@ -142,7 +142,7 @@ describe('analysis engine', () => {
     expect(a.lastStats()).toEqual({ arms: 1, pairs: 0, columns: 1 });
     const keep = (r: typeof first) => r.findings.filter((f) => !f.arms.includes('R3') && !f.points.some((p) => Number(p.slice(1)) >= 26)).map((f) => f.id);
     expect(keep(moved)).toEqual(keep(first));
-    expect(moved.overlaps.map((o) => o.arms)).toEqual([['R1', 'R2']]);
+    expect(moved.sharedZones.map((o) => o.arms)).toEqual([['R1', 'R2']]);
   });
 
   it('reports an arm whose reach cannot be computed as a finding, never a crash', () => {

@@ -24,13 +24,13 @@ function analyse(): { content: LayoutContent; analysis: AnalysisResult } {
     ...base.layout.content,
     arms: [{ id: 'R1', armModelId: scara.id, label: 'Picker', x: 10000, y: 8000, yaw: 0, mountHeight: 0 }],
     workPoints: Object.keys(MARGIN_BY_Z).map((z, i) => ({ id: `Q${i + 1}`, x: 10300, y: 8000, z: Number(z), approach: 'top' as const, tag: '' })),
-    zones: [],
+    boundaries: [],
   };
   const analyzer = createAnalyzer((_id, restrict) => {
     const real = armReachFor(scara.params, restrict);
     return { ...real, margin: (_x: number, _y: number, z: number) => MARGIN_BY_Z[Math.round(z)] ?? -5000 };
   });
-  const analysis = analyzer.analyze({ arms: content.arms, workPoints: content.workPoints, zones: content.zones, workHeights: content.workHeights, floor: null });
+  const analysis = analyzer.analyze({ arms: content.arms, workPoints: content.workPoints, boundaries: content.boundaries, workHeights: content.workHeights, floor: null });
   return { content, analysis };
 }
 

@@ -4,7 +4,7 @@ import { sectionCutOf, sectionOf, type SectionArm, type SectionInput } from '@sh
 import type { ArmEnvelope, PreparedFloor } from '@shared/analysis/types';
 import { profileColumnAt, profileColumnIndex, profileSliceAt } from '@shared/kinematics/profile';
 import { reachProfileOf, parseArmParams } from '@shared/kinematics';
-import type { Zone } from '@shared/schemas/layout';
+import type { Boundary } from '@shared/schemas/layout';
 import { ax, deepFreeze } from '../kinematics/fixtures';
 
 /** Horizontal slice of cut polygons at height z: s-intervals, mm (the same even–odd slicer as the profile's). */
@@ -21,7 +21,7 @@ function toolEnvelope(raw: unknown): ArmEnvelope {
   return { profile: prof.polygons, toleranceMm: prof.toleranceMm, j1RangeDeg: { min: -180, max: 180 }, lateralMm: { min: 0, max: 0 } };
 }
 
-const input = (over: Partial<SectionInput>): SectionInput => ({ line: [[0, 0], [5000, 0]], floor: null, zones: [], arms: [], ...over });
+const input = (over: Partial<SectionInput>): SectionInput => ({ line: [[0, 0], [5000, 0]], floor: null, boundaries: [], arms: [], ...over });
 
 describe('section: an arm space cut through its J1 axis', () => {
   it('a full-range SCARA gives the planar 2R annulus on both sides', () => {
@@ -115,11 +115,11 @@ describe('section: an arm space cut through its J1 axis', () => {
 });
 
 describe('section: fences, structure, floor', () => {
-  const fence: Zone = { id: 'F1', kind: 'fence', label: 'Cell fence', points: [[3000, -1000], [3000, 1000]], height: 1400 };
+  const fence: Boundary = { id: 'F1', kind: 'fence', label: 'Cell fence', points: [[3000, -1000], [3000, 1000]], height: 1400 };
   const arm: SectionArm = { id: 'R1', label: 'Picker', pose: { x: 1000, y: 0, yaw: 0 }, envelope: boxEnvelope(300, 1200, 100, 900) };
 
   it('the fence numbers on a hand-built case: fence at s = 3000, space ends at s = 2200 → c = 800', () => {
-    const r = sectionOf(deepFreeze(input({ zones: [fence], arms: [arm] })));
+    const r = sectionOf(deepFreeze(input({ boundaries: [fence], arms: [arm] })));
     expect(r.fences).toEqual([{ id: 'F1', label: 'Cell fence', s: 3000, height: 1400 }]);
     expect(r.dimensions).toHaveLength(1);
     const d = r.dimensions[0];
@@ -129,13 +129,13 @@ describe('section: fences, structure, floor', () => {
     expect(d.toS).toBeCloseTo(2200, 4);
     expect(d.armId).toBe('R1');
     // The space reaching past the fence gives c = 0.
-    const close = sectionOf(input({ zones: [fence], arms: [{ ...arm, pose: { x: 2000, y: 0, yaw: 0 } }] }));
+    const close = sectionOf(input({ boundaries: [fence], arms: [{ ...arm, pose: { x: 2000, y: 0, yaw: 0 } }] }));
     expect(close.dimensions[0].c).toBe(0);
   });
 
   it('an opening cut into the fence is not a solid crossing', () => {
-    const opening: Zone = { id: 'O1', kind: 'opening', label: 'Door', points: [[3000, -500], [3000, 500]], fenceId: 'F1' };
-    const r = sectionOf(input({ zones: [fence, opening], arms: [arm] }));
+    const opening: Boundary = { id: 'O1', kind: 'opening', label: 'Door', points: [[3000, -500], [3000, 500]], fenceId: 'F1' };
+    const r = sectionOf(input({ boundaries: [fence, opening], arms: [arm] }));
     expect(r.fences).toEqual([]);
     expect(r.openings).toEqual([{ id: 'O1', label: 'Door', s: 3000 }]);
     expect(r.dimensions).toEqual([]);
@@ -143,7 +143,7 @@ describe('section: fences, structure, floor', () => {
 
   it('a wall crossed gives its s-interval and top; a full-height column has top null', () => {
     const floor: PreparedFloor = {
-      boundary: [[[[-100, -5000], [4500, -5000], [4500, 5000], [-100, 5000]]]],
+      outline: [[[[-100, -5000], [4500, -5000], [4500, 5000], [-100, 5000]]]],
       structures: [
         { id: 'walls#3', layer: 'walls', role: 'wall', top: 2500, polygons: [[[[4000, -300], [4200, -300], [4200, 300], [4000, 300]]]], lines: [], bbox: [4000, -300, 4200, 300] },
         { id: 'columns#1', layer: 'columns', role: 'column', top: Infinity, polygons: [[[[1500, -200], [1900, -200], [1900, 200], [1500, 200]]]], lines: [], bbox: [1500, -200, 1900, 200] },

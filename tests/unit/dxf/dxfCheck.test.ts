@@ -30,7 +30,7 @@ describe('dxf-check', { timeout: 120_000 }, () => {
       expect(cols[0]).toBe('read');
       expect(cols[1]).toBe(files[i]);
       expect(cols[2]).toMatch(/^unit (mm|in) \((header|default)\) plausible 24 m$/);
-      expect(cols[3]).toBe('layers boundary 1, wall 1, column 1, obstacle 1, ignore 2');
+      expect(cols[3]).toBe('layers outline 1, wall 1, column 1, obstacle 1, ignore 2');
       expect(cols[4]).toBe('rings 13');
       expect(cols[5]).toBe('gaps 0 closed, 0 open');
       expect(cols[6]).toMatch(/^notes \d+ to check, \d+ ignored, 0 unread$/);

@@ -175,7 +175,7 @@ describe('layer roles', () => {
       'Murs porteurs': 'wall', Wände: 'wall', Außenwand: 'wall', MUROS: 'wall', muren: 'wall', Pareti: 'wall',
       Poteaux: 'column', Stützen: 'column', Columnas: 'column', kolommen: 'column', Pilastri: 'column',
       Maschinen: 'obstacle', Máquinas: 'obstacle', macchine: 'obstacle',
-      'A-WALL-FULL': 'wall', 'S-COLS': 'column', 'A-FLOR-OTLN': 'boundary', 'A-EQPM-FIXD': 'obstacle', 'A-WALL-PATT': 'ignore', 'A-ANNO-DIMS': 'ignore',
+      'A-WALL-FULL': 'wall', 'S-COLS': 'column', 'A-FLOR-OTLN': 'outline', 'A-EQPM-FIXD': 'obstacle', 'A-WALL-PATT': 'ignore', 'A-ANNO-DIMS': 'ignore',
       Cotation: 'ignore', Bemaßung: 'ignore',
     };
     expect(Object.fromEntries(Object.keys(cases).map((n) => [n, guessLayerRole(n)]))).toEqual(cases);

@@ -8,7 +8,7 @@ import { d3Area, linesOn, polygonsOn, readSample, SAMPLES_DIR, shoelace } from '
 
 /** Layer → entity count every variant holds (see samples/floor-plans/README.md). */
 const EXPECTED_LAYERS: Record<string, [string, number]> = {
-  OUTLINE: ['boundary', 1],
+  OUTLINE: ['outline', 1],
   WALLS: ['wall', 5],
   DOORS: ['ignore', 2],
   COLUMNS: ['column', 6],

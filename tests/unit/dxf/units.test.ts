@@ -56,7 +56,7 @@ describe('drawing units', () => {
 
 describe('layer roles', () => {
   it.each([
-    ['OUTLINE', 'boundary'], ['Floor Boundary', 'boundary'], ['A-FLOOR', 'boundary'],
+    ['OUTLINE', 'outline'], ['Floor Boundary', 'outline'], ['A-FLOOR', 'outline'],
     ['WALLS', 'wall'], ['A-WALL-INT', 'wall'], ['PARTITIONWALL', 'wall'],
     ['COLUMNS', 'column'], ['S-COL', 'column'], ['COL2', 'column'], ['Pillars', 'column'],
     ['MACHINES', 'obstacle'], ['M-EQUIP', 'obstacle'], ['OBST', 'obstacle'],

@@ -25,7 +25,7 @@ const content = (): LayoutContent => ({
     { id: 'R2', armModelId: 1, label: '', x: 5000, y: 0, yaw: 0, mountHeight: 0 },
   ],
   workPoints: [],
-  zones: [],
+  boundaries: [],
   workHeights: [900],
 });
 
@@ -35,7 +35,7 @@ describe('analysis worker session', () => {
     const s = createAnalysisSession(diskBuilder(calls));
     s.receive({ type: 'models', models: [{ id: 1, params: { R: 1000 } }] });
     expect(s.receive({ type: 'content', seq: 1, content: content() })).toBe(true);
-    expect(s.run()!.analysis.overlaps).toHaveLength(0);
+    expect(s.run()!.analysis.sharedZones).toHaveLength(0);
     // Dragged to 1000 mm from R1: two unit disks (×1000 mm) with centres 1 apart overlap by the
     // circle–circle lens area 1.22837 (Wolfram MathWorld, "Circle-Circle Intersection", r = R = d = 1).
     s.receive({ type: 'drag', seq: 2, pose: { armId: 'R2', x: 1000, y: 0, yaw: 30 } });
@@ -43,13 +43,13 @@ describe('analysis worker session', () => {
     expect(r.dragging).toBe(true);
     expect(r.seq).toBe(2);
     expect(r.placed.R2).toEqual([1000, 0, 30]);
-    expect(r.analysis.overlaps[0].areaM2).toBeCloseTo(1.22837, 2);
+    expect(r.analysis.sharedZones[0].areaM2).toBeCloseTo(1.22837, 2);
     expect(r.analysis.findings.map((f) => f.id)).toContain('shared-zone:R1+R2');
     // New content ends the drag.
     s.receive({ type: 'content', seq: 3, content: content() });
     const after = s.run()!;
     expect(after.dragging).toBe(false);
-    expect(after.analysis.overlaps).toHaveLength(0);
+    expect(after.analysis.sharedZones).toHaveLength(0);
   });
 
   it('builds each model × restricting limits once, however many poses a drag goes through', () => {

@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { commandForKey, NUDGE_BIG_MM, NUDGE_MM, TURN_DEG, TURN_FINE_DEG, type KeyLike } from '../../../frontend/src/editor/editorKeys';
 
 const key = (k: string, mods: Partial<KeyLike> = {}): KeyLike => ({ key: k, shiftKey: false, ctrlKey: false, metaKey: false, altKey: false, ...mods });
-const arm = { armSelected: true, zoneSelected: false, drawing: false };
-const none = { armSelected: false, zoneSelected: false, drawing: false };
+const arm = { armSelected: true, boundarySelected: false, drawing: false };
+const none = { armSelected: false, boundarySelected: false, drawing: false };
 
 describe('editor keys', () => {
   it('nudges the selected arm along the plan axes (north is up)', () => {
@@ -25,7 +25,7 @@ describe('editor keys', () => {
     expect(commandForKey(key('Z', { metaKey: true, shiftKey: true }), none)).toEqual({ kind: 'redo' });
     expect(commandForKey(key('d', { ctrlKey: true }), arm)).toEqual({ kind: 'duplicate' });
     expect(commandForKey(key('d', { ctrlKey: true }), none)).toBeNull();
-    expect(commandForKey(key('Delete'), { ...none, zoneSelected: true })).toEqual({ kind: 'delete' });
+    expect(commandForKey(key('Delete'), { ...none, boundarySelected: true })).toEqual({ kind: 'delete' });
     expect(commandForKey(key('Enter'), { ...none, drawing: true })).toEqual({ kind: 'finish' });
     expect(commandForKey(key('Escape'), { ...none, drawing: true })).toEqual({ kind: 'cancel' });
     // While drawing, Delete and the arrows do nothing to the selection.

@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import type { LayoutContent, Zone } from '@shared/schemas/layout';
-import { drawHint, isRepeatClick, openingEndAt, pointsNeeded } from '../../../frontend/src/components/layout/tools/drawZoneTool';
+import type { LayoutContent, Boundary } from '@shared/schemas/layout';
+import { drawHint, isRepeatClick, openingEndAt, pointsNeeded } from '../../../frontend/src/components/layout/tools/drawBoundaryTool';
 import { draggedBase } from '../../../frontend/src/components/layout/tools/moveArmTool';
 import { turnYaw } from '../../../frontend/src/components/layout/tools/turnArmTool';
 
-const fence = (id: string, points: Array<[number, number]>): Zone => ({ id, kind: 'fence', label: '', points, height: 1400 }) as Zone;
-const content = (zones: Zone[]): LayoutContent => ({ arms: [], workPoints: [], zones, workHeights: [] });
+const fence = (id: string, points: Array<[number, number]>): Boundary => ({ id, kind: 'fence', label: '', points, height: 1400 }) as Boundary;
+const content = (boundaries: Boundary[]): LayoutContent => ({ arms: [], workPoints: [], boundaries, workHeights: [] });
 
 describe('turn angle', () => {
   // Direction angle atan2(dy, dx): tan 45° = 1, tan 60° = √3 (standard trigonometry table values).

@@ -3,21 +3,21 @@ import { describe, expect, it } from 'vitest';
 import { LayoutContent } from '@shared/schemas/layout';
 import {
   addArm,
-  addZone,
+  addBoundary,
   duplicateArm,
-  moveZoneVertex,
+  moveBoundaryVertex,
   nearestOnPolyline,
   nextFreeId,
   normalizeYaw,
   nudgeArm,
   removeArm,
-  removeZone,
+  removeBoundary,
   rotateArm,
   setWorkHeights,
   updateArm,
 } from '../../../frontend/src/editor/layoutEdits';
 
-const empty = (): LayoutContent => ({ arms: [], workPoints: [], zones: [], workHeights: [] });
+const empty = (): LayoutContent => ({ arms: [], workPoints: [], boundaries: [], workHeights: [] });
 const deepFreeze = <T>(o: T): T => {
   if (o && typeof o === 'object') {
     Object.values(o).forEach(deepFreeze);
@@ -45,7 +45,7 @@ describe('layout edits', () => {
       duplicateArm(c0, 'R1').content,
       updateArm(c0, 'R1', { restrict: { j1Min: -90, j1Max: 90 }, label: 'picker' }),
       removeArm(c0, 'R1'),
-      addZone(c0, 'fence', [[-3000, 3000], [3000, 3000], [3000, -3000]], { height: 2000 }).content,
+      addBoundary(c0, 'fence', [[-3000, 3000], [3000, 3000], [3000, -3000]], { height: 2000 }).content,
       setWorkHeights(c0, [900, 300, 900]),
     ];
     for (const s of steps) expect(LayoutContent.safeParse(s).success).toBe(true);
@@ -102,26 +102,26 @@ describe('layout edits', () => {
   });
 
   it('snaps an opening onto the nearest fence and keeps it there when the fence moves', () => {
-    let c = addZone(empty(), 'fence', [[0, 0], [6000, 0], [6000, 4000]], { height: 2000 }).content;
-    const r = addZone(c, 'opening', [[1000, 120], [2200, -80]]);
+    let c = addBoundary(empty(), 'fence', [[0, 0], [6000, 0], [6000, 4000]], { height: 2000 }).content;
+    const r = addBoundary(c, 'opening', [[1000, 120], [2200, -80]]);
     c = r.content;
-    const o = c.zones.find((z) => z.id === r.id)!;
-    expect(r.id).toBe('G1');
+    const o = c.boundaries.find((z) => z.id === r.id)!;
+    expect(r.id).toBe('O1');
     expect(o.fenceId).toBe('F1');
     expect(o.points).toEqual([[1000, 0], [2200, 0]]);
     // Moving the fence's first corner up by 1000 mm tilts the first run; the opening follows onto it.
-    c = moveZoneVertex(c, 'F1', 0, [0, 1000]);
-    const moved = c.zones.find((z) => z.id === 'G1')!;
-    for (const [x, y] of moved.points) expect(nearestOnPolyline(c.zones[0].points as Array<[number, number]>, [x, y])!.distance).toBeLessThan(0.1);
+    c = moveBoundaryVertex(c, 'F1', 0, [0, 1000]);
+    const moved = c.boundaries.find((z) => z.id === 'O1')!;
+    for (const [x, y] of moved.points) expect(nearestOnPolyline(c.boundaries[0].points as Array<[number, number]>, [x, y])!.distance).toBeLessThan(0.1);
     expect(LayoutContent.safeParse(c).success).toBe(true);
     // Removing the fence removes its opening.
-    expect(removeZone(c, 'F1').zones).toEqual([]);
+    expect(removeBoundary(c, 'F1').boundaries).toEqual([]);
   });
 
   it('refuses shapes the schema would refuse, naming the argument', () => {
-    expect(() => addZone(empty(), 'opening', [[0, 0], [1, 1]])).toThrow(/^points: .*fence/);
-    expect(() => addZone(empty(), 'keepout', [[0, 0], [1, 1]])).toThrow(/^points: .*3/);
-    expect(() => addZone(empty(), 'fence', [[0, 0], [1, 1]])).toThrow(/^height:/);
+    expect(() => addBoundary(empty(), 'opening', [[0, 0], [1, 1]])).toThrow(/^points: .*fence/);
+    expect(() => addBoundary(empty(), 'keepout', [[0, 0], [1, 1]])).toThrow(/^points: .*3/);
+    expect(() => addBoundary(empty(), 'fence', [[0, 0], [1, 1]])).toThrow(/^height:/);
     expect(() => nudgeArm(empty(), 'R9', 1, 1)).toThrow(/^id: no arm R9/);
   });
 

@@ -19,7 +19,7 @@ const content: LayoutContent = {
     { id: 'P2', x: 3300, y: 200, z: 200, approach: 'top', tag: 'left', assignedArm: 'R1' },
     { id: 'P3', x: 3100, y: -250, z: 200, approach: 'top', tag: 'right' },
   ],
-  zones: [],
+  boundaries: [],
   workHeights: [200],
 };
 const models = [{ id: 1, params: SCARA }];
@@ -59,7 +59,7 @@ describe('placement worker session', () => {
 
   it('names an unknown point', () => {
     const out = run(PlacementSearchInput.parse({ armModelId: 1, pointIds: ['P9'] }));
-    expect(out).toEqual([{ type: 'error', id: 1, message: 'No work point P9 on this layout' }]);
+    expect(out).toEqual([{ type: 'error', id: 1, message: 'No work point P9 on this cell layout' }]);
   });
 });
 

@@ -1,14 +1,14 @@
 // The editor's tools driven through the dispatcher with stand-in pointer events (no DOM): which tool
 // gets a gesture, what it commits on release, and what a cancel leaves. Plan mm = event px here.
 import { describe, expect, it } from 'vitest';
-import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
+import type { ArmPlacement, LayoutContent, Boundary } from '@shared/schemas/layout';
 import type { EditorTool, SceneCallbacks, SceneState } from '../../../frontend/src/components/layout/sceneTypes';
 import type { HeldEdit, ToolHost } from '../../../frontend/src/components/layout/tools/tool';
 import { ToolDispatcher } from '../../../frontend/src/components/layout/tools/toolDispatcher';
 
 const arm: ArmPlacement = { id: 'R1', armModelId: 1, label: '', x: 1000, y: 2000, yaw: 0, mountHeight: 0 };
-const fence = { id: 'F1', kind: 'fence', label: '', points: [[0, 0], [4000, 0]], height: 1400 } as Zone;
-const content: LayoutContent = { arms: [arm], workPoints: [], zones: [fence], workHeights: [900] };
+const fence = { id: 'F1', kind: 'fence', label: '', points: [[0, 0], [4000, 0]], height: 1400 } as Boundary;
+const content: LayoutContent = { arms: [arm], workPoints: [], boundaries: [fence], workHeights: [900] };
 
 function setup(tool: EditorTool = 'select', readOnly = false) {
   const calls: Array<[string, ...unknown[]]> = [];
@@ -27,7 +27,7 @@ function setup(tool: EditorTool = 'select', readOnly = false) {
   const state: SceneState = { content, view: null, selection: null, highlightArms: new Set(), findingGeometry: null, tool, bandHeight: null, readOnly };
   const held: HeldEdit[] = [];
   const host: ToolHost = { state: () => state, cb, hold: (h) => void held.push(h), redrawArm() {}, redrawMarks() {}, redrawDraft() {}, redrawAll() {} };
-  const tools = new ToolDispatcher(host, (e) => ({ plan: [e.clientX, e.clientY], k: 1, zoneId: null }));
+  const tools = new ToolDispatcher(host, (e) => ({ plan: [e.clientX, e.clientY], k: 1, boundaryId: null }));
   const el = { setPointerCapture() {}, releasePointerCapture() {} } as unknown as Element;
   const ev = (x: number, y: number, o: { handle?: boolean; type?: string } = {}) =>
     ({
@@ -93,12 +93,12 @@ describe('tool dispatcher', () => {
     expect(t.calls.at(-1)).toEqual(['select', null]);
   });
 
-  it('drags a zone corner and commits it on release', () => {
+  it('drags a boundary corner and commits it on release', () => {
     const t = setup();
-    t.tools.pressVertex(t.ev(4000, 0), t.el, { zoneId: 'F1', index: 1, at: [4000, 0] });
+    t.tools.pressVertex(t.ev(4000, 0), t.el, { boundaryId: 'F1', index: 1, at: [4000, 0] });
     expect(t.tools.dragVertexAt()).toBeNull();
     t.tools.pointerMove(t.ev(4200.04, 300));
-    expect(t.tools.dragVertexAt()).toEqual({ zoneId: 'F1', index: 1, at: [4200, 300] });
+    expect(t.tools.dragVertexAt()).toEqual({ boundaryId: 'F1', index: 1, at: [4200, 300] });
     t.tools.pointerUp(t.ev(4200.04, 300, { type: 'pointerup' }));
     expect(t.calls).toEqual([['vertex', 'F1', 1, [4200, 300]]]);
   });

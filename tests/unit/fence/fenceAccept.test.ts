@@ -19,16 +19,16 @@ describe('accepting a proposal', () => {
     const reachFor = (id: number, r: Parameters<typeof armReachFor>[1]) => armReachFor(params.get(id), r);
     const floor = prepareFloor(demo.floorPlan!.geometry, demo.floorPlan!.layers as FloorLayer[]);
     const content = demo.layout.content;
-    const proposal = proposeFence({ arms: content.arms, zones: content.zones, floor, reachFor, system: DEFAULT_FENCE_SYSTEM });
-    const accepted = LayoutContent.parse({ ...content, zones: applyFenceProposal(content.zones, proposal) });
-    const ids = new Set(proposal.zones.map((z) => z.id));
+    const proposal = proposeFence({ arms: content.arms, boundaries: content.boundaries, floor, reachFor, system: DEFAULT_FENCE_SYSTEM });
+    const accepted = LayoutContent.parse({ ...content, boundaries: applyFenceProposal(content.boundaries, proposal) });
+    const ids = new Set(proposal.boundaries.map((z) => z.id));
     const result = createAnalyzer(reachFor).analyze({ ...accepted, floor });
     const fromProposal = result.findings.filter((f) => f.id.split(/[:+]/).some((part) => ids.has(part)));
     expect(fromProposal.map((f) => f.id)).toEqual([]);
     expect(result.findings.filter((f) => /fence|opening/.test(f.kind))).toEqual([]);
     // Reach over: every solid fence part at least c (Table 2, a = mount height + highest tool point, b = fence height) from each restricted space.
-    for (const f of accepted.zones.filter((z) => z.kind === 'fence')) {
-      const cuts = accepted.zones.filter((o) => o.kind === 'opening' && o.fenceId === f.id).map((o) => [o.points[0], o.points[1]] as const);
+    for (const f of accepted.boundaries.filter((z) => z.kind === 'fence')) {
+      const cuts = accepted.boundaries.filter((o) => o.kind === 'opening' && o.fenceId === f.id).map((o) => [o.points[0], o.points[1]] as const);
       const solid = subtractOpenings(f.points, cuts as never);
       for (const a of accepted.arms) {
         const reach = reachFor(a.armModelId, a.restrict);
@@ -37,6 +37,6 @@ describe('accepting a proposal', () => {
         for (const l of solid) expect(polylineDistanceToPolygons(l, restricted)).toBeGreaterThanOrEqual(c);
       }
     }
-    expect(proposal.zones.some((z) => z.kind === 'opening' && z.safeguard)).toBe(true);
+    expect(proposal.boundaries.some((z) => z.kind === 'opening' && z.safeguard)).toBe(true);
   });
 });

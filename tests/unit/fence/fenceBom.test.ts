@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { bomCsv, fenceLinesOf, fenceParts, MIN_CUT_PANEL_MM, splitRun } from '@shared/analysis/fenceBom';
 import { DEFAULT_FENCE_SYSTEM } from '@shared/schemas/fenceProposal';
-import type { Zone } from '@shared/schemas/layout';
+import type { Boundary } from '@shared/schemas/layout';
 
 const W = [200, 300, 500, 700, 1000, 1200, 1500];
 const built = (panels: Array<{ widthMm: number }>, p: number) => panels.reduce((s, x) => s + x.widthMm + p, 0);
@@ -36,12 +36,12 @@ describe('splitRun', () => {
 describe('BOM of fences drawn by hand', () => {
   it('counts panels, corner, line and wall-fixing posts, doors with interlocks and anchors', () => {
     // An L: 3120 mm east (two full panels), then 3120 mm north with a 1000 mm door in the middle.
-    const zones: Zone[] = [
+    const boundaries: Boundary[] = [
       { id: 'F1', kind: 'fence', label: '', height: 2000, points: [[0, 0], [3120, 0], [3120, 3120]] },
       { id: 'O1', kind: 'opening', label: '', fenceId: 'F1', points: [[3120, 1060], [3120, 2060]] },
     ];
     const walls: Array<[[number, number], [number, number]]> = [[[0, -1000], [0, 1000]]];
-    const parts = fenceParts(fenceLinesOf(zones), DEFAULT_FENCE_SYSTEM, walls);
+    const parts = fenceParts(fenceLinesOf(boundaries), DEFAULT_FENCE_SYSTEM, walls);
     expect(parts.lengthMm).toBeCloseTo(6240, 6);
     expect(parts.doors).toMatchObject([{ id: 'O1', widthMm: 1000 }]);
     // North leg: 0…1030 and 2090…3120 centre-line (door posts outside the 1000 mm clear width): two runs of 1030 mm.

@@ -8,7 +8,7 @@ import type { Polygon2, Pt } from '@shared/geometry/types';
 import type { ArmReach, ArmReachFactory, PreparedFloor } from '@shared/analysis';
 import { applyFenceProposal, FenceProposalError, proposeFence } from '@shared/analysis/fenceProposal';
 import { DEFAULT_FENCE_SYSTEM, FenceSystemInput } from '@shared/schemas/fenceProposal';
-import type { ArmPlacement, Zone } from '@shared/schemas/layout';
+import type { ArmPlacement, Boundary } from '@shared/schemas/layout';
 
 /** model id = reach radius in mm; highest tool-point height 2000 mm above the mounting face. */
 const diskReach: ArmReachFactory = (modelId) => {
@@ -46,9 +46,9 @@ function sampledDistance(lines: ReadonlyArray<ReadonlyArray<readonly [number, nu
   return best;
 }
 
-const fences = (zones: Zone[]) => zones.filter((z) => z.kind === 'fence');
-const propose = (arms: ArmPlacement[], extra: Partial<{ zones: Zone[]; floor: PreparedFloor | null; useWalls: boolean }> = {}) =>
-  proposeFence({ arms, zones: extra.zones ?? [], floor: extra.floor ?? null, reachFor: diskReach, system: { ...DEFAULT_FENCE_SYSTEM, useWalls: extra.useWalls ?? true } });
+const fences = (boundaries: Boundary[]) => boundaries.filter((z) => z.kind === 'fence');
+const propose = (arms: ArmPlacement[], extra: Partial<{ boundaries: Boundary[]; floor: PreparedFloor | null; useWalls: boolean }> = {}) =>
+  proposeFence({ arms, boundaries: extra.boundaries ?? [], floor: extra.floor ?? null, reachFor: diskReach, system: { ...DEFAULT_FENCE_SYSTEM, useWalls: extra.useWalls ?? true } });
 
 describe('guard-ring proposal', () => {
   it('keeps the ISO 13857 distance plus clearance from a single arm in the open and encloses it', () => {
@@ -56,7 +56,7 @@ describe('guard-ring proposal', () => {
     const p = propose([a]);
     expect(p.required[0]).toMatchObject({ reachThroughMm: 120, reachOverMm: 600, requiredMm: REQUIRED_MM });
     expect(p.rings).toHaveLength(1);
-    const lines = fences(p.zones).map((f) => f.points);
+    const lines = fences(p.boundaries).map((f) => f.points);
     const restricted = restrictedOf(a);
     const d = sampledDistance(lines, restricted);
     expect(d).toBeGreaterThanOrEqual(REQUIRED_MM - 0.5);
@@ -106,13 +106,13 @@ describe('guard-ring proposal', () => {
   it('closes the ring on a wall when walls may be used, with no panel along the wall', () => {
     // A full-height wall 150 mm thick whose south face runs 1500 mm north of the arm, 10 m long.
     const wall: Polygon2 = [[[-5000, 1500], [5000, 1500], [5000, 1650], [-5000, 1650]]];
-    const floor: PreparedFloor = { boundary: [], structures: [{ id: 'WALLS#0', layer: 'WALLS', role: 'wall', top: Infinity, polygons: [wall], lines: [], bbox: [-5000, 1500, 5000, 1650] }] };
+    const floor: PreparedFloor = { outline: [], structures: [{ id: 'WALLS#0', layer: 'WALLS', role: 'wall', top: Infinity, polygons: [wall], lines: [], bbox: [-5000, 1500, 5000, 1650] }] };
     const p = propose([arm('R1', 0, 0)], { floor });
     expect(p.rings[0].wallStretches).toHaveLength(1);
     const [a, b] = p.rings[0].wallStretches[0];
     expect(a[1]).toBeCloseTo(1500, 3);
     expect(b[1]).toBeCloseTo(1500, 3);
-    const fs = fences(p.zones);
+    const fs = fences(p.boundaries);
     expect(fs).toHaveLength(1);
     const pts = fs[0].points;
     expect(pts[0][1]).toBeCloseTo(1500, 3);
@@ -130,34 +130,34 @@ describe('guard-ring proposal', () => {
   it('routes around a column the ring would cross and keeps it out of every fence line', () => {
     // A 400 mm column centred on the line the east side would take (x = 1750).
     const col: Polygon2 = [[[1550, -200], [1950, -200], [1950, 200], [1550, 200]]];
-    const floor: PreparedFloor = { boundary: [], structures: [{ id: 'COLUMNS#0', layer: 'COLUMNS', role: 'column', top: Infinity, polygons: [col], lines: [], bbox: [1550, -200, 1950, 200] }] };
+    const floor: PreparedFloor = { outline: [], structures: [{ id: 'COLUMNS#0', layer: 'COLUMNS', role: 'column', top: Infinity, polygons: [col], lines: [], bbox: [1550, -200, 1950, 200] }] };
     const p = propose([arm('R1', 0, 0)], { floor });
-    const pts = fences(p.zones)[0].points;
+    const pts = fences(p.boundaries)[0].points;
     expect(sampledDistance([pts], [col])).toBeGreaterThanOrEqual(DEFAULT_FENCE_SYSTEM.postWidthMm - 0.5);
     expect(pointInPolygons(1750, 0, [[p.rings[0].ring]])).toBe(true);
   });
 
-  it('says so when a ring leaves the floor, and closes it on the floor boundary when walls may be used', () => {
-    const floor: PreparedFloor = { boundary: [[[[0, 0], [3000, 0], [3000, 6000], [0, 6000]]]], structures: [] };
+  it('says so when a ring leaves the floor, and closes it on the floor outline when walls may be used', () => {
+    const floor: PreparedFloor = { outline: [[[[0, 0], [3000, 0], [3000, 6000], [0, 6000]]]], structures: [] };
     const open = propose([arm('R1', 1200, 3000)], { floor, useWalls: false });
-    expect(open.notes.join(' ')).toMatch(/outside the floor boundary/);
+    expect(open.notes.join(' ')).toMatch(/outside the floor outline/);
     const walled = propose([arm('R1', 1200, 3000)], { floor });
-    expect(walled.notes.join(' ')).not.toMatch(/outside the floor boundary/);
+    expect(walled.notes.join(' ')).not.toMatch(/outside the floor outline/);
     expect(walled.rings[0].wallStretches.length).toBeGreaterThan(0);
   });
 
   it('puts a door with an interlock at the operator area', () => {
-    const op: Zone = { id: 'OP1', kind: 'operator', label: 'Loading', points: [[-1000, -3500], [1000, -3500], [1000, -2000], [-1000, -2000]] };
-    const p = propose([arm('R1', 0, 0)], { zones: [op] });
-    const doors = p.zones.filter((z) => z.kind === 'opening');
+    const op: Boundary = { id: 'OP1', kind: 'operator', label: 'Loading', points: [[-1000, -3500], [1000, -3500], [1000, -2000], [-1000, -2000]] };
+    const p = propose([arm('R1', 0, 0)], { boundaries: [op] });
+    const doors = p.boundaries.filter((z) => z.kind === 'opening');
     expect(doors).toHaveLength(1);
     expect(doors[0].safeguard?.device).toMatch(/^interlock/);
     expect(doors[0].points.every(([, y]) => Math.abs(y - -(1000 + REQUIRED_MM)) < 5)).toBe(true);
     expect(Math.hypot(doors[0].points[1][0] - doors[0].points[0][0], 0)).toBe(2000);
     // The operator area stays in the layout when the proposal is applied; old fences go.
-    const old: Zone = { id: 'F1', kind: 'fence', label: '', height: 2000, points: [[0, 0], [1, 1]] };
-    const zones = applyFenceProposal([op, old], p);
-    expect(zones.map((z) => z.id)).toEqual(['OP1', ...p.zones.map((z) => z.id)]);
+    const old: Boundary = { id: 'F1', kind: 'fence', label: '', height: 2000, points: [[0, 0], [1, 1]] };
+    const boundaries = applyFenceProposal([op, old], p);
+    expect(boundaries.map((z) => z.id)).toEqual(['OP1', ...p.boundaries.map((z) => z.id)]);
   });
 
   it('refuses a layout without arms with a sentence, and options the standards do not cover by field', () => {

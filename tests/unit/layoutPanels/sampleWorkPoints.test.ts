@@ -48,6 +48,6 @@ describe('samples/work-points/fernhill-line3.csv', () => {
     const bare = parseWorkPointsCsv(text, { armIds: [] });
     expect(bare.points).toEqual([]);
     expect(bare.errors.length).toBe(points.length);
-    expect(bare.errors[0]).toEqual({ row: 2, message: 'assigned arm R1 is not on this layout' });
+    expect(bare.errors[0]).toEqual({ row: 2, message: 'assigned arm R1 is not on this cell layout' });
   });
 });

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { findingId } from '@shared/analysis/messages';
 import { sharedZoneRows } from '../../../frontend/src/components/layout/sharedZoneRows';
 
-const zone = (a: string, b: string, areaM2: number) => ({
+const boundary = (a: string, b: string, areaM2: number) => ({
   arms: [a, b] as [string, string],
   areaM2,
   points: ['P2', 'P1'],
@@ -11,8 +11,8 @@ const zone = (a: string, b: string, areaM2: number) => ({
 });
 
 describe('sharedZoneRows', () => {
-  it('orders zones largest first, pairs in id order, heights ascending, inputs untouched', () => {
-    const input = Object.freeze([zone('R1', 'R2', 1.5), zone('R4', 'R3', 3.25), zone('R2', 'R3', 1.5)].map((z) => Object.freeze(z)));
+  it('orders boundaries largest first, pairs in id order, heights ascending, inputs untouched', () => {
+    const input = Object.freeze([boundary('R1', 'R2', 1.5), boundary('R4', 'R3', 3.25), boundary('R2', 'R3', 1.5)].map((z) => Object.freeze(z)));
     const rows = sharedZoneRows(input);
     expect(rows.map((r) => r.arms.join('+'))).toEqual(['R3+R4', 'R1+R2', 'R2+R3']);
     expect(rows[0].byHeight.map((b) => b.height)).toEqual([150, 1100]);
@@ -20,7 +20,7 @@ describe('sharedZoneRows', () => {
   });
 
   it('names the same finding the analysis raises for the pair', () => {
-    const [row] = sharedZoneRows([zone('R4', 'R3', 1)]);
+    const [row] = sharedZoneRows([boundary('R4', 'R3', 1)]);
     expect(findingId('shared-zone', ...row.arms)).toBe('shared-zone:R3+R4');
   });
 });

@@ -23,7 +23,7 @@ describe('pointCoverage', () => {
 
   it('builds table rows from the analysis, none without it', () => {
     const pts = [wp({ id: 'P1' }), wp({ id: 'P2' })];
-    const rows = workPointRows(pts, ARMS, { coverage: { P1: { R1: 10 } }, findings: [], overlaps: [], regions: {}, timingMs: 0 });
+    const rows = workPointRows(pts, ARMS, { coverage: { P1: { R1: 10 } }, findings: [], sharedZones: [], regions: {}, timingMs: 0 });
     expect(rows.map((r) => [r.point.id, r.best])).toEqual([['P1', 10], ['P2', null]]);
     expect(workPointRows(pts, ARMS, null).every((r) => r.best === null)).toBe(true);
   });
@@ -54,10 +54,10 @@ describe('editWorkPoint', () => {
     expect(msg('id', 'P2')).toBe('id P2 is already used');
     expect(msg('id', '')).toBe('Give it an id');
     expect(msg('id', 'x'.repeat(25))).toBe('Use at most 24 characters');
-    expect(msg('assignedArm', 'R9')).toBe('arm R9 is not on this layout');
+    expect(msg('assignedArm', 'R9')).toBe('arm R9 is not on this cell layout');
     expect(msg('approach', 'side')).toBe('approach must be top or any');
     expect(msg('tag', 't'.repeat(61))).toMatch(/60/);
-    expect(() => editWorkPoint(pts, 'P9', 'x', '1', ARMS)).toThrow('id P9 is not a work point of this layout');
+    expect(() => editWorkPoint(pts, 'P9', 'x', '1', ARMS)).toThrow('id P9 is not a work point of this cell layout');
   });
 });
 
@@ -87,6 +87,7 @@ describe('filterWorkPointRows', () => {
     expect(filterWorkPointRows(rows, 'PALLET l2').map((r) => r.point.id)).toEqual(['P3']);
     expect(filterWorkPointRows(rows, 'r1').map((r) => r.point.id)).toEqual(['P1']);
     expect(filterWorkPointRows(rows, 'unreached').map((r) => r.point.id)).toEqual(['P2']);
+    expect(filterWorkPointRows(rows, 'not reached').map((r) => r.point.id)).toEqual(['P2']);
     expect(filterWorkPointRows(rows, '  ').length).toBe(3);
   });
 });

@@ -49,7 +49,7 @@ describe('parseWorkPointsCsv', () => {
       'row 4: x is missing',
       'row 5: duplicate id P1 (first on row 2)',
       'row 6: approach must be top or any, not "side"',
-      'row 7: assigned arm R9 is not on this layout',
+      'row 7: assigned arm R9 is not on this cell layout',
       'row 8: id: Use letters, digits, _ . or - only',
       'row 9: id is missing',
       'row 10: has 8 values but the header names 7 columns',

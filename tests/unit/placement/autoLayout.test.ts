@@ -18,7 +18,7 @@ describe('auto-layout', () => {
     const points = [...cluster('A', 2000, 2000), ...cluster('B', 10000, 2000)];
     const q = {
       models: [{ armModelId: 1, count: 1, reach: reachFor(1) }, { armModelId: 2, count: 1, reach: reachFor(2) }],
-      points, minMarginMm: 10, mountHeightMm: 0, floor: null, zones: [], seed: 7, timeLimitMs: 60_000,
+      points, minMarginMm: 10, mountHeightMm: 0, floor: null, boundaries: [], seed: 7, timeLimitMs: 60_000,
     };
     const r = autoLayout(q);
     expect(r.unreachable).toEqual([]);
@@ -28,7 +28,7 @@ describe('auto-layout', () => {
     for (const o of owners) expect(new Set(o).size).toBe(1); // each arm serves one cluster only
     expect(JSON.stringify(autoLayout(q))).toBe(JSON.stringify(r));
 
-    const content: LayoutContent = { arms: [], workPoints: points, zones: [], workHeights: [200] };
+    const content: LayoutContent = { arms: [], workPoints: points, boundaries: [], workHeights: [200] };
     const proposal = proposalContent(content, r);
     const analysis = createAnalyzer((id, restrict) => reachFor(id, restrict)).analyze({ ...proposal, floor: null });
     for (const p of points) expect(analysis.coverage[p.id][p.assignedArm ?? proposal.workPoints.find((w) => w.id === p.id)!.assignedArm!]).toBeGreaterThanOrEqual(10);
@@ -38,7 +38,7 @@ describe('auto-layout', () => {
 
   it('reports a point no model reaches instead of dropping it', () => {
     const points = [...cluster('A', 2000, 2000), { id: 'HIGH', x: 2000, y: 2000, z: 3000, approach: 'top' as const, tag: '' }];
-    const r = autoLayout({ models: [{ armModelId: 1, count: 2, reach: reachFor(1) }], points, minMarginMm: 0, mountHeightMm: 0, floor: null, zones: [], seed: 1 });
+    const r = autoLayout({ models: [{ armModelId: 1, count: 2, reach: reachFor(1) }], points, minMarginMm: 0, mountHeightMm: 0, floor: null, boundaries: [], seed: 1 });
     expect(r.unreachable).toEqual(['HIGH']);
     expect(r.arms.flatMap((a) => a.pointIds).sort()).toEqual(points.slice(0, 6).map((p) => p.id).sort());
   });

@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { cellReasonText, createAnalyzer, placementSearch, type PlacementQuery } from '@shared/analysis';
 import { cellAt } from '../../../frontend/src/components/layout/placementMapDraw';
 import { armReachFor } from '@shared/analysis/armReach';
-import type { WorkPoint, Zone } from '@shared/schemas/layout';
+import type { WorkPoint, Boundary } from '@shared/schemas/layout';
 import { polygonsArea } from '@shared/geometry/area';
 import { clipIntersect } from '@shared/geometry/clipper';
 import { armPose } from '@shared/geometry/frames';
@@ -34,7 +34,7 @@ const query = (over: Partial<PlacementQuery> = {}): PlacementQuery => ({
   yawStepDeg: 30,
   mountHeightMm: 0,
   floor: null,
-  zones: [],
+  boundaries: [],
   gridMm: 10,
   ...over,
 });
@@ -51,7 +51,7 @@ describe('placement search', () => {
     expect(best.worstMarginMm).toBeGreaterThan(85);
     expect(best.worstMarginMm).toBeLessThan(101);
     const analyzer = createAnalyzer(() => armReachFor(FULL600, undefined));
-    const res = analyzer.analyze({ arms: [{ id: 'R9', armModelId: 1, label: '', x: best.x, y: best.y, yaw: best.yawDeg, mountHeight: 0 }], workPoints: q.points as WorkPoint[], zones: [], workHeights: [300], floor: null });
+    const res = analyzer.analyze({ arms: [{ id: 'R9', armModelId: 1, label: '', x: best.x, y: best.y, yaw: best.yawDeg, mountHeight: 0 }], workPoints: q.points as WorkPoint[], boundaries: [], workHeights: [300], floor: null });
     const margins = q.points.map((p) => res.coverage[p.id].R9);
     for (const m of margins) expect(m).toBeGreaterThanOrEqual(0);
     expect(Math.abs(Math.min(...margins) - best.worstMarginMm)).toBeLessThanOrEqual(1);
@@ -59,8 +59,8 @@ describe('placement search', () => {
   });
 
   it('finds no spot when a keep-out under the only good spots meets every restricted space, and says so', () => {
-    const keepout: Zone = { id: 'K1', kind: 'keepout', label: 'Drive cabinet', points: [[4900, 2900], [5100, 2900], [5100, 3100], [4900, 3100]] };
-    const r = placementSearch(query({ points: circle(12, 150), zones: [keepout] }));
+    const keepout: Boundary = { id: 'K1', kind: 'keepout', label: 'Drive cabinet', points: [[4900, 2900], [5100, 2900], [5100, 3100], [4900, 3100]] };
+    const r = placementSearch(query({ points: circle(12, 150), boundaries: [keepout] }));
     // Near the centre the restricted space (a 600 mm disc) covers the keep-out, so no spot within
     // 600 mm + the keep-out's half-diagonal of it qualifies; with points 150 mm off centre nothing does.
     expect(r.candidates).toHaveLength(0);
@@ -72,8 +72,8 @@ describe('placement search', () => {
     const reach = armReachFor(FULL600, { j1Min: -60, j1Max: 60 });
     const q = query({ reach, points: circle(6, 100), yawStepDeg: 15 });
     const before = placementSearch(q).candidates[0];
-    const K: Zone = { id: 'K2', kind: 'keepout', label: 'Pallet lane', points: [[before.x - 150, before.y - 150], [before.x + 150, before.y - 150], [before.x + 150, before.y + 150], [before.x - 150, before.y + 150]] };
-    const after = placementSearch({ ...q, zones: [K] });
+    const K: Boundary = { id: 'K2', kind: 'keepout', label: 'Pallet lane', points: [[before.x - 150, before.y - 150], [before.x + 150, before.y - 150], [before.x + 150, before.y + 150], [before.x - 150, before.y + 150]] };
+    const after = placementSearch({ ...q, boundaries: [K] });
     expect(after.candidates.length).toBeGreaterThan(0);
     const inK = (x: number, y: number) => Math.abs(x - before.x) <= 150 && Math.abs(y - before.y) <= 150;
     for (const c of after.candidates) expect(inK(c.x, c.y)).toBe(false);

@@ -5,7 +5,7 @@ import { SINGLE_LINE_MESSAGE, singleLineText } from '@shared/schemas/fields';
 import { ArmModelInput } from '@shared/schemas/armModel';
 import { readDemoCatalogue } from '../../../backend/src/db/demoCatalogue';
 import { LayerPatch } from '@shared/schemas/floorPlan';
-import { ArmPlacement, LayoutCreateInput, LayoutUpdateInput, WorkPoint, Zone } from '@shared/schemas/layout';
+import { ArmPlacement, LayoutCreateInput, LayoutUpdateInput, WorkPoint, Boundary } from '@shared/schemas/layout';
 import { ProjectInput, ProjectUpdateInput } from '@shared/schemas/project';
 import { UserCreateInput, UserUpdateInput } from '@shared/schemas/user';
 
@@ -35,7 +35,7 @@ describe('singleLineText', () => {
     ['layout update name', LayoutUpdateInput, { version: 1 }, 'name'],
     ['arm label', ArmPlacement, { id: 'R1', armModelId: 1, x: 0, y: 0, yaw: 0 }, 'label'],
     ['work point tag', WorkPoint, { id: 'P1', x: 0, y: 0, z: 0 }, 'tag'],
-    ['zone label', Zone, { id: 'Z1', kind: 'keepout', points: [[0, 0], [1000, 0], [0, 1000]] }, 'label'],
+    ['boundary label', Boundary, { id: 'Z1', kind: 'keepout', points: [[0, 0], [1000, 0], [0, 1000]] }, 'label'],
     ['user name', UserCreateInput, { email: 'a@b.test', name: 'N', role: 'planner', password: 'long enough password 1' }, 'name'],
     ['user update name', UserUpdateInput, {}, 'name'],
     ['arm model name', ArmModelInput, { name: 'M', params }, 'name'],

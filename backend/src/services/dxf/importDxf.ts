@@ -245,15 +245,15 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
       }
     }
     warnings.push(
-      `The drawing lies ${(Math.hypot(origin.x, origin.y) / 1e6).toFixed(0)} km from its own origin (map grid coordinates); it was moved by ${(origin.x / 1000).toFixed(0)} m east and ${(origin.y / 1000).toFixed(0)} m north to a local origin, and the layout's DXF export moves it back.`,
+      `The drawing lies ${(Math.hypot(origin.x, origin.y) / 1e6).toFixed(0)} km from its own origin (map grid coordinates); it was moved by ${(origin.x / 1000).toFixed(0)} m east and ${(origin.y / 1000).toFixed(0)} m north to a local origin, and the cell layout's DXF export moves it back.`,
     );
   }
   const unitCheck = checkDrawingUnit(bounds, units.units);
   if (unitCheck.message) warnings.push(unitCheck.message);
 
   outlineWarnings(layers, features, joinTol, warnings);
-  // gaps: reported for the floor boundary (walls end freely at openings)
-  const outlineLayers = new Set(layers.filter((l) => l.role === 'boundary').map((l) => l.name));
+  // gaps: reported for the floor outline (walls end freely at openings)
+  const outlineLayers = new Set(layers.filter((l) => l.role === 'outline').map((l) => l.name));
   for (const name of outlineLayers) {
     const n = join.openByLayer.get(name) ?? 0;
     if (n > 0) warnings.push(`${plural(n, 'line end', 'line ends')} on layer "${name}" ${n === 1 ? 'meets' : 'meet'} nothing within ${joinTol} mm (marked on the preview).`);
@@ -299,25 +299,25 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
   };
 }
 
-/** Warnings about the floor boundary: missing, not closed, crossing itself. */
+/** Warnings about the floor outline: missing, not closed, crossing itself. */
 function outlineWarnings(layers: readonly ImportLayer[], features: readonly PlanFeature[], joinTol: number, warnings: string[]): void {
-  const boundary = layers.filter((l) => l.role === 'boundary');
-  if (boundary.length === 0) {
-    warnings.push('No layer was recognised as the floor boundary; choose one when mapping the layers.');
+  const outlines = layers.filter((l) => l.role === 'outline');
+  if (outlines.length === 0) {
+    warnings.push('No layer was recognised as the floor outline; choose one when mapping the layers.');
     return;
   }
-  for (const l of boundary) {
+  for (const l of outlines) {
     const own = features.filter((f) => f.properties.layer === l.name);
     const rings = own.filter((f) => f.geometry.type === 'Polygon');
     const open = own.filter((f) => f.geometry.type === 'LineString').length;
     if (rings.length === 0) {
       warnings.push(
-        `Layer "${l.name}" looks like the floor boundary but holds no closed outline: its ${plural(open, 'piece does', 'pieces do')} not join up within ${joinTol} mm. Close the outline in the drawing, or choose another layer.`,
+        `Layer "${l.name}" looks like the floor outline but holds no closed outline: its ${plural(open, 'piece does', 'pieces do')} not join up within ${joinTol} mm. Close the outline in the drawing, or choose another layer.`,
       );
       continue;
     }
     if (open > 0) {
-      warnings.push(`${plural(open, 'piece', 'pieces')} on the floor boundary layer "${l.name}" ${open === 1 ? 'does' : 'do'} not close into an outline.`);
+      warnings.push(`${plural(open, 'piece', 'pieces')} on the floor outline layer "${l.name}" ${open === 1 ? 'does' : 'do'} not close into an outline.`);
     }
     let crossing = 0;
     for (const f of rings) if (ringSelfIntersects((f.geometry as Polygon).coordinates[0]) === true) crossing++;

@@ -13,7 +13,7 @@ export interface ArmSummary {
   modelName: string;
   family: string;
   /** Largest plan distance of the maximum space from the J1 axis, mm; null when the model does not parse. */
-  maxReach: number | null;
+  maxSpaceRadius: number | null;
   /** Stopping time from the model's stopping data, s; null when the model has none. */
   stopTimeS: number | null;
   /** Maximum space (all J1 limits of the model), placed in the plan, mm. */
@@ -39,16 +39,16 @@ export function summarizeArms(input: Pick<PlanSheetInput, 'models' | 'analysis'>
   return input.content.arms.map((arm) => {
     const model = models.get(arm.armModelId);
     let maxSpace: Polygon2[] = [];
-    let maxReach: number | null = null;
+    let maxSpaceRadius: number | null = null;
     if (model) {
       try {
         const local = maximumSpacePolygons(parseArmParams(model.params));
-        maxReach = 0;
-        for (const p of local) for (const [x, y] of p[0] ?? []) maxReach = Math.max(maxReach, Math.hypot(x, y));
+        maxSpaceRadius = 0;
+        for (const p of local) for (const [x, y] of p[0] ?? []) maxSpaceRadius = Math.max(maxSpaceRadius, Math.hypot(x, y));
         maxSpace = armPose(arm).placePolygons(local);
       } catch {
         maxSpace = [];
-        maxReach = null;
+        maxSpaceRadius = null;
       }
     }
     const region = input.analysis.regions[arm.id];
@@ -59,7 +59,7 @@ export function summarizeArms(input: Pick<PlanSheetInput, 'models' | 'analysis'>
       title: armTitle(arm),
       modelName: model?.name ?? `unknown model ${arm.armModelId}`,
       family: model?.family ?? '—',
-      maxReach,
+      maxSpaceRadius,
       stopTimeS: typeof stop === 'number' ? stop : null,
       maxSpace,
       restricted: geoJSONToPolygons(region?.restricted ?? null),

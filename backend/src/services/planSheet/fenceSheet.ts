@@ -2,7 +2,7 @@ import { fenceLinesOf, fenceParts, type FenceParts } from '@shared/analysis';
 import { prepareFloor, type FloorLayer } from '@shared/analysis';
 import { wallFacesOf } from '@shared/analysis';
 import { DEFAULT_FENCE_SYSTEM } from '@shared/schemas/fenceProposal';
-import { ZONE_STYLES } from '@shared/style/zoneStyles';
+import { BOUNDARY_STYLES } from '@shared/style/boundaryStyles';
 import { autoScale, planToPaper, type Box, type Extent } from './paper';
 import { addLinePath } from './pdfPaths';
 import { drawFloor, drawScaleBar, label } from './planDrawing';
@@ -10,7 +10,7 @@ import type { SheetPages } from './sheetPages';
 import { drawTable, type Column, type Row } from './table';
 import type { PlanSheetInput } from './types';
 
-const { fence: FENCE, opening: OPENING } = ZONE_STYLES;
+const { fence: FENCE, opening: OPENING } = BOUNDARY_STYLES;
 const INK: [number, number, number] = [28, 34, 48];
 const GREY: [number, number, number] = [110, 116, 126];
 /** Above this many panels only every fifth number is printed on the plan (the table lists them all). */
@@ -19,7 +19,7 @@ const NUMBER_EVERY_LIMIT = 400;
 /** Fence parts of the layout's fences, counted with the default fence system and the floor's walls. */
 export function layoutFenceParts(input: PlanSheetInput): FenceParts {
   const floor = input.floorPlan ? prepareFloor(input.floorPlan.geometry, input.floorPlan.layers as FloorLayer[]) : null;
-  return fenceParts(fenceLinesOf(input.layout.content.zones), DEFAULT_FENCE_SYSTEM, wallFacesOf(floor));
+  return fenceParts(fenceLinesOf(input.layout.content.boundaries), DEFAULT_FENCE_SYSTEM, wallFacesOf(floor));
 }
 
 function fenceExtent(parts: FenceParts, fallback: Extent): Extent {
@@ -40,7 +40,7 @@ export function drawFenceParts(pages: SheetPages, input: PlanSheetInput, planExt
   pages.newPage('Fence parts — plan', 'fences');
   const box = pages.contentBox();
   if (!parts.panels.length && !parts.doors.length) {
-    label(doc, 'This layout has no fences to count.', box.x, box.y + 4, 8, GREY);
+    label(doc, 'This cell layout has no fences to count.', box.x, box.y + 4, 8, GREY);
     return;
   }
   const area: Box = { x: box.x, y: box.y, w: box.w, h: box.h - 14 };
@@ -52,14 +52,14 @@ export function drawFenceParts(pages: SheetPages, input: PlanSheetInput, planExt
   doc.clip();
   doc.discardPath();
   drawFloor(doc, input, toPaper);
-  const zones = input.layout.content.zones;
-  for (const f of zones.filter((z) => z.kind === 'fence')) {
+  const boundaries = input.layout.content.boundaries;
+  for (const f of boundaries.filter((z) => z.kind === 'fence')) {
     doc.setDrawColor(...FENCE.paper.colour);
     doc.setLineWidth(FENCE.paper.width);
     addLinePath(doc, f.points, toPaper);
     doc.stroke();
   }
-  for (const o of zones.filter((z) => z.kind === 'opening')) {
+  for (const o of boundaries.filter((z) => z.kind === 'opening')) {
     const [a, b] = o.points.map(([x, y]) => toPaper(x, y));
     doc.setDrawColor(...OPENING.paper.gap.colour);
     doc.setLineWidth(OPENING.paper.gap.width);

@@ -1,22 +1,23 @@
 import Drawing from 'dxf-writer';
 import { geoJSONToPolygons } from '@shared/geometry';
 import type { Polygon2 } from '@shared/geometry';
-import { ZONE_STYLES, type DxfLook } from '@shared/style/zoneStyles';
+import { BOUNDARY_STYLES, type DxfLook } from '@shared/style/boundaryStyles';
 import { summarizeArms } from './armSummary';
 import { moveDxfEntities } from './dxfOrigin';
 import type { PlanSheetInput } from './types';
+import { BOUNDARY_KIND_WORD } from '@shared/words';
 
 /** Layer names of the exported layout (CAD side). */
 export const DXF_LAYERS = {
-  arms: ZONE_STYLES.armBase.dxf.layer,
-  maxSpace: ZONE_STYLES.maxSpace.dxf.layer,
-  restricted: ZONE_STYLES.restricted.dxf.layer,
-  band: (h: number) => `${ZONE_STYLES.band.dxf.layer}_${Math.round(h)}`,
-  shared: ZONE_STYLES.shared.dxf.layer,
-  points: ZONE_STYLES.pointReached.dxf.layer,
-  fences: ZONE_STYLES.fence.dxf.layer,
+  arms: BOUNDARY_STYLES.armBase.dxf.layer,
+  maxSpace: BOUNDARY_STYLES.maxSpace.dxf.layer,
+  restricted: BOUNDARY_STYLES.restricted.dxf.layer,
+  band: (h: number) => `${BOUNDARY_STYLES.band.dxf.layer}_${Math.round(h)}`,
+  shared: BOUNDARY_STYLES.shared.dxf.layer,
+  points: BOUNDARY_STYLES.pointReached.dxf.layer,
+  fences: BOUNDARY_STYLES.fence.dxf.layer,
   /** Openings, operator areas and keep-outs share one layer. */
-  zones: ZONE_STYLES.keepout.dxf.layer,
+  boundaries: BOUNDARY_STYLES.keepout.dxf.layer,
 } as const;
 
 /** Radius of the arm-base circle, plan mm. */
@@ -44,21 +45,21 @@ function rings(d: Drawing, polygons: ReadonlyArray<Polygon2>): void {
 /**
  * The layout as DXF for CAD, plan mm ($INSUNITS 4): arm bases (circle, label at the base point),
  * maximum and restricted space outlines, reach bands per work height, shared zones, work points
- * (circle, id at the point), fences and the other zones, each on its named layer.
+ * (circle, id at the point), fences and the other boundaries, each on its named layer.
  */
 export function layoutDxf(input: PlanSheetInput): string {
   const d = new Drawing();
   d.setUnits('Millimeters');
   const content = input.layout.content;
   const layer = (name: string, look: DxfLook) => d.addLayer(name, look.aci, look.lineType);
-  layer(DXF_LAYERS.arms, ZONE_STYLES.armBase.dxf);
-  layer(DXF_LAYERS.maxSpace, ZONE_STYLES.maxSpace.dxf);
-  layer(DXF_LAYERS.restricted, ZONE_STYLES.restricted.dxf);
-  for (const h of content.workHeights) layer(DXF_LAYERS.band(h), ZONE_STYLES.band.dxf);
-  layer(DXF_LAYERS.shared, ZONE_STYLES.shared.dxf);
-  layer(DXF_LAYERS.points, ZONE_STYLES.pointReached.dxf);
-  layer(DXF_LAYERS.fences, ZONE_STYLES.fence.dxf);
-  layer(DXF_LAYERS.zones, ZONE_STYLES.keepout.dxf);
+  layer(DXF_LAYERS.arms, BOUNDARY_STYLES.armBase.dxf);
+  layer(DXF_LAYERS.maxSpace, BOUNDARY_STYLES.maxSpace.dxf);
+  layer(DXF_LAYERS.restricted, BOUNDARY_STYLES.restricted.dxf);
+  for (const h of content.workHeights) layer(DXF_LAYERS.band(h), BOUNDARY_STYLES.band.dxf);
+  layer(DXF_LAYERS.shared, BOUNDARY_STYLES.shared.dxf);
+  layer(DXF_LAYERS.points, BOUNDARY_STYLES.pointReached.dxf);
+  layer(DXF_LAYERS.fences, BOUNDARY_STYLES.fence.dxf);
+  layer(DXF_LAYERS.boundaries, BOUNDARY_STYLES.keepout.dxf);
 
   const arms = summarizeArms({ models: input.models, analysis: input.analysis, content });
   d.setActiveLayer(DXF_LAYERS.arms);
@@ -78,18 +79,18 @@ export function layoutDxf(input: PlanSheetInput): string {
     }
   }
   d.setActiveLayer(DXF_LAYERS.shared);
-  for (const s of input.analysis.overlaps) rings(d, geoJSONToPolygons(s.geometry));
+  for (const s of input.analysis.sharedZones) rings(d, geoJSONToPolygons(s.geometry));
   d.setActiveLayer(DXF_LAYERS.points);
   for (const p of content.workPoints) {
     d.drawCircle(round(p.x), round(p.y), DXF_POINT_RADIUS_MM);
     d.drawText(round(p.x), round(p.y), TEXT_MM / 2, 0, dxfText(p.id));
   }
-  for (const z of content.zones) {
-    d.setActiveLayer(ZONE_STYLES[z.kind].dxf.layer);
+  for (const z of content.boundaries) {
+    d.setActiveLayer(BOUNDARY_STYLES[z.kind].dxf.layer);
     const pts = z.points.map(([x, y]) => [round(x), round(y)] as [number, number]);
     d.drawPolyline(pts, z.kind === 'keepout' || z.kind === 'operator');
     const [x, y] = pts[0];
-    d.drawText(x, y, TEXT_MM / 2, 0, dxfText(`${z.id} ${z.kind}${z.height ? ` h ${Math.round(z.height)}` : ''}`));
+    d.drawText(x, y, TEXT_MM / 2, 0, dxfText(`${z.id} ${BOUNDARY_KIND_WORD[z.kind]}${z.height ? `, height ${Math.round(z.height)} mm` : ''}`));
   }
   // back to where the building lies in its own drawing (see the floor plan's local origin)
   const o = input.floorPlan?.origin;

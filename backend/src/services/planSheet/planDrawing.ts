@@ -5,8 +5,8 @@ import { addToBounds, emptyBounds, isEmptyBounds, padBounds } from '@shared/geom
 import { armPose } from '@shared/geometry';
 import { geoJSONToPolygons } from '@shared/geometry';
 import type { Polygon2 } from '@shared/geometry';
-import type { Zone } from '@shared/schemas/layout';
-import { ZONE_STYLES } from '@shared/style/zoneStyles';
+import type { Boundary } from '@shared/schemas/layout';
+import { BOUNDARY_STYLES } from '@shared/style/boundaryStyles';
 import type { ArmSummary } from './armSummary';
 import { sheetText } from './fonts';
 import { drawingArea, planToPaper, type Box, type Extent, type PageFrame } from './paper';
@@ -19,24 +19,24 @@ export const ARM_COLOURS: readonly Rgb[] = [
 ];
 const INK: Rgb = [28, 34, 48];
 const GREY: Rgb = [120, 124, 132];
-const { armBase: ARM_BASE, maxSpace: MAX_SPACE, restricted: RESTRICTED, band: BAND, shared: SHARED, fence: FENCE, opening: OPENING, operator: OPERATOR, keepout: KEEPOUT } = ZONE_STYLES;
-const { pointReached: POINT_REACHED, pointUnreached: POINT_UNREACHED } = ZONE_STYLES;
+const { armBase: ARM_BASE, maxSpace: MAX_SPACE, restricted: RESTRICTED, band: BAND, shared: SHARED, fence: FENCE, opening: OPENING, operator: OPERATOR, keepout: KEEPOUT } = BOUNDARY_STYLES;
+const { pointReached: POINT_REACHED, pointUnreached: POINT_UNREACHED } = BOUNDARY_STYLES;
 /** Radius of an arm's base symbol on paper, mm. */
 export const BASE_SYMBOL_RADIUS_MM = 2;
 /** Work-point labels are left off past this many points (the coverage sheet lists them all). */
 const POINT_LABEL_LIMIT = 1500;
 
-/** The extent a plan sheet fits: the floor plan's bounds, or the layout's arms (with reach), zones and points. */
+/** The extent a plan sheet fits: the floor plan's bounds, or the layout's arms (with reach), boundaries and points. */
 export function planExtent(input: PlanSheetInput, arms: ArmSummary[]): Extent {
   if (input.floorPlan) return input.floorPlan.bounds;
   const box = emptyBounds();
   const add = (x: number, y: number) => addToBounds(box, x, y);
   for (const a of arms) {
-    const r = a.maxReach ?? 0;
+    const r = a.maxSpaceRadius ?? 0;
     add(a.arm.x - r, a.arm.y - r);
     add(a.arm.x + r, a.arm.y + r);
   }
-  for (const z of input.layout.content.zones) for (const [x, y] of z.points) add(x, y);
+  for (const z of input.layout.content.boundaries) for (const [x, y] of z.points) add(x, y);
   for (const p of input.layout.content.workPoints) add(p.x, p.y);
   if (isEmptyBounds(box)) return { minX: -5000, minY: -5000, maxX: 5000, maxY: 5000 };
   return padBounds(box, Math.max(box.maxX - box.minX, box.maxY - box.minY, 1000) * 0.04);
@@ -60,15 +60,15 @@ export function drawFloor(doc: jsPDF, input: PlanSheetInput, toPaper: ToPaper): 
   const fp = input.floorPlan;
   if (!fp) return;
   const roles = new Map(fp.layers.map((l) => [l.name, l.role]));
-  // Draw order: boundary, obstacles, columns, walls (heavier items on top).
-  const order = ['boundary', 'obstacle', 'column', 'wall'] as const;
+  // Draw order: floor outline, obstacles, columns, walls (heavier items on top).
+  const order = ['outline', 'obstacle', 'column', 'wall'] as const;
   for (const role of order) {
     for (const f of fp.geometry.features) {
       const layer = String((f.properties as { layer?: unknown } | null)?.layer ?? '');
       if (roles.get(layer) !== role || !f.geometry) continue;
       const { polygons, lines } = rings(f.geometry);
       const pts = lines.map((l) => l.map((p) => [p[0], p[1]] as [number, number]));
-      if (role === 'boundary') {
+      if (role === 'outline') {
         strokePolygons(doc, polygons, toPaper, INK, 0.5);
         doc.setLineWidth(0.5);
       } else if (role === 'wall') {
@@ -122,22 +122,22 @@ function centroid(points: ReadonlyArray<[number, number]>): [number, number] {
   return [sx / points.length, sy / points.length];
 }
 
-function drawZones(doc: jsPDF, zones: ReadonlyArray<Zone>, toPaper: ToPaper): void {
-  for (const z of zones.filter((z0) => z0.kind === 'operator')) {
+function drawBoundaries(doc: jsPDF, boundaries: ReadonlyArray<Boundary>, toPaper: ToPaper): void {
+  for (const z of boundaries.filter((z0) => z0.kind === 'operator')) {
     const poly: Polygon2[] = [[z.points.map(([x, y]) => [x, y] as [number, number])]];
     fillPolygons(doc, poly, toPaper, OPERATOR.paper.fill.colour, OPERATOR.paper.fill.opacity);
     strokePolygons(doc, poly, toPaper, OPERATOR.paper.colour, OPERATOR.paper.width, [...OPERATOR.paper.dash]);
     const [cx, cy] = toPaper(...centroid(z.points));
     label(doc, `${z.id} operator area${z.label ? ` — ${z.label}` : ''}`, cx, cy, 6, OPERATOR.paper.label, true, 'center');
   }
-  for (const z of zones.filter((z0) => z0.kind === 'keepout')) {
+  for (const z of boundaries.filter((z0) => z0.kind === 'keepout')) {
     const poly: Polygon2[] = [[z.points.map(([x, y]) => [x, y] as [number, number])]];
     for (const angle of KEEPOUT.paper.hatch.angles) hatchPolygons(doc, poly, toPaper, KEEPOUT.paper.colour, KEEPOUT.paper.hatch.spacing, angle, KEEPOUT.paper.hatch.width);
     strokePolygons(doc, poly, toPaper, KEEPOUT.paper.colour, KEEPOUT.paper.width);
     const [cx, cy] = toPaper(...centroid(z.points));
     label(doc, `${z.id} keep-out${z.label ? ` — ${z.label}` : ''}`, cx, cy, 6, KEEPOUT.paper.label, true, 'center');
   }
-  for (const z of zones.filter((z0) => z0.kind === 'fence')) {
+  for (const z of boundaries.filter((z0) => z0.kind === 'fence')) {
     doc.setDrawColor(...FENCE.paper.colour);
     doc.setLineWidth(FENCE.paper.width);
     addLinePath(doc, z.points, toPaper);
@@ -151,7 +151,7 @@ function drawZones(doc: jsPDF, zones: ReadonlyArray<Zone>, toPaper: ToPaper): vo
     const [mx, my] = toPaper(...longestSegmentMid(z.points));
     label(doc, `${z.id}${z.label ? ` ${z.label}` : ''} fence h ${Math.round(z.height ?? 0)}`, mx, my - 1.4, 5.5, FENCE.paper.label, true, 'center');
   }
-  for (const z of zones.filter((z0) => z0.kind === 'opening')) {
+  for (const z of boundaries.filter((z0) => z0.kind === 'opening')) {
     const [a, b] = z.points;
     const [ax, ay] = toPaper(a[0], a[1]);
     const [bx, by] = toPaper(b[0], b[1]);
@@ -332,7 +332,7 @@ function drawLegend(doc: jsPDF, box: Box, arms: ArmSummary[], firstHeight: numbe
   return y - box.y + 2;
 }
 
-/** Draws the plan sheet's content: floor, regions, zones, arms, points, scale bar, reference arrow, legend. */
+/** Draws the plan sheet's content: floor, regions, boundaries, arms, points, scale bar, reference arrow, legend. */
 export function drawPlan(doc: jsPDF, frame: PageFrame, input: PlanSheetInput, arms: ArmSummary[], extent: Extent, n: number, sizeName: string): number {
   const area = drawingArea(frame);
   const toPaper = planToPaper(extent, area, n);
@@ -342,13 +342,13 @@ export function drawPlan(doc: jsPDF, frame: PageFrame, input: PlanSheetInput, ar
   doc.discardPath();
   drawFloor(doc, input, toPaper);
   drawArms(doc, arms, toPaper);
-  for (const s of input.analysis.overlaps) {
+  for (const s of input.analysis.sharedZones) {
     const polys = geoJSONToPolygons(s.geometry);
     if (!polys.length) continue;
     for (const angle of SHARED.paper.hatch.angles) hatchPolygons(doc, polys, toPaper, SHARED.paper.colour, SHARED.paper.hatch.spacing, angle, SHARED.paper.hatch.width);
     strokePolygons(doc, polys, toPaper, SHARED.paper.colour, SHARED.paper.width);
   }
-  drawZones(doc, input.layout.content.zones, toPaper);
+  drawBoundaries(doc, input.layout.content.boundaries, toPaper);
   drawPoints(doc, input, toPaper);
   doc.restoreGraphicsState();
   // Bottom strip: scale bar and ratio; the reference arrow in the drawing area's top-right corner.

@@ -7,8 +7,9 @@ import { drawFenceParts } from './fenceSheet';
 import { drawPlan, planExtent } from './planDrawing';
 import { drawSafeguarding } from './safeguardingSheet';
 import { SheetPages } from './sheetPages';
-import { drawCoverage, drawFindings, drawHistory, drawSchedule, drawZonesSheet } from './tableSheets';
+import { drawCoverage, drawFindings, drawHistory, drawSchedule, drawBoundariesSheet } from './tableSheets';
 import { DEFAULT_SHEET_KINDS, SCALE_SERIES, SHEET_KINDS, SHEET_SIZES, type PlanSheetInput, type PlanSheetOptions, type SheetKind } from './types';
+import { revisionStateLabel } from '@shared/words';
 
 /** Checks the options (throws a short message naming the option). */
 function checkOptions(opts: PlanSheetOptions): SheetKind[] {
@@ -37,7 +38,7 @@ export async function renderPlanSheet(input: PlanSheetInput, opts: PlanSheetOpti
   doc.setFileId(id);
   doc.setDocumentProperties({
     title: `${input.project.name} — ${input.layout.name} — plan sheet`,
-    subject: input.revision ? `Revision ${input.revision.letter} (${input.revision.state})` : 'Working copy',
+    subject: input.revision ? `Revision ${input.revision.letter} (${revisionStateLabel(input.revision.state).toLowerCase()})` : 'Working copy',
     author: input.drawnBy,
     creator: 'Ringfence',
     keywords: 'plan sheet',
@@ -53,7 +54,7 @@ export async function renderPlanSheet(input: PlanSheetInput, opts: PlanSheetOpti
       pages.useSide(drawPlan(doc, pages.frame, input, arms, extent, n, opts.size));
     } else if (kind === 'schedule') drawSchedule(pages, arms);
     else if (kind === 'coverage') drawCoverage(pages, input, arms);
-    else if (kind === 'zones') drawZonesSheet(pages, input);
+    else if (kind === 'boundaries') drawBoundariesSheet(pages, input);
     else if (kind === 'safeguarding') drawSafeguarding(pages, input);
     else if (kind === 'fences') drawFenceParts(pages, input, extent, n);
     else if (kind === 'findings') drawFindings(pages, input);

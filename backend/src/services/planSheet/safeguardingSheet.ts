@@ -66,7 +66,7 @@ export function drawSafeguarding(pages: SheetPages, input: PlanSheetInput): void
   pages.newPage('Safeguarding', 'safeguarding');
   let y = pages.contentBox().y - 6;
   const sg = input.analysis.safeguarding;
-  const zones = new Map(input.layout.content.zones.map((z) => [z.id, z]));
+  const boundaries = new Map(input.layout.content.boundaries.map((z) => [z.id, z]));
   const models = new Map(input.models.map((m) => [m.id, m]));
   const armLabel = (id: string | null) => {
     if (!id) return '—';
@@ -81,7 +81,7 @@ export function drawSafeguarding(pages: SheetPages, input: PlanSheetInput): void
 
   y = heading(pages, y, 'Access openings — separation distance (ISO 13855)');
   if (!sg.openings.length) {
-    y = paragraph(pages, y - 2, 'No access opening on this layout carries a safeguard.');
+    y = paragraph(pages, y - 2, 'No access opening on this cell layout carries a safeguard.');
   } else {
     const cols: Column[] = [
       { title: 'Opening', width: 30 },
@@ -95,7 +95,7 @@ export function drawSafeguarding(pages: SheetPages, input: PlanSheetInput): void
       { title: 'How S was found', width: 106, wrap: true },
     ];
     const rows: Row[] = sg.openings.map((o) => {
-      const z = zones.get(o.id);
+      const z = boundaries.get(o.id);
       return {
         cells: [
           { text: z?.label ? `${o.id} ${z.label}` : o.id, bold: true },
@@ -115,7 +115,7 @@ export function drawSafeguarding(pages: SheetPages, input: PlanSheetInput): void
 
   y = heading(pages, y, 'Fences — reach over and reach through (ISO 13857)');
   if (!sg.fences.length) {
-    y = paragraph(pages, y - 2, 'The layout has no fences.');
+    y = paragraph(pages, y - 2, 'The cell layout has no fences.');
   } else {
     const cols: Column[] = [
       { title: 'Fence', width: 30 },
@@ -130,7 +130,7 @@ export function drawSafeguarding(pages: SheetPages, input: PlanSheetInput): void
       { title: 'Note', width: 100, wrap: true },
     ];
     const rows: Row[] = sg.fences.map((f: SafeguardFenceRow) => {
-      const z = zones.get(f.id);
+      const z = boundaries.get(f.id);
       return {
         cells: [
           { text: z?.label ? `${f.id} ${z.label}` : f.id, bold: true },
@@ -153,7 +153,7 @@ export function drawSafeguarding(pages: SheetPages, input: PlanSheetInput): void
   y = heading(pages, y, 'Stopping data used');
   const used = sg.openings.filter((o) => o.armId && o.device !== 'interlock-locking');
   if (!used.length) {
-    y = paragraph(pages, y - 2, 'No separation distance on this layout needs a stopping time.');
+    y = paragraph(pages, y - 2, 'No separation distance on this cell layout needs a stopping time.');
   } else {
     const cols: Column[] = [
       { title: 'Opening', width: 30 },

@@ -4,6 +4,7 @@ import { pageFrame, type Box, type PageFrame } from './paper';
 import { withOpacity } from './pdfPaths';
 import type { Column } from './table';
 import type { PlanSheetInput, SheetKind, SheetSize } from './types';
+import { revisionStateLabel } from '@shared/words';
 
 /** The cautions every page carries (docs/product.md "Cautions", in the product's wording). */
 export const CAUTIONS: readonly string[] = [
@@ -112,9 +113,9 @@ export class SheetPages {
       [{ label: 'Project', value: input.project.name, bold: true }],
       [{ label: 'Client', value: input.project.clientName || '—' }],
       [{ label: 'Site', value: input.project.siteName || '—' }],
-      [{ label: 'Layout', value: input.layout.name, bold: true }],
+      [{ label: 'Cell layout', value: input.layout.name, bold: true }],
       [
-        { label: 'Revision', value: rev ? `${rev.letter} — ${rev.state}` : 'working copy', bold: true },
+        { label: 'Revision', value: rev ? `${rev.letter} — ${revisionStateLabel(rev.state).toLowerCase()}` : 'working copy', bold: true },
         { label: 'Date', value: o.createdAt.toISOString().slice(0, 10) },
       ],
       [

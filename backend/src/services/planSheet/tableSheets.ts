@@ -4,6 +4,7 @@ import type { ArmSummary } from './armSummary';
 import type { SheetPages } from './sheetPages';
 import { drawTable, type Column, type Row } from './table';
 import type { PlanSheetInput } from './types';
+import { BOUNDARY_KIND_WORD, familyLabel, REACH_FIGURE_LABEL, revisionStateLabel, SEVERITY_LABEL } from '@shared/words';
 
 const MINUS = '\u2212';
 const fmtMm = (v: number) => (v < 0 ? `${MINUS}${Math.round(-v)}` : `${Math.round(v)}`);
@@ -33,7 +34,7 @@ function note(pages: SheetPages, text: string): void {
 /** Arm schedule: one row per arm (position, yaw, mount height, reach, restricting J1 limits, stopping time). */
 export function drawSchedule(pages: SheetPages, arms: ArmSummary[]): void {
   pages.newPage('Arm schedule', 'schedule');
-  if (!arms.length) return note(pages, 'This layout places no arms.');
+  if (!arms.length) return note(pages, 'This cell layout places no arms.');
   const cols: Column[] = [
     { title: 'Arm', width: 40 },
     { title: 'Model', width: 46 },
@@ -41,23 +42,23 @@ export function drawSchedule(pages: SheetPages, arms: ArmSummary[]): void {
     { title: 'x mm', width: 20, align: 'right' },
     { title: 'y mm', width: 20, align: 'right' },
     { title: 'Yaw °', width: 15, align: 'right' },
-    { title: 'Mount h mm', width: 20, align: 'right' },
-    { title: 'Max reach mm', width: 22, align: 'right' },
+    { title: 'Mount height mm', width: 20, align: 'right' },
+    { title: `${REACH_FIGURE_LABEL.maximumSpace} mm`, width: 22, align: 'right' },
     { title: 'Restricting J1 limits', width: 34 },
-    { title: 'Stop time', width: 17, align: 'right' },
+    { title: 'Stop time s', width: 17, align: 'right' },
   ];
   const rows: Row[] = arms.map((a) => ({
     cells: [
       { text: a.title, bold: true },
       a.modelName,
-      a.family,
+      familyLabel(a.family),
       fmtMm(a.arm.x),
       fmtMm(a.arm.y),
       `${+a.arm.yaw.toFixed(1)}`,
       fmtMm(a.arm.mountHeight),
-      a.maxReach === null ? '—' : fmtMm(a.maxReach),
+      a.maxSpaceRadius === null ? '—' : fmtMm(a.maxSpaceRadius),
       a.arm.restrict ? `${+a.arm.restrict.j1Min.toFixed(1)}° to ${+a.arm.restrict.j1Max.toFixed(1)}°` : 'none (model limits)',
-      a.stopTimeS === null ? '—' : `${a.stopTimeS} s`,
+      a.stopTimeS === null ? 'not given' : `${a.stopTimeS}`,
     ],
   }));
   drawTable(pages.doc, pages.contentBox(), pages.fit(cols), rows, () => pages.continuePage());
@@ -72,13 +73,13 @@ export function drawCoverage(pages: SheetPages, input: PlanSheetInput, arms: Arm
   const points = input.layout.content.workPoints;
   if (!points.length || !arms.length) {
     pages.newPage('Coverage matrix', 'coverage');
-    return note(pages, points.length ? 'This layout places no arms.' : 'This layout has no work points.');
+    return note(pages, points.length ? 'This cell layout places no arms.' : 'This cell layout has no work points.');
   }
   const lead: Column[] = [
     { title: 'Point', width: 20 },
     { title: 'Tag', width: 26 },
-    { title: 'z mm', width: 14, align: 'right' },
-    { title: 'Assigned', width: 16 },
+    { title: 'z above floor mm', width: 14, align: 'right' },
+    { title: 'Assigned arm', width: 16 },
   ];
   const tail: Column = { title: 'Reached by', width: 22 };
   const armW = 15;
@@ -113,14 +114,14 @@ export function drawCoverage(pages: SheetPages, input: PlanSheetInput, arms: Arm
   });
 }
 
-/** Shared zones (arm pairs, area m², points inside) and the layout's zones (fences, openings, areas). */
-export function drawZonesSheet(pages: SheetPages, input: PlanSheetInput): void {
-  pages.newPage('Shared zones and zones', 'zones');
+/** Shared zones (arm pairs, area m², points inside) and the layout's boundaries (fences, openings, areas). */
+export function drawBoundariesSheet(pages: SheetPages, input: PlanSheetInput): void {
+  pages.newPage('Shared zones and boundaries', 'boundaries');
   const doc = pages.doc;
-  const overlaps = input.analysis.overlaps;
+  const sharedZones = input.analysis.sharedZones;
   let y: number;
-  if (!overlaps.length) {
-    note(pages, 'No two arms share space on this layout.');
+  if (!sharedZones.length) {
+    note(pages, 'No shared zones: no two arms\' restricted spaces overlap on this cell layout.');
     y = pages.contentBox().y + 8;
   } else {
     const cols: Column[] = [
@@ -129,7 +130,7 @@ export function drawZonesSheet(pages: SheetPages, input: PlanSheetInput): void {
       { title: 'At work heights (m²)', width: 70, wrap: true },
       { title: 'Work points inside', width: 110, wrap: true },
     ];
-    const rows: Row[] = overlaps.map((s) => ({
+    const rows: Row[] = sharedZones.map((s) => ({
       cells: [
         { text: `${s.arms[0]} + ${s.arms[1]}`, bold: true },
         s.areaM2.toFixed(2),
@@ -139,7 +140,7 @@ export function drawZonesSheet(pages: SheetPages, input: PlanSheetInput): void {
     }));
     y = drawTable(doc, pages.contentBox(), pages.fit(cols), rows, () => pages.continuePage());
   }
-  const zones = input.layout.content.zones;
+  const boundaries = input.layout.content.boundaries;
   const box = pages.contentBox();
   if (y + 20 > box.y + box.h) {
     pages.continuePage();
@@ -148,24 +149,23 @@ export function drawZonesSheet(pages: SheetPages, input: PlanSheetInput): void {
   doc.setFont('Lato', 'bold');
   doc.setFontSize(9);
   doc.setTextColor(28, 34, 48);
-  doc.text('Zones of the layout', box.x, y + 8);
-  if (!zones.length) {
+  doc.text('Boundaries of the cell layout', box.x, y + 8);
+  if (!boundaries.length) {
     doc.setFont('Lato', 'normal');
     doc.setFontSize(8);
-    doc.text('The layout has no fences, openings, keep-outs or operator areas.', box.x, y + 14);
+    doc.text('The cell layout has no boundaries: no guard fences, access openings, keep-outs or operator areas.', box.x, y + 14);
     return;
   }
-  const kindName = { fence: 'guard fence', opening: 'access opening', keepout: 'keep-out', operator: 'operator area' } as const;
   const cols: Column[] = [
-    { title: 'Zone', width: 24 },
+    { title: 'Boundary', width: 24 },
     { title: 'Kind', width: 30 },
     { title: 'Label', width: 50 },
     { title: 'Height mm', width: 20, align: 'right' },
     { title: 'Points', width: 14, align: 'right' },
     { title: 'In fence', width: 20 },
   ];
-  const rows: Row[] = zones.map((z) => ({
-    cells: [{ text: z.id, bold: true }, kindName[z.kind], z.label || '—', z.height === undefined ? '—' : fmtMm(z.height), String(z.points.length), z.fenceId ?? '—'],
+  const rows: Row[] = boundaries.map((z) => ({
+    cells: [{ text: z.id, bold: true }, BOUNDARY_KIND_WORD[z.kind], z.label || '—', z.height === undefined ? '—' : fmtMm(z.height), String(z.points.length), z.fenceId ?? '—'],
   }));
   drawTable(doc, { x: box.x, y: y + 11, w: box.w, h: box.y + box.h - (y + 11) }, cols, rows, () => pages.continuePage());
 }
@@ -184,7 +184,7 @@ export function drawFindings(pages: SheetPages, input: PlanSheetInput): void {
   ];
   const rows: Row[] = findings.map((f) => ({
     cells: [
-      { text: f.severity, bold: true, ...SEVERITY_STYLE[f.severity] },
+      { text: SEVERITY_LABEL[f.severity], bold: true, ...SEVERITY_STYLE[f.severity] },
       f.id,
       f.message,
       f.arms.join(', ') || '—',
@@ -205,7 +205,7 @@ export function drawHistory(pages: SheetPages, input: PlanSheetInput): void {
     { title: 'By', width: 44 },
     { title: 'Note', width: 150, wrap: true },
   ];
-  const rows: Row[] = input.history.map((h) => ({ cells: [{ text: h.letter, bold: true }, h.state, dateText(h.at), h.by ?? '—', h.note ?? ''] }));
+  const rows: Row[] = input.history.map((h) => ({ cells: [{ text: h.letter, bold: true }, revisionStateLabel(h.state), dateText(h.at), h.by ?? '—', h.note ?? ''] }));
   drawTable(pages.doc, pages.contentBox(), pages.fit(cols), rows, () => pages.continuePage());
 }
 

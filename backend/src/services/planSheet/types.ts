@@ -5,9 +5,9 @@
  * PlanSheetInput — everything one sheet set shows, already loaded; the renderer does no I/O:
  *   project     name, client and site printed in the title block.
  *   layout      id, name and content (shared/schemas/layout.ts LayoutContent: arms, work points,
- *               zones, work heights; plan mm, degrees).
+ *               boundaries, work heights; plan mm, degrees).
  *   floorPlan   the floor plan's GeoJSON geometry (plan mm), its layers with roles
- *               (boundary/wall/column/obstacle/ignore; ignored layers are not drawn) and bounds (mm);
+ *               (outline/wall/column/obstacle/ignore; ignored layers are not drawn) and bounds (mm);
  *               null when the layout has no floor plan (the sheet then fits the layout's extent).
  *   analysis    the shared analysis result (shared/analysis/types.ts AnalysisResult) for `layout.content`.
  *   models      the arm models the arms use (id, name, family, params as stored; lengths mm, degrees).
@@ -20,7 +20,7 @@
  *   size        paper size, always landscape: A3 (default in the route), A4 or A1.
  *   scale       N of the ratio 1:N from the standard series; omitted = the largest of the series that
  *               fits the floor plan (or the layout's extent) in the drawing area.
- *   sheets      which sheets, in print order plan → schedule → coverage → zones → safeguarding → fences →
+ *   sheets      which sheets, in print order plan → schedule → coverage → boundaries → safeguarding → fences →
  *               findings → history; omitted = all but `fences` (the fence parts: plan with numbered panels
  *               and the bill of materials), which is printed when named.
  *   draft       true = a diagonal "DRAFT — not for construction" mark on every page.
@@ -36,14 +36,14 @@ export const SHEET_SIZES: readonly SheetSize[] = ['A3', 'A4', 'A1'];
 /** Standard drawing scales 1:N. */
 export const SCALE_SERIES = [20, 25, 50, 100, 200, 250, 500] as const;
 export type SheetScale = (typeof SCALE_SERIES)[number];
-export const SHEET_KINDS = ['plan', 'schedule', 'coverage', 'zones', 'safeguarding', 'fences', 'findings', 'history'] as const;
+export const SHEET_KINDS = ['plan', 'schedule', 'coverage', 'boundaries', 'safeguarding', 'fences', 'findings', 'history'] as const;
 export type SheetKind = (typeof SHEET_KINDS)[number];
 /** The sheets printed when none are named: all but the fence-parts sheet, which is asked for by name. */
 export const DEFAULT_SHEET_KINDS: readonly SheetKind[] = SHEET_KINDS.filter((k) => k !== 'fences');
 
 export interface PlanSheetFloorLayer {
   name: string;
-  role: 'boundary' | 'wall' | 'column' | 'obstacle' | 'ignore';
+  role: 'outline' | 'wall' | 'column' | 'obstacle' | 'ignore';
   height: number | null;
   color?: string;
 }

@@ -7,5 +7,5 @@ export type { RevisionDiff, RevisionSnapshot } from '@shared/schemas/revision';
 export { diffSnapshots } from './diff';
 export { presentComment, presentRevisionDetail, presentRevisions, REVISION_LIST_ATTRIBUTES } from './present';
 export { loadRevisionSheetInput } from './sheetInput';
-export { buildSnapshot, fullSnapshot, loadSnapshotFloorPlan, snapshotChecksum, splitSnapshot } from './snapshot';
+export { buildSnapshot, fullSnapshot, loadSnapshotFloorPlan, readSnapshot, snapshotChecksum, splitSnapshot } from './snapshot';
 export { decideRevision, loadVisibleRevision, revisionLetter, submitRevision } from './workflow';

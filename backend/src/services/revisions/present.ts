@@ -5,7 +5,7 @@ import type { RevisionSnapshot, StoredRevisionSnapshot } from '@shared/schemas/r
 import type { SessionUser } from '../../auth/passport';
 import { Acknowledgement, MailDelivery, ReviewComment, Revision, User } from '../../models';
 import { diffSnapshots } from './diff';
-import { fullSnapshot } from './snapshot';
+import { readSnapshot } from './snapshot';
 
 /**
  * What a revision list selects: the columns it shows and three figures read out of the snapshot
@@ -108,7 +108,7 @@ export function presentComment(c: ReviewComment, names: Map<number, string>, let
 export async function presentRevisionDetail(user: SessionUser, rev: Revision) {
   const [summary] = await presentRevisions(user, [rev]);
   if (!can(user.role, 'revision.readDrafts')) return summary;
-  const snap = await fullSnapshot(rev);
+  const snap = await readSnapshot(rev);
   const earlier = await Revision.findAll({
     where: { layoutId: rev.layoutId, id: { [Op.lt]: rev.id } },
     attributes: ['id', 'letter'],

@@ -8,7 +8,7 @@ import { createHash } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import { canonicalJson } from '@shared/canonicalJson';
 import type { LayoutContent } from '@shared/schemas/layout';
-import type { RevisionSnapshot, SnapshotFloorPlan as FloorPlanPart, StoredRevisionSnapshot } from '@shared/schemas/revision';
+import { upgradeFloorPlanNames, upgradeSnapshotNames, type RevisionSnapshot, type SnapshotFloorPlan as FloorPlanPart, type StoredRevisionSnapshot } from '@shared/schemas/revision';
 import { notFound } from '../../http/errors';
 import { ArmModel, FloorPlan, Project, SnapshotFloorPlan, type Layout, type Revision } from '../../models';
 import { analyzeLayout } from '../layoutAnalysis';
@@ -50,16 +50,26 @@ export async function storeSnapshotFloorPlan(floorPlan: FloorPlanPart, checksum:
 }
 
 /** The floor plan a revision froze: the shared stored row, or the copy inside snapshots stored before plans were kept apart. */
-export async function loadSnapshotFloorPlan(rev: Pick<Revision, 'floorPlanChecksum' | 'snapshot'>): Promise<FloorPlanPart | null> {
+async function storedFloorPlan(rev: Pick<Revision, 'floorPlanChecksum' | 'storedSnapshot'>): Promise<FloorPlanPart | null> {
   if (rev.floorPlanChecksum) {
     const row = await SnapshotFloorPlan.findByPk(rev.floorPlanChecksum);
     if (!row) throw new Error(`stored floor plan ${rev.floorPlanChecksum} is missing`);
     return row.content;
   }
-  return rev.snapshot.floorPlan ?? null;
+  return rev.storedSnapshot().floorPlan ?? null;
 }
 
-/** The whole snapshot of a revision, floor plan included: what its checksum is computed over. */
-export async function fullSnapshot(rev: Pick<Revision, 'floorPlanChecksum' | 'snapshot'>): Promise<RevisionSnapshot> {
-  return { ...rev.snapshot, floorPlan: await loadSnapshotFloorPlan(rev) };
+/** The floor plan a revision froze (the shared stored row, or the copy inside older snapshots), read under today's names. */
+export async function loadSnapshotFloorPlan(rev: Pick<Revision, 'floorPlanChecksum' | 'storedSnapshot'>): Promise<FloorPlanPart | null> {
+  return upgradeFloorPlanNames(await storedFloorPlan(rev));
+}
+
+/** The whole snapshot of a revision, floor plan included, exactly as stored: what its checksum is computed over. */
+export async function fullSnapshot(rev: Pick<Revision, 'floorPlanChecksum' | 'storedSnapshot'>): Promise<RevisionSnapshot> {
+  return { ...rev.storedSnapshot(), floorPlan: await storedFloorPlan(rev) } as RevisionSnapshot;
+}
+
+/** The whole snapshot of a revision read under today's names (what pages, sheets and diffs use). */
+export async function readSnapshot(rev: Pick<Revision, 'floorPlanChecksum' | 'storedSnapshot'>): Promise<RevisionSnapshot> {
+  return upgradeSnapshotNames(await fullSnapshot(rev));
 }

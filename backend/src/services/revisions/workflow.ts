@@ -42,7 +42,7 @@ export async function submitRevision(sequelize: Sequelize, user: SessionUser, la
     const layout = await Layout.findByPk(layoutId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!layout) throw notFound('Layout');
     const open = await Revision.findOne({ where: { layoutId, state: 'submitted' }, attributes: ['id', 'letter'], transaction });
-    if (open) throw conflict(`Revision ${open.letter} of this layout is still waiting for review; a new one can be submitted once it is decided.`, { openRevisionId: open.id });
+    if (open) throw conflict(`Revision ${open.letter} of this cell layout is still waiting for review; a new one can be submitted once it is decided.`, { openRevisionId: open.id });
     const count = await Revision.count({ where: { layoutId }, transaction });
     const snapshot = await buildSnapshot(layout);
     // The floor plan is stored once per content and shared; the checksum covers the whole snapshot.
@@ -70,24 +70,24 @@ export async function submitRevision(sequelize: Sequelize, user: SessionUser, la
   return rev;
 }
 
-/** Approves or sends back a submitted revision (reviewer; never one they submitted). Mails the submitter. */
+/** Signs off or returns for changes a submitted revision (reviewer; never one they submitted). Mails the submitter. */
 export async function decideRevision(
   sequelize: Sequelize,
   user: SessionUser,
   id: number,
-  input: { decision: 'approve' | 'request_changes'; comment: string },
+  input: { decision: 'sign_off' | 'return'; comment: string },
   mail: MailContext,
   now: Date,
 ): Promise<Revision> {
-  if (input.decision === 'request_changes' && !input.comment.trim()) throw badRequest('Say what needs to change.', { comment: 'A comment is required to request changes' });
+  if (input.decision === 'return' && !input.comment.trim()) throw badRequest('Say what needs to change.', { comment: 'A comment is required to return it for changes' });
   const rev = await sequelize.transaction(async (transaction) => {
     const r = await Revision.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE, attributes: { exclude: ['planSheet'] } });
     if (!r) throw notFound('Revision');
     if (r.submittedBy === user.id) throw forbidden('You submitted this revision; another reviewer must decide it.');
     if (r.state !== 'submitted') throw conflict(`Revision ${r.letter} was already decided (${r.state.replace('_', ' ')}).`);
-    const state: RevisionState = input.decision === 'approve' ? 'approved' : 'changes_requested';
+    const state: RevisionState = input.decision === 'sign_off' ? 'signed_off' : 'returned';
     await r.update({ state, decidedBy: user.id, decidedAt: now, decisionComment: input.comment.trim() || null }, { transaction });
-    await audit(user.id, `revision.${input.decision === 'approve' ? 'approve' : 'request_changes'}`, 'revision', r.id, { letter: r.letter, comment: input.comment.trim() }, transaction);
+    await audit(user.id, `revision.${input.decision === 'sign_off' ? 'sign_off' : 'return'}`, 'revision', r.id, { letter: r.letter, comment: input.comment.trim() }, transaction);
     return r;
   });
   const submitter = rev.submittedBy ? await User.findByPk(rev.submittedBy, { attributes: ['email'] }) : null;

@@ -115,7 +115,7 @@ export function ArmModelEditor({ initial, readOnly, submitLabel, onSubmit, onCha
           {family === 'linkage' && <LinkageFields control={control} register={register} setValue={setValue} getValues={getValues} errors={errors} readOnly={readOnly} />}
           {family === 'chain' && <ChainFields control={control} register={register} errors={errors} readOnly={readOnly} />}
           <LinkSizeFields family={family} register={register} errors={errors} />
-          <StoppingFields register={register} errors={errors} />
+          <StoppingFields family={family} register={register} errors={errors} />
         </fieldset>
         {!readOnly && onSubmit && (
           <div className="flex items-center justify-end gap-2 border-t border-rule pt-4">

@@ -107,7 +107,7 @@ export function ChainFields({ control, register, errors, readOnly }: Props) {
       <FieldGroup title="Tool point" lead="Where the tool point sits in the last joint's frame, mm.">
         <div className="grid grid-cols-3 gap-3">
           {(['x', 'y', 'z'] as const).map((k) => (
-            <NumberField key={k} register={register} errors={errors} path={`params.tool.${k}` as never} label={`Tool ${k}`} unit="mm" />
+            <NumberField key={k} register={register} errors={errors} path={`params.tool.${k}` as never} label={`Offset ${k}`} unit="mm" />
           ))}
         </div>
       </FieldGroup>

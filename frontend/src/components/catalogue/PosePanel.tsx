@@ -71,10 +71,10 @@ export function PosePanel({ pose }: { pose: PoseState }) {
         Controller values; limits {axes.map((a) => `${a.label} ${a.min}…${a.max}${a.kind === 'revolute' ? '°' : ' mm'}`).join(', ')}.
       </p>
       {result?.ok ? (
-        <dl data-testid="tool-point" className="grid grid-cols-3 gap-2 rounded-control border border-rule bg-paper-sunk px-3 py-2 text-sm tabular-nums">
+        <dl data-testid="tool-point" aria-label="Tool point in the arm frame" className="grid grid-cols-3 gap-2 rounded-control border border-rule bg-paper-sunk px-3 py-2 text-sm tabular-nums">
           {(['x', 'y', 'z'] as const).map((k) => (
             <div key={k}>
-              <dt className="text-xs text-ink-muted uppercase">Tool {k}</dt>
+              <dt className="text-xs text-ink-muted">Tool point {k}, arm frame</dt>
               <dd className="font-bold">{fmt(result.tool[k])} mm</dd>
             </div>
           ))}

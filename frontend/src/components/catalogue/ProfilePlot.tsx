@@ -57,7 +57,7 @@ export function ProfilePlot({ profile, pose = null, stale = false, height = 420,
         {profile ? (
           <>
             <span>
-              Max reach <strong data-testid="max-reach" className="tabular-nums">{formatMm(profile.maxReach)}</strong>
+              Tool-point reach <strong data-testid="max-reach" className="tabular-nums">{formatMm(profile.maxReach)}</strong>
             </span>
             <span>
               Min reach <strong className="tabular-nums">{formatMm(profile.minReach)}</strong>

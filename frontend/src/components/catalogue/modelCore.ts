@@ -7,6 +7,7 @@ import { familyOf, FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel,
 import type { AxisInfo, ForwardResult, ReachProfile } from '@shared/kinematics';
 import type { ArmParams } from '@shared/schemas/armModel';
 import { envelopeProfileOf, type EnvelopeProfile } from '@shared/kinematics';
+import { FAMILY_LABEL } from '@shared/words';
 
 export const ArmModelParams = feasibleArmParamsSchema;
 export type ArmModelParams = ArmParams;
@@ -14,12 +15,7 @@ export const ArmModelInput = FeasibleArmModelInput;
 export type ArmModelInput = z.infer<typeof FeasibleArmModelInput>;
 
 /** The kinematic families the editor offers, with their labels, in the order shown. */
-export const FAMILY_LABELS: Record<string, string> = {
-  scara: 'SCARA',
-  articulated: 'Articulated',
-  linkage: 'Linkage-driven',
-  chain: 'DH chain',
-};
+export const FAMILY_LABELS: Readonly<Record<string, string>> = FAMILY_LABEL;
 
 /** Forward kinematics from controller values (deg / mm), arm frame, mm. */
 export function forwardOf(params: ArmModelParams, joints: readonly number[]): ForwardResult {

@@ -238,7 +238,7 @@ export function createProfileDrawing(svg: SVGSVGElement): ProfileDrawing {
       const marks: Array<{ r: number; label: string; cls: string }> = [];
       // The largest |r| is reached in front or behind; mark it where it is.
       const front = rMaxSeen >= -rMinSeen;
-      marks.push({ r: front ? profile.maxReach : -profile.maxReach, label: `max reach ${formatMm(profile.maxReach)}`, cls: 'max' });
+      marks.push({ r: front ? profile.maxReach : -profile.maxReach, label: `tool-point reach ${formatMm(profile.maxReach)}`, cls: 'max' });
       if (profile.minReach > 0) marks.push({ r: rMaxSeen > 0 ? profile.minReach : -profile.minReach, label: `min reach ${formatMm(profile.minReach)}`, cls: 'min' });
       for (const m of marks) {
         const g = gMarks.append('g').attr('class', `reach-mark ${m.cls}`);

@@ -12,7 +12,7 @@ function formatBytes(n: number): string {
 }
 
 /**
- * Drop zone and file picker for a DXF drawing: a percentage bar while the file is sent, then
+ * Drop boundary and file picker for a DXF drawing: a percentage bar while the file is sent, then
  * "Reading the drawing…" while the server reads it; the server's own message when it refuses.
  */
 export function FloorPlanUpload({ projectId, onUploaded }: { projectId: number; onUploaded: (plan: FloorPlanSummaryDto) => void }) {

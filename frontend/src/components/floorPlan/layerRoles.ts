@@ -4,7 +4,7 @@ import type { LayerStyle, LayerStyles } from '../../plan/planCanvas';
 
 /** What each layer role is called on screen, and a line saying what it means for the plan. */
 export const ROLE_LABEL: Record<LayerRole, { label: string; hint: string }> = {
-  boundary: { label: 'Floor outline', hint: 'The edge of the usable floor; arms must stand inside it.' },
+  outline: { label: 'Floor outline', hint: 'The edge of the usable floor; arms must stand inside it.' },
   wall: { label: 'Wall', hint: 'Building walls; reach into them is reported.' },
   column: { label: 'Column', hint: 'Building columns; reach into them is reported.' },
   obstacle: { label: 'Obstacle', hint: 'Machines, conveyors, racks: solid up to their height.' },
@@ -18,7 +18,7 @@ export const ROLES_WITH_HEIGHT: ReadonlySet<LayerRole> = new Set<LayerRole>(['wa
 
 /** How a layer of each role is drawn in the preview (colours are theme tokens in styles.css). */
 export const ROLE_STYLE: Record<LayerRole, LayerStyle> = {
-  boundary: { stroke: 'var(--color-plan-boundary)', strokeWidth: 2 },
+  outline: { stroke: 'var(--color-plan-outline)', strokeWidth: 2 },
   wall: { stroke: 'var(--color-plan-wall)', strokeWidth: 1.5 },
   column: { stroke: 'var(--color-plan-column)', strokeWidth: 1.25, fill: 'var(--color-plan-column-fill)' },
   obstacle: { stroke: 'var(--color-plan-obstacle)', strokeWidth: 1, fill: 'var(--color-plan-obstacle-fill)', fillOpacity: 0.8 },

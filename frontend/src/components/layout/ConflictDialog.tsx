@@ -27,9 +27,9 @@ export function ConflictDialog({ open, onReloadTheirs, onKeepMineAsCopy, onClose
     }
   }
   return (
-    <Dialog open={open} title="This layout was changed elsewhere" onClose={onClose} description="Someone saved a newer version while you were editing, so your latest edits were not saved over it.">
+    <Dialog open={open} title="This cell layout was changed elsewhere" onClose={onClose} description="Someone saved a newer version while you were editing, so your latest edits were not saved over it.">
       <p className="text-sm">
-        <strong>Reload theirs</strong> shows the saved version and drops your unsaved edits. <strong>Keep mine as a copy</strong> saves your version as a new layout of this project and opens it.
+        <strong>Reload theirs</strong> shows the saved version and drops your unsaved edits. <strong>Keep mine as a copy</strong> saves your version as a new cell layout of this project and opens it.
       </p>
       {error ? <ErrorNotice error={error} className="mt-4" /> : null}
       <DialogActions>

@@ -149,8 +149,8 @@ export function CoverageMatrix({ content, analysis, onSelect, selected }: Layout
     const id = matrix.ids[row];
     if (col === null) {
       const best = matrix.best[row];
-      if (best === -Infinity) return `${id}: every arm is more than ${FAR_MM} mm short — reached by no arm`;
-      return Number.isNaN(best) ? `${id}: not analysed` : `${id}: best ${fmt(best)} mm${!isReached(best) ? ' — reached by no arm' : ''}`;
+      if (best === -Infinity) return `${id}: every arm is more than ${FAR_MM} mm short — not reached`;
+      return Number.isNaN(best) ? `${id}: not analysed` : `${id}: best ${fmt(best)} mm${!isReached(best) ? ' — not reached' : ''}`;
     }
     const arm = armIds[col];
     const m = matrix.margins[row * armIds.length + col];
@@ -182,7 +182,7 @@ export function CoverageMatrix({ content, analysis, onSelect, selected }: Layout
       </div>
       <p className="text-xs text-ink-muted" aria-live="polite">
         {rows} point{rows === 1 ? '' : 's'} × {armIds.length} arm{armIds.length === 1 ? '' : 's'}
-        {analysis ? (matrix.unreached ? <>; <span className="font-bold text-finding-critical">{matrix.unreached} reached by no arm</span> (marked ✕)</> : '; every analysed point is reached') : '; margins appear when the analysis has run'}
+        {analysis ? (matrix.unreached ? <>; <span className="font-bold text-finding-critical">{matrix.unreached} not reached</span> (marked ✕)</> : '; every analysed point is reached') : '; margins appear when the analysis has run'}
       </p>
       {empty ? (
         <p className="rounded-control border border-rule bg-paper-raised px-3 py-6 text-sm text-ink-muted">{empty}</p>
@@ -217,7 +217,7 @@ export function CoverageMatrix({ content, analysis, onSelect, selected }: Layout
               <canvas
                 ref={canvas}
                 role="img"
-                aria-label={`Coverage of ${rows} work points by ${armIds.length} arms; ${matrix.unreached} reached by no arm. Arrow keys move the selection.`}
+                aria-label={`Coverage of ${rows} work points by ${armIds.length} arms; ${matrix.unreached} not reached. Arrow keys move the selection.`}
                 tabIndex={0}
                 style={{ width, height: canvasHeight, top: HEADER_HEIGHT }}
                 className="sticky block cursor-pointer"
@@ -292,7 +292,7 @@ function MarginLegend({ span, colour }: { span: number; colour: (m: number) => s
       </svg>
       <span className="flex items-center gap-1">
         <span className="inline-block h-2.5 w-3" style={{ background: MARGIN_COLOURS.unknown }} /> not analysed
-        <span className="ml-2 inline-block h-2.5 w-1" style={{ background: MARGIN_COLOURS.short }} /> ✕ reached by no arm
+        <span className="ml-2 inline-block h-2.5 w-1" style={{ background: MARGIN_COLOURS.short }} /> ✕ not reached
       </span>
     </figure>
   );

@@ -6,7 +6,7 @@ import { Button } from '../Button';
 import type { EditorTool } from './layoutScene';
 
 const TOOLS: ReadonlyArray<{ tool: EditorTool; text: string; title: string }> = [
-  { tool: 'select', text: 'Select', title: 'Select and drag arms and zone corners' },
+  { tool: 'select', text: 'Select', title: 'Select and drag arms and boundary corners' },
   { tool: 'point', text: 'Work point', title: 'Click the plan to add a work point at the first work height' },
   { tool: 'fence', text: 'Fence', title: 'Draw a guard fence: click its corners, Enter or double-click to finish' },
   { tool: 'opening', text: 'Opening', title: 'Cut an access opening: two clicks on a fence' },

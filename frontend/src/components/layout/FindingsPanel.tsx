@@ -68,7 +68,7 @@ export function FindingsPanel({ findings, selectedId, onPick, busy, error, timin
       )}
       <ul aria-label="Findings" className="min-h-0 flex-1 overflow-y-auto">
         {findings === null && !error && <li className="px-3 py-3 text-sm text-ink-muted">Working out reach and findings…</li>}
-        {findings?.length === 0 && <li className="px-3 py-3 text-sm text-ink-muted">No findings for this layout.</li>}
+        {findings?.length === 0 && <li className="px-3 py-3 text-sm text-ink-muted">No findings for this cell layout.</li>}
         {findings?.map((f) => (
           <li key={f.id} className="border-b border-rule last:border-b-0">
             <button

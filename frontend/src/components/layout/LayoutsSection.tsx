@@ -28,7 +28,7 @@ export function LayoutsSection({ project }: { project: ProjectDetailDto }) {
   const mayArchive = (l: LayoutSummaryDto) => !projectArchived && can(user.role, l.archivedAt ? 'layout.restore' : 'layout.archive');
   const hasActions = mayWrite || can(user.role, 'layout.archive') || can(user.role, 'layout.restore');
 
-  if (layouts.isPending) return <LoadingNotice label="Loading layouts…" />;
+  if (layouts.isPending) return <LoadingNotice label="Loading cell layouts…" />;
   if (layouts.isError) return <ErrorNotice error={layouts.error} title="Layouts could not be loaded" />;
   const planName = (id: number | null) => (id === null ? '—' : (plans.data?.find((p) => p.id === id)?.fileName ?? `plan ${id}`));
 
@@ -36,21 +36,21 @@ export function LayoutsSection({ project }: { project: ProjectDetailDto }) {
     <div className="flex flex-col gap-4">
       <label className="flex items-center gap-2 self-end text-sm text-ink-muted">
         <input type="checkbox" checked={showArchived} onChange={(e) => setShowArchived(e.target.checked)} className="size-4 accent-accent" />
-        Show archived layouts
+        Show archived cell layouts
       </label>
       {layouts.data.length === 0 ? (
-        <EmptyState title="No layout yet — a layout places arms, work points and zones on a floor plan.">
+        <EmptyState title="No cell layout yet — a cell layout places arms, work points and boundaries on a floor plan.">
           {!mayWrite && <p>A planner of the project adds it.</p>}
         </EmptyState>
       ) : (
-        <table aria-label="Layouts" className="w-full border-collapse rounded-control border border-rule bg-paper-raised text-sm">
+        <table aria-label="Cell layouts" className="w-full border-collapse rounded-control border border-rule bg-paper-raised text-sm">
           <thead>
             <tr className="border-b border-rule-strong bg-paper-sunk text-left text-xs font-bold tracking-wide text-ink-muted uppercase">
               <th scope="col" className="px-3 py-2">Layout</th>
               <th scope="col" className="px-3 py-2">Floor plan</th>
               <th scope="col" className="px-3 py-2 text-right">Arms</th>
               <th scope="col" className="px-3 py-2 text-right">Work points</th>
-              <th scope="col" className="px-3 py-2 text-right">Zones</th>
+              <th scope="col" className="px-3 py-2 text-right">Boundaries</th>
               <th scope="col" className="px-3 py-2">Updated</th>
               {hasActions && <th scope="col" className="px-3 py-2"><span className="sr-only">Actions</span></th>}
             </tr>
@@ -67,7 +67,7 @@ export function LayoutsSection({ project }: { project: ProjectDetailDto }) {
                 <td className="px-3 py-2 text-ink-muted">{planName(l.floorPlanId)}</td>
                 <td className="px-3 py-2 text-right tabular-nums">{l.counts.arms}</td>
                 <td className="px-3 py-2 text-right tabular-nums">{l.counts.workPoints}</td>
-                <td className="px-3 py-2 text-right tabular-nums">{l.counts.zones}</td>
+                <td className="px-3 py-2 text-right tabular-nums">{l.counts.boundaries}</td>
                 <td className="px-3 py-2 text-ink-muted tabular-nums">{formatDateTime(l.updatedAt)}</td>
                 {hasActions && (
                   <td className="px-3 py-2 text-right whitespace-nowrap">
@@ -91,15 +91,15 @@ export function LayoutsSection({ project }: { project: ProjectDetailDto }) {
       {mayWrite && (
         <div>
           <Button variant="primary" onClick={() => setCreating(true)}>
-            New layout
+            New cell layout
           </Button>
         </div>
       )}
       <NewLayoutDialog open={creating} onClose={() => setCreating(false)} project={project} plans={plans.data ?? []} />
       <ConfirmDialog
         open={deleting !== null}
-        title="Delete this layout?"
-        confirmLabel="Delete layout"
+        title="Delete this cell layout?"
+        confirmLabel="Delete cell layout"
         busy={remove.isPending}
         error={remove.error}
         onClose={() => {
@@ -109,13 +109,13 @@ export function LayoutsSection({ project }: { project: ProjectDetailDto }) {
         onConfirm={() => deleting && remove.mutate(deleting.id, { onSuccess: () => setDeleting(null) })}
       >
         <p>
-          <strong>{deleting?.name}</strong> and its {deleting?.counts.arms ?? 0} arms, {deleting?.counts.workPoints ?? 0} work points and {deleting?.counts.zones ?? 0} zones will be gone. A layout with submitted or released revisions cannot be deleted; archive it instead.
+          <strong>{deleting?.name}</strong> and its {deleting?.counts.arms ?? 0} arms, {deleting?.counts.workPoints ?? 0} work points and {deleting?.counts.boundaries ?? 0} boundaries will be gone. A cell layout with submitted or released revisions cannot be deleted; archive it instead.
         </p>
       </ConfirmDialog>
       <ConfirmDialog
         open={archiving !== null}
-        title={archiving?.archivedAt ? 'Restore this layout?' : 'Archive this layout?'}
-        confirmLabel={archiving?.archivedAt ? 'Restore layout' : 'Archive layout'}
+        title={archiving?.archivedAt ? 'Restore this cell layout?' : 'Archive this cell layout?'}
+        confirmLabel={archiving?.archivedAt ? 'Restore cell layout' : 'Archive cell layout'}
         confirmVariant="primary"
         busy={archive.isPending}
         error={archive.error}
@@ -151,7 +151,7 @@ function NewLayoutDialog({ open, onClose, project, plans }: { open: boolean; onC
   function submit(e: FormEvent) {
     e.preventDefault();
     if (!name.trim()) {
-      setError('Name the layout');
+      setError('Name the cell layout');
       return;
     }
     setError(undefined);
@@ -168,10 +168,10 @@ function NewLayoutDialog({ open, onClose, project, plans }: { open: boolean; onC
   }
 
   return (
-    <Dialog open={open} title="New layout" onClose={onClose} description="A working copy where arms, work points and zones are placed on one floor plan.">
+    <Dialog open={open} title="New cell layout" onClose={onClose} description="A working copy where arms, work points and boundaries are placed on one floor plan.">
       <form onSubmit={submit} className="flex flex-col gap-4" noValidate>
         <TextField label="Name" value={name} onChange={(e) => setName(e.target.value)} error={error} maxLength={160} autoFocus placeholder="e.g. Line 3 — option B" />
-        <SelectField label="Floor plan" value={chosenPlan} onChange={(e) => setPlanId(e.target.value)} hint={plans.length === 0 ? 'The project has no floor plan yet; the layout starts on an empty sheet.' : undefined}>
+        <SelectField label="Floor plan" value={chosenPlan} onChange={(e) => setPlanId(e.target.value)} hint={plans.length === 0 ? 'The project has no floor plan yet; the cell layout starts on an empty sheet.' : undefined}>
           {plans.map((p) => (
             <option key={p.id} value={p.id}>
               {p.fileName}
@@ -183,7 +183,7 @@ function NewLayoutDialog({ open, onClose, project, plans }: { open: boolean; onC
         <DialogActions>
           <Button onClick={onClose}>Cancel</Button>
           <Button type="submit" variant="primary" busy={create.isPending}>
-            Create layout
+            Create cell layout
           </Button>
         </DialogActions>
       </form>

@@ -154,7 +154,7 @@ export function PlacementPanel(p: PlacementPanelProps) {
             </thead>
             <tbody>
               <tr><th className="text-left font-normal">Arms</th><td>{p.content.arms.length}</td><td>{proposal.content.arms.length}</td></tr>
-              <tr><th className="text-left font-normal">Unreached points</th><td>{proposal.scores.current.unreachedPoints}</td><td>{proposal.scores.proposal.unreachedPoints}</td></tr>
+              <tr><th className="text-left font-normal">Work points not reached</th><td>{proposal.scores.current.unreachedPoints}</td><td>{proposal.scores.proposal.unreachedPoints}</td></tr>
               <tr><th className="text-left font-normal">Shared zone (m²)</th><td>{proposal.scores.current.sharedZoneM2}</td><td>{proposal.scores.proposal.sharedZoneM2}</td></tr>
               <tr><th className="text-left font-normal">Guarded area (m²)</th><td>{proposal.scores.current.guardedAreaM2}</td><td>{proposal.scores.proposal.guardedAreaM2}</td></tr>
             </tbody>

@@ -1,6 +1,6 @@
 import { useState } from 'react';
-import { MESH_SHAPE_NAMES, SAFEGUARD_DEVICE_NAMES, type LayoutContent, type Zone } from '@shared/schemas/layout';
-import { setZoneSafeguarding } from '../../editor/layoutEdits';
+import { MESH_SHAPE_NAMES, SAFEGUARD_DEVICE_NAMES, type LayoutContent, type Boundary } from '@shared/schemas/layout';
+import { setBoundarySafeguarding } from '../../editor/layoutEdits';
 import {
   DEVICE_LABEL,
   SAFEGUARD_FIELD_LABEL,
@@ -15,7 +15,7 @@ import {
 import { SelectField, TextField } from '../Field';
 
 interface Props {
-  zone: Zone;
+  boundary: Boundary;
   content: LayoutContent;
   readOnly: boolean;
   onEdit(next: LayoutContent, label: string): void;
@@ -28,13 +28,13 @@ const same = (a: unknown, b: unknown) => JSON.stringify(a ?? null) === JSON.stri
  * what the device's ISO 13855 distance needs. Applied when a field is left or a choice is made, once
  * every field it needs is filled in; the analysis then checks the separation distance.
  */
-export function SafeguardFields({ zone, content, readOnly, onEdit }: Props) {
-  const [values, setValues] = useState<SafeguardFormValues>(() => safeguardFormValues(zone));
+export function SafeguardFields({ boundary, content, readOnly, onEdit }: Props) {
+  const [values, setValues] = useState<SafeguardFormValues>(() => safeguardFormValues(boundary));
   const [errors, setErrors] = useState<Partial<Record<SafeguardField, string>>>({});
-  const [shown, setShown] = useState(zone);
-  if (zone !== shown) {
-    setShown(zone);
-    setValues(safeguardFormValues(zone));
+  const [shown, setShown] = useState(boundary);
+  if (boundary !== shown) {
+    setShown(boundary);
+    setValues(safeguardFormValues(boundary));
     setErrors({});
   }
 
@@ -45,8 +45,8 @@ export function SafeguardFields({ zone, content, readOnly, onEdit }: Props) {
       return;
     }
     setErrors({});
-    if (!same(r.safeguard, zone.safeguard)) {
-      onEdit(setZoneSafeguarding(content, zone.id, { safeguard: r.safeguard }), r.safeguard ? `Set safeguard of ${zone.id}` : `Remove safeguard of ${zone.id}`);
+    if (!same(r.safeguard, boundary.safeguard)) {
+      onEdit(setBoundarySafeguarding(content, boundary.id, { safeguard: r.safeguard }), r.safeguard ? `Set safeguard of ${boundary.id}` : `Remove safeguard of ${boundary.id}`);
     }
   }
   const set = (patch: Partial<SafeguardFormValues>, now = false) => {
@@ -117,11 +117,11 @@ export function SafeguardFields({ zone, content, readOnly, onEdit }: Props) {
           error={errors.approach}
           onChange={(e) => set({ approach: e.target.value as SafeguardFormValues['approach'] }, true)}
         >
-          <option value="normal">Normal (vertical detection zone)</option>
-          <option value="parallel">Parallel (horizontal detection zone)</option>
+          <option value="normal">Normal (vertical detection boundary)</option>
+          <option value="parallel">Parallel (horizontal detection boundary)</option>
         </SelectField>
       )}
-      {numberField('heightMm', 'Height of the horizontal detection zone above the floor, at most 1 000 mm.')}
+      {numberField('heightMm', 'Height of the horizontal detection boundary above the floor, at most 1 000 mm.')}
       {numberField('beams')}
       {values.device && (
         <p className="text-xs text-ink-muted">
@@ -133,15 +133,15 @@ export function SafeguardFields({ zone, content, readOnly, onEdit }: Props) {
 }
 
 /** A fence's mesh: the size e of its openings and their shape, for the ISO 13857 reach-through distance. */
-export function MeshFields({ zone, content, readOnly, onEdit }: Props) {
-  const [size, setSize] = useState(zone.meshMm !== undefined ? String(zone.meshMm) : '');
-  const [shape, setShape] = useState<MeshShapeName | ''>(zone.meshShape ?? '');
+export function MeshFields({ boundary, content, readOnly, onEdit }: Props) {
+  const [size, setSize] = useState(boundary.meshMm !== undefined ? String(boundary.meshMm) : '');
+  const [shape, setShape] = useState<MeshShapeName | ''>(boundary.meshShape ?? '');
   const [errors, setErrors] = useState<Partial<Record<'meshMm' | 'meshShape', string>>>({});
-  const [shown, setShown] = useState(zone);
-  if (zone !== shown) {
-    setShown(zone);
-    setSize(zone.meshMm !== undefined ? String(zone.meshMm) : '');
-    setShape(zone.meshShape ?? '');
+  const [shown, setShown] = useState(boundary);
+  if (boundary !== shown) {
+    setShown(boundary);
+    setSize(boundary.meshMm !== undefined ? String(boundary.meshMm) : '');
+    setShape(boundary.meshShape ?? '');
     setErrors({});
   }
   function apply(nextSize: string, nextShape: MeshShapeName | '', showErrors: boolean) {
@@ -152,8 +152,8 @@ export function MeshFields({ zone, content, readOnly, onEdit }: Props) {
     }
     setErrors({});
     const mesh = r.meshMm === null ? null : { meshMm: r.meshMm, meshShape: r.meshShape! };
-    if (!same(mesh, zone.meshMm === undefined ? null : { meshMm: zone.meshMm, meshShape: zone.meshShape })) {
-      onEdit(setZoneSafeguarding(content, zone.id, { mesh }), mesh ? `Set mesh of ${zone.id}` : `Remove mesh of ${zone.id}`);
+    if (!same(mesh, boundary.meshMm === undefined ? null : { meshMm: boundary.meshMm, meshShape: boundary.meshShape })) {
+      onEdit(setBoundarySafeguarding(content, boundary.id, { mesh }), mesh ? `Set mesh of ${boundary.id}` : `Remove mesh of ${boundary.id}`);
     }
   }
   return (

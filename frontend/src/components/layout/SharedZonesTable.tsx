@@ -8,17 +8,17 @@ const POINTS_SHOWN = 8;
 
 /**
  * The shared zones of the analysis (where two arms' restricted spaces overlap): arms, area m²,
- * area at each work height, and the work points both arms reach. A row selects the zone's finding.
+ * area at each work height, and the work points both arms reach. A row selects the boundary's finding.
  */
 export function SharedZonesTable({ content, analysis, onSelect, selected }: LayoutPanelProps) {
   const labels = useMemo(() => new Map(content.arms.map((a) => [a.id, a.label])), [content.arms]);
-  const rows = useMemo(() => sharedZoneRows(analysis?.overlaps ?? []), [analysis]);
+  const rows = useMemo(() => sharedZoneRows(analysis?.sharedZones ?? []), [analysis]);
   const heights = useMemo(() => [...new Set(rows.flatMap((r) => r.byHeight.map((b) => b.height)))].sort((a, b) => a - b), [rows]);
 
   return (
     <section aria-label="Shared zones" className="flex flex-col gap-3">
       <p className="rounded-control border border-finding-warning bg-finding-warning-wash px-3 py-2 text-xs text-ink">
-        Where two arms can be in the same place, plan interlocks or zone-sharing logic between their controllers.
+        Where two arms can be in the same place, plan interlocks or boundary-sharing logic between their controllers.
         Areas are planning estimates from nominal kinematics and the arms’ restricting limits; they cover the
         links, tool and payload at the link sizes entered, not cables or dress pack. They are no
         substitute for the risk assessment (ISO 12100), the requirements for robot systems (ISO 10218-2) or the
@@ -28,7 +28,7 @@ export function SharedZonesTable({ content, analysis, onSelect, selected }: Layo
       {!analysis ? (
         <p className="text-sm text-ink-muted">Shared zones appear when the analysis has run.</p>
       ) : rows.length === 0 ? (
-        <p className="text-sm text-ink-muted">{content.arms.length < 2 ? 'A shared zone needs at least two arms.' : 'No two arms share restricted space.'}</p>
+        <p className="text-sm text-ink-muted">{content.arms.length < 2 ? 'A shared zone needs at least two arms.' : 'No shared zones: no two arms\' restricted spaces overlap.'}</p>
       ) : (
         <div className="overflow-x-auto rounded-control border border-rule bg-paper-raised">
           <table aria-label="Shared zones" className="w-full border-collapse text-sm">

@@ -33,11 +33,12 @@ export function WorkPointCell({ pointId, field, text, readOnly, options, align =
 
   const label = `${field === 'assignedArm' ? 'assigned arm' : field} of ${pointId}`;
   if (readOnly || !editing) {
+    const shown = options?.find((o) => o.value === text)?.label ?? text;
     return (
       <button
         type="button"
         disabled={readOnly}
-        aria-label={readOnly ? undefined : `Edit ${label}: ${text || 'empty'}`}
+        aria-label={readOnly ? undefined : `Edit ${label}: ${shown || 'empty'}`}
         onClick={(event) => {
           event.stopPropagation();
           setDraft(text);
@@ -51,7 +52,7 @@ export function WorkPointCell({ pointId, field, text, readOnly, options, align =
           text === '' && 'text-ink-faint',
         )}
       >
-        {text === '' ? '—' : text}
+        {shown === '' ? '—' : shown}
       </button>
     );
   }

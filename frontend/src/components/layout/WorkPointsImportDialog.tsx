@@ -22,8 +22,8 @@ export interface WorkPointsImportDialogProps {
 }
 
 const MODES: Array<{ value: ImportMode; title: string; detail: string }> = [
-  { value: 'merge', title: 'Add / update by id', detail: 'New ids are added; points whose id is already on the layout take the values from the file; the others stay.' },
-  { value: 'replace', title: 'Replace all', detail: 'The layout keeps only the points of the file.' },
+  { value: 'merge', title: 'Add / update by id', detail: 'New ids are added; points whose id is already on the cell layout take the values from the file; the others stay.' },
+  { value: 'replace', title: 'Replace all', detail: 'The cell layout keeps only the points of the file.' },
 ];
 
 /** Reads a work-point CSV, shows a preview and a row-by-row error report, and imports only on confirmation. */
@@ -153,7 +153,7 @@ function ImportBody({ existing, armIds, onClose, onImport }: Omit<WorkPointsImpo
               )}
               {tooMany && (
                 <p role="alert" className="text-sm font-bold text-finding-critical">
-                  A layout holds at most {MAX_POINTS.toLocaleString()} work points.
+                  A cell layout holds at most {MAX_POINTS.toLocaleString()} work points.
                 </p>
               )}
             </fieldset>

@@ -9,6 +9,7 @@ import { WorkPointCell } from './WorkPointCell';
 import { WorkPointsImportDialog } from './WorkPointsImportDialog';
 import { editWorkPoint, filterWorkPointRows, newWorkPoint, removeWorkPoints, workPointRows, type EditableField, type WorkPointRow } from './workPointRows';
 import { workPointsToCsv } from './workPointsCsv';
+import { APPROACH_LABEL } from '@shared/words';
 
 const ROW_HEIGHT = 34;
 const VIEW_HEIGHT = 420;
@@ -20,6 +21,8 @@ const HEADER_TITLES: Record<string, string> = {
   best: 'Best margin over the arms, mm: + reached with room to spare, − short of reach',
   reachedBy: 'Arms that reach the point, best first',
 };
+
+const APPROACH_OPTIONS = Object.entries(APPROACH_LABEL).map(([value, label]) => ({ value, label }));
 
 const fmtMm = (v: number) => (Number.isInteger(v) ? String(v) : v.toFixed(1));
 
@@ -79,13 +82,13 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
       { id: 'id', header: 'Id', accessorFn: (r) => r.point.id, cell: cell('id', (p) => p.id), size: 72 },
       { id: 'x', header: 'x mm', accessorFn: (r) => r.point.x, cell: cell('x', (p) => fmtMm(p.x), { align: 'right' }), size: 76 },
       { id: 'y', header: 'y mm', accessorFn: (r) => r.point.y, cell: cell('y', (p) => fmtMm(p.y), { align: 'right' }), size: 76 },
-      { id: 'z', header: 'z mm', accessorFn: (r) => r.point.z, cell: cell('z', (p) => fmtMm(p.z), { align: 'right' }), size: 64 },
+      { id: 'z', header: 'z above floor mm', accessorFn: (r) => r.point.z, cell: cell('z', (p) => fmtMm(p.z), { align: 'right' }), size: 64 },
       {
         id: 'approach', header: 'Approach', accessorFn: (r) => r.point.approach, size: 76,
-        cell: cell('approach', (p) => p.approach, { options: [{ value: 'top', label: 'top' }, { value: 'any', label: 'any' }] }),
+        cell: cell('approach', (p) => p.approach, { options: APPROACH_OPTIONS }),
       },
       { id: 'tag', header: 'Tag', accessorFn: (r) => r.point.tag, cell: cell('tag', (p) => p.tag), size: 100 },
-      { id: 'assignedArm', header: 'Arm', accessorFn: (r) => r.point.assignedArm ?? '', cell: cell('assignedArm', (p) => p.assignedArm ?? '', { options: armOptions }), size: 72 },
+      { id: 'assignedArm', header: 'Assigned arm', accessorFn: (r) => r.point.assignedArm ?? '', cell: cell('assignedArm', (p) => p.assignedArm ?? '', { options: armOptions }), size: 72 },
       {
         id: 'best', header: 'Margin mm', size: 84,
         accessorFn: (r) => r.best ?? undefined, sortUndefined: 'last',
@@ -165,7 +168,7 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
             type="search"
             value={filter}
             onChange={(event) => setFilter(event.target.value)}
-            placeholder="id, tag, arm … or “unreached”"
+            placeholder="id, tag, arm … or “not reached”"
             className="h-9 w-64 rounded-control border border-rule-strong bg-paper-raised px-3 text-sm placeholder:text-ink-faint"
           />
         </label>
@@ -185,7 +188,7 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
       <p className="text-xs text-ink-muted" aria-live="polite">
         {points.length} point{points.length === 1 ? '' : 's'}
         {filter.trim() && `, ${filtered.length} shown`}
-        {analysis ? (unreached ? <>, <span className="font-bold text-finding-critical">{unreached} reached by no arm</span></> : ', all reached') : ' · margins appear when the analysis has run'}
+        {analysis ? (unreached ? <>, <span className="font-bold text-finding-critical">{unreached} not reached</span></> : ', all reached') : ' · margins appear when the analysis has run'}
       </p>
 
       <div
@@ -276,7 +279,7 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
             {tableRows.length === 0 && (
               <tr>
                 <td colSpan={columns.length + 1} className="px-3 py-6 text-ink-muted">
-                  {points.length === 0 ? (readOnly ? 'This layout has no work points.' : 'No work points yet: add one, or import a CSV file.') : 'No point matches the filter.'}
+                  {points.length === 0 ? (readOnly ? 'This cell layout has no work points.' : 'No work points yet: add one, or import a CSV file.') : 'No point matches the filter.'}
                 </td>
               </tr>
             )}

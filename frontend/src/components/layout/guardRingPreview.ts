@@ -16,8 +16,8 @@ export const PREVIEW_LOOK = { colour: 'var(--color-accent)', width: 2.5, dash: '
 const pathOf = (pts: ReadonlyArray<readonly [number, number]>) => pts.map((p, i) => `${i ? 'L' : 'M'}${p[0]},${p[1]}`).join('');
 
 export function drawGuardRingPreview(layer: G, proposal: FenceProposal | null, postWidthMm: number): void {
-  const fences = proposal?.zones.filter((z) => z.kind === 'fence') ?? [];
-  const doors = proposal?.zones.filter((z) => z.kind === 'opening') ?? [];
+  const fences = proposal?.boundaries.filter((z) => z.kind === 'fence') ?? [];
+  const doors = proposal?.boundaries.filter((z) => z.kind === 'opening') ?? [];
   layer
     .selectAll<SVGPathElement, (typeof fences)[number]>('path.ring-line')
     .data(fences, (z) => z.id)

@@ -17,7 +17,7 @@ export const LAYOUT_OVERLAYS = {
   lines: { name: 'layout-lines', space: 'plan', order: 30 },
   points: { name: 'layout-points', space: 'plan', order: 40 },
   finding: { name: 'layout-finding', space: 'plan', order: 45 },
-  zoneMarks: { name: 'layout-zone-marks', space: 'screen', order: 1 },
+  boundaryMarks: { name: 'layout-boundary-marks', space: 'screen', order: 1 },
   arms: { name: 'layout-arms', space: 'screen', order: 5 },
   handles: { name: 'layout-handles', space: 'screen', order: 6 },
   section: { name: 'layout-section', space: 'screen', order: 3 },

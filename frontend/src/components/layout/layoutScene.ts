@@ -1,32 +1,32 @@
 /**
- * The layout editor on the plan canvas: overlays for arms, reach, shared zones, zones and work
+ * The layout editor on the plan canvas: overlays for arms, reach, shared zones, boundaries and work
  * points, with the pointer work handed to the tools (tools/: select, move arm, turn arm, drag
- * vertex, draw zone, add point, section line) through one dispatcher. Imperative, like the canvas: React hands it
+ * vertex, draw boundary, add point, section line) through one dispatcher. Imperative, like the canvas: React hands it
  * state with `update`, it hands edits back through callbacks — a drag's pose lives in its tool and
  * is committed once, on pointer up. Plan mm (x east, y north), yaw degrees CCW from +x.
  */
 import { select, type Selection } from 'd3';
 import { parseFindingId } from '@shared/analysis';
-import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
-import { moveZoneVertex } from '../../editor/layoutEdits';
+import type { ArmPlacement, LayoutContent, Boundary } from '@shared/schemas/layout';
+import { moveBoundaryVertex } from '../../editor/layoutEdits';
 import type { OverlayRender, PlanCanvas, PlanViewState } from '../../plan/planTypes';
 import { LAYOUT_OVERLAYS, type LayoutOverlay } from './layoutOverlays';
 import type { SceneCallbacks, SceneState, XY } from './sceneTypes';
 import {
-  drawAreaZones,
+  drawAreaBoundaries,
   drawFindingGeometry,
-  drawLineZones,
+  drawLineBoundaries,
   drawPatterns,
   drawPointLabels,
   drawReach,
   drawSharedZones,
   drawWorkPoints,
-  drawZoneMarks,
+  drawBoundaryMarks,
   type ArmRegionsDatum,
 } from './sceneDraw';
 import { drawArmMarks, drawDraft, drawSectionLine, drawVertexHandles } from './sceneMarks';
 import type { HeldEdit, ToolHost, ToolPointer } from './tools/tool';
-import { ToolDispatcher, zoneUnder } from './tools/toolDispatcher';
+import { ToolDispatcher, boundaryUnder } from './tools/toolDispatcher';
 
 export type { EditorTool, SceneCallbacks, SceneState, ShapeTool } from './sceneTypes';
 
@@ -70,7 +70,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
   const toPointer = (e: MouseEvent): ToolPointer => {
     const view = canvas.view();
     const p = view.toPlan(e.clientX, e.clientY);
-    return { plan: [p.x, p.y], k: view.transform.k || 1, zoneId: zoneUnder(e.target) };
+    return { plan: [p.x, p.y], k: view.transform.k || 1, boundaryId: boundaryUnder(e.target) };
   };
   const tools = new ToolDispatcher(host, toPointer);
 
@@ -82,7 +82,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
   const shownContent = (): LayoutContent => {
     const c = state!.content;
     const v = tools.dragVertexAt() ?? held?.vertex;
-    if (v && c.zones.some((z) => z.id === v.zoneId && v.index < z.points.length)) return moveZoneVertex(c, v.zoneId, v.index, v.at);
+    if (v && c.boundaries.some((z) => z.id === v.boundaryId && v.index < z.points.length)) return moveBoundaryVertex(c, v.boundaryId, v.index, v.at);
     return c;
   };
 
@@ -107,11 +107,11 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
     });
   }
 
-  const selectedZone = () => (state?.selection?.kind === 'zone' ? state.selection.id : null);
+  const selectedBoundary = () => (state?.selection?.kind === 'boundary' ? state.selection.id : null);
 
-  function bindZoneClicks(l: G): void {
-    l.selectAll<SVGPathElement, Zone>('path[data-zone]').on('click', (event: MouseEvent, z) => {
-      if (state) tools.zoneClick(event, z.id);
+  function bindBoundaryClicks(l: G): void {
+    l.selectAll<SVGPathElement, Boundary>('path[data-boundary]').on('click', (event: MouseEvent, z) => {
+      if (state) tools.boundaryClick(event, z.id);
     });
   }
 
@@ -120,19 +120,19 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
     if (!state) return;
     const s = state;
     const c = shownContent();
-    const zone = selectedZone();
+    const boundary = selectedBoundary();
     show(LAYOUT_OVERLAYS.patterns, (l, v) => drawPatterns(l, v));
     show(LAYOUT_OVERLAYS.areas, (l) => {
-      drawAreaZones(l, c.zones, zone);
-      bindZoneClicks(l);
+      drawAreaBoundaries(l, c.boundaries, boundary);
+      bindBoundaryClicks(l);
     });
     show(LAYOUT_OVERLAYS.reach, (l) => drawReach(l, regionData(s)));
     const finding = s.selection?.kind === 'finding' ? parseFindingId(s.selection.id) : null;
     const pair = finding?.kind === 'shared-zone' ? finding.ids.join('+') : null;
-    show(LAYOUT_OVERLAYS.shared, (l) => drawSharedZones(l, s.view?.analysis.overlaps ?? [], pair));
+    show(LAYOUT_OVERLAYS.shared, (l) => drawSharedZones(l, s.view?.analysis.sharedZones ?? [], pair));
     show(LAYOUT_OVERLAYS.lines, (l) => {
-      drawLineZones(l, c.zones, zone);
-      bindZoneClicks(l);
+      drawLineBoundaries(l, c.boundaries, boundary);
+      bindBoundaryClicks(l);
     });
     renderZoomDependent(canvas.view());
     show(LAYOUT_OVERLAYS.finding, (l) => drawFindingGeometry(l, s.findingGeometry));
@@ -151,15 +151,15 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
     if (!state) return;
     const s = state;
     const c = shownContent();
-    show(LAYOUT_OVERLAYS.zoneMarks, (l) => {
-      drawZoneMarks(l, c.zones, view);
+    show(LAYOUT_OVERLAYS.boundaryMarks, (l) => {
+      drawBoundaryMarks(l, c.boundaries, view);
       drawPointLabels(l, c, view);
     });
     const arms = s.content.arms.map(shownArm);
     const marks = { selectedArm: s.selection?.kind === 'arm' ? s.selection.id : null, highlightArms: s.highlightArms, readOnly: s.readOnly };
     show(LAYOUT_OVERLAYS.arms, (l) => drawArmMarks(l, arms, view, marks, (e, el, a) => tools.pressArm(e, el, a)));
-    const zone = c.zones.find((z) => z.id === selectedZone());
-    const corners = zone && !s.readOnly ? zone.points.map((p, index) => ({ zoneId: zone.id, index, at: p as XY })) : [];
+    const boundary = c.boundaries.find((z) => z.id === selectedBoundary());
+    const corners = boundary && !s.readOnly ? boundary.points.map((p, index) => ({ boundaryId: boundary.id, index, at: p as XY })) : [];
     show(LAYOUT_OVERLAYS.handles, (l) => drawVertexHandles(l, corners, view, (e, el, d) => tools.pressVertex(e, el, d)));
     show(LAYOUT_OVERLAYS.section, (l) => drawSectionLine(l, s.sectionLine ?? null, tools.sectionDraft(), view));
     show(LAYOUT_OVERLAYS.draft, (l) => drawDraft(l, tools.draft(), view));

@@ -1,9 +1,9 @@
 import type { AnalysisResult } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
 
-/** What the editor selects: an arm, a work point, a zone or a finding, by id. */
+/** What the editor selects: an arm, a work point, a boundary or a finding, by id. */
 export interface LayoutSelection {
-  kind: 'arm' | 'point' | 'zone' | 'finding';
+  kind: 'arm' | 'point' | 'boundary' | 'finding';
   id: string;
 }
 
@@ -14,6 +14,6 @@ export interface LayoutPanelProps {
   armModels: Array<{ id: number; name: string }>;
   readOnly: boolean;
   onEdit(next: LayoutContent, label: string): void;
-  onSelect(sel: { kind: 'arm' | 'point' | 'zone' | 'finding'; id: string } | null): void;
+  onSelect(sel: { kind: 'arm' | 'point' | 'boundary' | 'finding'; id: string } | null): void;
   selected: { kind: string; id: string } | null;
 }

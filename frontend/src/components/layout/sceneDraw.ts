@@ -1,13 +1,13 @@
 /**
- * Drawing of the layout editor's overlays on the plan canvas: reach regions, shared zones, zones,
+ * Drawing of the layout editor's overlays on the plan canvas: reach regions, shared zones, boundaries,
  * work points (plan space, mm, y north) and the marks that keep their size on screen (arm bases,
  * labels, handles; screen px). d3 joins only; no state and no event handling here.
  */
 import type { Selection } from 'd3';
 import { isReached } from '@shared/analysis';
 import type { AreaGeometry } from '@shared/geometry';
-import type { ArmPlacement, LayoutContent, Zone } from '@shared/schemas/layout';
-import { ZONE_STYLES, type MarkKind, type ScreenLook } from '@shared/style/zoneStyles';
+import type { ArmPlacement, LayoutContent, Boundary } from '@shared/schemas/layout';
+import { BOUNDARY_STYLES, type MarkKind, type ScreenLook } from '@shared/style/boundaryStyles';
 import { geometryPath } from '../../plan/pathData';
 import type { PlanViewState } from '../../plan/planTypes';
 import type { AnalysisView } from '../../workers/analysisProtocol';
@@ -15,7 +15,7 @@ import type { AnalysisView } from '../../workers/analysisProtocol';
 type G = Selection<SVGGElement, unknown, null, undefined>;
 type XY = [number, number];
 
-/** Colours of the editor's own marks (selection, finding, paper); zone kinds are styled by ZONE_STYLES. */
+/** Colours of the editor's own marks (selection, finding, paper); boundary kinds are styled by BOUNDARY_STYLES. */
 export const SCENE_COLOURS = {
   selected: 'var(--color-accent)',
   finding: 'var(--color-finding-warning)',
@@ -25,7 +25,7 @@ export const SCENE_COLOURS = {
 } as const;
 
 /** How a kind of mark is drawn on screen. */
-export const screenLook = (kind: MarkKind): ScreenLook => ZONE_STYLES[kind].screen;
+export const screenLook = (kind: MarkKind): ScreenLook => BOUNDARY_STYLES[kind].screen;
 
 /** Id of the shared-zone hatch pattern (one per page). */
 export const HATCH_ID = 'rf-shared-hatch';
@@ -37,7 +37,7 @@ export const TICK_PX = 34;
 export function drawPatterns(layer: G, view: PlanViewState): void {
   const k = view.transform.k || 1;
   const defs = layer.selectAll<SVGDefsElement, null>('defs').data([null]).join('defs');
-  const { shared, keepout } = ZONE_STYLES;
+  const { shared, keepout } = BOUNDARY_STYLES;
   const spec = [
     { id: HATCH_ID, px: shared.screen.hatch.spacingPx, colour: shared.screen.colour, width: shared.screen.hatch.width },
     { id: KEEPOUT_HATCH_ID, px: keepout.screen.hatch.spacingPx, colour: keepout.screen.colour, width: keepout.screen.hatch.width },
@@ -60,30 +60,30 @@ export function drawPatterns(layer: G, view: PlanViewState): void {
     .attr('stroke-width', (d) => d.width / k);
 }
 
-function zonePath(z: Zone): string {
+function boundaryPath(z: Boundary): string {
   if (z.points.length === 0) return '';
   const d = z.points.map((p, i) => `${i ? 'L' : 'M'}${p[0]},${p[1]}`).join('');
   return z.kind === 'keepout' || z.kind === 'operator' ? `${d}Z` : d;
 }
 
 /** Keep-out and operator areas (plan space), below the reach. */
-export function drawAreaZones(layer: G, zones: readonly Zone[], selectedZone: string | null): void {
-  const areas = zones.filter((z) => z.kind === 'keepout' || z.kind === 'operator');
+export function drawAreaBoundaries(layer: G, boundaries: readonly Boundary[], selectedBoundary: string | null): void {
+  const areas = boundaries.filter((z) => z.kind === 'keepout' || z.kind === 'operator');
   layer
-    .selectAll<SVGPathElement, Zone>('path.zone-area')
+    .selectAll<SVGPathElement, Boundary>('path.boundary-area')
     .data(areas, (z) => z.id)
     .join('path')
-    .attr('class', 'zone-area')
-    .attr('data-zone', (z) => z.id)
+    .attr('class', 'boundary-area')
+    .attr('data-boundary', (z) => z.id)
     .attr('data-kind', (z) => z.kind)
-    .attr('d', zonePath)
+    .attr('d', boundaryPath)
     .attr('vector-effect', 'non-scaling-stroke')
     .style('fill', (z) => screenLook(z.kind).fill ?? `url(#${KEEPOUT_HATCH_ID})`)
     .style('fill-opacity', (z) => screenLook(z.kind).fillOpacity ?? 1)
-    .style('stroke', (z) => (z.id === selectedZone ? SCENE_COLOURS.selected : screenLook(z.kind).colour))
+    .style('stroke', (z) => (z.id === selectedBoundary ? SCENE_COLOURS.selected : screenLook(z.kind).colour))
     .style('stroke-width', (z) => {
       const look = screenLook(z.kind);
-      return z.id === selectedZone ? (look.widthEmphasis ?? look.width) : look.width;
+      return z.id === selectedBoundary ? (look.widthEmphasis ?? look.width) : look.width;
     })
     .style('stroke-dasharray', (z) => screenLook(z.kind).dash ?? null)
     .style('cursor', 'pointer');
@@ -117,7 +117,7 @@ export function drawReach(layer: G, data: readonly ArmRegionsDatum[]): void {
     })
     .attr('data-arm', (d) => d.arm.id)
     .attr('transform', (d) => d.transform);
-  const { restricted, maxSpace, band } = ZONE_STYLES;
+  const { restricted, maxSpace, band } = BOUNDARY_STYLES;
   groups
     .select('path.reach-restricted')
     .attr('d', (d) => geometryPath(d.restricted))
@@ -141,10 +141,10 @@ export function drawReach(layer: G, data: readonly ArmRegionsDatum[]): void {
 }
 
 /** Shared zones: hatched (the pattern) with an outline, plan space. */
-export function drawSharedZones(layer: G, overlaps: AnalysisView['analysis']['overlaps'], selectedPair: string | null): void {
+export function drawSharedZones(layer: G, sharedZones: AnalysisView['analysis']['sharedZones'], selectedPair: string | null): void {
   layer
-    .selectAll<SVGPathElement, (typeof overlaps)[number]>('path.shared-zone')
-    .data(overlaps, (o) => o.arms.join('+'))
+    .selectAll<SVGPathElement, (typeof sharedZones)[number]>('path.shared-zone')
+    .data(sharedZones, (o) => o.arms.join('+'))
     .join('path')
     .attr('class', 'shared-zone')
     .attr('data-shared', (o) => o.arms.join('+'))
@@ -153,29 +153,29 @@ export function drawSharedZones(layer: G, overlaps: AnalysisView['analysis']['ov
     .attr('vector-effect', 'non-scaling-stroke')
     .attr('pointer-events', 'none')
     .style('fill', `url(#${HATCH_ID})`)
-    .style('stroke', ZONE_STYLES.shared.screen.colour)
-    .style('stroke-width', (o) => (o.arms.join('+') === selectedPair ? ZONE_STYLES.shared.screen.widthEmphasis : ZONE_STYLES.shared.screen.width));
+    .style('stroke', BOUNDARY_STYLES.shared.screen.colour)
+    .style('stroke-width', (o) => (o.arms.join('+') === selectedPair ? BOUNDARY_STYLES.shared.screen.widthEmphasis : BOUNDARY_STYLES.shared.screen.width));
 }
 
 /** Fences (thick lines) and openings (a paper-coloured gap drawn over the fence), plan space. */
-export function drawLineZones(layer: G, zones: readonly Zone[], selectedZone: string | null): void {
-  const lines = zones.filter((z) => z.kind === 'fence' || z.kind === 'opening');
+export function drawLineBoundaries(layer: G, boundaries: readonly Boundary[], selectedBoundary: string | null): void {
+  const lines = boundaries.filter((z) => z.kind === 'fence' || z.kind === 'opening');
   // Openings after fences so the gap covers the fence line.
   lines.sort((a, b) => (a.kind === b.kind ? 0 : a.kind === 'fence' ? -1 : 1));
-  const { fence, opening } = ZONE_STYLES;
+  const { fence, opening } = BOUNDARY_STYLES;
   layer
-    .selectAll<SVGPathElement, Zone>('path.zone-line')
+    .selectAll<SVGPathElement, Boundary>('path.boundary-line')
     .data(lines, (z) => z.id)
     .join('path')
-    .attr('class', 'zone-line')
-    .attr('data-zone', (z) => z.id)
+    .attr('class', 'boundary-line')
+    .attr('data-boundary', (z) => z.id)
     .attr('data-kind', (z) => z.kind)
-    .attr('d', zonePath)
+    .attr('d', boundaryPath)
     .attr('fill', 'none')
     .attr('vector-effect', 'non-scaling-stroke')
     .attr('stroke-linecap', (z) => (z.kind === 'opening' ? 'butt' : 'square'))
     .attr('stroke-linejoin', 'miter')
-    .style('stroke', (z) => (z.kind === 'opening' ? opening.screen.gap.colour : z.id === selectedZone ? SCENE_COLOURS.selected : fence.screen.colour))
+    .style('stroke', (z) => (z.kind === 'opening' ? opening.screen.gap.colour : z.id === selectedBoundary ? SCENE_COLOURS.selected : fence.screen.colour))
     .style('stroke-width', (z) => (z.kind === 'opening' ? opening.screen.gap.width : fence.screen.width))
     .style('cursor', 'pointer');
 }
@@ -197,8 +197,8 @@ export function drawWorkPoints(layer: G, content: LayoutContent, coverage: Recor
   layer
     .selectAll<SVGPathElement, { cls: string; d: string; colour: string; w: number }>('path')
     .data([
-      { cls: 'points-reached', d: ok, colour: ZONE_STYLES.pointReached.screen.colour, w: ZONE_STYLES.pointReached.screen.width },
-      { cls: 'points-unreached', d: bad, colour: ZONE_STYLES.pointUnreached.screen.colour, w: ZONE_STYLES.pointUnreached.screen.width },
+      { cls: 'points-reached', d: ok, colour: BOUNDARY_STYLES.pointReached.screen.colour, w: BOUNDARY_STYLES.pointReached.screen.width },
+      { cls: 'points-unreached', d: bad, colour: BOUNDARY_STYLES.pointUnreached.screen.colour, w: BOUNDARY_STYLES.pointUnreached.screen.width },
       { cls: 'points-selected', d: sel, colour: SCENE_COLOURS.selected, w: 2.5 },
     ])
     .join('path')
@@ -227,8 +227,8 @@ export function drawFindingGeometry(layer: G, geometry: AreaGeometry | null): vo
     .style('stroke-dasharray', '2 3');
 }
 
-/** Where on screen a zone's label goes: the middle of its longest segment (lines) or its vertex centre (areas). */
-export function zoneLabelAt(z: Zone): XY {
+/** Where on screen a boundary's label goes: the middle of its longest segment (lines) or its vertex centre (areas). */
+export function boundaryLabelAt(z: Boundary): XY {
   const pts = z.points as XY[];
   if (z.kind === 'fence' || z.kind === 'opening') {
     let best = 0;
@@ -247,8 +247,8 @@ export function zoneLabelAt(z: Zone): XY {
   return [sx / pts.length, sy / pts.length];
 }
 
-/** Text of a zone's label on the plan. */
-export function zoneLabelText(z: Zone): string {
+/** Text of a boundary's label on the plan. */
+export function boundaryLabelText(z: Boundary): string {
   const name = z.label ? `${z.id} ${z.label}` : z.id;
   switch (z.kind) {
     case 'fence':
@@ -262,14 +262,14 @@ export function zoneLabelText(z: Zone): string {
   }
 }
 
-/** Zone labels and opening end marks (screen space). */
-export function drawZoneMarks(layer: G, zones: readonly Zone[], view: PlanViewState): void {
+/** Boundary labels and opening end marks (screen space). */
+export function drawBoundaryMarks(layer: G, boundaries: readonly Boundary[], view: PlanViewState): void {
   const labels = layer
-    .selectAll<SVGTextElement, Zone>('text.zone-label')
-    .data(zones.filter((z) => z.points.length >= 2), (z) => z.id)
+    .selectAll<SVGTextElement, Boundary>('text.boundary-label')
+    .data(boundaries.filter((z) => z.points.length >= 2), (z) => z.id)
     .join('text')
-    .attr('class', 'zone-label')
-    .attr('data-zone', (z) => z.id)
+    .attr('class', 'boundary-label')
+    .attr('data-boundary', (z) => z.id)
     .attr('pointer-events', 'none')
     .attr('text-anchor', 'middle')
     .attr('paint-order', 'stroke')
@@ -277,15 +277,15 @@ export function drawZoneMarks(layer: G, zones: readonly Zone[], view: PlanViewSt
     .style('stroke-width', 3)
     .style('font', (z) => `${screenLook(z.kind).label?.weight ?? 400} 11px var(--font-sans, sans-serif)`)
     .style('fill', (z) => screenLook(z.kind).label?.colour ?? screenLook(z.kind).colour)
-    .text(zoneLabelText);
+    .text(boundaryLabelText);
   labels.each(function (z) {
-    const [sx, sy] = view.toScreen({ x: zoneLabelAt(z)[0], y: zoneLabelAt(z)[1] });
+    const [sx, sy] = view.toScreen({ x: boundaryLabelAt(z)[0], y: boundaryLabelAt(z)[1] });
     this.setAttribute('x', String(sx));
     this.setAttribute('y', String(z.kind === 'fence' ? sy - 8 : z.kind === 'opening' ? sy + 16 : sy));
   });
   // Openings: a short bar across the fence at each end, so the gap reads as a door.
   const ends: Array<{ key: string; a: XY; b: XY }> = [];
-  for (const z of zones) {
+  for (const z of boundaries) {
     if (z.kind !== 'opening' || z.points.length !== 2) continue;
     const [p, q] = z.points.map(([x, y]) => view.toScreen({ x, y }));
     const len = Math.hypot(q[0] - p[0], q[1] - p[1]) || 1;
@@ -303,8 +303,8 @@ export function drawZoneMarks(layer: G, zones: readonly Zone[], view: PlanViewSt
     .attr('y1', (d) => d.a[1])
     .attr('x2', (d) => d.b[0])
     .attr('y2', (d) => d.b[1])
-    .style('stroke', ZONE_STYLES.opening.screen.colour)
-    .style('stroke-width', ZONE_STYLES.opening.screen.width);
+    .style('stroke', BOUNDARY_STYLES.opening.screen.colour)
+    .style('stroke-width', BOUNDARY_STYLES.opening.screen.width);
 }
 
 /** Work point ids beside their crosses (screen space), only while few enough to read. */

@@ -1,16 +1,16 @@
 /**
  * The layout editor's marks that keep their size on screen and take presses: arm bases with their
- * J1-zero tick and turn handle, the selected zone's corner handles, and the shape being drawn
+ * J1-zero tick and turn handle, the selected boundary's corner handles, and the shape being drawn
  * (screen px). d3 joins only; the press handlers come from the tool dispatcher.
  */
 import { armPose } from '@shared/geometry';
 import type { Selection } from 'd3';
 import type { ArmPlacement } from '@shared/schemas/layout';
-import { ZONE_STYLES } from '@shared/style/zoneStyles';
+import { BOUNDARY_STYLES } from '@shared/style/boundaryStyles';
 import type { PlanViewState } from '../../plan/planTypes';
 import type { XY } from './sceneTypes';
 import { SCENE_COLOURS, TICK_PX } from './sceneDraw';
-import type { Draft } from './tools/drawZoneTool';
+import type { Draft } from './tools/drawBoundaryTool';
 import type { VertexAt } from './tools/tool';
 
 type G = Selection<SVGGElement, unknown, null, undefined>;
@@ -43,7 +43,7 @@ export function drawArmMarks(layer: G, arms: readonly ArmPlacement[], view: Plan
       return `translate(${x},${y})`;
     })
     .style('cursor', o.readOnly ? 'pointer' : 'grab');
-  const base = ZONE_STYLES.armBase.screen;
+  const base = BOUNDARY_STYLES.armBase.screen;
   const colour = (a: ArmPlacement) => (a.id === selectedArm ? SCENE_COLOURS.selected : base.colour);
   // J1 zero direction on screen (screen y grows downward, plan y upward).
   const tip = (a: ArmPlacement): XY => {
@@ -86,11 +86,11 @@ export function drawArmMarks(layer: G, arms: readonly ArmPlacement[], view: Plan
   });
 }
 
-/** Square handles on the corners given (those of the selected zone). */
+/** Square handles on the corners given (those of the selected boundary). */
 export function drawVertexHandles(layer: G, corners: readonly VertexAt[], view: PlanViewState, onPress: (e: PointerEvent, el: Element, corner: VertexAt) => void): void {
   layer
     .selectAll<SVGRectElement, VertexAt>('rect.vertex-handle')
-    .data(corners, (d) => `${d.zoneId}:${d.index}`)
+    .data(corners, (d) => `${d.boundaryId}:${d.index}`)
     .join('rect')
     .attr('class', 'vertex-handle')
     .attr('data-plan-drag', '')

@@ -11,7 +11,7 @@ import type { LayoutSelection } from './panelTypes';
 export type XY = [number, number];
 
 export type EditorTool = 'select' | 'point' | 'fence' | 'keepout' | 'operator' | 'opening' | 'section';
-/** Tools that draw a zone. */
+/** Tools that draw a boundary. */
 export type ShapeTool = Exclude<EditorTool, 'select' | 'point' | 'section'>;
 /** A section line on the plan: start A, end A′, plan mm. */
 export type SectionLineXY = [XY, XY];
@@ -37,7 +37,7 @@ export interface SceneCallbacks {
   onDragPose(pose: DragPose | null): void;
   onArmMoved(id: string, x: number, y: number): void;
   onArmTurned(id: string, yaw: number): void;
-  onVertexMoved(zoneId: string, index: number, to: XY): void;
+  onVertexMoved(boundaryId: string, index: number, to: XY): void;
   onShapeDrawn(kind: ShapeTool, points: XY[]): void;
   /** The point tool clicked the plan at p (mm). */
   onPointPlaced(p: XY): void;

@@ -9,8 +9,8 @@ export interface SharedZoneRow {
 }
 
 /** Shared zones largest first (ties by pair), each pair in id order and its heights ascending. */
-export function sharedZoneRows(overlaps: ReadonlyArray<SharedZone>): SharedZoneRow[] {
-  return overlaps
+export function sharedZoneRows(sharedZones: ReadonlyArray<SharedZone>): SharedZoneRow[] {
+  return sharedZones
     .map((o) => ({
       arms: (o.arms[0] <= o.arms[1] ? [o.arms[0], o.arms[1]] : [o.arms[1], o.arms[0]]) as [string, string],
       areaM2: o.areaM2,

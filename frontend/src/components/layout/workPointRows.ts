@@ -60,7 +60,7 @@ export function editWorkPoint(
   armIds: ReadonlyArray<string>,
 ): EditOutcome {
   const index = points.findIndex((p) => p.id === id);
-  if (index < 0) throw new Error(`id ${id} is not a work point of this layout`);
+  if (index < 0) throw new Error(`id ${id} is not a work point of this cell layout`);
   if (!EDITABLE_FIELDS.includes(field)) throw new Error(`field ${String(field)} cannot be edited`);
   const draft: Record<string, unknown> = { ...points[index] };
   if (field === 'x' || field === 'y' || field === 'z') {
@@ -70,7 +70,7 @@ export function editWorkPoint(
   } else if (field === 'assignedArm') {
     const a = raw.trim();
     if (a === '') delete draft.assignedArm;
-    else if (!armIds.includes(a)) return { ok: false, message: `arm ${a} is not on this layout` };
+    else if (!armIds.includes(a)) return { ok: false, message: `arm ${a} is not on this cell layout` };
     else draft.assignedArm = a;
   } else if (field === 'approach') {
     const a = raw.trim().toLowerCase();
@@ -115,10 +115,10 @@ export function removeWorkPoints(points: ReadonlyArray<WorkPoint>, ids: Readonly
 
 /**
  * Rows matching a filter text: every whitespace-separated word must occur (case-insensitive) in
- * the point's id, tag, approach, assigned arm or reaching arms; "unreached" matches rows reached by no arm.
+ * the point's id, tag, approach, assigned arm or reaching arms; "not reached" (or "unreached") matches the rows no arm reaches.
  */
 export function filterWorkPointRows(rows: ReadonlyArray<WorkPointRow>, text: string): WorkPointRow[] {
-  const words = text.trim().toLowerCase().split(/\s+/).filter(Boolean);
+  const words = text.trim().toLowerCase().replace(/\bnot[\s-]+reached\b/g, 'unreached').split(/\s+/).filter(Boolean);
   if (!words.length) return rows.slice();
   return rows.filter((r) => {
     const hay = [r.point.id, r.point.tag, r.point.approach, r.point.assignedArm ?? '', ...r.reachedBy].join(' ').toLowerCase();

@@ -197,7 +197,7 @@ export function parseWorkPointsCsv(text: string, options: WorkPointsCsvOptions =
       else firstRowOfId.set(draft.id, row);
     }
     if (armIds && typeof draft.assignedArm === 'string' && !armIds.has(draft.assignedArm)) {
-      problems.push(`assigned arm ${draft.assignedArm} is not on this layout`);
+      problems.push(`assigned arm ${draft.assignedArm} is not on this cell layout`);
     }
     const checked = WorkPoint.safeParse(draft);
     if (!checked.success) {

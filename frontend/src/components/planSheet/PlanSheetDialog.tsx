@@ -28,7 +28,7 @@ export function PlanSheetDialog({ open, onClose, layoutId, layoutName }: PlanShe
   const toggle = (k: SheetKind) => setSheets((cur) => (cur.includes(k) ? cur.filter((c) => c !== k) : SHEET_KINDS.map((s) => s.kind).filter((s) => s === k || cur.includes(s))));
 
   return (
-    <Dialog open={open} onClose={onClose} title="Export plan sheet" width="lg" description="A draft sheet of the working copy, marked not for construction. Released sheets come from approved revisions.">
+    <Dialog open={open} onClose={onClose} title="Export plan sheet" width="lg" description="A draft sheet of the working copy, marked not for construction. Released sheets come from signed-off revisions.">
       <div className="flex flex-col gap-3 px-5 pb-4">
         <div className="flex flex-wrap items-end gap-4">
           <label className="flex flex-col gap-1 text-xs font-bold">

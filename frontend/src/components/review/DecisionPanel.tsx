@@ -18,10 +18,10 @@ export function DecisionPanel({ revision, user }: { revision: RevisionDetailDto;
   const mayRelease = can(user.role, 'revision.release');
   const releaseMail = revision.mail?.filter((m) => m.kind === 'release').at(-1);
 
-  async function onDecide(e: FormEvent, decision: 'approve' | 'request_changes') {
+  async function onDecide(e: FormEvent, decision: 'sign_off' | 'return') {
     e.preventDefault();
-    if (decision === 'request_changes' && !comment.trim()) {
-      setError('Say what needs to change before sending it back.');
+    if (decision === 'return' && !comment.trim()) {
+      setError('Say what needs to change before returning it.');
       return;
     }
     setError(null);
@@ -35,31 +35,31 @@ export function DecisionPanel({ revision, user }: { revision: RevisionDetailDto;
       </h2>
       {revision.decidedAt && (
         <p className="text-sm">
-          {revision.state === 'changes_requested' ? 'Sent back' : 'Approved'} by <strong>{revision.decidedBy?.name}</strong> on {formatDateTime(revision.decidedAt)}
+          {revision.state === 'returned' ? 'Returned for changes' : 'Signed off'} by <strong>{revision.decidedBy?.name}</strong> on {formatDateTime(revision.decidedAt)}
           {revision.decisionComment && <span className="mt-1 block whitespace-pre-wrap text-ink-muted">“{revision.decisionComment}”</span>}
         </p>
       )}
       {mayDecide && ownWork && <p className="text-sm text-ink-muted">You submitted this revision; another reviewer signs it off.</p>}
       {mayDecide && !ownWork && (
-        <form className="flex flex-col gap-2" onSubmit={(e) => onDecide(e, 'approve')}>
+        <form className="flex flex-col gap-2" onSubmit={(e) => onDecide(e, 'sign_off')}>
           <label htmlFor="decision-comment" className="text-xs font-bold">
-            Decision note (required to send it back)
+            Decision note (required to return it for changes)
           </label>
           <textarea id="decision-comment" rows={3} value={comment} onChange={(e) => setComment(e.target.value)} className="rounded-control border border-rule-strong bg-paper px-2 py-1 text-sm" />
           {error && <p role="alert" className="text-sm font-bold text-finding-critical">{error}</p>}
           {decide.isError && <ErrorNotice error={decide.error} />}
           <div className="flex gap-2">
             <Button type="submit" variant="primary" busy={decide.isPending}>
-              Approve revision {revision.letter}
+              Sign off revision {revision.letter}
             </Button>
-            <Button onClick={(e) => onDecide(e, 'request_changes')} busy={decide.isPending}>
-              Send back for changes
+            <Button onClick={(e) => onDecide(e, 'return')} busy={decide.isPending}>
+              Return for changes
             </Button>
           </div>
         </form>
       )}
       {revision.state === 'submitted' && !can(user.role, 'revision.decide') && <p className="text-sm text-ink-muted">Waiting for a reviewer’s sign-off.</p>}
-      {revision.state === 'approved' && mayRelease && (
+      {revision.state === 'signed_off' && mayRelease && (
         <div className="flex flex-col gap-2">
           <p className="text-sm">Releasing stores the plan sheet with this revision for good and e-mails it to the project’s clients.</p>
           {release.isError && <ErrorNotice error={release.error} />}

@@ -1,17 +1,13 @@
 import type { RevisionState } from '../../api/revisions';
 import { cn } from '../../lib/cn';
+import { REVISION_STATE_LABEL } from '@shared/words';
 
-export const STATE_LABEL: Record<RevisionState, string> = {
-  submitted: 'Submitted',
-  changes_requested: 'Changes requested',
-  approved: 'Approved',
-  released: 'Released',
-};
+export const STATE_LABEL: Record<RevisionState, string> = REVISION_STATE_LABEL;
 
 const STATE_CLASS: Record<RevisionState, string> = {
   submitted: 'text-finding-info border-finding-info/50 bg-finding-info-wash',
-  changes_requested: 'text-finding-warning border-finding-warning/60 bg-finding-warning-wash',
-  approved: 'text-accent border-accent/50 bg-accent-wash',
+  returned: 'text-finding-warning border-finding-warning/60 bg-finding-warning-wash',
+  signed_off: 'text-accent border-accent/50 bg-accent-wash',
   released: 'text-on-accent border-accent bg-accent',
 };
 

@@ -17,7 +17,7 @@ export function RevisionsSection({ project }: { project: ProjectDetailDto }) {
   if (!revisions.data.length)
     return (
       <EmptyState title={staff ? 'No revision yet.' : 'No plan sheet has been released to you yet.'}>
-        {staff ? <p>A planner submits one from the layout editor (“Submit revision”); a reviewer then approves it or asks for changes.</p> : <p>You will receive an e-mail when one is released.</p>}
+        {staff ? <p>A planner submits one from the cell layout editor (“Submit revision”); a reviewer then signs it off or returns it for changes.</p> : <p>You will receive an e-mail when one is released.</p>}
       </EmptyState>
     );
   return (

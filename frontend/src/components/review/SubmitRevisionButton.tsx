@@ -17,7 +17,7 @@ export function SubmitRevisionButton({ projectId, layoutId }: { projectId: numbe
       </Button>
       <Dialog open={open} title="Submit a revision for review?" onClose={() => setOpen(false)}>
         <p className="text-sm">
-          The layout as last saved, its findings, the floor plan and the arm models are frozen into the next revision. Reviewers are told by
+          The cell layout as last saved, its findings, the floor plan and the arm models are frozen into the next revision. Reviewers are told by
           e-mail. Later edits go into a new revision.
         </p>
         {submit.isError && <ErrorNotice error={submit.error} className="mt-4" />}

@@ -1,4 +1,4 @@
-/** The drag-vertex tool: drag a corner of the selected zone; the corner is committed on release. */
+/** The drag-vertex tool: drag a corner of the selected boundary; the corner is committed on release. */
 import { roundMm } from '../../../editor/layoutEdits';
 import type { Tool, ToolHost, ToolPointer, VertexAt } from './tool';
 
@@ -30,7 +30,7 @@ export class DragVertexTool implements Tool<VertexAt> {
     if (!d.moved) return this.cancel();
     this.drag = null;
     this.host.hold({ vertex: d.vertex });
-    this.host.cb.onVertexMoved(d.vertex.zoneId, d.vertex.index, d.vertex.at);
+    this.host.cb.onVertexMoved(d.vertex.boundaryId, d.vertex.index, d.vertex.at);
     this.host.redrawAll();
   }
 

@@ -1,5 +1,5 @@
 /**
- * The select tool: a click on a zone selects it, a click on the empty plan clears the selection.
+ * The select tool: a click on a boundary selects it, a click on the empty plan clears the selection.
  * Presses on arms, turn handles and corners start the drag tools (see toolDispatcher.ts).
  */
 import type { Tool, ToolHost, ToolPointer } from './tool';
@@ -16,7 +16,7 @@ export class SelectTool implements Tool {
   move(): void {}
 
   up(p: ToolPointer): void {
-    this.host.cb.onSelect(p.zoneId === null ? null : { kind: 'zone', id: p.zoneId });
+    this.host.cb.onSelect(p.boundaryId === null ? null : { kind: 'boundary', id: p.boundaryId });
   }
 
   cancel(): void {}

@@ -1,6 +1,6 @@
 /**
  * A tool of the layout editor: a small state that the dispatcher (toolDispatcher.ts) feeds pointer
- * events in plan mm (x east, y north). A press on an arm, its turn handle or a zone corner starts a
+ * events in plan mm (x east, y north). A press on an arm, its turn handle or a boundary corner starts a
  * drag tool for that one gesture; every other event goes to the tool chosen in the toolbar.
  */
 import type { DragPose } from '../../../workers/analysisProtocol';
@@ -12,8 +12,8 @@ export interface ToolPointer {
   plan: XY;
   /** Zoom: screen px per plan mm. */
   k: number;
-  /** The zone whose shape is under the pointer, if any. */
-  zoneId: string | null;
+  /** The boundary whose shape is under the pointer, if any. */
+  boundaryId: string | null;
 }
 
 export interface Tool<Press = void> {
@@ -26,9 +26,9 @@ export interface Tool<Press = void> {
   cancel(): void;
 }
 
-/** A zone corner on its way somewhere, plan mm. */
+/** A boundary corner on its way somewhere, plan mm. */
 export interface VertexAt {
-  zoneId: string;
+  boundaryId: string;
   index: number;
   at: XY;
 }

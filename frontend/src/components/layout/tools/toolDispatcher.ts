@@ -1,6 +1,6 @@
 /**
  * Routes the plan's pointer events to the editor's tools. A press on an arm, its turn handle or a
- * zone corner starts that drag tool (the pointer is captured, so the gesture's moves and release
+ * boundary corner starts that drag tool (the pointer is captured, so the gesture's moves and release
  * come back to the svg as bubbling events); clicks, double-clicks and moves otherwise go to the
  * tool chosen in the toolbar (the select tool on a read-only layout).
  */
@@ -9,14 +9,14 @@ import type { DragPose } from '../../../workers/analysisProtocol';
 import type { EditorTool, ShapeTool } from '../sceneTypes';
 import { AddPointTool } from './addPointTool';
 import { DragVertexTool } from './dragVertexTool';
-import { DrawZoneTool, type Draft } from './drawZoneTool';
+import { DrawBoundaryTool, type Draft } from './drawBoundaryTool';
 import { MoveArmTool } from './moveArmTool';
 import { SectionTool, type SectionDraft } from './sectionTool';
 import { SelectTool } from './selectTool';
 import type { Tool, ToolHost, ToolPointer, VertexAt } from './tool';
 import { TurnArmTool } from './turnArmTool';
 
-type ChosenTool = SelectTool | AddPointTool | DrawZoneTool | SectionTool;
+type ChosenTool = SelectTool | AddPointTool | DrawBoundaryTool | SectionTool;
 
 export class ToolDispatcher {
   private readonly select: SelectTool;
@@ -39,7 +39,7 @@ export class ToolDispatcher {
     this.turnArm = new TurnArmTool(host);
     this.dragVertex = new DragVertexTool(host);
     this.section = new SectionTool(host);
-    const draw = (kind: ShapeTool) => new DrawZoneTool(host, kind);
+    const draw = (kind: ShapeTool) => new DrawBoundaryTool(host, kind);
     this.chosen = { select: this.select, point: new AddPointTool(host), fence: draw('fence'), keepout: draw('keepout'), operator: draw('operator'), opening: draw('opening'), section: this.section };
   }
 
@@ -47,9 +47,9 @@ export class ToolDispatcher {
     return this.chosen[this.host.state().tool];
   }
 
-  private drawTool(): DrawZoneTool | null {
+  private drawTool(): DrawBoundaryTool | null {
     const t = this.tool;
-    return t instanceof DrawZoneTool ? t : null;
+    return t instanceof DrawBoundaryTool ? t : null;
   }
 
   /** The pose of the arm being moved or turned, or null. */
@@ -57,7 +57,7 @@ export class ToolDispatcher {
     return this.moveArm.pose() ?? this.turnArm.pose();
   }
 
-  /** The zone corner being dragged (once moved), or null. */
+  /** The boundary corner being dragged (once moved), or null. */
   dragVertexAt(): VertexAt | null {
     return this.dragVertex.vertex();
   }
@@ -103,7 +103,7 @@ export class ToolDispatcher {
     this.capture(tool, el, e);
   }
 
-  /** A press on a corner handle of the selected zone: starts dragging it. */
+  /** A press on a corner handle of the selected boundary: starts dragging it. */
   pressVertex(e: PointerEvent, el: Element, vertex: VertexAt): void {
     if (this.host.state().readOnly || e.button !== 0) return;
     this.dragVertex.down(this.toPointer(e), vertex);
@@ -151,11 +151,11 @@ export class ToolDispatcher {
     tool.up(this.toPointer(e));
   }
 
-  /** A click on a zone's shape: the select tool picks it (before the plan's own click). */
-  zoneClick(e: MouseEvent, zoneId: string): void {
+  /** A click on a boundary's shape: the select tool picks it (before the plan's own click). */
+  boundaryClick(e: MouseEvent, boundaryId: string): void {
     if (this.host.state().tool !== 'select') return;
     e.stopPropagation();
-    this.select.up({ ...this.toPointer(e), zoneId });
+    this.select.up({ ...this.toPointer(e), boundaryId });
   }
 
   dblClick(e: MouseEvent): void {
@@ -178,7 +178,7 @@ export class ToolDispatcher {
   }
 }
 
-/** The zone whose shape is under an event's target, if any. */
-export function zoneUnder(target: EventTarget | null): string | null {
-  return (target as Element | null)?.closest?.('[data-zone]')?.getAttribute('data-zone') ?? null;
+/** The boundary whose shape is under an event's target, if any. */
+export function boundaryUnder(target: EventTarget | null): string | null {
+  return (target as Element | null)?.closest?.('[data-boundary]')?.getAttribute('data-boundary') ?? null;
 }

@@ -83,12 +83,16 @@ export interface MarkStyle {
 }
 
 const REACH = 'var(--color-reach)';
-const SHARED_RED: Rgb = [196, 40, 40];
-const FENCE_BLACK: Rgb = [20, 20, 20];
-const FENCE_SCREEN = 'var(--color-zone-fence, #1c2230)';
+/** Shared zones: the same purple on screen (--color-shared-zone, #8e5cc4) and on paper. */
+const SHARED_PURPLE: Rgb = [142, 92, 196];
+/** Work points no arm reaches: the critical-finding red (--color-finding-critical, #b42318), used for nothing else on paper. */
+const NOT_REACHED_RED: Rgb = [180, 35, 24];
+/** Fences: the ink colour #1c2230 on screen and on paper. */
+const FENCE_INK: Rgb = PAPER_INK;
+const FENCE_SCREEN = 'var(--color-boundary-fence, #1c2230)';
 
 /** The style of every kind of mark. */
-export const ZONE_STYLES = {
+export const BOUNDARY_STYLES = {
   armBase: {
     legend: 'Arm base (tick = yaw 0 of J1)',
     // Still different: one reach colour on screen, a colour per arm on paper.
@@ -111,78 +115,74 @@ export const ZONE_STYLES = {
     dxf: { layer: 'RF_RESTRICTED', aci: ACI.blue, lineType: 'CONTINUOUS' },
   },
   band: {
-    legend: 'Reach band',
-    // Still different: a solid line on screen, a dotted one on paper.
-    screen: { colour: REACH, width: 2, widthEmphasis: 2.5 },
-    paper: { colour: 'arm', legendColour: PAPER_INK, width: 0.18, dash: [0.4, 0.6] },
-    dxf: { layer: 'RF_BAND', aci: ACI.green, lineType: 'CONTINUOUS' },
+    legend: 'Reach band (at a work height)',
+    // A short dash everywhere: on screen, on paper and in the DXF.
+    screen: { colour: REACH, width: 2, widthEmphasis: 2.5, dash: '5 3' },
+    paper: { colour: 'arm', legendColour: PAPER_INK, width: 0.18, dash: [1, 0.6] },
+    dxf: { layer: 'RF_BAND', aci: ACI.green, lineType: 'DASHED' },
   },
   shared: {
     legend: 'Shared zone (two arms overlap)',
-    // Still different: purple on screen, red on paper.
     screen: { colour: 'var(--color-shared-zone)', width: 1.5, widthEmphasis: 3, hatch: { spacingPx: 7, width: 1.4 } },
-    paper: { colour: SHARED_RED, width: 0.3, hatch: { spacing: 1.4, legendSpacing: 1.2, angles: [45], width: 0.15 } },
-    dxf: { layer: 'RF_SHARED', aci: ACI.red, lineType: 'CONTINUOUS' },
+    paper: { colour: SHARED_PURPLE, width: 0.3, hatch: { spacing: 1.4, legendSpacing: 1.2, angles: [45], width: 0.15 } },
+    dxf: { layer: 'RF_SHARED', aci: ACI.magenta, lineType: 'CONTINUOUS' },
   },
   fence: {
     legend: 'Guard fence (h = height, mm)',
-    // Still different: ink-blue #1c2230 on screen, near-black on paper.
     screen: { colour: FENCE_SCREEN, width: 4.5, label: { colour: FENCE_SCREEN, weight: 400 } },
-    paper: { colour: FENCE_BLACK, width: 0.7, label: FENCE_BLACK },
+    paper: { colour: FENCE_INK, width: 0.7, label: FENCE_INK },
     dxf: { layer: 'RF_FENCES', aci: ACI.white, lineType: 'CONTINUOUS' },
   },
   opening: {
     legend: 'Access opening',
-    // A gap over the fence line with a bar (screen) or jamb (paper) across each end in `colour`, `width`.
-    // Still different: the end bars are teal on screen, the jambs fence-black on paper.
+    // A gap over the fence line with a teal bar across each end, on screen and on paper.
     screen: {
-      colour: 'var(--color-zone-opening, #0b6e69)',
+      colour: 'var(--color-boundary-opening, #0b6e69)',
       width: 3,
       gap: { colour: 'var(--color-paper-raised, #fff)', width: 7 },
       label: { colour: FENCE_SCREEN, weight: 400 },
     },
-    paper: { colour: FENCE_BLACK, width: 0.35, gap: { colour: [255, 255, 255], width: 1.1, centreWidth: 0.15, centreDash: [0.8, 0.6] }, label: FENCE_BLACK },
-    dxf: { layer: 'RF_ZONES', aci: ACI.yellow, lineType: 'CONTINUOUS' },
+    paper: { colour: [11, 110, 105], width: 0.35, gap: { colour: [255, 255, 255], width: 1.1, centreWidth: 0.15, centreDash: [0.8, 0.6] }, label: FENCE_INK },
+    dxf: { layer: 'RF_BOUNDARIES', aci: ACI.yellow, lineType: 'CONTINUOUS' },
   },
   operator: {
     legend: 'Operator area',
     screen: {
-      colour: 'var(--color-zone-operator, #c27c0e)',
+      colour: 'var(--color-boundary-operator, #c27c0e)',
       width: 1.5,
       widthEmphasis: 2.5,
       dash: '7 3',
-      fill: 'var(--color-zone-operator, #c27c0e)',
+      fill: 'var(--color-boundary-operator, #c27c0e)',
       fillOpacity: 0.16,
-      label: { colour: 'var(--color-zone-operator, #c27c0e)', weight: 700 },
+      label: { colour: 'var(--color-boundary-operator, #c27c0e)', weight: 700 },
     },
-    // Still different: amber #c27c0e with a dash on screen, darker amber with a dash-dot on paper.
-    paper: { colour: [150, 110, 10], width: 0.3, dash: [2.4, 0.8, 0.4, 0.8], fill: { colour: [214, 160, 20], opacity: 0.18 }, label: [120, 86, 6] },
-    dxf: { layer: 'RF_ZONES', aci: ACI.yellow, lineType: 'CONTINUOUS' },
+    // Amber #c27c0e, dashed, lightly filled: on screen and on paper.
+    paper: { colour: [194, 124, 14], width: 0.3, dash: [2.4, 1], fill: { colour: [194, 124, 14], opacity: 0.16 }, label: [150, 96, 10] },
+    dxf: { layer: 'RF_BOUNDARIES', aci: ACI.yellow, lineType: 'CONTINUOUS' },
   },
   keepout: {
     legend: 'Keep-out',
-    // Still different: slate #5f6472 single-hatched on screen, grey cross-hatched on paper.
+    // Slate #5f6472, single-hatched at 45°: on screen and on paper.
     screen: {
-      colour: 'var(--color-zone-keepout, #5f6472)',
+      colour: 'var(--color-boundary-keepout, #5f6472)',
       width: 1.5,
       widthEmphasis: 2.5,
       hatch: { spacingPx: 9, width: 1 },
-      label: { colour: 'var(--color-zone-keepout, #5f6472)', weight: 400 },
+      label: { colour: 'var(--color-boundary-keepout, #5f6472)', weight: 400 },
     },
-    paper: { colour: [110, 110, 110], width: 0.35, hatch: { spacing: 2.2, legendSpacing: 1.2, angles: [45, -45], width: 0.1 }, label: [70, 70, 70] },
-    dxf: { layer: 'RF_ZONES', aci: ACI.yellow, lineType: 'CONTINUOUS' },
+    paper: { colour: [95, 100, 114], width: 0.35, hatch: { spacing: 1.8, legendSpacing: 1.2, angles: [45], width: 0.12 }, label: [70, 74, 84] },
+    dxf: { layer: 'RF_BOUNDARIES', aci: ACI.yellow, lineType: 'CONTINUOUS' },
   },
   pointReached: {
-    legend: 'Work point (red = no arm reaches it)',
+    legend: 'Work point (red = not reached)',
     screen: { colour: 'var(--color-ink)', width: 1.3 },
     paper: { colour: PAPER_INK, width: 0.2 },
     dxf: { layer: 'RF_POINTS', aci: ACI.magenta, lineType: 'CONTINUOUS' },
   },
   pointUnreached: {
-    legend: 'Work point (red = no arm reaches it)',
-    // Still different: the critical-finding red on screen, the shared-zone red on paper.
+    legend: 'Work point (red = not reached)',
     screen: { colour: 'var(--color-finding-critical)', width: 2 },
-    paper: { colour: SHARED_RED, width: 0.2 },
+    paper: { colour: NOT_REACHED_RED, width: 0.2 },
     dxf: { layer: 'RF_POINTS', aci: ACI.magenta, lineType: 'CONTINUOUS' },
   },
 } as const satisfies Readonly<Record<MarkKind, MarkStyle>>;

@@ -1,5 +1,5 @@
 /**
- * The draw-zone tool, one per zone kind: fences and areas corner by corner (Enter or a
+ * The draw-boundary tool, one per boundary kind: fences and areas corner by corner (Enter or a
  * double-click finishes, Esc drops), openings by two clicks snapped onto a fence. Plan mm.
  */
 import type { LayoutContent } from '@shared/schemas/layout';
@@ -58,7 +58,7 @@ export interface Draft {
   closed: boolean;
 }
 
-export class DrawZoneTool implements Tool {
+export class DrawBoundaryTool implements Tool {
   private points: XY[] = [];
   private cursor: XY | null = null;
 

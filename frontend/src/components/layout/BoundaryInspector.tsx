@@ -1,20 +1,20 @@
 import { useEffect, useRef, useState } from 'react';
-import type { LayoutContent, Zone } from '@shared/schemas/layout';
+import type { LayoutContent, Boundary } from '@shared/schemas/layout';
 import { parseNumber } from '../../editor/armForm';
-import { removeZone, updateZone } from '../../editor/layoutEdits';
+import { removeBoundary, updateBoundary } from '../../editor/layoutEdits';
 import { Button } from '../Button';
 import { TextField } from '../Field';
 import { MeshFields, SafeguardFields } from './SafeguardFields';
 
-const KIND_TEXT: Record<Zone['kind'], string> = {
+const KIND_TEXT: Record<Boundary['kind'], string> = {
   fence: 'Guard fence',
   keepout: 'Keep-out',
   operator: 'Operator area (people work here)',
   opening: 'Access opening',
 };
 
-export interface ZoneInspectorProps {
-  zone: Zone;
+export interface BoundaryInspectorProps {
+  boundary: Boundary;
   content: LayoutContent;
   readOnly: boolean;
   /** Puts the cursor in the height field (right after a fence is drawn). */
@@ -23,28 +23,28 @@ export interface ZoneInspectorProps {
   onDeselect(): void;
 }
 
-/** The selected zone: kind, label, a fence's height and mesh, an opening's safeguard; delete. Vertices are dragged on the plan. */
-export function ZoneInspector({ zone, content, readOnly, focusHeight, onEdit, onDeselect }: ZoneInspectorProps) {
-  const [label, setLabel] = useState(zone.label);
-  const [height, setHeight] = useState(zone.height !== undefined ? String(zone.height) : '');
+/** The selected boundary: kind, label, a fence's height and mesh, an opening's safeguard; delete. Vertices are dragged on the plan. */
+export function BoundaryInspector({ boundary, content, readOnly, focusHeight, onEdit, onDeselect }: BoundaryInspectorProps) {
+  const [label, setLabel] = useState(boundary.label);
+  const [height, setHeight] = useState(boundary.height !== undefined ? String(boundary.height) : '');
   const [error, setError] = useState<string | undefined>();
   const heightRef = useRef<HTMLInputElement>(null);
-  // An edit, a drag or an undo changes the zone under the form: show its new values.
-  const [shownZone, setShownZone] = useState(zone);
-  if (zone !== shownZone) {
-    setShownZone(zone);
-    setLabel(zone.label);
-    setHeight(zone.height !== undefined ? String(zone.height) : '');
+  // An edit, a drag or an undo changes the boundary under the form: show its new values.
+  const [shownBoundary, setShownBoundary] = useState(boundary);
+  if (boundary !== shownBoundary) {
+    setShownBoundary(boundary);
+    setLabel(boundary.label);
+    setHeight(boundary.height !== undefined ? String(boundary.height) : '');
     setError(undefined);
   }
   useEffect(() => {
     if (focusHeight) heightRef.current?.select();
-  }, [focusHeight, zone.id]);
+  }, [focusHeight, boundary.id]);
 
   function applyLabel() {
     const t = label.trim();
     if (t.length > 60) return;
-    if (t !== zone.label) onEdit(updateZone(content, zone.id, { label: t }), `Rename ${zone.id}`);
+    if (t !== boundary.label) onEdit(updateBoundary(content, boundary.id, { label: t }), `Rename ${boundary.id}`);
   }
   function applyHeight() {
     const h = parseNumber(height);
@@ -53,31 +53,31 @@ export function ZoneInspector({ zone, content, readOnly, focusHeight, onEdit, on
       return;
     }
     setError(undefined);
-    if (h !== zone.height) onEdit(updateZone(content, zone.id, { height: h }), `Set height of ${zone.id}`);
+    if (h !== boundary.height) onEdit(updateBoundary(content, boundary.id, { height: h }), `Set height of ${boundary.id}`);
   }
-  const fence = zone.kind === 'opening' ? content.zones.find((z) => z.id === zone.fenceId) : null;
+  const fence = boundary.kind === 'opening' ? content.boundaries.find((z) => z.id === boundary.fenceId) : null;
 
   return (
     <form
-      aria-label={`Zone ${zone.id}`}
+      aria-label={`Boundary ${boundary.id}`}
       className="flex flex-col gap-3"
       noValidate
       onSubmit={(e) => {
         e.preventDefault();
         applyLabel();
-        if (zone.kind === 'fence') applyHeight();
+        if (boundary.kind === 'fence') applyHeight();
       }}
     >
       <div className="flex items-baseline gap-2">
         <h2 className="text-sm font-bold">
-          {zone.id} · {KIND_TEXT[zone.kind]}
+          {boundary.id} · {KIND_TEXT[boundary.kind]}
         </h2>
         <span className="text-xs text-ink-muted">
-          {zone.points.length} points{fence ? ` · in fence ${fence.id}` : ''}
+          {boundary.points.length} points{fence ? ` · in fence ${fence.id}` : ''}
         </span>
       </div>
       <TextField label="Label" value={label} readOnly={readOnly} maxLength={60} onChange={(e) => setLabel(e.target.value)} onBlur={() => !readOnly && applyLabel()} />
-      {zone.kind === 'fence' && (
+      {boundary.kind === 'fence' && (
         <TextField
           ref={heightRef}
           label="Fence height (mm)"
@@ -91,8 +91,8 @@ export function ZoneInspector({ zone, content, readOnly, focusHeight, onEdit, on
           className="tabular-nums"
         />
       )}
-      {zone.kind === 'fence' && <MeshFields zone={zone} content={content} readOnly={readOnly} onEdit={onEdit} />}
-      {zone.kind === 'opening' && <SafeguardFields zone={zone} content={content} readOnly={readOnly} onEdit={onEdit} />}
+      {boundary.kind === 'fence' && <MeshFields boundary={boundary} content={content} readOnly={readOnly} onEdit={onEdit} />}
+      {boundary.kind === 'opening' && <SafeguardFields boundary={boundary} content={content} readOnly={readOnly} onEdit={onEdit} />}
       {!readOnly && (
         <>
           <p className="text-xs text-ink-muted">Drag the square handles on the plan to move its corners.</p>
@@ -104,11 +104,11 @@ export function ZoneInspector({ zone, content, readOnly, focusHeight, onEdit, on
               size="sm"
               variant="danger"
               onClick={() => {
-                onEdit(removeZone(content, zone.id), `Remove ${zone.id}`);
+                onEdit(removeBoundary(content, boundary.id), `Remove ${boundary.id}`);
                 onDeselect();
               }}
             >
-              {zone.kind === 'fence' && content.zones.some((z) => z.fenceId === zone.id) ? 'Remove fence and its openings' : 'Remove zone'}
+              {boundary.kind === 'fence' && content.boundaries.some((z) => z.fenceId === boundary.id) ? 'Remove fence and its openings' : 'Remove boundary'}
             </Button>
           </div>
         </>

@@ -1,0 +1,93 @@
+/**
+ * The product's words for the values users see: one table per concept, read by the screens, the
+ * plan sheet, the DXF and CSV exports and the mails, so a thing has one name everywhere. The
+ * glossary in docs/glossary.md explains each word; tests/unit/docs/vocabulary.test.ts keeps the
+ * retired words out of everything a user reads. Pure data, no imports.
+ */
+
+/** States of a revision as users read them (the drawing trade's words for the reviewer's decisions). */
+export const REVISION_STATE_LABEL = {
+  submitted: 'Submitted',
+  returned: 'Returned for changes',
+  signed_off: 'Signed off',
+  released: 'Released',
+} as const satisfies Record<'submitted' | 'returned' | 'signed_off' | 'released', string>;
+
+/** The reviewer's two decisions, as buttons and audit lines say them. */
+export const DECISION_LABEL = {
+  sign_off: 'Sign off',
+  return: 'Return for changes',
+} as const satisfies Record<'sign_off' | 'return', string>;
+
+/** Kinematic families of arm models. */
+export const FAMILY_LABEL = {
+  scara: 'SCARA',
+  articulated: 'Articulated',
+  linkage: 'Linkage-driven',
+  chain: 'DH chain',
+} as const satisfies Record<'scara' | 'articulated' | 'linkage' | 'chain', string>;
+
+/** The family's label, or the stored value itself when a newer family is not in the table. */
+export function familyLabel(family: string): string {
+  return (FAMILY_LABEL as Record<string, string>)[family] ?? family;
+}
+
+/**
+ * Boundaries: what the planner draws on a cell layout besides arms and work points (the umbrella
+ * word, so "zone" keeps one meaning: the shared zone of two arms).
+ */
+export const BOUNDARY_WORD = { one: 'boundary', many: 'boundaries', One: 'Boundary', Many: 'Boundaries' } as const;
+
+/** Each kind of boundary: its name, its name inside a sentence, and the id prefix of new ones. */
+export const BOUNDARY_KIND_LABEL = {
+  fence: 'Guard fence',
+  opening: 'Access opening',
+  keepout: 'Keep-out',
+  operator: 'Operator area',
+} as const satisfies Record<'fence' | 'opening' | 'keepout' | 'operator', string>;
+
+export const BOUNDARY_KIND_WORD = {
+  fence: 'guard fence',
+  opening: 'access opening',
+  keepout: 'keep-out',
+  operator: 'operator area',
+} as const satisfies Record<keyof typeof BOUNDARY_KIND_LABEL, string>;
+
+/** Id prefixes of new elements, the same as the demo's (R1, P1, F1, O1, K1, OP1). */
+export const ID_PREFIX = { arm: 'R', workPoint: 'P', fence: 'F', opening: 'O', keepout: 'K', operator: 'OP' } as const;
+
+/** Severities of findings. */
+export const SEVERITY_LABEL = { critical: 'Critical', warning: 'Warning', info: 'Note' } as const satisfies Record<'critical' | 'warning' | 'info', string>;
+
+/** Layer roles of a floor plan. */
+export const LAYER_ROLE_LABEL = {
+  outline: 'Floor outline',
+  wall: 'Wall',
+  column: 'Column',
+  obstacle: 'Obstacle',
+  ignore: 'Not used',
+} as const satisfies Record<'outline' | 'wall' | 'column' | 'obstacle' | 'ignore', string>;
+
+/** Where a cell layout's state is written on an export: the working copy or the revision. */
+export function layoutStateLabel(revisionLetter: string | null | undefined, state?: keyof typeof REVISION_STATE_LABEL): string {
+  if (!revisionLetter) return 'Working copy (not a revision)';
+  return state ? `Revision ${revisionLetter} (${REVISION_STATE_LABEL[state].toLowerCase()})` : `Revision ${revisionLetter}`;
+}
+
+/** The two reach figures of an arm model, named apart: they are different numbers. */
+export const REACH_FIGURE_LABEL = {
+  /** Largest radial distance of the tool point's reach profile (what the catalogue lists). */
+  toolPoint: 'Tool-point reach',
+  /** Largest radius of the maximum space: the whole moving arm with tool and payload (the plan sheet's schedule). */
+  maximumSpace: 'Maximum-space radius',
+} as const;
+
+/** A revision state's label from a stored value (states stored under older names read the same). */
+export function revisionStateLabel(state: string): string {
+  const legacy: Record<string, keyof typeof REVISION_STATE_LABEL> = { changes_requested: 'returned', approved: 'signed_off' };
+  const key = (legacy[state] ?? state) as keyof typeof REVISION_STATE_LABEL;
+  return REVISION_STATE_LABEL[key] ?? state;
+}
+
+/** How a work point is approached by the tool. */
+export const APPROACH_LABEL = { top: 'From above', any: 'Any direction' } as const satisfies Record<'top' | 'any', string>;
