@@ -45,7 +45,7 @@ function baseSnapshot(): RevisionSnapshot {
           { id: 'P1', x: 4400, y: 3000, z: 100, approach: 'top', tag: 'infeed', assignedArm: 'R1' },
           { id: 'P2', x: 8400, y: 3000, z: 900, approach: 'any', tag: '' },
         ],
-        zones: [
+        boundaries: [
           { id: 'F1', kind: 'fence', label: 'Cell guard', height: 1400, meshMm: 30, meshShape: 'square', points: [[0, 0], [20000, 0], [20000, 8000], [0, 8000], [0, 0]] },
           { id: 'G1', kind: 'opening', label: 'Pallet exchange', fenceId: 'F1', safeguard: { device: 'light-curtain', responseTimeS: 0.02, stopCategory: 0, resolutionMm: 30, approach: 'parallel', heightMm: 300 }, points: [[9000, 8000], [11000, 8000]] },
           { id: 'G2', kind: 'opening', label: 'Service door', fenceId: 'F1', safeguard: { device: 'multi-beam', responseTimeS: 0.03, stopCategory: 1, beams: 4, approach: 'normal' }, points: [[20000, 2000], [20000, 3000]] },
@@ -62,12 +62,12 @@ function baseSnapshot(): RevisionSnapshot {
       geometry: {
         type: 'FeatureCollection',
         features: [
-          { type: 'Feature', properties: { layer: 'OUTLINE', role: 'boundary' }, geometry: { type: 'Polygon', coordinates: [[[0, 0], [24000, 0], [24000, 16000], [0, 0]]] } },
+          { type: 'Feature', properties: { layer: 'OUTLINE', role: 'outline' }, geometry: { type: 'Polygon', coordinates: [[[0, 0], [24000, 0], [24000, 16000], [0, 0]]] } },
           { type: 'Feature', properties: { layer: 'WALLS', role: 'wall', height: 1500 }, geometry: { type: 'LineString', coordinates: [[5000, 0], [5000, 2000]] } },
         ],
       },
       layers: [
-        { name: 'OUTLINE', role: 'boundary', height: null, entityCount: 1, color: '#ffffff' },
+        { name: 'OUTLINE', role: 'outline', height: null, entityCount: 1, color: '#ffffff' },
         { name: 'WALLS', role: 'wall', height: 1500, entityCount: 1, color: '#ff0000' },
       ],
       bounds: { minX: 0, minY: 0, maxX: 24000, maxY: 16000 },
@@ -75,7 +75,7 @@ function baseSnapshot(): RevisionSnapshot {
     models: structuredClone(MODELS),
     analysis: {
       findings: [finding('shared-zone:R1+R2', 'Arms R1 and R2 share 1.200 m².'), finding('fence-too-low:F1', 'Fence F1 is 1400 mm high.')],
-      overlaps: [],
+      sharedZones: [],
       coverage: { P1: { R1: 120 } },
       regions: {},
       timingMs: 12,
@@ -143,7 +143,7 @@ describe('revision diff: named changes', () => {
 
   it('fence height, mesh and points; opening safeguard fields; keep-out moved; operator area reshaped', () => {
     const d = changed((s) => {
-      const [f1, g1, g2, k1, a1] = s.layout.content.zones;
+      const [f1, g1, g2, k1, a1] = s.layout.content.boundaries;
       f1.height = 2000;
       f1.meshMm = 20;
       f1.meshShape = 'slot';

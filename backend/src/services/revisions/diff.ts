@@ -152,7 +152,7 @@ function compareList(s: Sides, element: DiffElement, a: unknown, b: unknown): vo
 }
 
 /** Parts of the snapshot compared as elements; the rest of `layout.content` and of the snapshot goes to "other". */
-const CONTENT_PARTS = new Set(['arms', 'zones', 'workPoints', 'workHeights']);
+const CONTENT_PARTS = new Set(['arms', 'boundaries', 'workPoints', 'workHeights']);
 const TOP_PARTS = new Set(['project', 'layout', 'floorPlan', 'models', 'analysis']);
 
 /** Findings by id: new, gone, and those whose severity or message changed. */
@@ -196,7 +196,7 @@ export function diffSnapshots(prev: DiffSide | null, cur: DiffSide, previous: Re
   compareElement(s, 'workHeights', null, { a: pc.workHeights, b: cc.workHeights });
   compareList(s, 'arm', pc.arms, cc.arms);
   compareList(s, 'armModel', prev.models, cur.models);
-  compareList(s, 'boundary', pc.zones, cc.zones);
+  compareList(s, 'boundary', pc.boundaries, cc.boundaries);
   compareList(s, 'workPoint', pc.workPoints, cc.workPoints);
 
   const other = new ElementWalk('other', { ...s.ctx, before: prev, after: cur });

@@ -337,8 +337,8 @@ export const ELEMENT_WORDS: Record<DiffElement, ElementWords> = {
       'safeguard.stopCategory': { label: 'stop category the safeguard triggers' },
       'safeguard.resolutionMm': mmField('light-curtain resolution'),
       'safeguard.beams': { label: 'beams' },
-      'safeguard.approach': { label: 'approach to the detection zone' },
-      'safeguard.heightMm': mmField('detection zone height'),
+      'safeguard.approach': { label: 'approach to the detection boundary' },
+      'safeguard.heightMm': mmField('detection boundary height'),
     },
   },
   workPoint: {
