@@ -107,6 +107,7 @@ export {
 } from './section';
 export {
   type ArmSafeguardMeasure,
+  DEVICE_TEXT,
   FENCE_SAFEGUARD_RANGE_MM,
   fenceSolidParts,
   measureArmSafeguarding,

@@ -28,7 +28,8 @@ export const FENCE_SAFEGUARD_RANGE_MM = Math.max(...REACH_OVER_ROWS.flatMap((r) 
 
 // The layout schema repeats shared/safety's device and mesh lists (schemas import only zod); passing
 // a safeguard to separationDistance and indexing DEVICE_TEXT with it keeps the two lists the same.
-const DEVICE_TEXT: Record<SafeguardDevice, string> = {
+/** What each safeguarding device is called in messages. */
+export const DEVICE_TEXT: Record<SafeguardDevice, string> = {
   interlock: 'interlocked guard',
   'interlock-locking': 'interlocked guard with guard locking',
   'light-curtain': 'light curtain',

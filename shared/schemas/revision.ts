@@ -154,19 +154,41 @@ export type RevisionSnapshot = z.infer<typeof RevisionSnapshot>;
 export const StoredRevisionSnapshot = RevisionSnapshot.omit({ floorPlan: true }).extend({ floorPlan: SnapshotFloorPlan.nullable().optional() });
 export type StoredRevisionSnapshot = z.infer<typeof StoredRevisionSnapshot>;
 
-const ArmAt = z.object({ id: z.string(), x: z.number(), y: z.number() });
 const FindingBrief = SnapshotFinding.pick({ id: true, severity: true, message: true });
 
-/** What changed since the revision before: arms added, removed and moved, findings new and gone (by id). */
+/** The parts of a cell layout a revision diff groups its changes by ("boundary": a fence, access opening, keep-out or operator area). */
+export const DIFF_ELEMENTS = ['project', 'layout', 'floorPlan', 'workHeights', 'arm', 'armModel', 'boundary', 'workPoint', 'other'] as const;
+export type DiffElement = (typeof DIFF_ELEMENTS)[number];
+
+/** One readable change: `field` is its path inside the element (e.g. `restrict`, `params.axes.1.max`), `text` says it in words with units. */
+export const RevisionChange = z.object({ field: z.string(), text: z.string() });
+export type RevisionChange = z.infer<typeof RevisionChange>;
+
+/** The changes of one element (an arm, an arm model, a boundary, a work point, the floor plan …) since the revision before. */
+export const RevisionChangeGroup = z.object({
+  element: z.enum(DIFF_ELEMENTS),
+  /** The element's own id (arm, boundary and work point ids; an arm model's id as text); null for the one-of-a-kind parts. */
+  id: z.string().nullable(),
+  title: z.string(),
+  status: z.enum(['added', 'removed', 'changed']),
+  changes: z.array(RevisionChange),
+});
+export type RevisionChangeGroup = z.infer<typeof RevisionChangeGroup>;
+
+/**
+ * What changed since the revision before, over every input of the analysis (layout content, arm
+ * models' parameters, floor plan, project and layout names), grouped by element in the order of
+ * DIFF_ELEMENTS; and the findings new, gone and changed (same id, other severity or message).
+ * Both lists empty = nothing changed. `previous` is null for a layout's first revision.
+ */
 export const RevisionDiff = z.object({
   previous: z.object({ id: z.number().int(), letter: z.string() }).nullable(),
-  arms: z.object({
-    added: z.array(ArmAt),
-    removed: z.array(ArmAt),
-    /** distance = plan distance between the two base positions, mm; yaw change in degrees (±180). */
-    moved: z.array(z.object({ id: z.string(), from: PlanXY, to: PlanXY, distance: z.number(), yawChange: z.number() })),
+  groups: z.array(RevisionChangeGroup),
+  findings: z.object({
+    added: z.array(FindingBrief),
+    removed: z.array(FindingBrief),
+    changed: z.array(FindingBrief.extend({ before: FindingBrief.pick({ severity: true, message: true }) })),
   }),
-  findings: z.object({ added: z.array(FindingBrief), removed: z.array(FindingBrief) }),
 });
 export type RevisionDiff = z.infer<typeof RevisionDiff>;
 

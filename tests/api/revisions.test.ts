@@ -59,6 +59,15 @@ const content = (modelId: number, r1: [number, number]) => ({
   workHeights: [100],
 });
 
+/** A planner and a reviewer, both signed in, an arm model and a project the planner is a member of. */
+async function reviewSetup() {
+  const planner = await buildUser({ role: 'planner' });
+  const reviewer = await buildUser({ role: 'reviewer' });
+  const model = await buildArmModel();
+  const project = await buildProject({ members: [planner] });
+  return { planner, model, project, P: await signedIn(t.app, planner.email, TEST_PASSWORD), R: await signedIn(t.app, reviewer.email, TEST_PASSWORD) };
+}
+
 describe('revision letters', () => {
   it('run A … Z, AA … AZ, BA …, ZZ, AAA (bijective base 26, as drawing revisions and spreadsheet columns — common practice)', () => {
     expect([0, 1, 25, 26, 27, 51, 52, 701, 702].map(revisionLetter)).toEqual(['A', 'B', 'Z', 'AA', 'AB', 'AZ', 'BA', 'ZZ', 'AAA']);
@@ -148,9 +157,7 @@ describe('review and release workflow', () => {
     // Diff against A: a 3-4-5 right triangle gives 5000 mm exactly (Pythagoras).
     expect(RevisionDiff.safeParse(revB.diff).error?.issues ?? []).toEqual([]);
     expect(revB.diff.previous).toEqual({ id: revA.id, letter: 'A' });
-    expect(revB.diff.arms.moved).toHaveLength(1);
-    expect(revB.diff.arms.moved[0]).toMatchObject({ id: 'R1', from: [4000, 3000], to: [1000, -1000] });
-    expect(revB.diff.arms.moved[0].distance).toBeCloseTo(5000, 9);
+    expect(revB.diff.groups).toEqual([{ element: 'arm', id: 'R1', title: 'Arm R1 (Picker 1)', status: 'changed', changes: [{ field: 'x,y', text: 'moved 5000 mm (from 4000, 3000 to 1000, −1000 mm)' }] }]);
     expect(revB.diff.findings.removed.map((f: { id: string }) => f.id)).toContain('shared-zone:R1+R2');
     // A's comment on the finding is B's history.
     expect(revB.history.map((c: { body: string; revisionLetter: string }) => [c.revisionLetter, c.body])).toEqual([['A', 'Pickers share too much of the infeed; separate them.']]);
@@ -283,24 +290,64 @@ describe('review and release workflow', () => {
   });
 });
 
+describe('the diff between revisions', () => {
+  it('names a changed J1 restriction, fence height and arm model parameter, and says nothing changed for an unchanged resubmission', async () => {
+    const { planner, project, P, R } = await reviewSetup();
+    // The model goes through the catalogue route, so its stored parameters are the parsed ones on both sides.
+    const params = { family: 'scara', innerLink: 350, outerLink: 250, strokeMin: 0, strokeMax: 200, axes: [{ min: -150, max: 150 }, { min: -145, max: 145 }] };
+    const made = await P.post('/api/arm-models').send({ name: `Demo SCARA diff ${process.pid}`, params });
+    expect(made.status).toBe(201);
+    const modelId: number = made.body.armModel.id;
+    const cell = (restrict: { j1Min: number; j1Max: number }, fenceHeight: number) => ({
+      ...content(modelId, [4000, 3000]),
+      arms: content(modelId, [4000, 3000]).arms.map((a) => (a.id === 'R1' ? { ...a, restrict } : a)),
+      boundaries: [{ id: 'F1', kind: 'fence', label: 'Cell guard', height: fenceHeight, points: [[2000, 1000], [7000, 1000], [7000, 5000], [2000, 5000], [2000, 1000]] }],
+    });
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: null, name: 'Diff cell', content: cell({ j1Min: -120, j1Max: 120 }, 1400), createdBy: planner.id });
+    const sendBack = async (id: number) => expect((await R.post(`/api/revisions/${id}/decision`).send({ decision: 'return', comment: 'Raise the fence.' })).status).toBe(200);
+
+    const a = (await P.post(`/api/layouts/${layout.id}/revisions`)).body.revision;
+    await sendBack(a.id);
+    const live = (await P.get(`/api/layouts/${layout.id}`)).body.layout;
+    expect((await P.put(`/api/layouts/${layout.id}`).send({ version: live.version, content: cell({ j1Min: -90, j1Max: 90 }, 2000) })).status).toBe(200);
+    expect((await P.put(`/api/arm-models/${modelId}`).send({ name: made.body.armModel.name, params: { ...params, innerLink: 360 } })).status).toBe(200);
+    const b = (await P.post(`/api/layouts/${layout.id}/revisions`)).body.revision;
+
+    const detail = await R.get(`/api/revisions/${b.id}`);
+    expect(detail.status).toBe(200);
+    const diff = detail.body.revision.diff;
+    expect(RevisionDiff.safeParse(diff).error?.issues ?? []).toEqual([]);
+    expect(diff.previous).toEqual({ id: a.id, letter: 'A' });
+    // The layout's version went up with the save: bookkeeping, not a change.
+    expect(diff.groups.map((g: { element: string; id: string; title: string; status: string; changes: Array<{ text: string }> }) => [g.element, g.id, g.title, g.status, g.changes.map((c) => c.text)])).toEqual([
+      ['arm', 'R1', 'Arm R1 (Picker 1)', 'changed', ['J1 restriction −120…120° → −90…90°']],
+      ['armModel', String(modelId), made.body.armModel.name, 'changed', ['inner link length 350 → 360 mm']],
+      ['boundary', 'F1', 'Fence F1 (Cell guard)', 'changed', ['height 1400 → 2000 mm']],
+    ]);
+    // The submit response carries the same diff.
+    expect(b.diff).toEqual(diff);
+
+    // Sent back and resubmitted unchanged: revision C has no changes.
+    await sendBack(b.id);
+    const c = (await P.post(`/api/layouts/${layout.id}/revisions`)).body.revision;
+    expect(c.letter).toBe('C');
+    expect((await R.get(`/api/revisions/${c.id}`)).body.revision.diff).toEqual({ previous: { id: b.id, letter: 'B' }, groups: [], findings: { added: [], removed: [], changed: [] } });
+  });
+});
+
 export type { Express };
 
-/** A hand-written ASCII DXF: a 10 m × 6 m hall outline and one wall, in mm. */
-function hallDxf(): string {
+/** A hand-written ASCII DXF: a 10 m × 6 m hall outline and one wall (from (5000, 0) to (5000, wallEndY)), in mm. */
+function hallDxf(wallEndY = 2000): string {
   const g = (code: number, value: string | number) => `${code}\n${value}\n`;
   const outline = g(0, 'LWPOLYLINE') + g(8, 'OUTLINE') + g(90, 4) + g(70, 1) + g(10, 0) + g(20, 0) + g(10, 10000) + g(20, 0) + g(10, 10000) + g(20, 6000) + g(10, 0) + g(20, 6000);
-  const wall = g(0, 'LINE') + g(8, 'WALLS') + g(10, 5000) + g(20, 0) + g(11, 5000) + g(21, 2000);
+  const wall = g(0, 'LINE') + g(8, 'WALLS') + g(10, 5000) + g(20, 0) + g(11, 5000) + g(21, wallEndY);
   return g(0, 'SECTION') + g(2, 'HEADER') + g(9, '$INSUNITS') + g(70, 4) + g(0, 'ENDSEC') + g(0, 'SECTION') + g(2, 'ENTITIES') + outline + wall + g(0, 'ENDSEC') + g(0, 'EOF');
 }
 
 describe('floor plans of revisions', () => {
   it('two revisions of the same layout store one floor-plan row; lists never select the snapshot; the detail shows the plan', async () => {
-    const planner = await buildUser({ role: 'planner' });
-    const reviewer = await buildUser({ role: 'reviewer' });
-    const model = await buildArmModel();
-    const project = await buildProject({ members: [planner] });
-    const P = await signedIn(t.app, planner.email, TEST_PASSWORD);
-    const R = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
+    const { planner, model, project, P, R } = await reviewSetup();
     const fp = await P.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(hallDxf()), 'hall.dxf');
     expect(fp.status).toBe(201);
     const layout = await Layout.create({ projectId: project.id, floorPlanId: fp.body.id, name: 'Hall cell', content: content(model.id, [4000, 3000]), createdBy: planner.id });
@@ -356,10 +403,33 @@ describe('floor plans of revisions', () => {
     expect(detail.body.revision.snapshot.floorPlan.geometry.features.length).toBe(2);
     expect(detail.body.revision.snapshot.floorPlan.id).toBe(fp.body.id);
     expect(detail.body.revision.diff.previous).toEqual({ id: rowA!.id, letter: 'A' });
-    expect(detail.body.revision.diff.arms.moved.map((m: { id: string; distance: number }) => [m.id, m.distance])).toEqual([['R1', 1000]]);
+    // The same stored plan on both sides: only the arm's move, no floor-plan change.
+    expect(detail.body.revision.diff.groups.map((g: { id: string; changes: Array<{ text: string }> }) => [g.id, g.changes.map((c) => c.text)])).toEqual([['R1', ['moved 1000 mm (from 4000, 3000 to 3000, 3000 mm)']]]);
     // The sheet of a revision is drawn from the stored plan.
     const sheet = await pdfGet(P, `/api/revisions/${b.body.revision.id}/plan-sheet.pdf`);
     expect(sheet.status).toBe(200);
+  });
+
+  it('a layout moved onto another floor plan: the diff gives both stored plans\' checksums, the upload, the file and the drawing', async () => {
+    const { planner, model, project, P, R } = await reviewSetup();
+    const fp1 = await P.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(hallDxf()), 'hall.dxf');
+    const fp2 = await P.post(`/api/projects/${project.id}/floor-plans`).attach('file', Buffer.from(hallDxf(2500)), 'hall-b.dxf');
+    expect([fp1.status, fp2.status]).toEqual([201, 201]);
+    const layout = await Layout.create({ projectId: project.id, floorPlanId: fp1.body.id, name: 'Moved cell', content: content(model.id, [4000, 3000]), createdBy: planner.id });
+    const a = (await P.post(`/api/layouts/${layout.id}/revisions`)).body.revision;
+    expect((await R.post(`/api/revisions/${a.id}/decision`).send({ decision: 'return', comment: 'Use the new survey.' })).status).toBe(200);
+    await P.put(`/api/layouts/${layout.id}`).send({ version: layout.version, floorPlanId: fp2.body.id }).expect(200);
+    const b = (await P.post(`/api/layouts/${layout.id}/revisions`)).body.revision;
+    const [rowA, rowB] = await Promise.all([Revision.findByPk(a.id), Revision.findByPk(b.id)]);
+    expect(rowA!.floorPlanChecksum).not.toBe(rowB!.floorPlanChecksum);
+    const plan = b.diff.groups.find((g: { element: string }) => g.element === 'floorPlan');
+    expect(plan).toMatchObject({ title: 'Floor plan', status: 'changed' });
+    expect(plan.changes.map((c: { text: string }) => c.text)).toEqual([
+      `checksum ${rowA!.floorPlanChecksum!.slice(0, 12)} → ${rowB!.floorPlanChecksum!.slice(0, 12)}`,
+      `upload no. ${fp1.body.id} → ${fp2.body.id}`,
+      'file ‘hall.dxf’ → ‘hall-b.dxf’',
+      'drawing changed (2 features)',
+    ]);
   });
 
   it('revisions stored with the plan inside the snapshot move it out in the migration and keep their checksums; down puts it back', async () => {
@@ -373,6 +443,10 @@ describe('floor plans of revisions', () => {
     const ids = await makeInlineRevisions(layout);
     const before = await Revision.findAll({ where: { id: ids }, order: [['id', 'ASC']] });
     expect(before.every((r) => r.floorPlanChecksum === null && r.snapshot.floorPlan)).toBe(true);
+    // The diff reads such rows' plans from inside their snapshots: the same plan on both sides, no change.
+    const inlineDetail = (await P.get(`/api/revisions/${ids[1]}`)).body.revision;
+    expect(inlineDetail.snapshot.floorPlan.fileName).toBe('hall.dxf');
+    expect(inlineDetail.diff).toMatchObject({ previous: { id: ids[0], letter: 'A' }, groups: [] });
 
     const migration = await import('../../backend/src/db/migrations/20261202093000-create-snapshot-floor-plans');
     const qi = t.sequelize.getQueryInterface();

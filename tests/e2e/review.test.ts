@@ -87,7 +87,9 @@ describe('review and release in Chromium', () => {
     const revB = await submitFromEditor(planner, projectId, layoutId);
     expect(revB).not.toBe(revA);
     await planner.getByRole('heading', { name: /revision B$/ }).waitFor();
-    await planner.locator('[data-diff]').getByText(/moved 300 mm/).waitFor();
+    // The change is listed under its element's heading, as a list a screen reader reads in order.
+    const armsSection = planner.locator('[data-diff]').getByRole('region', { name: 'Arms (1)' });
+    await armsSection.getByRole('listitem').filter({ hasText: /moved 300 mm/ }).first().waitFor();
 
     // Reviewer sees A's comment as history on the same finding, and signs off B.
     await reviewer.goto(`${e.server.url}/projects/${projectId}/revisions/${revB}`);

@@ -1,11 +1,11 @@
 /** Revisions and review comments as the API shows them (staff see everything, clients the released summary). */
 import { literal, Op, type FindAttributeOptions } from 'sequelize';
 import { can } from '@shared/policy';
-import type { RevisionSnapshot, StoredRevisionSnapshot } from '@shared/schemas/revision';
+import { upgradeSnapshotNames, type RevisionSnapshot, type StoredRevisionSnapshot } from '@shared/schemas/revision';
 import type { SessionUser } from '../../auth/passport';
 import { Acknowledgement, MailDelivery, ReviewComment, Revision, User } from '../../models';
-import { diffSnapshots } from './diff';
-import { readSnapshot } from './snapshot';
+import { diffSnapshots, type DiffSide } from './diff';
+import { loadSnapshotFloorPlan, readSnapshot } from './snapshot';
 
 /**
  * What a revision list selects: the columns it shows and three figures read out of the snapshot
@@ -104,6 +104,24 @@ export function presentComment(c: ReviewComment, names: Map<number, string>, let
   };
 }
 
+/**
+ * What the diff reads of the revision before: its snapshot without the analysis but with its
+ * findings (the regions are large and not compared), and its floor plan, loaded only when it is
+ * not the same stored plan as the current revision's.
+ */
+async function diffSideOf(id: number, cur: RevisionSnapshot, curPlanChecksum: string | null): Promise<{ side: DiffSide; floorPlanChecksum: string | null } | null> {
+  const row = (await Revision.findByPk(id, {
+    attributes: [[literal(`"snapshot" - 'analysis'`), 'rest'], [literal(`"snapshot"->'analysis'->'findings'`), 'findings'], 'floorPlanChecksum'],
+    raw: true,
+  })) as unknown as { rest: Omit<StoredRevisionSnapshot, 'analysis'>; findings: RevisionSnapshot['analysis']['findings']; floorPlanChecksum: string | null } | null;
+  if (!row) return null;
+  const { floorPlan: inline, ...rest } = row.rest;
+  const floorPlan =
+    row.floorPlanChecksum && row.floorPlanChecksum === curPlanChecksum ? cur.floorPlan : row.floorPlanChecksum ? await loadSnapshotFloorPlan({ floorPlanChecksum: row.floorPlanChecksum, storedSnapshot: () => row.rest as StoredRevisionSnapshot }) : (inline ?? null);
+  // Read under today's names, as the current side is (snapshots frozen under older ones keep their bytes).
+  return { side: upgradeSnapshotNames({ ...rest, floorPlan, analysis: { findings: row.findings } }), floorPlanChecksum: row.floorPlanChecksum };
+}
+
 /** The whole revision for the review page (staff), or the client's reduced view. */
 export async function presentRevisionDetail(user: SessionUser, rev: Revision) {
   const [summary] = await presentRevisions(user, [rev]);
@@ -115,16 +133,7 @@ export async function presentRevisionDetail(user: SessionUser, rev: Revision) {
     order: [['id', 'DESC']],
   });
   const prev = earlier[0] ?? null;
-  // The diff needs the previous revision's arms and findings only, not its whole snapshot.
-  const prevParts = prev
-    ? ((await Revision.findByPk(prev.id, {
-        attributes: [
-          [literal(`"snapshot"->'layout'->'content'->'arms'`), 'arms'],
-          [literal(`"snapshot"->'analysis'->'findings'`), 'findings'],
-        ],
-        raw: true,
-      })) as unknown as { arms: RevisionSnapshot['layout']['content']['arms']; findings: RevisionSnapshot['analysis']['findings'] } | null)
-    : null;
+  const prevSide = prev ? await diffSideOf(prev.id, snap, rev.floorPlanChecksum) : null;
   const comments = await ReviewComment.findAll({ where: { revisionId: rev.id }, order: [['createdAt', 'ASC'], ['id', 'ASC']] });
   const older = earlier.length
     ? await ReviewComment.findAll({ where: { revisionId: earlier.map((e) => e.id), findingId: { [Op.ne]: null } }, order: [['createdAt', 'ASC'], ['id', 'ASC']] })
@@ -137,11 +146,9 @@ export async function presentRevisionDetail(user: SessionUser, rev: Revision) {
     snapshot: snap,
     comments: comments.map((c) => presentComment(c, names)),
     history: older.map((c) => presentComment(c, names, letters.get(c.revisionId))),
-    diff: diffSnapshots(
-      prevParts ? { layout: { content: { arms: prevParts.arms } }, analysis: { findings: prevParts.findings } } : null,
-      snap,
-      prev ? { id: prev.id, letter: prev.letter } : null,
-    ),
+    diff: diffSnapshots(prevSide?.side ?? null, snap, prev ? { id: prev.id, letter: prev.letter } : null, {
+      floorPlanChecksums: { before: prevSide?.floorPlanChecksum ?? null, after: rev.floorPlanChecksum ?? null },
+    }),
     mail: deliveries.map((d) => ({ id: d.id, kind: d.kind, to: d.to, subject: d.subject, status: d.status, error: d.error, attempts: d.attempts, lastAttemptAt: iso(d.lastAttemptAt) })),
   };
 }

@@ -4,19 +4,15 @@
  * stored apart, once per content (snapshot_floor_plans, keyed by the sha256 of its canonical JSON);
  * the revision's checksum is taken over the whole snapshot with the floor plan in it, as it always was.
  */
-import { createHash } from 'node:crypto';
 import type { Transaction } from 'sequelize';
-import { canonicalJson } from '@shared/canonicalJson';
 import type { LayoutContent } from '@shared/schemas/layout';
 import { upgradeFloorPlanNames, upgradeSnapshotNames, type RevisionSnapshot, type SnapshotFloorPlan as FloorPlanPart, type StoredRevisionSnapshot } from '@shared/schemas/revision';
 import { notFound } from '../../http/errors';
 import { ArmModel, FloorPlan, Project, SnapshotFloorPlan, type Layout, type Revision } from '../../models';
 import { analyzeLayout } from '../layoutAnalysis';
+import { snapshotChecksum } from './checksum';
 
-/** sha256 (hex) of the canonical JSON of a snapshot (keys sorted at every level). */
-export function snapshotChecksum(snapshot: unknown): string {
-  return createHash('sha256').update(canonicalJson(snapshot)).digest('hex');
-}
+export { snapshotChecksum };
 
 /** Freezes a layout as stored now into a snapshot (JSON-normalised, so it reads back identically). */
 export async function buildSnapshot(layout: Layout): Promise<RevisionSnapshot> {

@@ -1,45 +1,117 @@
+import { useId, useState } from 'react';
+import type { DiffElement, RevisionChangeGroup } from '@shared/schemas/revision';
 import type { RevisionDiffDto } from '../../api/revisions';
+import { Button } from '../Button';
 
-const mm = new Intl.NumberFormat(undefined, { maximumFractionDigits: 0 });
-const deg = new Intl.NumberFormat(undefined, { maximumFractionDigits: 1, signDisplay: 'exceptZero' });
+/** The sections of the diff, in the order the server groups them; one-of-a-kind parts list their changes directly. */
+const SECTIONS: ReadonlyArray<{ element: DiffElement; heading: string; single?: boolean }> = [
+  { element: 'project', heading: 'Project', single: true },
+  { element: 'layout', heading: 'Cell layout', single: true },
+  { element: 'floorPlan', heading: 'Floor plan', single: true },
+  { element: 'workHeights', heading: 'Work heights', single: true },
+  { element: 'arm', heading: 'Arms' },
+  { element: 'armModel', heading: 'Arm models' },
+  { element: 'boundary', heading: 'Boundaries' },
+  { element: 'workPoint', heading: 'Work points' },
+  { element: 'other', heading: 'Other', single: true },
+];
 
-/** What changed since the previous revision: arms moved (plan distance, turn), added, removed; findings new and gone. */
+/** Elements listed before "Show all" (a re-imported list of work points can change thousands). */
+const FIRST = 30;
+
+function ChangeList({ group }: { group: RevisionChangeGroup }) {
+  return (
+    <ul className="ml-4 list-disc">
+      {group.changes.map((c, i) => (
+        <li key={`${c.field}:${i}`} data-change-field={c.field}>
+          {c.text}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function Section({ heading, groups, single }: { heading: string; groups: RevisionChangeGroup[]; single?: boolean }) {
+  const id = useId();
+  const [all, setAll] = useState(false);
+  const shown = all ? groups : groups.slice(0, FIRST);
+  return (
+    <section aria-labelledby={id} data-diff-section={groups[0].element}>
+      <h3 id={id} className="text-xs font-bold tracking-wide text-ink-muted uppercase">
+        {heading}
+        {!single && ` (${groups.length})`}
+        {single && groups[0].status !== 'changed' && ` — ${groups[0].status}`}
+      </h3>
+      {single ? (
+        <ChangeList group={groups[0]} />
+      ) : (
+        <ul className="flex flex-col gap-1">
+          {shown.map((g) => (
+            <li key={g.id ?? g.title} data-diff-group={`${g.element}:${g.id ?? ''}`}>
+              <span className="font-bold">{g.title}</span>
+              {g.status !== 'changed' && <span className={g.status === 'added' ? 'text-accent' : 'text-finding-critical'}> — {g.status}</span>}
+              <ChangeList group={g} />
+            </li>
+          ))}
+        </ul>
+      )}
+      {!single && groups.length > FIRST && (
+        <Button size="sm" variant="quiet" onClick={() => setAll((v) => !v)} aria-expanded={all}>
+          {all ? `Show the first ${FIRST}` : `Show all ${groups.length} ${heading.toLowerCase()}`}
+        </Button>
+      )}
+    </section>
+  );
+}
+
+/**
+ * What changed since the previous revision, grouped by element: project and cell layout, floor plan,
+ * work heights, arms, arm models, boundaries (fences, access openings, keep-outs, operator areas),
+ * work points; then findings new, gone and changed.
+ */
 export function RevisionDiffPanel({ diff }: { diff: RevisionDiffDto }) {
   if (!diff.previous) return <p className="text-sm text-ink-muted">First revision of this layout: nothing to compare with.</p>;
-  const { arms, findings } = diff;
-  const none = !arms.added.length && !arms.removed.length && !arms.moved.length && !findings.added.length && !findings.removed.length;
+  const { groups, findings } = diff;
+  const noFindings = !findings.added.length && !findings.removed.length && !findings.changed.length;
   return (
-    <div className="flex flex-col gap-2 text-sm" data-diff>
+    <div className="flex flex-col gap-3 text-sm" data-diff>
       <p className="text-ink-muted">Compared with revision {diff.previous.letter}.</p>
-      {none && <p>No arm moved and the findings are the same.</p>}
-      <ul className="flex flex-col gap-1">
-        {arms.moved.map((a) => (
-          <li key={`m${a.id}`}>
-            <span className="font-bold">{a.id}</span> moved {mm.format(a.distance)} mm (from {mm.format(a.from[0])}, {mm.format(a.from[1])} to {mm.format(a.to[0])}, {mm.format(a.to[1])})
-            {Math.abs(a.yawChange) > 0.01 && <>, turned {deg.format(a.yawChange)}°</>}
-          </li>
-        ))}
-        {arms.added.map((a) => (
-          <li key={`a${a.id}`}>
-            <span className="font-bold">{a.id}</span> added at {mm.format(a.x)}, {mm.format(a.y)} mm
-          </li>
-        ))}
-        {arms.removed.map((a) => (
-          <li key={`r${a.id}`}>
-            <span className="font-bold">{a.id}</span> removed (was at {mm.format(a.x)}, {mm.format(a.y)} mm)
-          </li>
-        ))}
-        {findings.added.map((f) => (
-          <li key={`fa${f.id}`} className="text-finding-critical">
-            New finding: {f.message} <code className="text-xs">{f.id}</code>
-          </li>
-        ))}
-        {findings.removed.map((f) => (
-          <li key={`fr${f.id}`} className="text-accent">
-            Gone: {f.message} <code className="text-xs">{f.id}</code>
-          </li>
-        ))}
-      </ul>
+      {!groups.length && noFindings && (
+        <p data-diff-empty>
+          No changes: the cell layout, its arm models, boundaries, work points and floor plan are as in revision {diff.previous.letter}, and so are the findings.
+        </p>
+      )}
+      {SECTIONS.map((s) => {
+        const mine = groups.filter((g) => g.element === s.element);
+        return mine.length ? <Section key={s.element} heading={s.heading} groups={mine} single={s.single} /> : null;
+      })}
+      {!noFindings && (
+        <section aria-labelledby="diff-findings" data-diff-section="findings">
+          <h3 id="diff-findings" className="text-xs font-bold tracking-wide text-ink-muted uppercase">
+            Findings
+          </h3>
+          <ul className="flex flex-col gap-1">
+            {findings.added.map((f) => (
+              <li key={`fa${f.id}`} className="text-finding-critical">
+                New finding: {f.message} <code className="text-xs">{f.id}</code>
+              </li>
+            ))}
+            {findings.removed.map((f) => (
+              <li key={`fr${f.id}`} className="text-accent">
+                Gone: {f.message} <code className="text-xs">{f.id}</code>
+              </li>
+            ))}
+            {findings.changed.map((f) => (
+              <li key={`fc${f.id}`}>
+                Changed: {f.message} <code className="text-xs">{f.id}</code>
+                <span className="block text-ink-muted">
+                  Was{f.before.severity !== f.severity ? ` ${f.before.severity}` : ''}: {f.before.message}
+                </span>
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
     </div>
   );
 }
