@@ -62,7 +62,7 @@ describe('demo seed', () => {
 
   it('revision A froze the first draft and was returned for changes by the demo reviewer with the comment of the history', async () => {
     expect(revA.letter).toBe('A');
-    expect(revA.state).toBe('changes_requested');
+    expect(revA.state).toBe('returned');
     expect(revA.submittedBy).toBe(planner.id);
     expect(revA.decidedBy).toBe(reviewer.id);
     const story = JSON.parse(readFileSync(DEMO_HISTORY_FILE, 'utf8'));
@@ -114,10 +114,10 @@ describe('demo seed', () => {
     const events = await AuditEvent.findAll({ where: { entity: ['revision', 'layout'] }, order: [['id', 'ASC']] });
     expect(events.map((e) => [e.action, e.entityId, e.actorId, e.at.toISOString()])).toEqual([
       ['revision.submit', String(revA.id), planner.id, '2026-03-12T16:05:00.000Z'],
-      ['revision.request_changes', String(revA.id), reviewer.id, '2026-03-13T10:40:00.000Z'],
+      ['revision.return', String(revA.id), reviewer.id, '2026-03-13T10:40:00.000Z'],
       ['layout.update', String(layout.id), planner.id, '2026-03-15T09:15:00.000Z'],
       ['revision.submit', String(revB.id), planner.id, '2026-03-15T11:30:00.000Z'],
-      ['revision.approve', String(revB.id), reviewer.id, '2026-03-16T15:00:00.000Z'],
+      ['revision.sign_off', String(revB.id), reviewer.id, '2026-03-16T15:00:00.000Z'],
       ['revision.release', String(revB.id), planner.id, '2026-03-17T09:20:00.000Z'],
     ]);
     expect(events.at(-1)!.details).toMatchObject({ letter: 'B', planSheetChecksum: revB.planSheetChecksum });
@@ -170,11 +170,11 @@ describe('demo seed', () => {
     const got = await asPlanner.get(`/api/layouts/${layout.id}`);
     expect(got.body.layout.version).toBe(2);
     const content = got.body.layout.content;
-    content.zones = content.zones.map((z: { id: string; height?: number }) => (z.id === 'F1' ? { ...z, height: 2200 } : z));
+    content.boundaries = content.boundaries.map((z: { id: string; height?: number }) => (z.id === 'F1' ? { ...z, height: 2200 } : z));
     const put = await asPlanner.put(`/api/layouts/${layout.id}`).send({ version: 2, content });
     expect(put.status).toBe(200);
     expect(put.body.layout.version).toBe(3);
-    expect(put.body.layout.content.zones.find((z: { id: string }) => z.id === 'F1').height).toBe(2200);
+    expect(put.body.layout.content.boundaries.find((z: { id: string }) => z.id === 'F1').height).toBe(2200);
     // A new revision can be submitted from it (none is open).
     const sub = await asPlanner.post(`/api/layouts/${layout.id}/revisions`);
     expect(sub.status).toBe(201);

@@ -44,7 +44,7 @@ const content = (modelId: number, r1: [number, number]) => ({
     { id: 'R2', armModelId: modelId, label: 'Picker 2', x: 4800, y: 3000, yaw: 180, mountHeight: 0 },
   ],
   workPoints: [{ id: 'P1', x: 4400, y: 3000, z: 100, approach: 'any', tag: 'infeed' }],
-  zones: [],
+  boundaries: [],
   workHeights: [100],
 });
 
@@ -115,12 +115,12 @@ describe('review and release workflow', () => {
     expect((await P.patch(`/api/comments/${onSpot.body.comment.id}`).send({ resolved: true })).body.comment.resolved).toBe(true);
 
     // Decision: reviewers only (admins may not decide); a comment is required to send it back.
-    for (const who of [P, A, C]) expect((await who.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'approve' })).status).toBe(403);
-    expect((await R.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'request_changes', comment: '  ' })).status).toBe(400);
-    const back = await R.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'request_changes', comment: 'Move picker 1 away from picker 2.' });
+    for (const who of [P, A, C]) expect((await who.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'sign_off' })).status).toBe(403);
+    expect((await R.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'return', comment: '  ' })).status).toBe(400);
+    const back = await R.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'return', comment: 'Move picker 1 away from picker 2.' });
     expect(back.status).toBe(200);
-    expect(back.body.revision).toMatchObject({ state: 'changes_requested', decisionComment: 'Move picker 1 away from picker 2.' });
-    expect((await R.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'approve' })).status).toBe(409);
+    expect(back.body.revision).toMatchObject({ state: 'returned', decisionComment: 'Move picker 1 away from picker 2.' });
+    expect((await R.post(`/api/revisions/${revA.id}/decision`).send({ decision: 'sign_off' })).status).toBe(409);
     const toPlanner = await MailMessage.findOne({ where: { subject: `${project.name}: revision A of End-of-line cell needs changes` } });
     expect(toPlanner!.to).toEqual([planner.email]);
     expect(toPlanner!.text).toContain('Move picker 1 away');
@@ -146,8 +146,8 @@ describe('review and release workflow', () => {
     // A is still as it was frozen.
     expect((await P.get(`/api/revisions/${revA.id}`)).body.revision.snapshot.layout.content.arms[0]).toMatchObject({ x: 4000, y: 3000 });
 
-    const approved = await R.post(`/api/revisions/${revB.id}/decision`).send({ decision: 'approve', comment: '' });
-    expect(approved.body.revision.state).toBe('approved');
+    const approved = await R.post(`/api/revisions/${revB.id}/decision`).send({ decision: 'sign_off', comment: '' });
+    expect(approved.body.revision.state).toBe('signed_off');
 
     // Clients see nothing before release.
     expect((await C.get(`/api/projects/${project.id}/revisions`)).body.revisions).toEqual([]);
@@ -215,7 +215,7 @@ describe('review and release workflow', () => {
 
     // Every step wrote an audit event.
     const actions = (await AuditEvent.findAll({ where: { entity: ['revision', 'comment'] }, order: [['id', 'ASC']] })).map((e) => e.action);
-    for (const a of ['revision.submit', 'comment.create', 'comment.resolve', 'revision.request_changes', 'revision.approve', 'revision.release', 'revision.acknowledge']) expect(actions).toContain(a);
+    for (const a of ['revision.submit', 'comment.create', 'comment.resolve', 'revision.return', 'revision.sign_off', 'revision.release', 'revision.acknowledge']) expect(actions).toContain(a);
   });
 
   it('a reviewer cannot decide a revision they submitted', async () => {
@@ -229,7 +229,7 @@ describe('review and release workflow', () => {
     // The submitter later became a reviewer (a role change), which must not let them sign off their own work.
     await Revision.sequelize!.query('UPDATE revisions SET "submittedBy" = :u WHERE id = :id', { replacements: { u: reviewer.id, id: rev.id } });
     const R = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
-    const res = await R.post(`/api/revisions/${rev.id}/decision`).send({ decision: 'approve' });
+    const res = await R.post(`/api/revisions/${rev.id}/decision`).send({ decision: 'sign_off' });
     expect(res.status).toBe(403);
     expect(res.body.error.message).toMatch(/you submitted/i);
   });
@@ -244,7 +244,7 @@ describe('review and release workflow', () => {
     const P = await signedIn(t.app, planner.email, TEST_PASSWORD);
     const R = await signedIn(t.app, reviewer.email, TEST_PASSWORD);
     const rev = (await P.post(`/api/layouts/${layout.id}/revisions`)).body.revision;
-    await R.post(`/api/revisions/${rev.id}/decision`).send({ decision: 'approve' });
+    await R.post(`/api/revisions/${rev.id}/decision`).send({ decision: 'sign_off' });
 
     const good = inner;
     inner = createMailer('smtp://127.0.0.1:1', FROM); // nothing listens on port 1: a real connection failure
@@ -297,7 +297,7 @@ describe('floor plans of revisions', () => {
     const plansBefore = await SnapshotFloorPlan.count();
     const a = await P.post(`/api/layouts/${layout.id}/revisions`);
     expect(a.status).toBe(201);
-    expect((await R.post(`/api/revisions/${a.body.revision.id}/decision`).send({ decision: 'request_changes', comment: 'Move picker 1.' })).status).toBe(200);
+    expect((await R.post(`/api/revisions/${a.body.revision.id}/decision`).send({ decision: 'return', comment: 'Move picker 1.' })).status).toBe(200);
     await P.put(`/api/layouts/${layout.id}`).send({ version: layout.version, content: content(model.id, [3000, 3000]) }).expect(200);
     const b = await P.post(`/api/layouts/${layout.id}/revisions`);
     expect(b.status).toBe(201);

@@ -30,10 +30,10 @@ export const seedDemoReview: SeedStep = async ({ transaction, project, accounts,
   const { revisionA: a, revisionB: b } = history;
 
   const revA = await freezeRevision(planner, layout.id, a.submitted, transaction);
-  await recordDecision(reviewer, revA.id, { decision: 'request_changes', comment: a.returnComment }, a.returned, transaction);
+  await recordDecision(reviewer, revA.id, { decision: 'return', comment: a.returnComment }, a.returned, transaction);
 
   await updateLayout(planner, layout.id, { version: layout.version, content: demo.content }, transaction, b.edited);
   const revB = await freezeRevision(planner, layout.id, b.submitted, transaction);
-  await recordDecision(reviewer, revB.id, { decision: 'approve', comment: b.signOffComment }, b.signedOff, transaction);
+  await recordDecision(reviewer, revB.id, { decision: 'sign_off', comment: b.signOffComment }, b.signedOff, transaction);
   await storeRelease(planner, revB.id, b.released, transaction);
 };

@@ -21,7 +21,7 @@ export function layoutsRouter(sequelize: Sequelize): Router {
     res.json({
       layouts: layouts.map((l) => {
         const c = l.content as LayoutContent;
-        return { ...presentLayout(l), content: undefined, counts: { arms: c.arms?.length ?? 0, workPoints: c.workPoints?.length ?? 0, zones: c.zones?.length ?? 0 } };
+        return { ...presentLayout(l), content: undefined, counts: { arms: c.arms?.length ?? 0, workPoints: c.workPoints?.length ?? 0, boundaries: c.boundaries?.length ?? 0 } };
       }),
     });
   });

@@ -33,7 +33,7 @@ export function assertAnalysisSize(content: Pick<LayoutContent, 'arms' | 'workPo
 
 /**
  * Runs the shared analysis on a layout as stored: its floor plan (layer roles and heights), the arm
- * models it places, its work points, zones and work heights. The database is read here; the
+ * models it places, its work points, boundaries and work heights. The database is read here; the
  * analysis itself runs in the heavy-work pool (services/workerPool.ts). Reads inside `transaction` when given.
  */
 export async function analyzeLayout(layout: Layout, contentOverride?: LayoutContent, transaction?: Transaction): Promise<AnalysisResult> {
@@ -47,7 +47,7 @@ export async function analyzeLayout(layout: Layout, contentOverride?: LayoutCont
     job: {
       models: models.map((m) => [m.id, m.params]),
       floor: fp ? { geometry: fp.geometry, layers: fp.layers as FloorLayer[] } : null,
-      content: { arms: content.arms, workPoints: content.workPoints, zones: content.zones, workHeights: content.workHeights },
+      content: { arms: content.arms, workPoints: content.workPoints, boundaries: content.boundaries, workHeights: content.workHeights },
     },
   });
 }

@@ -46,7 +46,7 @@ function facts(rev: Revision) {
 export async function storeRelease(user: SessionUser, id: number, now: Date, transaction: Transaction): Promise<Revision> {
   const r = await Revision.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
   if (!r) throw notFound('Revision');
-  if (r.state !== 'approved') throw conflict(r.state === 'released' ? `Revision ${r.letter} is already released.` : `Only an approved revision can be released; revision ${r.letter} is ${r.state.replace('_', ' ')}.`);
+  if (r.state !== 'signed_off') throw conflict(r.state === 'released' ? `Revision ${r.letter} is already released.` : `Only an approved revision can be released; revision ${r.letter} is ${r.state.replace('_', ' ')}.`);
   r.set({ state: 'released', releasedBy: user.id, releasedAt: now, sheetCreatedAt: now });
   const pdf = await render(await loadRevisionSheetInput(r, transaction), { size: RELEASE_SHEET_SIZE, draft: false, createdAt: now });
   r.set({ planSheet: pdf, planSheetChecksum: sha256Hex(pdf) });

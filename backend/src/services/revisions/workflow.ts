@@ -78,7 +78,7 @@ export async function submitRevision(sequelize: Sequelize, user: SessionUser, la
 
 /** What a reviewer decides about a submitted revision. */
 export interface RevisionDecision {
-  decision: 'approve' | 'request_changes';
+  decision: 'sign_off' | 'return';
   comment: string;
 }
 
@@ -87,14 +87,14 @@ export interface RevisionDecision {
  * one they submitted; sending back needs a comment). No mail: decideRevision sends it after commit.
  */
 export async function recordDecision(user: SessionUser, id: number, input: RevisionDecision, now: Date, transaction: Transaction): Promise<Revision> {
-  if (input.decision === 'request_changes' && !input.comment.trim()) throw badRequest('Say what needs to change.', { comment: 'A comment is required to request changes' });
+  if (input.decision === 'return' && !input.comment.trim()) throw badRequest('Say what needs to change.', { comment: 'A comment is required to request changes' });
   const r = await Revision.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE, attributes: { exclude: ['planSheet'] } });
   if (!r) throw notFound('Revision');
   if (r.submittedBy === user.id) throw forbidden('You submitted this revision; another reviewer must decide it.');
   if (r.state !== 'submitted') throw conflict(`Revision ${r.letter} was already decided (${r.state.replace('_', ' ')}).`);
-  const state: RevisionState = input.decision === 'approve' ? 'approved' : 'changes_requested';
+  const state: RevisionState = input.decision === 'sign_off' ? 'signed_off' : 'returned';
   await r.update({ state, decidedBy: user.id, decidedAt: now, decisionComment: input.comment.trim() || null }, { transaction });
-  await audit(user.id, `revision.${input.decision === 'approve' ? 'approve' : 'request_changes'}`, 'revision', r.id, { letter: r.letter, comment: input.comment.trim() }, transaction, now);
+  await audit(user.id, `revision.${input.decision === 'sign_off' ? 'sign_off' : 'return'}`, 'revision', r.id, { letter: r.letter, comment: input.comment.trim() }, transaction, now);
   return r;
 }
 
