@@ -2,6 +2,7 @@ import type { Router } from 'express';
 import { seedDemoCatalogue } from './db/demoCatalogue';
 import { seedDemoFloorPlan } from './db/demoFloorPlan';
 import { seedDemoLayout } from './db/demoLayout';
+import { seedDemoReview } from './db/demoReview';
 import type { SeedStep } from './db/seed';
 import type { FeatureContext } from './featureContext';
 import { adminAuditRouter } from './routes/adminAudit';
@@ -43,5 +44,5 @@ export function featureRouters(ctx: FeatureContext): Router[] {
 
 /** Demo seeding steps of the features, run in order after the demo accounts and project. */
 export function featureSeedSteps(): SeedStep[] {
-  return [seedDemoCatalogue, seedDemoFloorPlan, seedDemoLayout];
+  return [seedDemoCatalogue, seedDemoFloorPlan, seedDemoLayout, seedDemoReview];
 }

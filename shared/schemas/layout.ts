@@ -178,6 +178,7 @@ export const LayoutUpdateInput = z.object({
   floorPlanId: positiveId().nullable().optional(),
   content: LayoutContent.optional(),
 });
+export type LayoutUpdateInput = z.infer<typeof LayoutUpdateInput>;
 
 export interface LayoutDto {
   id: number;

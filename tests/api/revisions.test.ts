@@ -10,7 +10,7 @@ import { createMailer, type Mailer } from '../../backend/src/services/mail/maile
 import { rerenderReleased } from '../../backend/src/services/release';
 import { fullSnapshot, revisionLetter } from '../../backend/src/services/revisions';
 import { buildArmModel, buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
-import { createTestApp, signedIn, type TestApp } from '../support/testApp';
+import { createTestApp, getBytes, signedIn, type TestApp } from '../support/testApp';
 
 const sha256 = (b: Buffer | string) => createHash('sha256').update(b).digest('hex');
 // An independent canonical form (keys sorted at every level) to check the stored checksum against.
@@ -37,17 +37,6 @@ afterAll(async () => {
   await smtp.close();
   await t.close();
 });
-
-function pdfGet(agent: ReturnType<typeof request.agent>, url: string) {
-  return agent
-    .get(url)
-    .buffer(true)
-    .parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
-}
 
 const content = (modelId: number, r1: [number, number]) => ({
   arms: [
@@ -170,7 +159,7 @@ describe('review and release workflow', () => {
     // Clients see nothing before release.
     expect((await C.get(`/api/projects/${project.id}/revisions`)).body.revisions).toEqual([]);
     expect((await C.get(`/api/revisions/${revB.id}`)).status).toBe(404);
-    expect((await pdfGet(C, `/api/revisions/${revB.id}/plan-sheet.pdf`)).status).toBe(404);
+    expect((await getBytes(C, `/api/revisions/${revB.id}/plan-sheet.pdf`)).status).toBe(404);
     expect((await C.get(`/api/layouts/${layout.id}/revisions`)).status).toBe(403);
 
     // Release: planners only, approved only.
@@ -199,22 +188,22 @@ describe('review and release workflow', () => {
     expect(detail).not.toHaveProperty('comments');
     expect(detail).not.toHaveProperty('snapshot');
     expect(detail).not.toHaveProperty('decisionComment');
-    const dl = await pdfGet(C, `/api/revisions/${revB.id}/plan-sheet.pdf?download=1`);
+    const dl = await getBytes(C, `/api/revisions/${revB.id}/plan-sheet.pdf?download=1`);
     expect(dl.status).toBe(200);
     expect(dl.headers['content-type']).toBe('application/pdf');
     expect(dl.headers['content-disposition']).toMatch(/^attachment/);
     expect(sha256(dl.body as Buffer)).toBe(rowB!.planSheetChecksum);
     expect((await C.get(`/api/revisions/${revA.id}`)).status).toBe(404);
-    expect((await pdfGet(C, `/api/revisions/${revA.id}/plan-sheet.pdf`)).status).toBe(404);
+    expect((await getBytes(C, `/api/revisions/${revA.id}/plan-sheet.pdf`)).status).toBe(404);
     // Another project's client: nothing, whatever id is tried.
     expect((await C2.get(`/api/revisions/${revB.id}`)).status).toBe(404);
-    expect((await pdfGet(C2, `/api/revisions/${revB.id}/plan-sheet.pdf`)).status).toBe(404);
+    expect((await getBytes(C2, `/api/revisions/${revB.id}/plan-sheet.pdf`)).status).toBe(404);
     expect((await C2.get(`/api/projects/${project.id}/revisions`)).status).toBe(404);
     const otherRev = await P.post(`/api/layouts/${otherLayout.id}/revisions`);
     expect((await C.get(`/api/revisions/${otherRev.body.revision.id}`)).status).toBe(404);
 
     // Staff get a fresh DRAFT of an unreleased revision (not the stored sheet).
-    const draft = await pdfGet(R, `/api/revisions/${revA.id}/plan-sheet.pdf`);
+    const draft = await getBytes(R, `/api/revisions/${revA.id}/plan-sheet.pdf`);
     expect(draft.status).toBe(200);
     expect((draft.body as Buffer).subarray(0, 5).toString('latin1')).toBe('%PDF-');
     expect(draft.headers['content-disposition']).toMatch(/DRAFT/);
@@ -406,7 +395,7 @@ describe('floor plans of revisions', () => {
     // The same stored plan on both sides: only the arm's move, no floor-plan change.
     expect(detail.body.revision.diff.groups.map((g: { id: string; changes: Array<{ text: string }> }) => [g.id, g.changes.map((c) => c.text)])).toEqual([['R1', ['moved 1000 mm (from 4000, 3000 to 3000, 3000 mm)']]]);
     // The sheet of a revision is drawn from the stored plan.
-    const sheet = await pdfGet(P, `/api/revisions/${b.body.revision.id}/plan-sheet.pdf`);
+    const sheet = await getBytes(P, `/api/revisions/${b.body.revision.id}/plan-sheet.pdf`);
     expect(sheet.status).toBe(200);
   });
 

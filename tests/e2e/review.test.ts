@@ -1,5 +1,6 @@
 // Review and release in Chromium: reviewer sends back with a comment on a finding, planner resubmits,
-// reviewer signs off, planner releases, the client downloads the sheet and acknowledges it.
+// reviewer signs off, planner releases, the client downloads the sheet and acknowledges it. The demo
+// layout already holds revisions A (returned for changes) and B (released), so this round is C and D.
 import { createHash } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
 import path from 'node:path';
@@ -12,6 +13,9 @@ const PLANNER = 'planner@fernhill.test';
 const REVIEWER = 'reviewer@fernhill.test';
 const CLIENT = 'client@fernhill.test';
 const DEMO_PROJECT = 'Line 3 end-of-line cell';
+// The letters this test's two submissions get after the demo's A and B.
+const FIRST = 'C';
+const SECOND = 'D';
 
 let e: E2e;
 beforeAll(async () => {
@@ -51,12 +55,13 @@ describe('review and release in Chromium', () => {
     await signInPage(reviewer, e.server.url, REVIEWER);
     const { projectId, layoutId } = await demoLayout(planner);
 
-    // Planner submits revision A from the editor.
-    const revA = await submitFromEditor(planner, projectId, layoutId);
+    // Planner submits revision C from the editor.
+    const revC = await submitFromEditor(planner, projectId, layoutId);
+    await planner.getByRole('heading', { name: new RegExp(`revision ${FIRST}$`) }).waitFor();
     await planner.getByText('Waiting for a reviewer’s sign-off.').waitFor();
 
     // Reviewer comments on the first finding and sends it back.
-    await reviewer.goto(`${e.server.url}/projects/${projectId}/revisions/${revA}`);
+    await reviewer.goto(`${e.server.url}/projects/${projectId}/revisions/${revC}`);
     const finding = reviewer.locator('[data-finding]').first();
     await finding.waitFor();
     const findingId = (await finding.getAttribute('data-finding'))!;
@@ -72,33 +77,33 @@ describe('review and release in Chromium', () => {
     await reviewer.getByRole('heading', { name: 'Comments on the plan' }).waitFor();
     await reviewer.getByRole('button', { name: 'Return for changes' }).click();
     await reviewer.getByRole('alert').filter({ hasText: 'Say what needs to change' }).waitFor();
-    await reviewer.getByLabel('Decision note (required to send it back)').fill('See the comment on the shared space.');
+    await reviewer.getByLabel('Decision note (required to return it for changes)').fill('See the comment on the shared space.');
     await reviewer.getByRole('button', { name: 'Return for changes' }).click();
     await reviewer.locator('[data-revision-state="returned"]').first().waitFor();
     await shot(reviewer, '1-changes-requested');
 
-    // Planner moves the first arm by 300 mm east (through the API) and resubmits: revision B.
+    // Planner moves the first arm by 300 mm east (through the API) and resubmits: revision D.
     await planner.evaluate(async (id) => {
       const { layout } = await (await fetch(`/api/layouts/${id}`)).json();
       const content = { ...layout.content, arms: layout.content.arms.map((a: { x: number }, i: number) => (i === 0 ? { ...a, x: a.x + 300 } : a)) };
       const r = await fetch(`/api/layouts/${id}`, { method: 'PUT', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ version: layout.version, content }) });
       if (!r.ok) throw new Error(`save: ${r.status}`);
     }, layoutId);
-    const revB = await submitFromEditor(planner, projectId, layoutId);
-    expect(revB).not.toBe(revA);
-    await planner.getByRole('heading', { name: /revision B$/ }).waitFor();
+    const revD = await submitFromEditor(planner, projectId, layoutId);
+    expect(revD).not.toBe(revC);
+    await planner.getByRole('heading', { name: new RegExp(`revision ${SECOND}$`) }).waitFor();
     // The change is listed under its element's heading, as a list a screen reader reads in order.
     const armsSection = planner.locator('[data-diff]').getByRole('region', { name: 'Arms (1)' });
     await armsSection.getByRole('listitem').filter({ hasText: /moved 300 mm/ }).first().waitFor();
 
-    // Reviewer sees A's comment as history on the same finding, and signs off B.
-    await reviewer.goto(`${e.server.url}/projects/${projectId}/revisions/${revB}`);
+    // Reviewer sees C's comment as history on the same finding, and signs off D.
+    await reviewer.goto(`${e.server.url}/projects/${projectId}/revisions/${revD}`);
     const same = reviewer.locator(`[data-finding="${findingId}"]`);
-    // The finding either persists (A's comment shown as its history) or is listed as gone in the diff.
+    // The finding either persists (C's comment shown as its history) or is listed as gone in the diff.
     await reviewer.locator('[data-finding]').first().waitFor();
     if (await same.count()) await same.getByRole('list', { name: `Earlier comments on ${findingId}` }).getByText('Check this against the cell drawing and move the arm if you can.').waitFor();
     else await reviewer.locator('[data-diff]').getByText(findingId).waitFor();
-    await reviewer.getByRole('button', { name: 'Sign off revision B' }).click();
+    await reviewer.getByRole('button', { name: `Sign off revision ${SECOND}` }).click();
     await reviewer.locator('[data-revision-state="signed_off"]').first().waitFor();
     await shot(reviewer, '2-signed-off');
 
@@ -107,19 +112,19 @@ describe('review and release in Chromium', () => {
     await planner.getByRole('button', { name: 'Release to the client' }).click();
     await planner.locator('[data-mail-status="sent"]').waitFor();
     await shot(planner, '3-released');
-    const stored = await Revision.findByPk(revB);
+    const stored = await Revision.findByPk(revD);
     expect(stored!.state).toBe('released');
-    const mail = await MailMessage.findOne({ where: { subject: `${DEMO_PROJECT}: plan sheet, revision B released` } });
+    const mail = await MailMessage.findOne({ where: { subject: `${DEMO_PROJECT}: plan sheet, revision ${SECOND} released` } });
     expect(mail!.to).toContain(CLIENT);
     expect(mail!.attachments[0].checksum).toBe(stored!.planSheetChecksum);
 
-    // The client finds the released revision on the project page, downloads it and acknowledges receipt.
+    // The client finds the released revision on the project page (beside the demo's released B), downloads it and acknowledges receipt.
     await signInPage(client, e.server.url, CLIENT);
     await client.goto(`${e.server.url}/projects/${projectId}`);
     const table = client.getByRole('table', { name: 'Revisions' });
     await table.waitFor();
-    expect(await table.locator('[data-revision]').count()).toBe(1);
-    await table.getByRole('link', { name: 'Revision B' }).click();
+    await expect.poll(() => table.locator('[data-revision]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-revision')))).toEqual(['B', SECOND]);
+    await table.getByRole('link', { name: `Revision ${SECOND}` }).click();
     await client.getByRole('button', { name: 'Acknowledge receipt' }).waitFor();
     const [download] = await Promise.all([client.waitForEvent('download'), client.getByRole('link', { name: 'Download the plan sheet (PDF)' }).click()]);
     const bytes = await readFile((await download.path())!);
@@ -132,8 +137,8 @@ describe('review and release in Chromium', () => {
     await client.getByRole('button', { name: 'Acknowledge receipt' }).click();
     await client.locator('[data-acknowledged]').waitFor();
     await shot(client, '4-client-acknowledged');
-    // The unreleased revision A is not there for the client.
-    await client.goto(`${e.server.url}/projects/${projectId}/revisions/${revA}`);
+    // The unreleased revision C is not there for the client.
+    await client.goto(`${e.server.url}/projects/${projectId}/revisions/${revC}`);
     await client.getByRole('heading', { name: 'Revision not found' }).waitFor();
 
     // Staff see who acknowledged.

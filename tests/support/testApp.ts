@@ -93,3 +93,15 @@ export async function signedIn(app: Express, email: string, password: string): P
   if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return agent;
 }
+
+/** GET of a binary answer (a PDF, a DXF) with its body as one Buffer. */
+export function getBytes(agent: ReturnType<typeof request.agent>, url: string) {
+  return agent
+    .get(url)
+    .buffer(true)
+    .parse((res, cb) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+}

@@ -7,8 +7,8 @@ import type { SeedStep } from './seed';
 
 export const DEMO_FLOOR_PLAN_FILE = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../../samples/floor-plans/fernhill-hall.dxf');
 
-/** Seeds the demo hall (samples/floor-plans/fernhill-hall.dxf) into the demo project, read by the real importer. */
-export const seedDemoFloorPlan: SeedStep = async ({ transaction, planner, project }) => {
+/** Seeds the demo hall (samples/floor-plans/fernhill-hall.dxf) into the demo project, read by the real importer, dated as the history says. */
+export const seedDemoFloorPlan: SeedStep = async ({ transaction, planner, project, history }) => {
   const bytes = readFileSync(DEMO_FLOOR_PLAN_FILE);
   const result = await readFloorPlan(bytes);
   await FloorPlan.create(
@@ -24,7 +24,9 @@ export const seedDemoFloorPlan: SeedStep = async ({ transaction, planner, projec
       warnings: result.warnings,
       stats: { ...result.stats, chordToleranceMm: result.chordToleranceMm, insunits: result.insunits },
       createdBy: planner.id,
+      createdAt: history.floorPlanImported,
+      updatedAt: history.floorPlanImported,
     },
-    { transaction },
+    { transaction, silent: true },
   );
 };

@@ -1,8 +1,10 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import type { Transaction } from 'sequelize';
 import { LayoutContent } from '@shared/schemas/layout';
 import { ArmModel, FloorPlan, Layout } from '../models';
+import { firstDraftOf } from './demoHistory';
 import type { SeedStep } from './seed';
 
 export const DEMO_LAYOUT_FILE = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../../samples/layouts/fernhill-line3.json');
@@ -27,11 +29,31 @@ export function readDemoLayout(modelIdByName: (name: string) => number | undefin
   return { name: file.name, floorPlan: file.floorPlan, content: LayoutContent.parse(raw) };
 }
 
-/** Seeds the Fernhill line 3 layout on the demo hall (after the catalogue and floor-plan steps). */
-export const seedDemoLayout: SeedStep = async ({ transaction, planner, project }) => {
+/** The demo layout with its arms' models as the catalogue in the database names them. */
+export async function loadDemoLayout(transaction: Transaction): Promise<ReturnType<typeof readDemoLayout>> {
   const models = await ArmModel.findAll({ attributes: ['id', 'name'], transaction });
   const byName = new Map(models.map((m) => [m.name, m.id]));
-  const demo = readDemoLayout((n) => byName.get(n));
+  return readDemoLayout((n) => byName.get(n));
+}
+
+/**
+ * Seeds the Fernhill line 3 layout on the demo hall (after the catalogue and floor-plan steps) as it
+ * was first drawn (samples/demo-history.json); the review step then edits it into the working copy
+ * of samples/layouts/fernhill-line3.json.
+ */
+export const seedDemoLayout: SeedStep = async ({ transaction, planner, project, history }) => {
+  const demo = await loadDemoLayout(transaction);
   const plan = await FloorPlan.findOne({ where: { projectId: project.id, fileName: demo.floorPlan }, attributes: ['id'], transaction });
-  await Layout.create({ projectId: project.id, floorPlanId: plan?.id ?? null, name: demo.name, content: demo.content, createdBy: planner.id }, { transaction });
+  await Layout.create(
+    {
+      projectId: project.id,
+      floorPlanId: plan?.id ?? null,
+      name: demo.name,
+      content: firstDraftOf(demo.content, history),
+      createdBy: planner.id,
+      createdAt: history.layoutDrawn,
+      updatedAt: history.layoutDrawn,
+    },
+    { transaction, silent: true },
+  );
 };

@@ -3,6 +3,7 @@ import type { Role } from '@shared/schemas/user';
 import { hashPassword } from '../auth/passport';
 import { Project, ProjectMember, User } from '../models';
 import { audit } from '../services/audit/audit';
+import { readDemoHistory, type DemoHistory } from './demoHistory';
 
 export const DEMO_PASSWORD = 'ringfence-demo';
 
@@ -23,23 +24,36 @@ export const DEMO_PROJECT = {
     'a linkage-driven palletizer at the end of the line, one guard fence with an access opening and an operator area at the pallet exchange.',
 };
 
-/** Extra seeding steps later features register (catalogue, floor plan, layout); run in order inside the seed. */
-export type SeedStep = (ctx: { sequelize: Sequelize; transaction: Transaction; planner: User; project: Project }) => Promise<void>;
+/** What a seed step gets: the seed's transaction, the demo accounts by role, the project, and the demo's history (samples/demo-history.json). */
+export interface SeedContext {
+  sequelize: Sequelize;
+  transaction: Transaction;
+  planner: User;
+  accounts: ReadonlyMap<Role, User>;
+  project: Project;
+  history: DemoHistory;
+}
 
-/** Seeds the demo when the database has no users; returns true when it seeded. */
-export async function seedDemoIfEmpty(sequelize: Sequelize, opts: { bcryptCost: number; steps?: SeedStep[] }): Promise<boolean> {
+/** Extra seeding steps later features register (catalogue, floor plan, layout, its review); run in order inside the seed. */
+export type SeedStep = (ctx: SeedContext) => Promise<void>;
+
+/** Seeds the demo when the database has no users; returns true when it seeded. Its history is dated back from `now`. */
+export async function seedDemoIfEmpty(sequelize: Sequelize, opts: { bcryptCost: number; steps?: SeedStep[]; now?: Date }): Promise<boolean> {
   if ((await User.count()) > 0) return false;
   const hash = await hashPassword(DEMO_PASSWORD, opts.bcryptCost);
+  const history = readDemoHistory(opts.now ?? new Date());
+  // silent: the rows carry the history's times, not the time of seeding.
+  const dated = (at: Date) => ({ createdAt: at, updatedAt: at });
   await sequelize.transaction(async (transaction) => {
     const users = new Map<Role, User>();
     for (const a of DEMO_ACCOUNTS) {
-      users.set(a.role, await User.create({ ...a, passwordHash: hash }, { transaction }));
+      users.set(a.role, await User.create({ ...a, passwordHash: hash, ...dated(history.accountsCreated) }, { transaction, silent: true }));
     }
     const planner = users.get('planner')!;
-    const project = await Project.create({ ...DEMO_PROJECT, createdBy: planner.id }, { transaction });
-    await ProjectMember.create({ projectId: project.id, userId: users.get('client')!.id }, { transaction });
+    const project = await Project.create({ ...DEMO_PROJECT, createdBy: planner.id, ...dated(history.projectCreated) }, { transaction, silent: true });
+    await ProjectMember.create({ projectId: project.id, userId: users.get('client')!.id, createdAt: history.projectCreated }, { transaction });
     await audit(null, 'demo.seed', 'project', project.id, {}, transaction);
-    for (const step of opts.steps ?? []) await step({ sequelize, transaction, planner, project });
+    for (const step of opts.steps ?? []) await step({ sequelize, transaction, planner, accounts: users, project, history });
   });
   return true;
 }

@@ -2,31 +2,13 @@ import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { LayoutContent, LayoutCreateInput, LayoutUpdateInput } from '@shared/schemas/layout';
 import { allow, currentUser } from '../auth/guards';
-import { badRequest, conflict, notFound } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
-import { ArmModel, FloorPlan, Layout } from '../models';
+import { Layout } from '../models';
 import { deleteReturnedRevisions, refuseDeletingRecords } from '../services/archive';
 import { audit } from '../services/audit/audit';
 import { analyzeLayout } from '../services/layoutAnalysis';
-import { loadVisibleLayout, presentLayout } from '../services/layouts';
+import { checkLayoutReferences, loadVisibleLayout, presentLayout, updateLayout } from '../services/layouts';
 import { loadVisibleProject } from '../services/projectAccess';
-
-/** Checks references the schema cannot: arm models exist, the floor plan is in the same project. */
-async function checkReferences(projectId: number, floorPlanId: number | null | undefined, content: LayoutContent | undefined) {
-  if (floorPlanId != null) {
-    const fp = await FloorPlan.findByPk(floorPlanId, { attributes: ['id', 'projectId'] });
-    if (!fp || fp.projectId !== projectId) throw badRequest('The floor plan is not one of this project.', { floorPlanId: 'Choose a floor plan of this project' });
-  }
-  if (content) {
-    const ids = [...new Set(content.arms.map((a) => a.armModelId))];
-    const found = new Set((await ArmModel.findAll({ where: { id: ids }, attributes: ['id'] })).map((m) => m.id));
-    const fields: Record<string, string> = {};
-    content.arms.forEach((a, i) => {
-      if (!found.has(a.armModelId)) fields[`content.arms.${i}.armModelId`] = `Unknown arm model ${a.armModelId}`;
-    });
-    if (Object.keys(fields).length) throw badRequest(`The cell layout names an arm model that does not exist (${Object.values(fields)[0]}).`, fields);
-  }
-}
 
 /** Layouts (working copies) of a project; PUT carries `version` (optimistic lock, 409 when stale). */
 export function layoutsRouter(sequelize: Sequelize): Router {
@@ -48,7 +30,7 @@ export function layoutsRouter(sequelize: Sequelize): Router {
     const user = currentUser(req);
     const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
     const input = parseOr400(LayoutCreateInput, req.body, 'The cell layout');
-    await checkReferences(project.id, input.floorPlanId, input.content);
+    await checkLayoutReferences(project.id, input.floorPlanId, input.content);
     const layout = await sequelize.transaction(async (transaction) => {
       const l = await Layout.create({ projectId: project.id, floorPlanId: input.floorPlanId, name: input.name, content: input.content, createdBy: user.id }, { transaction });
       await audit(user.id, 'layout.create', 'layout', l.id, { projectId: project.id, name: l.name }, transaction);
@@ -67,24 +49,7 @@ export function layoutsRouter(sequelize: Sequelize): Router {
     const id = idParam(req.params.id, 'Layout');
     await loadVisibleLayout(user, id);
     const input = parseOr400(LayoutUpdateInput, req.body, 'The cell layout');
-    const updated = await sequelize.transaction(async (transaction) => {
-      // Lock the row so two saves cannot both pass the version check.
-      const layout = await Layout.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
-      if (!layout) throw notFound('Layout');
-      if (layout.version !== input.version) {
-        throw conflict(`This cell layout was changed elsewhere (now version ${layout.version}, you edited ${input.version}). Reload it or keep your copy.`, {
-          currentVersion: layout.version,
-        });
-      }
-      await checkReferences(layout.projectId, input.floorPlanId, input.content);
-      const changes: Partial<Layout> = { version: layout.version + 1 };
-      if (input.name !== undefined) changes.name = input.name;
-      if (input.floorPlanId !== undefined) changes.floorPlanId = input.floorPlanId;
-      if (input.content !== undefined) changes.content = input.content;
-      await layout.update(changes, { transaction });
-      await audit(user.id, 'layout.update', 'layout', layout.id, { version: layout.version }, transaction);
-      return layout;
-    });
+    const updated = await sequelize.transaction((transaction) => updateLayout(user, id, input, transaction));
     res.json({ layout: presentLayout(updated) });
   });
 
@@ -93,7 +58,7 @@ export function layoutsRouter(sequelize: Sequelize): Router {
     const layout = await loadVisibleLayout(currentUser(req), idParam(req.params.id, 'Layout'));
     const body = (req.body ?? {}) as { content?: unknown };
     const content = body.content === undefined ? undefined : parseOr400(LayoutContent, body.content, 'The cell layout content');
-    if (content) await checkReferences(layout.projectId, undefined, content);
+    if (content) await checkLayoutReferences(layout.projectId, undefined, content);
     const result = await analyzeLayout(layout, content);
     res.json(result);
   });

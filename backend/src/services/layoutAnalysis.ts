@@ -1,5 +1,6 @@
 import type { AnalysisResult, FloorLayer } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
+import type { Transaction } from 'sequelize';
 import { HttpError } from '../http/errors';
 import { ArmModel, FloorPlan, type Layout } from '../models';
 import { runHeavy } from './workerPool';
@@ -33,14 +34,14 @@ export function assertAnalysisSize(content: Pick<LayoutContent, 'arms' | 'workPo
 /**
  * Runs the shared analysis on a layout as stored: its floor plan (layer roles and heights), the arm
  * models it places, its work points, boundaries and work heights. The database is read here; the
- * analysis itself runs in the heavy-work pool (services/workerPool.ts).
+ * analysis itself runs in the heavy-work pool (services/workerPool.ts). Reads inside `transaction` when given.
  */
-export async function analyzeLayout(layout: Layout, contentOverride?: LayoutContent): Promise<AnalysisResult> {
+export async function analyzeLayout(layout: Layout, contentOverride?: LayoutContent, transaction?: Transaction): Promise<AnalysisResult> {
   const content = contentOverride ?? (layout.content as LayoutContent);
   assertAnalysisSize(content);
   const modelIds = [...new Set(content.arms.map((a) => a.armModelId))];
-  const models = await ArmModel.findAll({ where: { id: modelIds }, attributes: ['id', 'params'] });
-  const fp = layout.floorPlanId ? await FloorPlan.findByPk(layout.floorPlanId, { attributes: ['id', 'geometry', 'layers'] }) : null;
+  const models = await ArmModel.findAll({ where: { id: modelIds }, attributes: ['id', 'params'], transaction });
+  const fp = layout.floorPlanId ? await FloorPlan.findByPk(layout.floorPlanId, { attributes: ['id', 'geometry', 'layers'], transaction }) : null;
   return runHeavy({
     kind: 'analysis',
     job: {

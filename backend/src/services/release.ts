@@ -5,7 +5,7 @@
  * release: it is recorded in mail_deliveries and can be retried.
  */
 import { createHash } from 'node:crypto';
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import type { SessionUser } from '../auth/passport';
 import { conflict, notFound } from '../http/errors';
 import { Acknowledgement, MailDelivery, ProjectMember, Revision, User } from '../models';
@@ -40,19 +40,25 @@ function facts(rev: Revision) {
   return { projectName: snap.project.name, projectId: rev.projectId, revisionId: rev.id, layoutName: snap.layout.name, letter: rev.letter };
 }
 
+/**
+ * Renders the plan sheet of a signed-off revision and stores it with the revision (state released),
+ * inside the caller's transaction; 409 unless signed off. No mail: releaseRevision sends it after commit.
+ */
+export async function storeRelease(user: SessionUser, id: number, now: Date, transaction: Transaction): Promise<Revision> {
+  const r = await Revision.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+  if (!r) throw notFound('Revision');
+  if (r.state !== 'signed_off') throw conflict(r.state === 'released' ? `Revision ${r.letter} is already released.` : `Only a signed-off revision can be released; revision ${r.letter} is ${REVISION_STATE_LABEL[r.state].toLowerCase()}.`);
+  r.set({ state: 'released', releasedBy: user.id, releasedAt: now, sheetCreatedAt: now });
+  const pdf = await render(await loadRevisionSheetInput(r, transaction), { size: RELEASE_SHEET_SIZE, draft: false, createdAt: now });
+  r.set({ planSheet: pdf, planSheetChecksum: sha256Hex(pdf) });
+  await r.save({ transaction });
+  await audit(user.id, 'revision.release', 'revision', r.id, { letter: r.letter, planSheetChecksum: r.planSheetChecksum, bytes: pdf.length }, transaction, now);
+  return r;
+}
+
 /** Renders, stores and mails the plan sheet of a signed-off revision (planner). 409 unless signed off. */
 export async function releaseRevision(sequelize: Sequelize, user: SessionUser, id: number, mail: MailContext, now: Date) {
-  const rev = await sequelize.transaction(async (transaction) => {
-    const r = await Revision.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
-    if (!r) throw notFound('Revision');
-    if (r.state !== 'signed_off') throw conflict(r.state === 'released' ? `Revision ${r.letter} is already released.` : `Only a signed-off revision can be released; revision ${r.letter} is ${REVISION_STATE_LABEL[r.state].toLowerCase()}.`);
-    r.set({ state: 'released', releasedBy: user.id, releasedAt: now, sheetCreatedAt: now });
-    const pdf = await render(await loadRevisionSheetInput(r), { size: RELEASE_SHEET_SIZE, draft: false, createdAt: now });
-    r.set({ planSheet: pdf, planSheetChecksum: sha256Hex(pdf) });
-    await r.save({ transaction });
-    await audit(user.id, 'revision.release', 'revision', r.id, { letter: r.letter, planSheetChecksum: r.planSheetChecksum, bytes: pdf.length }, transaction);
-    return r;
-  });
+  const rev = await sequelize.transaction((transaction) => storeRelease(user, id, now, transaction));
   const out = releasedMail(mail, facts(rev), await clientEmails(rev.projectId), rev.planSheet!);
   const delivery = await attemptDelivery(mail, await recordDelivery('release', rev.id, out, now), out, now);
   return { revision: rev, delivery };

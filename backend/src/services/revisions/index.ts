@@ -8,4 +8,4 @@ export { diffSnapshots } from './diff';
 export { presentComment, presentRevisionDetail, presentRevisions, REVISION_LIST_ATTRIBUTES } from './present';
 export { loadRevisionSheetInput } from './sheetInput';
 export { buildSnapshot, fullSnapshot, loadSnapshotFloorPlan, readSnapshot, snapshotChecksum, splitSnapshot } from './snapshot';
-export { decideRevision, loadVisibleRevision, revisionLetter, submitRevision } from './workflow';
+export { decideRevision, freezeRevision, loadVisibleRevision, recordDecision, revisionLetter, submitRevision, type RevisionDecision } from './workflow';

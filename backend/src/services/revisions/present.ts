@@ -1,5 +1,5 @@
 /** Revisions and review comments as the API shows them (staff see everything, clients the released summary). */
-import { literal, Op, type FindAttributeOptions } from 'sequelize';
+import { literal, Op, type FindAttributeOptions, type Transaction } from 'sequelize';
 import { can } from '@shared/policy';
 import { upgradeSnapshotNames, type RevisionSnapshot, type StoredRevisionSnapshot } from '@shared/schemas/revision';
 import type { SessionUser } from '../../auth/passport';
@@ -39,10 +39,10 @@ function listFacts(r: Revision): { layoutName: string; arms: number; findings: n
 }
 
 /** Display names of users by id (people removed since keep their id). */
-export async function namesOf(ids: Array<number | null | undefined>): Promise<Map<number, string>> {
+export async function namesOf(ids: Array<number | null | undefined>, transaction?: Transaction): Promise<Map<number, string>> {
   const wanted = [...new Set(ids.filter((i): i is number => typeof i === 'number'))];
   if (!wanted.length) return new Map();
-  const users = await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'] });
+  const users = await User.findAll({ where: { id: wanted }, attributes: ['id', 'name'], transaction });
   return new Map(users.map((u) => [u.id, u.name]));
 }
 

@@ -14,15 +14,15 @@ import { snapshotChecksum } from './checksum';
 
 export { snapshotChecksum };
 
-/** Freezes a layout as stored now into a snapshot (JSON-normalised, so it reads back identically). */
-export async function buildSnapshot(layout: Layout): Promise<RevisionSnapshot> {
+/** Freezes a layout as stored now into a snapshot (JSON-normalised, so it reads back identically); reads inside `transaction` when given. */
+export async function buildSnapshot(layout: Layout, transaction?: Transaction): Promise<RevisionSnapshot> {
   const content = layout.content as LayoutContent;
-  const project = await Project.findByPk(layout.projectId);
+  const project = await Project.findByPk(layout.projectId, { transaction });
   if (!project) throw notFound('Project');
-  const fp = layout.floorPlanId ? await FloorPlan.findByPk(layout.floorPlanId, { attributes: ['id', 'fileName', 'units', 'geometry', 'layers', 'bounds'] }) : null;
+  const fp = layout.floorPlanId ? await FloorPlan.findByPk(layout.floorPlanId, { attributes: ['id', 'fileName', 'units', 'geometry', 'layers', 'bounds'], transaction }) : null;
   const ids = [...new Set(content.arms.map((a) => a.armModelId))];
-  const models = await ArmModel.findAll({ where: { id: ids }, attributes: ['id', 'name', 'family', 'params'], order: [['id', 'ASC']] });
-  const analysis = await analyzeLayout(layout);
+  const models = await ArmModel.findAll({ where: { id: ids }, attributes: ['id', 'name', 'family', 'params'], order: [['id', 'ASC']], transaction });
+  const analysis = await analyzeLayout(layout, undefined, transaction);
   const raw: RevisionSnapshot = {
     project: { id: project.id, name: project.name, clientName: project.clientName ?? null, siteName: project.siteName ?? null },
     layout: { id: layout.id, name: layout.name, version: layout.version, content },
@@ -46,9 +46,9 @@ export async function storeSnapshotFloorPlan(floorPlan: FloorPlanPart, checksum:
 }
 
 /** The floor plan a revision froze: the shared stored row, or the copy inside snapshots stored before plans were kept apart. */
-async function storedFloorPlan(rev: Pick<Revision, 'floorPlanChecksum' | 'storedSnapshot'>): Promise<FloorPlanPart | null> {
+async function storedFloorPlan(rev: Pick<Revision, 'floorPlanChecksum' | 'storedSnapshot'>, transaction?: Transaction): Promise<FloorPlanPart | null> {
   if (rev.floorPlanChecksum) {
-    const row = await SnapshotFloorPlan.findByPk(rev.floorPlanChecksum);
+    const row = await SnapshotFloorPlan.findByPk(rev.floorPlanChecksum, { transaction });
     if (!row) throw new Error(`stored floor plan ${rev.floorPlanChecksum} is missing`);
     return row.content;
   }
@@ -56,8 +56,8 @@ async function storedFloorPlan(rev: Pick<Revision, 'floorPlanChecksum' | 'stored
 }
 
 /** The floor plan a revision froze (the shared stored row, or the copy inside older snapshots), read under today's names. */
-export async function loadSnapshotFloorPlan(rev: Pick<Revision, 'floorPlanChecksum' | 'storedSnapshot'>): Promise<FloorPlanPart | null> {
-  return upgradeFloorPlanNames(await storedFloorPlan(rev));
+export async function loadSnapshotFloorPlan(rev: Pick<Revision, 'floorPlanChecksum' | 'storedSnapshot'>, transaction?: Transaction): Promise<FloorPlanPart | null> {
+  return upgradeFloorPlanNames(await storedFloorPlan(rev, transaction));
 }
 
 /** The whole snapshot of a revision, floor plan included, exactly as stored: what its checksum is computed over. */
