@@ -1,10 +1,17 @@
+import { concernsText, findingConcerns, type ConcernContent } from '@shared/analysis';
 import type { RevisionDiffDto } from '../../api/revisions';
 
 const mm = new Intl.NumberFormat(undefined, { maximumFractionDigits: 0 });
 const deg = new Intl.NumberFormat(undefined, { maximumFractionDigits: 1, signDisplay: 'exceptZero' });
 
+/** What a diff finding concerns, by the names this revision's layout gives them (gone elements are left out). */
+function Concerns({ id, content }: { id: string; content: ConcernContent }) {
+  const text = concernsText(findingConcerns({ id }, content));
+  return text ? <span className="block text-xs text-ink-muted">{text}</span> : null;
+}
+
 /** What changed since the previous revision: arms moved (plan distance, turn), added, removed; findings new and gone. */
-export function RevisionDiffPanel({ diff }: { diff: RevisionDiffDto }) {
+export function RevisionDiffPanel({ diff, content }: { diff: RevisionDiffDto; content: ConcernContent }) {
   if (!diff.previous) return <p className="text-sm text-ink-muted">First revision of this layout: nothing to compare with.</p>;
   const { arms, findings } = diff;
   const none = !arms.added.length && !arms.removed.length && !arms.moved.length && !findings.added.length && !findings.removed.length;
@@ -31,12 +38,14 @@ export function RevisionDiffPanel({ diff }: { diff: RevisionDiffDto }) {
         ))}
         {findings.added.map((f) => (
           <li key={`fa${f.id}`} className="text-finding-critical">
-            New finding: {f.message} <code className="text-xs">{f.id}</code>
+            New finding: {f.message}
+            <Concerns id={f.id} content={content} />
           </li>
         ))}
         {findings.removed.map((f) => (
           <li key={`fr${f.id}`} className="text-accent">
-            Gone: {f.message} <code className="text-xs">{f.id}</code>
+            Gone: {f.message}
+            <Concerns id={f.id} content={content} />
           </li>
         ))}
       </ul>
