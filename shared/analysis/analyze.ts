@@ -38,7 +38,7 @@ interface Column {
 }
 
 interface PairResult {
-  zone: SharedZone | null;
+  sharedZone: SharedZone | null;
   findings: Finding[];
 }
 
@@ -189,10 +189,10 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       polys = intersect(first.restricted, second.restricted);
     } catch (err) {
       const why = reasonOf(err);
-      return { zone: null, findings: [makeFinding('computation-failed', ['overlap', ...ids], { arms: ids, points: [], geometry: null, at: null, message: `Could not compute the shared zone of ${ids[0]} and ${ids[1]}${why ? ` (${why})` : ''}; check it by hand.` })] };
+      return { sharedZone: null, findings: [makeFinding('computation-failed', ['overlap', ...ids], { arms: ids, points: [], geometry: null, at: null, message: `Could not compute the shared zone of ${ids[0]} and ${ids[1]}${why ? ` (${why})` : ''}; check it by hand.` })] };
     }
     const area = polygonsArea(polys);
-    if (area < MIN_AREA_MM2) return { zone: null, findings: [] };
+    if (area < MIN_AREA_MM2) return { sharedZone: null, findings: [] };
     const byHeight = heights.map((h) => {
       if (!bboxOverlap(first.bandBoxes.get(h) ?? null, second.bandBoxes.get(h) ?? null)) return { height: h, areaM2: 0 };
       let a: number;
@@ -215,11 +215,11 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       if (m !== undefined && isReached(m)) inside.push(pid);
     }
     const geometry = polygonsToGeoJSON(polys);
-    const zone: SharedZone = { arms: [ids[0], ids[1]], areaM2: m2(area), points: inside, geometry, byHeight };
+    const sharedZone: SharedZone = { arms: [ids[0], ids[1]], areaM2: m2(area), points: inside, geometry, byHeight };
     const findings = [
       makeFinding('shared-zone', ids, {
         arms: ids, points: inside, geometry, at: centroidOf(polys),
-        message: `${ids[0]} and ${ids[1]} share ${m2Text(area)} m² of restricted space${inside.length ? ` containing ${inside.length} work point${inside.length === 1 ? '' : 's'}` : ''}: plan interlocks or zone-sharing logic.`,
+        message: `${ids[0]} and ${ids[1]} share ${m2Text(area)} m² of restricted space${inside.length ? ` containing ${inside.length} work point${inside.length === 1 ? '' : 's'}` : ''}: plan interlocks or shared-zone logic.`,
         data: { areaM2: m2(area) },
       }),
     ];
@@ -231,7 +231,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       }));
     }
     stats.pairs++;
-    return { zone, findings };
+    return { sharedZone, findings };
   }
 
   return {
@@ -300,7 +300,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       }
 
       // Shared zones (pairs cached by both arms' signatures, the heights and the points).
-      const overlaps: SharedZone[] = [];
+      const sharedZones: SharedZone[] = [];
       const livePairs = new Set<string>();
       for (let i = 0; i < placed.length; i++) {
         for (let j = i + 1; j < placed.length; j++) {
@@ -315,28 +315,28 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
             r = pairResult(first, second, heights, points);
             pairs.set(key, r);
           }
-          if (r.zone) overlaps.push(r.zone);
+          if (r.sharedZone) sharedZones.push(r.sharedZone);
           small.push(...r.findings);
         }
       }
       for (const k of pairs.keys()) if (!livePairs.has(k)) pairs.delete(k);
 
-      // Clearance per arm, cached while the arm, the floor and the zones stay the same.
-      const envKey = `${floorKey(input.floor)}|${JSON.stringify(input.zones)}`;
+      // Clearance per arm, cached while the arm, the floor and the boundaries stay the same.
+      const envKey = `${floorKey(input.floor)}|${JSON.stringify(input.boundaries)}`;
       for (const p of placed) {
         if (p.clearance?.key !== envKey) {
-          p.clearance = { key: envKey, findings: armClearance({ arm: p.arm, restricted: p.restricted, bbox: p.bbox, below: (top) => below(p, top) }, input.floor, input.zones) };
+          p.clearance = { key: envKey, findings: armClearance({ arm: p.arm, restricted: p.restricted, bbox: p.bbox, below: (top) => below(p, top) }, input.floor, input.boundaries) };
         }
         small.push(...p.clearance.findings);
       }
-      small.push(...fenceFindings(input.zones));
+      small.push(...fenceFindings(input.boundaries));
 
       // Safeguarding: each arm's distances to openings, fences and structure cached like its clearance.
       const measured = placed.map((p) => {
-        if (p.safeguard?.key !== envKey) p.safeguard = { key: envKey, measure: measureArmSafeguarding(p, input.floor, input.zones) };
+        if (p.safeguard?.key !== envKey) p.safeguard = { key: envKey, measure: measureArmSafeguarding(p, input.floor, input.boundaries) };
         return { p, m: p.safeguard.measure };
       });
-      const safeguarding = safeguardingChecks(measured, input.zones);
+      const safeguarding = safeguardingChecks(measured, input.boundaries);
       small.push(...safeguarding.findings);
 
       // Most severe first; point findings (all critical) in work-point order after the other critical ones.
@@ -352,7 +352,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
         regions[p.arm.id] = { restricted: p.geo.restricted, bands: heights.map((h) => ({ height: h, geometry: p.geo.bands.get(h) ?? null })) };
       }
       const t1 = typeof performance !== 'undefined' ? performance.now() : Date.now();
-      return { findings, overlaps, coverage, regions, safeguarding: safeguarding.result, timingMs: Math.round((t1 - t0) * 100) / 100 };
+      return { findings, sharedZones, coverage, regions, safeguarding: safeguarding.result, timingMs: Math.round((t1 - t0) * 100) / 100 };
     },
   };
 }

@@ -7,7 +7,7 @@ import type { ArmPlacement, LayoutContent } from '../schemas/layout';
 import { bestAlone, placementSteps, type PlacementNeighbour, type PlacementPoint } from './placement';
 import { armPose } from '../geometry/frames';
 import type { AnalysisResult, ArmReach, PreparedFloor } from './types';
-import type { Zone } from '../schemas/layout';
+import type { Boundary } from '../schemas/layout';
 
 /**
  * Auto-layout: placements of several arms (from models with how many of each) and an assignment of
@@ -31,7 +31,7 @@ export interface AutoLayoutQuery {
   minMarginMm: number;
   mountHeightMm: number;
   floor: PreparedFloor | null;
-  zones: ReadonlyArray<Zone>;
+  boundaries: ReadonlyArray<Boundary>;
   seed: number;
   /** Wall-clock budget, ms (default 10 000). */
   timeLimitMs?: number;
@@ -152,7 +152,7 @@ export function* autoLayoutSteps(q: AutoLayoutQuery): Generator<AutoLayoutProgre
       if ((left.get(m.armModelId) ?? 0) <= 0 || span > 2 * m.reach.maxReach || !group.every((p) => reaches(m, p))) continue;
       const it = placementSteps({
         reach: m.reach, points: group, minMarginMm: q.minMarginMm, yawMinDeg: -180, yawMaxDeg: 180, yawStepDeg: 15,
-        mountHeightMm: q.mountHeightMm, floor: q.floor, zones: q.zones, neighbours, gridMm: 25, candidateCount: 3,
+        mountHeightMm: q.mountHeightMm, floor: q.floor, boundaries: q.boundaries, neighbours, gridMm: 25, candidateCount: 3,
       });
       let s = it.next();
       while (!s.done) {
@@ -215,7 +215,7 @@ export function proposalContent(content: Readonly<LayoutContent>, r: Readonly<Au
 
 /** Scores of an analysed layout, for comparing the current layout with a proposal: shared zone (m²), guarded area (convex hull of every restricted space, m²), unreached points. */
 export function layoutScore(a: Readonly<AnalysisResult>): { sharedZoneM2: number; guardedAreaM2: number; unreachedPoints: number } {
-  const shared = a.overlaps.reduce((s, o) => s + o.areaM2, 0);
+  const shared = a.sharedZones.reduce((s, o) => s + o.areaM2, 0);
   const pts: Pt[] = [];
   for (const id of Object.keys(a.regions)) for (const poly of geoJSONToPolygons(a.regions[id].restricted)) for (const v of poly[0] ?? []) pts.push(v);
   const hull = convexHull(pts);

@@ -4,7 +4,7 @@ import { clipIntersect, clipUnion } from '../geometry/clipper';
 import { polygonsToGeoJSON } from '../geometry/geojson';
 import { pointInPolygons } from '../geometry/pointInPolygon';
 import type { Polygon2 } from '../geometry/types';
-import type { ArmPlacement, Zone } from '../schemas/layout';
+import type { ArmPlacement, Boundary } from '../schemas/layout';
 import { findingId, m2, m2Text, mm, reasonOf, SEVERITY_OF } from './messages';
 import { polylineDistanceToPolygons, polylineHitsPolygons, segmentsIntersect, subtractOpenings } from './segments';
 import type { Finding, FindingKind, PreparedFloor, StructureItem } from './types';
@@ -99,14 +99,14 @@ function itemHits(s: StructureItem, region: Polygon2[]): boolean {
   return false;
 }
 
-/** Clearance findings of one arm: floor boundary, columns under the base, structure by height, fences, openings, operator areas, keep-outs. */
-export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, zones: ReadonlyArray<Zone>): Finding[] {
+/** Clearance findings of one arm: floor outline, columns under the base, structure by height, fences, openings, operator areas, keep-outs. */
+export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, boundaries: ReadonlyArray<Boundary>): Finding[] {
   const out: Finding[] = [];
   const id = p.arm.id;
   const name = p.arm.label || id;
   const at: [number, number] = [p.arm.x, p.arm.y];
-  if (floor && floor.boundary.length && !pointInPolygons(p.arm.x, p.arm.y, floor.boundary)) {
-    out.push(makeFinding('base-off-floor', [id], { arms: [id], points: [], geometry: null, at, message: `${name}: its base stands outside the floor boundary.` }));
+  if (floor && floor.outline.length && !pointInPolygons(p.arm.x, p.arm.y, floor.outline)) {
+    out.push(makeFinding('base-off-floor', [id], { arms: [id], points: [], geometry: null, at, message: `${name}: its base stands outside the floor outline.` }));
   }
   if (floor) {
     const hits = new Map<string, StructureItem[]>();
@@ -144,8 +144,8 @@ export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, zones
     }
   }
 
-  const fences = zones.filter((z) => z.kind === 'fence');
-  const openings = zones.filter((z) => z.kind === 'opening');
+  const fences = boundaries.filter((z) => z.kind === 'fence');
+  const openings = boundaries.filter((z) => z.kind === 'opening');
   for (const f of fences) {
     const cuts = openings.filter((o) => o.fenceId === f.id).map((o) => [o.points[0], o.points[1]] as const);
     const solid = subtractOpenings(f.points as Array<[number, number]>, cuts as never);
@@ -163,7 +163,7 @@ export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, zones
       out.push(makeFinding('reach-through-opening', [id, o.id], { arms: [id], points: [], geometry: null, at: o.points[0] as [number, number], message: `${name}: restricted space reaches through access opening ${o.label || o.id}; safeguard it (interlocked door or light curtain at the ISO 13855 distance).` }));
     }
   }
-  for (const z of zones) {
+  for (const z of boundaries) {
     if (z.kind !== 'operator' && z.kind !== 'keepout') continue;
     const poly: Polygon2[] = [[z.points.map(([x, y]) => [x, y] as [number, number])]];
     let inter: Polygon2[];
@@ -172,7 +172,7 @@ export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, zones
     } catch (err) {
       const why = reasonOf(err);
       const what = z.kind === 'operator' ? 'operator area' : 'keep-out';
-      out.push(makeFinding('computation-failed', ['zone', id, z.id], { arms: [id], points: [], geometry: null, at: null, message: `Could not check ${name} against ${what} ${z.label || z.id}${why ? ` (${why})` : ''}; check it by hand.` }));
+      out.push(makeFinding('computation-failed', ['outline', id, z.id], { arms: [id], points: [], geometry: null, at: null, message: `Could not check ${name} against ${what} ${z.label || z.id}${why ? ` (${why})` : ''}; check it by hand.` }));
       continue;
     }
     const area = polygonsArea(inter);
@@ -190,8 +190,8 @@ export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, zones
 }
 
 /** Fence height findings (no arm involved). */
-export function fenceFindings(zones: ReadonlyArray<Zone>): Finding[] {
-  return zones
+export function fenceFindings(boundaries: ReadonlyArray<Boundary>): Finding[] {
+  return boundaries
     .filter((z) => z.kind === 'fence' && (z.height ?? 0) < MIN_FENCE_HEIGHT_MM)
     .map((f) =>
       makeFinding('fence-too-low', [f.id], {

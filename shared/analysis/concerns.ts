@@ -14,7 +14,7 @@ export interface FindingConcern {
 /** The parts of a cell layout a finding's elements are looked up in (labels and kinds). */
 export interface ConcernContent {
   arms: ReadonlyArray<{ id: string; label?: string }>;
-  zones: ReadonlyArray<{ id: string; kind: string; label?: string }>;
+  boundaries: ReadonlyArray<{ id: string; kind: string; label?: string }>;
   workPoints?: ReadonlyArray<{ id: string; tag?: string }>;
 }
 
@@ -22,7 +22,7 @@ const BOUNDARY_ROLE: Record<string, ConcernRole> = { fence: 'fence', opening: 'a
 /** Kinds whose ids name a floor-plan layer (structure) beside the arm. */
 const LAYER_KINDS = new Set(['reach-into-structure', 'base-on-column', 'crushing-gap']);
 /** The first id of a `computation-failed` finding says which check failed; it names no element. */
-const FAILED_CHECKS = new Set(['overlap', 'structure', 'zone', 'safeguard', 'fence']);
+const FAILED_CHECKS = new Set(['overlap', 'structure', 'boundary', 'safeguard', 'fence']);
 
 const named = (id: string, label: string | undefined) => (label ? `${id} (${label})` : id);
 
@@ -34,7 +34,7 @@ const named = (id: string, label: string | undefined) => (label ? `${id} (${labe
 export function findingConcerns(f: Pick<Finding, 'id'> & Partial<Pick<Finding, 'arms' | 'points'>>, content: ConcernContent): FindingConcern[] {
   const parsed = parseFindingId(f.id);
   const arms = new Map(content.arms.map((a) => [a.id, a]));
-  const zones = new Map(content.zones.map((z) => [z.id, z]));
+  const boundaries = new Map(content.boundaries.map((z) => [z.id, z]));
   const points = new Map((content.workPoints ?? []).map((p) => [p.id, p]));
   const own = new Set(f.points ?? []);
   const out: FindingConcern[] = [];
@@ -50,9 +50,9 @@ export function findingConcerns(f: Pick<Finding, 'id'> & Partial<Pick<Finding, '
   ids.forEach((id, i) => {
     if (parsed?.kind === 'computation-failed' && i === 0 && FAILED_CHECKS.has(id)) return;
     const arm = arms.get(id);
-    const zone = zones.get(id);
+    const boundary = boundaries.get(id);
     if (arm) add('arm', id, named(id, arm.label));
-    else if (zone) add(BOUNDARY_ROLE[zone.kind] ?? 'boundary', id, named(id, zone.label));
+    else if (boundary) add(BOUNDARY_ROLE[boundary.kind] ?? 'boundary', id, named(id, boundary.label));
     else if (points.has(id) || own.has(id)) add('work point', id, named(id, points.get(id)?.tag));
     else if (layerCheck || (parsed && LAYER_KINDS.has(parsed.kind))) {
       const layer = id.replace(/#\d+$/, '');

@@ -23,7 +23,7 @@ import type { Polygon2, Pt, Ring } from '../geometry/types';
 import { CRUSHING_GAP_BODY_MM, NotCoveredError, reachOverDistance, reachThroughDistance, SafeguardInputError, separationDistance } from '../safety';
 import { ReadableError } from '../schemas/errors';
 import type { FenceSystem } from '../schemas/fenceProposal';
-import type { ArmPlacement, Zone } from '../schemas/layout';
+import type { ArmPlacement, Boundary } from '../schemas/layout';
 import { fenceLinesOf, fenceParts, type BomLine, type FenceParts } from './fenceBom';
 import { reasonOf } from './messages';
 import { boxOverlap, boxUnion, obstacleBoxes, perimeter, routeAroundObstacles, snapToWalls, splitOnWalls, wallFacesOf, type Box } from './fenceRing';
@@ -46,7 +46,7 @@ export class FenceProposalError extends ReadableError {
 
 export interface FenceProposalInput {
   arms: ReadonlyArray<ArmPlacement>;
-  zones: ReadonlyArray<Zone>;
+  boundaries: ReadonlyArray<Boundary>;
   floor: PreparedFloor | null;
   reachFor: ArmReachFactory;
   /** Stopping time of an arm model (s), when its data has one. */
@@ -77,7 +77,7 @@ export interface ProposedRing {
 }
 
 export interface FenceProposal {
-  zones: Zone[];
+  boundaries: Boundary[];
   bom: BomLine[];
   lengthMm: number;
   areaEnclosedM2: number;
@@ -142,9 +142,9 @@ interface DoorNeed {
 }
 
 /** Where people need to come in: operator areas, and the openings already drawn in the layout's fences. */
-function doorNeeds(zones: ReadonlyArray<Zone>): DoorNeed[] {
+function doorNeeds(boundaries: ReadonlyArray<Boundary>): DoorNeed[] {
   const out: DoorNeed[] = [];
-  for (const z of zones) {
+  for (const z of boundaries) {
     if (z.kind === 'operator' && z.points.length >= 3) {
       const b = polygonsBounds([[z.points.map(([x, y]) => [x, y] as Pt)]]);
       if (b) out.push({ at: [(b[0] + b[2]) / 2, (b[1] + b[3]) / 2], label: `operator area ${z.label || z.id}`, widthMm: Math.max(b[2] - b[0], b[3] - b[1]) });
@@ -179,7 +179,7 @@ function placeDoor(lines: ReadonlyArray<ReadonlyArray<Pt>>, at: Readonly<Pt>, w:
   return cands[0] ?? null;
 }
 
-/** Ids not used by the zones that stay in the layout. */
+/** Ids not used by the boundaries that stay in the layout. */
 function freshId(base: string, used: Set<string>): string {
   let id = base;
   for (let k = 2; used.has(id); k++) id = `${base}-${k}`;
@@ -189,7 +189,7 @@ function freshId(base: string, used: Set<string>): string {
 
 /**
  * Proposes guard rings for a layout (see the file comment): fences and door openings as layout
- * zones, their bill of materials, total length (doors included), enclosed area, and notes.
+ * boundaries, their bill of materials, total length (doors included), enclosed area, and notes.
  * Throws FenceProposalError for a layout without arms or options the standards do not cover.
  */
 export function proposeFence(input: Readonly<FenceProposalInput>): FenceProposal {
@@ -239,10 +239,10 @@ export function proposeFence(input: Readonly<FenceProposalInput>): FenceProposal
 
   const faces = system.useWalls ? wallFacesOf(input.floor) : [];
   const obstacles = obstacleBoxes(input.floor, post, !system.useWalls);
-  const used = new Set(input.zones.filter((z) => z.kind !== 'fence' && z.kind !== 'opening').map((z) => z.id));
-  const zones: Zone[] = [];
+  const used = new Set(input.boundaries.filter((z) => z.kind !== 'fence' && z.kind !== 'opening').map((z) => z.id));
+  const boundaries: Boundary[] = [];
   const rings: ProposedRing[] = [];
-  const needs = doorNeeds(input.zones);
+  const needs = doorNeeds(input.boundaries);
   const usedNeeds = new Set<number>();
   let routed = 0;
 
@@ -265,7 +265,7 @@ export function proposeFence(input: Readonly<FenceProposalInput>): FenceProposal
       const id = r.split.lines.length === 1 ? ringId : freshId(`${ringId}.${li + 1}`, used);
       if (r.split.lines.length > 1) used.add(id);
       fenceIds.push(id);
-      zones.push({ id, kind: 'fence', label: r.split.lines.length === 1 ? ringLabel : `${ringLabel} part ${li + 1}`, height: system.panelHeightMm, points: l.map((p) => [r1(p[0]), r1(p[1])] as [number, number]), meshMm: system.meshMm, meshShape: system.meshShape });
+      boundaries.push({ id, kind: 'fence', label: r.split.lines.length === 1 ? ringLabel : `${ringLabel} part ${li + 1}`, height: system.panelHeightMm, points: l.map((p) => [r1(p[0]), r1(p[1])] as [number, number]), meshMm: system.meshMm, meshShape: system.meshShape });
     });
 
     // Doors: at each access need nearest to this ring; one on the longest run when none is marked.
@@ -323,7 +323,7 @@ export function proposeFence(input: Readonly<FenceProposalInput>): FenceProposal
       }
       const id = freshId(`${ringId}.D${di + 1}`, used);
       if (needLocking) notes.push(`Door ${id} (${d.label}): the stopping time of an arm behind it is unknown or the door is nearer than ISO 13855's S = 1600 mm/s × T, so it gets an interlock with guard locking.`);
-      zones.push({
+      boundaries.push({
         id,
         kind: 'opening',
         label: `Door ${gi + 1}.${di + 1}`,
@@ -335,26 +335,26 @@ export function proposeFence(input: Readonly<FenceProposalInput>): FenceProposal
 
     const areaM2 = Math.abs(polygonsArea([[r.ring]])) / 1e6;
     rings.push({ id: ringId, arms: g.members.map((m) => m.arm.id), ring: r.ring, wallStretches: r.split.wall, worstMarginMm: r1(r.margin), areaM2: Math.round(areaM2 * 1000) / 1000 });
-    const boundary = input.floor?.boundary ?? [];
+    const boundary = input.floor?.outline ?? [];
     if (boundary.length && r.ring.some(([x, y]) => !pointInPolygons(x, y, boundary) && distanceToBoundary(x, y, boundary) > 1)) {
-      notes.push(`${ringLabel}: part of the ring lies outside the floor boundary; move the arms or close that side by hand.`);
+      notes.push(`${ringLabel}: part of the ring lies outside the floor outline; move the arms or close that side by hand.`);
     }
     if (r.margin < -0.5) notes.push(`${ringLabel}: a fence line comes ${r1(-r.margin)} mm nearer to a restricted space than required; check the plan.`);
     if (r.split.wall.length) notes.push(`${ringLabel}: ${r.split.wall.length} stretch${r.split.wall.length === 1 ? '' : 'es'} closed by a wall (no panels there); the wall must be solid to the panel height at least.`);
   });
 
   if (routed) notes.push(`${routed} column${routed === 1 ? '' : 's'} or obstacle${routed === 1 ? '' : 's'} in the way taken inside the ring.`);
-  if (input.zones.some((z) => z.kind === 'fence')) notes.push('Accepting the proposal replaces the fences and openings drawn in the layout.');
+  if (input.boundaries.some((z) => z.kind === 'fence')) notes.push('Accepting the proposal replaces the fences and openings drawn in the layout.');
   const reqText = [...new Set(placed.map((p) => `${p.arm.label || p.arm.id}: ${p.required.requiredMm} mm (reach-through ${p.required.reachThroughMm}, reach-over ${p.required.reachOverMm} at hazard height ${p.required.hazardHeightMm} mm, clearance ${p.required.clearanceMm}; at least ${CRUSHING_GAP_BODY_MM} mm against crushing, ISO 13854)`))];
   notes.push(`Distance kept from each restricted space (ISO 13857 tables plus the planner's clearance, 150 mm being common practice): ${reqText.join('; ')}.`);
   notes.push('A planning estimate from nominal kinematics: it does not replace the risk assessment (ISO 12100), ISO 10218-2 or the maker\'s stopping data; a competent person designs and validates the final safeguarding under local codes.');
 
-  const parts = fenceParts(fenceLinesOf(zones), system, faces);
+  const parts = fenceParts(fenceLinesOf(boundaries), system, faces);
   const areaEnclosedM2 = Math.round(rings.reduce((s, r) => s + r.areaM2, 0) * 1000) / 1000;
-  return { zones, bom: parts.bom, lengthMm: Math.round(parts.lengthMm), areaEnclosedM2, notes, rings, required: placed.map((p) => p.required), parts, system: { ...system } };
+  return { boundaries, bom: parts.bom, lengthMm: Math.round(parts.lengthMm), areaEnclosedM2, notes, rings, required: placed.map((p) => p.required), parts, system: { ...system } };
 }
 
-/** The layout's zones with its fences and openings replaced by a proposal's (other zones kept, in order). */
-export function applyFenceProposal(zones: ReadonlyArray<Zone>, proposal: Readonly<Pick<FenceProposal, 'zones'>>): Zone[] {
-  return [...zones.filter((z) => z.kind !== 'fence' && z.kind !== 'opening'), ...proposal.zones];
+/** The layout's boundaries with its fences and openings replaced by a proposal's (other boundaries kept, in order). */
+export function applyFenceProposal(boundaries: ReadonlyArray<Boundary>, proposal: Readonly<Pick<FenceProposal, 'boundaries'>>): Boundary[] {
+  return [...boundaries.filter((z) => z.kind !== 'fence' && z.kind !== 'opening'), ...proposal.boundaries];
 }

@@ -1,6 +1,6 @@
 import type { Polygon2 } from '../geometry/types';
 import { ReadableError } from '../schemas/errors';
-import type { Zone } from '../schemas/layout';
+import type { Boundary } from '../schemas/layout';
 import { candidateScores } from './placementRank';
 import { siteContext, type SiteContext, type SiteVerdict } from './placementSite';
 import type { ArmReach, PreparedFloor } from './types';
@@ -44,7 +44,7 @@ export interface PlacementQuery {
   yawStepDeg: number;
   mountHeightMm: number;
   floor: PreparedFloor | null;
-  zones: ReadonlyArray<Zone>;
+  boundaries: ReadonlyArray<Boundary>;
   neighbours?: ReadonlyArray<PlacementNeighbour>;
   /** Final resolution, mm (default 10). */
   gridMm?: number;
@@ -275,7 +275,7 @@ export function* placementSteps(q: PlacementQuery): Generator<PlacementProgress,
   const yaws = yawList(q.yawMinDeg, q.yawMaxDeg, q.yawStepDeg);
   const fine = q.gridMm ?? 10;
   const ev = evaluator(q, yaws);
-  const site = siteContext(q.reach, yaws, q.mountHeightMm, q.floor, q.zones, q.points);
+  const site = siteContext(q.reach, yaws, q.mountHeightMm, q.floor, q.boundaries, q.points);
   const names: PlacementNames = {
     points: q.points.map((p) => p.id),
     items: (q.floor?.structures ?? []).map((s) => ({ id: s.id, role: s.role })),
@@ -290,9 +290,9 @@ export function* placementSteps(q: PlacementQuery): Generator<PlacementProgress,
     minY = Math.max(minY, p.y - R);
     maxY = Math.min(maxY, p.y + R);
   }
-  if (q.floor?.boundary.length) {
+  if (q.floor?.outline.length) {
     let fx0 = Infinity, fy0 = Infinity, fx1 = -Infinity, fy1 = -Infinity;
-    for (const poly of q.floor.boundary) for (const [x, y] of poly[0] ?? []) {
+    for (const poly of q.floor.outline) for (const [x, y] of poly[0] ?? []) {
       fx0 = Math.min(fx0, x); fx1 = Math.max(fx1, x); fy0 = Math.min(fy0, y); fy1 = Math.max(fy1, y);
     }
     minX = Math.max(minX, fx0); maxX = Math.min(maxX, fx1); minY = Math.max(minY, fy0); maxY = Math.min(maxY, fy1);

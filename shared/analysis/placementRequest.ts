@@ -9,7 +9,7 @@ import type { ArmReachFactory, PreparedFloor } from './types';
 /**
  * The placement search of a layout, as the server and the editor's worker both ask it: the request's
  * points looked up in the content, the other placed arms' restricted spaces for ranking, the
- * layout's zones and floor. Throws a message naming the problem for unknown points or arms.
+ * layout's boundaries and floor. Throws a message naming the problem for unknown points or arms.
  */
 export function placementQueryOf(req: Readonly<PlacementSearchInput>, content: Readonly<LayoutContent>, floor: PreparedFloor | null, reachFor: ArmReachFactory): PlacementQuery {
   const byId = new Map(content.workPoints.map((p) => [p.id, p]));
@@ -34,7 +34,7 @@ export function placementQueryOf(req: Readonly<PlacementSearchInput>, content: R
     yawStepDeg: req.yawStepDeg,
     mountHeightMm: req.mountHeightMm,
     floor,
-    zones: content.zones,
+    boundaries: content.boundaries,
     neighbours,
     gridMm: req.gridMm,
   };

@@ -17,7 +17,7 @@ import {
   separationDistance,
   type SafeguardDevice,
 } from '../safety';
-import type { ArmPlacement, Zone } from '../schemas/layout';
+import type { ArmPlacement, Boundary } from '../schemas/layout';
 import { makeFinding, regionEdges, type BBox } from './clearance';
 import { mm, reasonOf } from './messages';
 import { polylineDistanceToPolygons, segmentsIntersect, subtractOpenings } from './segments';
@@ -70,15 +70,15 @@ function boxNear(b: BBox | null, pts: ReadonlyArray<readonly [number, number]>, 
 }
 
 /** The fence's parts left when its openings are cut out. */
-export function fenceSolidParts(f: Zone, zones: ReadonlyArray<Zone>): Array<Array<[number, number]>> {
-  const cuts = zones.filter((o) => o.kind === 'opening' && o.fenceId === f.id && o.points.length === 2).map((o) => [o.points[0], o.points[1]] as const);
+export function fenceSolidParts(f: Boundary, boundaries: ReadonlyArray<Boundary>): Array<Array<[number, number]>> {
+  const cuts = boundaries.filter((o) => o.kind === 'opening' && o.fenceId === f.id && o.points.length === 2).map((o) => [o.points[0], o.points[1]] as const);
   return subtractOpenings(f.points as Array<[number, number]>, cuts as never);
 }
 
 /** Closed fence rings (first and last point within 1 mm): the guarded areas. */
-function guardedAreas(zones: ReadonlyArray<Zone>): Polygon2[] {
+function guardedAreas(boundaries: ReadonlyArray<Boundary>): Polygon2[] {
   const out: Polygon2[] = [];
-  for (const z of zones) {
+  for (const z of boundaries) {
     if (z.kind !== 'fence' || z.points.length < 4) continue;
     const a = z.points[0];
     const b = z.points[z.points.length - 1];
@@ -179,21 +179,21 @@ function segmentsOf(rings: ReadonlyArray<ReadonlyArray<readonly [number, number]
 
 /**
  * One arm's measurements for the safeguarding checks (cached per arm by the analyzer while the arm,
- * the floor and the zones stay the same): distances to the safeguarded openings and the fences near
+ * the floor and the boundaries stay the same): distances to the safeguarded openings and the fences near
  * it, and the crushing gaps narrower than CRUSHING_GAP_BODY_MM between its restricted space and a
  * wall, column, obstacle or fence. A gap to structure counts when the item's nearest point lies
  * inside a closed fence (the guarded area), or anywhere when the layout has no closed fence.
  */
-export function measureArmSafeguarding(p: SafeguardArm, floor: PreparedFloor | null, zones: ReadonlyArray<Zone>): ArmSafeguardMeasure {
+export function measureArmSafeguarding(p: SafeguardArm, floor: PreparedFloor | null, boundaries: ReadonlyArray<Boundary>): ArmSafeguardMeasure {
   const out: ArmSafeguardMeasure = { openings: new Map(), fences: new Map(), crushing: [] };
   if (!p.restricted.length || !p.bbox) return out;
   const id = p.arm.id;
   const name = armName(p.arm);
   let grid: EdgeGrid | null = null;
-  const guarded = guardedAreas(zones);
-  for (const f of zones) {
+  const guarded = guardedAreas(boundaries);
+  for (const f of boundaries) {
     if (f.kind !== 'fence' || !boxNear(p.bbox, f.points, FENCE_SAFEGUARD_RANGE_MM)) continue;
-    const solid = fenceSolidParts(f, zones).filter((l) => boxNear(p.bbox, l, FENCE_SAFEGUARD_RANGE_MM));
+    const solid = fenceSolidParts(f, boundaries).filter((l) => boxNear(p.bbox, l, FENCE_SAFEGUARD_RANGE_MM));
     // Only segments that can come within range of the restricted space (it lies within maxReach of the base).
     let d = Infinity;
     for (const l of solid) {
@@ -266,7 +266,7 @@ function measuredFor(arms: ReadonlyArray<{ p: SafeguardArm; m: ArmSafeguardMeasu
 }
 
 /** ISO 13855 checks of one safeguarded opening against every arm (findings) and the row for the one that governs it. */
-function openingCheck(o: Zone, arms: ReadonlyArray<{ p: SafeguardArm; m: ArmSafeguardMeasure }>): { row: SafeguardOpeningRow; findings: Finding[] } {
+function openingCheck(o: Boundary, arms: ReadonlyArray<{ p: SafeguardArm; m: ArmSafeguardMeasure }>): { row: SafeguardOpeningRow; findings: Finding[] } {
   const g = o.safeguard!;
   const label = o.label || o.id;
   const stopField: SafeguardOpeningRow['stopField'] = g.stopCategory === 1 ? 'stopTimeCat1S' : 'stopTimeS';
@@ -349,7 +349,7 @@ function openingCheck(o: Zone, arms: ReadonlyArray<{ p: SafeguardArm; m: ArmSafe
 }
 
 /** ISO 13857 checks of one fence against the arms near it (findings) and the row for the one that governs it. */
-function fenceCheck(f: Zone, arms: ReadonlyArray<{ p: SafeguardArm; m: ArmSafeguardMeasure }>): { row: SafeguardFenceRow; findings: Finding[] } {
+function fenceCheck(f: Boundary, arms: ReadonlyArray<{ p: SafeguardArm; m: ArmSafeguardMeasure }>): { row: SafeguardFenceRow; findings: Finding[] } {
   const b = f.height ?? 0;
   const label = f.label || f.id;
   const mesh = f.meshMm !== undefined && f.meshShape ? { e: f.meshMm, shape: f.meshShape } : null;
@@ -390,10 +390,10 @@ function fenceCheck(f: Zone, arms: ReadonlyArray<{ p: SafeguardArm; m: ArmSafegu
 }
 
 /** The safeguarding rows and findings of a layout from its arms' cached measurements. */
-export function safeguardingChecks(arms: ReadonlyArray<{ p: SafeguardArm; m: ArmSafeguardMeasure }>, zones: ReadonlyArray<Zone>): { result: SafeguardingResult; findings: Finding[] } {
+export function safeguardingChecks(arms: ReadonlyArray<{ p: SafeguardArm; m: ArmSafeguardMeasure }>, boundaries: ReadonlyArray<Boundary>): { result: SafeguardingResult; findings: Finding[] } {
   const result: SafeguardingResult = { openings: [], fences: [] };
   const findings: Finding[] = [];
-  for (const z of zones) {
+  for (const z of boundaries) {
     if (z.kind === 'opening' && z.safeguard && z.points.length === 2) {
       const c = openingCheck(z, arms);
       result.openings.push(c.row);

@@ -49,7 +49,7 @@ export function unitToMm(name: UnitName): number {
 }
 
 /** What a layer of an imported floor plan stands for in the plan. */
-export const LAYER_ROLES = ['boundary', 'wall', 'column', 'obstacle', 'ignore'] as const;
+export const LAYER_ROLES = ['outline', 'wall', 'column', 'obstacle', 'ignore'] as const;
 export const LayerRole = z.enum(LAYER_ROLES);
 export type LayerRole = z.infer<typeof LayerRole>;
 
@@ -125,7 +125,7 @@ export interface ImportNotes {
 export interface ImportGaps {
   closed: number;
   open: number;
-  /** Open ends on floor boundary layers, plan mm (at most a few hundred listed; `open` counts all). */
+  /** Open ends on floor outline layers, plan mm (at most a few hundred listed; `open` counts all). */
   ends: Array<{ layer: string; x: number; y: number }>;
 }
 

@@ -56,7 +56,7 @@ export const MESH_SHAPE_NAMES = ['slot', 'square', 'round'] as const;
  * The safeguard of an access opening: its device, the device's response time (s), the stop category
  * the device triggers (0 or 1; the arm model gives the stopping time of each) and what the device's
  * ISO 13855 distance needs: a light curtain's resolution (mm), a multi-beam device's beams, a
- * parallel (horizontal) detection zone's height above the floor (mm).
+ * parallel (horizontal) detection boundary's height above the floor (mm).
  */
 export const Safeguard = z
   .object({
@@ -75,20 +75,20 @@ export const Safeguard = z
     }
     if (g.approach === 'parallel') {
       if (g.device !== 'light-curtain') ctx.addIssue({ code: 'custom', path: ['approach'], message: 'A parallel approach applies to light curtains only' });
-      else if (g.heightMm === undefined) ctx.addIssue({ code: 'custom', path: ['heightMm'], message: 'Give the height of the detection zone above the floor (mm)' });
+      else if (g.heightMm === undefined) ctx.addIssue({ code: 'custom', path: ['heightMm'], message: 'Give the height of the detection boundary above the floor (mm)' });
       else if (g.resolutionMm !== undefined && g.heightMm < 15 * (g.resolutionMm - 50)) {
-        ctx.addIssue({ code: 'custom', path: ['heightMm'], message: `With a resolution of ${g.resolutionMm} mm the detection zone must be at least ${15 * (g.resolutionMm - 50)} mm above the floor` });
+        ctx.addIssue({ code: 'custom', path: ['heightMm'], message: `With a resolution of ${g.resolutionMm} mm the detection boundary must be at least ${15 * (g.resolutionMm - 50)} mm above the floor` });
       }
     }
     if (g.beams !== undefined && g.device !== 'multi-beam') ctx.addIssue({ code: 'custom', path: ['beams'], message: 'Beams apply to a multi-beam device only' });
   });
 export type Safeguard = z.infer<typeof Safeguard>;
 
-export const ZONE_KINDS = ['fence', 'keepout', 'operator', 'opening'] as const;
-export const Zone = z
+export const BOUNDARY_KINDS = ['fence', 'keepout', 'operator', 'opening'] as const;
+export const Boundary = z
   .object({
     id: Id,
-    kind: z.enum(ZONE_KINDS),
+    kind: z.enum(BOUNDARY_KINDS),
     label: singleLineText().max(60).default(''),
     points: z.array(PlanXY).max(2000, 'At most 2000 points'),
     /** Fence height (mm above floor); required for fences. */
@@ -127,7 +127,7 @@ export const Zone = z
       ctx.addIssue({ code: 'custom', path: ['fenceId'], message: 'Say which fence the opening is in' });
     }
   });
-export type Zone = z.infer<typeof Zone>;
+export type Boundary = z.infer<typeof Boundary>;
 
 function uniqueIds(list: ReadonlyArray<{ id: string }>, path: string, ctx: z.RefinementCtx) {
   const seen = new Set<string>();
@@ -142,7 +142,7 @@ export const LayoutContent = z
   .object({
     arms: z.array(ArmPlacement).max(500).default([]),
     workPoints: z.array(WorkPoint).max(200_000).default([]),
-    zones: z.array(Zone).max(2000).default([]),
+    boundaries: z.array(Boundary).max(2000).default([]),
     /** Heights above finished floor level at which reach bands are drawn and compared, mm. */
     workHeights: z.array(finiteNumber()).max(20).default([]),
   })
@@ -150,17 +150,17 @@ export const LayoutContent = z
   .superRefine((c, ctx) => {
     uniqueIds(c.arms, 'arms', ctx);
     uniqueIds(c.workPoints, 'workPoints', ctx);
-    uniqueIds(c.zones, 'zones', ctx);
+    uniqueIds(c.boundaries, 'boundaries', ctx);
     const armIds = new Set(c.arms.map((a) => a.id));
     c.workPoints.forEach((p, i) => {
       if (p.assignedArm && !armIds.has(p.assignedArm)) {
         ctx.addIssue({ code: 'custom', path: ['workPoints', i, 'assignedArm'], message: `No arm ${p.assignedArm} on this layout` });
       }
     });
-    const fences = new Set(c.zones.filter((z0) => z0.kind === 'fence').map((z0) => z0.id));
-    c.zones.forEach((z0, i) => {
+    const fences = new Set(c.boundaries.filter((z0) => z0.kind === 'fence').map((z0) => z0.id));
+    c.boundaries.forEach((z0, i) => {
       if (z0.kind === 'opening' && z0.fenceId && !fences.has(z0.fenceId)) {
-        ctx.addIssue({ code: 'custom', path: ['zones', i, 'fenceId'], message: `No fence ${z0.fenceId} on this layout` });
+        ctx.addIssue({ code: 'custom', path: ['boundaries', i, 'fenceId'], message: `No fence ${z0.fenceId} on this layout` });
       }
     });
   });
@@ -169,7 +169,7 @@ export type LayoutContent = z.infer<typeof LayoutContent>;
 export const LayoutCreateInput = z.object({
   name: singleLineText().min(1, 'Name the layout').max(160),
   floorPlanId: positiveId().nullable().default(null),
-  content: LayoutContent.default({ arms: [], workPoints: [], zones: [], workHeights: [] }),
+  content: LayoutContent.default({ arms: [], workPoints: [], boundaries: [], workHeights: [] }),
 });
 
 export const LayoutUpdateInput = z.object({

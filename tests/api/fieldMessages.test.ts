@@ -57,7 +57,7 @@ describe('field messages of the API', () => {
     const good = {
       arms: [{ id: 'R1', armModelId: model.id, label: 'Picker 1', x: 4000, y: 3000, yaw: 90, mountHeight: 0 }],
       workPoints: [{ id: 'P1', x: 4300, y: 3200, z: 900 }],
-      zones: [
+      boundaries: [
         { id: 'F1', kind: 'fence', label: 'Cell guard', points: [[0, 0], [8000, 0], [8000, 6000]], height: 2000 },
         { id: 'O1', kind: 'opening', points: [[2000, 0], [3000, 0]], fenceId: 'F1' },
       ],
@@ -67,17 +67,17 @@ describe('field messages of the API', () => {
     expect(created.status).toBe(201);
     const id = created.body.layout.id;
 
-    const bad = structuredClone(good) as typeof good & { zones: Array<Record<string, unknown>> };
+    const bad = structuredClone(good) as typeof good & { boundaries: Array<Record<string, unknown>> };
     (bad.arms[0] as Record<string, unknown>).mountHeight = 'high';
-    bad.zones[0].height = -5;
-    bad.zones[1].safeguard = { device: 'light-curtain', responseTimeS: 50, stopCategory: 0 };
+    bad.boundaries[0].height = -5;
+    bad.boundaries[1].safeguard = { device: 'light-curtain', responseTimeS: 50, stopCategory: 0 };
     (bad.workPoints[0] as Record<string, unknown>).assignedArm = 'R9';
     const res = await agent.put(`/api/layouts/${id}`).send({ version: 1, content: bad });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toMatchObject({
       'content.arms.0.mountHeight': 'Mount height of arm R1 must be a number',
-      'content.zones.0.height': 'Fence height of fence F1 must be greater than 0 mm',
-      'content.zones.1.safeguard.responseTimeS': 'Response time of access opening O1 must be at most 30 s',
+      'content.boundaries.0.height': 'Fence height of fence F1 must be greater than 0 mm',
+      'content.boundaries.1.safeguard.responseTimeS': 'Response time of access opening O1 must be at most 30 s',
     });
     expect(res.body.error.message).toMatch(/^The layout has invalid fields: .+ \(and \d+ more\)\.$/);
     for (const text of [res.body.error.message, ...Object.values(res.body.error.fields as Record<string, string>)]) expectReadable(text);

@@ -50,7 +50,7 @@ function sameRings(got: Array<Array<[number, number]>>, want: Array<Array<[numbe
 }
 
 describe('layout DXF export', () => {
-  it('round-trips through the importer: arms, spaces, bands, shared zones, points, fences, zones', async () => {
+  it('round-trips through the importer: arms, spaces, bands, shared zones, points, fences, boundaries', async () => {
     const a = await signedIn(t.app, plannerEmail, TEST_PASSWORD);
     const res = await a.get(`/api/layouts/${layoutId}/layout.dxf`);
     expect(res.status).toBe(200);
@@ -64,7 +64,7 @@ describe('layout DXF export', () => {
     const features = back.geometry.features as F[];
     const on = (layer: string) => features.filter((f) => f.properties.layer === layer);
     const layerNames = new Set(back.layers.map((l) => l.name));
-    for (const l of [DXF_LAYERS.arms, DXF_LAYERS.maxSpace, DXF_LAYERS.restricted, DXF_LAYERS.band(content.workHeights[0]), DXF_LAYERS.shared, DXF_LAYERS.points, DXF_LAYERS.fences, DXF_LAYERS.zones]) {
+    for (const l of [DXF_LAYERS.arms, DXF_LAYERS.maxSpace, DXF_LAYERS.restricted, DXF_LAYERS.band(content.workHeights[0]), DXF_LAYERS.shared, DXF_LAYERS.points, DXF_LAYERS.fences, DXF_LAYERS.boundaries]) {
       expect(layerNames.has(l), l).toBe(true);
     }
 
@@ -95,15 +95,15 @@ describe('layout DXF export', () => {
       polyRings(DXF_LAYERS.band(h)),
       content.arms.flatMap((arm) => geoJSONToPolygons(input.analysis.regions[arm.id].bands.find((b) => b.height === h)?.geometry ?? null).flat()),
     );
-    expect(input.analysis.overlaps.length).toBeGreaterThan(0);
-    sameRings(polyRings(DXF_LAYERS.shared), input.analysis.overlaps.flatMap((s) => geoJSONToPolygons(s.geometry).flat()));
+    expect(input.analysis.sharedZones.length).toBeGreaterThan(0);
+    sameRings(polyRings(DXF_LAYERS.shared), input.analysis.sharedZones.flatMap((s) => geoJSONToPolygons(s.geometry).flat()));
 
     // Fences as polylines with their corners (a fence that returns to its start comes back as the
     // importer's closed outline, a polygon); keep-outs and operator areas as closed outlines.
     const fenceShapes = on(DXF_LAYERS.fences).flatMap((f) =>
       f.geometry.type === 'LineString' ? [f.geometry.coordinates] : f.geometry.type === 'Polygon' ? [[...f.geometry.coordinates[0]]] : [],
     );
-    for (const z of content.zones.filter((z0) => z0.kind === 'fence')) {
+    for (const z of content.boundaries.filter((z0) => z0.kind === 'fence')) {
       const match = fenceShapes.find((c) => {
         const want = z.points;
         const ring = c.length === want.length ? c : c.slice(0, -1);
@@ -115,8 +115,8 @@ describe('layout DXF export', () => {
       expect(match, `${z.id}: ${JSON.stringify(z.points)} vs ${JSON.stringify(fenceShapes)}`).toBeDefined();
     }
     sameRings(
-      polyRings(DXF_LAYERS.zones),
-      content.zones.filter((z) => z.kind === 'keepout' || z.kind === 'operator').map((z) => z.points.map(([x, y]) => [x, y] as [number, number])),
+      polyRings(DXF_LAYERS.boundaries),
+      content.boundaries.filter((z) => z.kind === 'keepout' || z.kind === 'operator').map((z) => z.points.map(([x, y]) => [x, y] as [number, number])),
     );
   });
 });

@@ -75,7 +75,7 @@ describe('review and release in Chromium', () => {
     await reviewer.getByRole('alert').filter({ hasText: 'Say what needs to change' }).waitFor();
     await reviewer.getByLabel('Decision note (required to send it back)').fill('See the comment on the shared space.');
     await reviewer.getByRole('button', { name: 'Send back for changes' }).click();
-    await reviewer.locator('[data-revision-state="changes_requested"]').first().waitFor();
+    await reviewer.locator('[data-revision-state="returned"]').first().waitFor();
     await shot(reviewer, '1-changes-requested');
 
     // Planner moves the first arm by 300 mm east (through the API) and resubmits: revision B.
@@ -98,8 +98,8 @@ describe('review and release in Chromium', () => {
     if (await same.count()) await same.getByRole('list', { name: 'Earlier comments on this finding' }).getByText('Check this against the cell drawing and move the arm if you can.').waitFor();
     else await reviewer.locator('[data-diff]').getByText(`Gone: ${findingMessage}`).waitFor();
     await reviewer.getByRole('button', { name: 'Approve revision B' }).click();
-    await reviewer.locator('[data-revision-state="approved"]').first().waitFor();
-    await shot(reviewer, '2-approved');
+    await reviewer.locator('[data-revision-state="signed_off"]').first().waitFor();
+    await shot(reviewer, '2-signed-off');
 
     // Planner releases.
     await planner.reload();

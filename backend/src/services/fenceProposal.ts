@@ -21,7 +21,7 @@ export async function proposeLayoutFence(layout: Layout, system: FenceSystem, co
   try {
     return proposeFence({
       arms: content.arms,
-      zones: content.zones,
+      boundaries: content.boundaries,
       floor,
       system,
       reachFor: armReachFromModels(params),

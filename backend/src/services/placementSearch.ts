@@ -6,7 +6,7 @@ import type { PlacementSearchDto, PlacementSearchInput } from '@shared/schemas/p
 import { badRequest } from '../http/errors';
 import { ArmModel, FloorPlan, type Layout } from '../models';
 
-/** The placement search on a stored layout: its floor plan, zones, placed arms and the models' stored parameters. */
+/** The placement search on a stored layout: its floor plan, boundaries, placed arms and the models' stored parameters. */
 export async function searchPlacement(layout: Layout, input: PlacementSearchInput): Promise<PlacementSearchDto> {
   const content = layout.content as LayoutContent;
   const modelIds = [...new Set([input.armModelId, ...content.arms.map((a) => a.armModelId)])];

@@ -17,7 +17,7 @@ export interface AnalysisJob {
   /** Arm model id → stored parameters. */
   models: Array<[number, unknown]>;
   floor: { geometry: FeatureCollection; layers: FloorLayer[] } | null;
-  content: Pick<LayoutContent, 'arms' | 'workPoints' | 'zones' | 'workHeights'>;
+  content: Pick<LayoutContent, 'arms' | 'workPoints' | 'boundaries' | 'workHeights'>;
 }
 
 /** The reach of one parameter set: side profile (arm frame, mm) and plan bands at tool-point heights. */
@@ -48,7 +48,7 @@ export function analyzeLoaded(job: AnalysisJob): AnalysisResult {
   const floor = job.floor ? prepareFloor(job.floor.geometry, job.floor.layers) : null;
   const analyzer = createAnalyzer(armReachFromModels(params));
   const c = job.content;
-  return analyzer.analyze({ arms: c.arms, workPoints: c.workPoints, zones: c.zones, workHeights: c.workHeights, floor });
+  return analyzer.analyze({ arms: c.arms, workPoints: c.workPoints, boundaries: c.boundaries, workHeights: c.workHeights, floor });
 }
 
 /** Side profile and plan bands of a parameter set (arm frame, mm). */

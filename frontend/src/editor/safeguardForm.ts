@@ -2,7 +2,7 @@
  * The inspector's safeguard and mesh fields as typed (text) → what the layout stores, checked by the
  * layout schema (shared/schemas/layout.ts); errors are keyed by field and name the field's label.
  */
-import { MESH_SHAPE_NAMES, SAFEGUARD_DEVICE_NAMES, Safeguard, type Zone } from '@shared/schemas/layout';
+import { MESH_SHAPE_NAMES, SAFEGUARD_DEVICE_NAMES, Safeguard, type Boundary } from '@shared/schemas/layout';
 import { issueSentence } from '@shared/schemas/labels';
 import { parseNumber } from './armForm';
 
@@ -46,7 +46,7 @@ export const SAFEGUARD_FIELD_LABEL: Record<SafeguardField, string> = {
 const text = (v: number | undefined) => (v === undefined ? '' : String(v));
 
 /** The form values of an opening's stored safeguard (empty fields when it has none). */
-export function safeguardFormValues(z: Zone): SafeguardFormValues {
+export function safeguardFormValues(z: Boundary): SafeguardFormValues {
   const g = z.safeguard;
   return {
     device: g?.device ?? '',

@@ -98,7 +98,7 @@ export function createAnalysisSession(build: ReachBuilder): AnalysisSession {
         // reported by the analysis as unknown-model
       }
     }
-    return sectionOf({ line: sectionLine, floor, zones: c.zones, arms });
+    return sectionOf({ line: sectionLine, floor, boundaries: c.boundaries, arms });
   }
 
   return {
@@ -131,7 +131,7 @@ export function createAnalysisSession(build: ReachBuilder): AnalysisSession {
     run() {
       if (!content) return null;
       const c = contentWithPose(content, pose);
-      const analysis = analyzer.analyze({ arms: c.arms, workPoints: c.workPoints, zones: c.zones, workHeights: c.workHeights, floor });
+      const analysis = analyzer.analyze({ arms: c.arms, workPoints: c.workPoints, boundaries: c.boundaries, workHeights: c.workHeights, floor });
       const spaces: Record<string, AreaGeometry | null> = {};
       const placed: Record<string, [number, number, number]> = {};
       const live = new Set<string>();

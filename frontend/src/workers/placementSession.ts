@@ -115,7 +115,7 @@ export function createPlacementSession(reachOf: ReachAdapter, post: (m: FromPlac
         it = autoLayoutSteps({
           models: req.models.map((m) => ({ armModelId: m.armModelId, count: m.count, reach: ctx.reachFor(m.armModelId, undefined) })),
           points: req.pointIds.map((p) => byId.get(p)!),
-          minMarginMm: req.minMarginMm, mountHeightMm: req.mountHeightMm, floor: ctx.floor, zones: msg.content.zones,
+          minMarginMm: req.minMarginMm, mountHeightMm: req.mountHeightMm, floor: ctx.floor, boundaries: msg.content.boundaries,
           seed: req.seed, timeLimitMs: req.timeLimitS * 1000, takenIds: [], now,
         });
       } catch (err) {
@@ -125,7 +125,7 @@ export function createPlacementSession(reachOf: ReachAdapter, post: (m: FromPlac
       drive(msg.id, it, (y) => post({ type: 'progress', id: msg.id, progress: y.progress }), (result) => {
         const proposal = proposalContent(msg.content, result);
         // Both scores from the same analysis code, on the same floor and models.
-        const score = (c: typeof proposal) => layoutScore(createAnalyzer(ctx.reachFor).analyze({ arms: c.arms, workPoints: c.workPoints, zones: c.zones, workHeights: c.workHeights, floor: ctx.floor }));
+        const score = (c: typeof proposal) => layoutScore(createAnalyzer(ctx.reachFor).analyze({ arms: c.arms, workPoints: c.workPoints, boundaries: c.boundaries, workHeights: c.workHeights, floor: ctx.floor }));
         post({ type: 'proposed', id: msg.id, result, proposal, scores: { current: score(msg.content), proposal: score(proposal) } });
       });
     },

@@ -14,7 +14,7 @@ const articulated = params('demo-articulated-1400.json');
 const INTERNAL = /\b[a-z]+[A-Z]\w*\b|\b[A-Za-z_]\w*\.(?:[A-Za-z_]\w*|\d+\b)|\brestrict:|\bparams\b|\bmodel \d+/;
 
 function findingsOf(arms: ArmPlacement[], reachFor: ArmReachFactory): Finding[] {
-  return createAnalyzer(reachFor).analyze({ arms, workPoints: [], zones: [], workHeights: [900], floor: null }).findings;
+  return createAnalyzer(reachFor).analyze({ arms, workPoints: [], boundaries: [], workHeights: [900], floor: null }).findings;
 }
 const arm = (over: Partial<ArmPlacement> = {}): ArmPlacement => ({ id: 'R3', armModelId: 1, label: 'Case packer', x: 0, y: 0, yaw: 0, mountHeight: 0, ...over });
 const reachFinding = (fs: Finding[]) => fs.find((f) => f.kind === 'unknown-model');
@@ -52,9 +52,9 @@ describe('findings of arms whose reach cannot be built', () => {
 });
 
 describe('what a finding concerns', () => {
-  const content: Pick<LayoutContent, 'arms' | 'zones' | 'workPoints'> = {
+  const content: Pick<LayoutContent, 'arms' | 'boundaries' | 'workPoints'> = {
     arms: [arm({ id: 'R1', label: 'Picker 1' }), arm({ id: 'R2', label: '' })],
-    zones: [
+    boundaries: [
       { id: 'F1', kind: 'fence', label: 'Cell guard', points: [[0, 0], [10, 0]], height: 2000 },
       { id: 'O1', kind: 'opening', label: '', points: [[2, 0], [4, 0]], fenceId: 'F1' },
     ],

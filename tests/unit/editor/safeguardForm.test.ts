@@ -2,7 +2,7 @@
 // errors that start with the field's label. (Form plumbing; the distances are checked elsewhere.)
 import { describe, expect, it } from 'vitest';
 import type { LayoutContent } from '@shared/schemas/layout';
-import { setZoneSafeguarding } from '../../../frontend/src/editor/layoutEdits';
+import { setBoundarySafeguarding } from '../../../frontend/src/editor/layoutEdits';
 import { parseMeshForm, parseSafeguardForm, safeguardFieldsFor, safeguardFormValues, type SafeguardFormValues } from '../../../frontend/src/editor/safeguardForm';
 
 const blank: SafeguardFormValues = { device: '', responseTimeS: '', stopCategory: '', resolutionMm: '', beams: '', approach: 'normal', heightMm: '' };
@@ -11,8 +11,8 @@ describe('safeguard form', () => {
   it('stores an interlocked door and reads it back', () => {
     const r = parseSafeguardForm({ ...blank, device: 'interlock', responseTimeS: '0,05', stopCategory: '1', resolutionMm: '14' });
     expect(r).toEqual({ ok: true, safeguard: { device: 'interlock', responseTimeS: 0.05, stopCategory: 1, approach: 'normal' } });
-    const zone = { id: 'O1', kind: 'opening' as const, label: '', points: [[0, 0], [1000, 0]] as Array<[number, number]>, fenceId: 'F1', safeguard: r.ok ? r.safeguard! : undefined };
-    expect(safeguardFormValues(zone)).toMatchObject({ device: 'interlock', responseTimeS: '0.05', stopCategory: '1' });
+    const boundary = { id: 'O1', kind: 'opening' as const, label: '', points: [[0, 0], [1000, 0]] as Array<[number, number]>, fenceId: 'F1', safeguard: r.ok ? r.safeguard! : undefined };
+    expect(safeguardFormValues(boundary)).toMatchObject({ device: 'interlock', responseTimeS: '0.05', stopCategory: '1' });
   });
 
   it('asks for what each device needs, naming the field', () => {
@@ -40,18 +40,18 @@ describe('safeguard form', () => {
   it('sets and removes a safeguard and a mesh without touching the input', () => {
     const content: LayoutContent = {
       arms: [], workPoints: [], workHeights: [],
-      zones: [
+      boundaries: [
         { id: 'F1', kind: 'fence', label: '', points: [[0, 0], [4000, 0]], height: 2000 },
         { id: 'O1', kind: 'opening', label: '', points: [[1000, 0], [2000, 0]], fenceId: 'F1' },
       ],
     };
     const frozen = JSON.stringify(content);
-    const guarded = setZoneSafeguarding(content, 'O1', { safeguard: { device: 'interlock-locking', responseTimeS: 0.05, stopCategory: 0, approach: 'normal' } });
-    expect(guarded.zones[1].safeguard?.device).toBe('interlock-locking');
-    expect('safeguard' in setZoneSafeguarding(guarded, 'O1', { safeguard: null }).zones[1]).toBe(false);
-    const meshed = setZoneSafeguarding(content, 'F1', { mesh: { meshMm: 30, meshShape: 'round' } });
-    expect(meshed.zones[0]).toMatchObject({ meshMm: 30, meshShape: 'round' });
-    expect(() => setZoneSafeguarding(content, 'F1', { safeguard: null })).toThrow(/not an access opening/);
+    const guarded = setBoundarySafeguarding(content, 'O1', { safeguard: { device: 'interlock-locking', responseTimeS: 0.05, stopCategory: 0, approach: 'normal' } });
+    expect(guarded.boundaries[1].safeguard?.device).toBe('interlock-locking');
+    expect('safeguard' in setBoundarySafeguarding(guarded, 'O1', { safeguard: null }).boundaries[1]).toBe(false);
+    const meshed = setBoundarySafeguarding(content, 'F1', { mesh: { meshMm: 30, meshShape: 'round' } });
+    expect(meshed.boundaries[0]).toMatchObject({ meshMm: 30, meshShape: 'round' });
+    expect(() => setBoundarySafeguarding(content, 'F1', { safeguard: null })).toThrow(/not an access opening/);
     expect(JSON.stringify(content)).toBe(frozen);
   });
 });

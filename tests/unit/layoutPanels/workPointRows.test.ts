@@ -23,7 +23,7 @@ describe('pointCoverage', () => {
 
   it('builds table rows from the analysis, none without it', () => {
     const pts = [wp({ id: 'P1' }), wp({ id: 'P2' })];
-    const rows = workPointRows(pts, ARMS, { coverage: { P1: { R1: 10 } }, findings: [], overlaps: [], regions: {}, timingMs: 0 });
+    const rows = workPointRows(pts, ARMS, { coverage: { P1: { R1: 10 } }, findings: [], sharedZones: [], regions: {}, timingMs: 0 });
     expect(rows.map((r) => [r.point.id, r.best])).toEqual([['P1', 10], ['P2', null]]);
     expect(workPointRows(pts, ARMS, null).every((r) => r.best === null)).toBe(true);
   });

@@ -125,8 +125,8 @@ describe('field labels', () => {
     expect(fieldLabel(['params', 'fourBar', 'ground'])).toEqual({ label: 'Ground link', unit: 'mm' });
     expect(fieldLabel(['params', 'axes', 0, 'max'])).toEqual({ label: 'J1 max', unit: '°' });
     expect(fieldLabel(['mountHeightMm'])).toEqual({ label: 'Mount height', unit: 'mm' });
-    expect(fieldLabel(['content', 'zones', 2, 'height'])).toEqual({ label: 'Fence height', unit: 'mm' });
-    expect(fieldLabel(['content', 'zones', 0, 'points', 3, 1])).toEqual({ label: 'Point 4 y', unit: 'mm' });
+    expect(fieldLabel(['content', 'boundaries', 2, 'height'])).toEqual({ label: 'Fence height', unit: 'mm' });
+    expect(fieldLabel(['content', 'boundaries', 0, 'points', 3, 1])).toEqual({ label: 'Point 4 y', unit: 'mm' });
     expect(fieldLabel(['panelWidthsMm', 1])).toEqual({ label: 'Panel width 2', unit: 'mm' });
   });
 });
@@ -153,8 +153,8 @@ describe('issue sentences', () => {
     { schema: LayoutUpdateInput, base: { version: 1, content }, at: ['content', 'arms', 2, 'restrict', 'j1Max'], value: -120, sentence: 'Arm R3: J1 min must be below J1 max' },
     { schema: LayoutUpdateInput, base: { version: 1, content }, at: ['content', 'workPoints', 0, 'assignedArm'], value: 'R9', sentence: 'Work point P1: no arm R9 on this layout' },
     { schema: LayoutUpdateInput, base: { version: 1, content }, at: ['content', 'workPoints', 1, 'z'], value: null, sentence: 'z (height) of work point P2 must be a number' },
-    { schema: LayoutUpdateInput, base: { version: 1, content }, at: ['content', 'zones', 0, 'height'], value: -5, sentence: 'Fence height of fence F1 must be greater than 0 mm' },
-    { schema: LayoutUpdateInput, base: { version: 1, content }, at: ['content', 'zones', 1, 'safeguard', 'responseTimeS'], value: 50, sentence: 'Response time of access opening O1 must be at most 30 s' },
+    { schema: LayoutUpdateInput, base: { version: 1, content }, at: ['content', 'boundaries', 0, 'height'], value: -5, sentence: 'Fence height of fence F1 must be greater than 0 mm' },
+    { schema: LayoutUpdateInput, base: { version: 1, content }, at: ['content', 'boundaries', 1, 'safeguard', 'responseTimeS'], value: 50, sentence: 'Response time of access opening O1 must be at most 30 s' },
     { schema: LayoutUpdateInput, base: { version: 1, content }, at: ['content', 'workHeights', 0], value: 'a', sentence: 'Work height 1 must be a number' },
     { schema: ProjectInput, base: { name: 'Line 3', clientName: 'Fernhill' }, at: ['name'], value: '', sentence: 'Enter a project name' },
     { schema: ProjectInput, base: { name: 'Line 3', clientName: 'Fernhill' }, at: ['clientName'], value: undefined, sentence: 'Client is required' },
@@ -207,7 +207,7 @@ describe('issue sentences', () => {
     expect(extra.success).toBe(false);
     expect(issueSentence(extra.error!.issues[0], { input: { content: { arms: [{ id: 'R1' }] } } })).toBe('Arm R1 has a field it does not take');
     // Without the input at hand, list items go by their position.
-    expect(issueSentence({ code: 'too_small', origin: 'number', minimum: 0, inclusive: false, path: ['zones', 2, 'height'], message: 'Too small: expected number to be >0' })).toBe(
+    expect(issueSentence({ code: 'too_small', origin: 'number', minimum: 0, inclusive: false, path: ['boundaries', 2, 'height'], message: 'Too small: expected number to be >0' })).toBe(
       'Fence height of boundary 3 must be greater than 0 mm',
     );
     expect(issueSentence({ code: 'custom', path: [], message: 'Nothing to change' })).toBe('Nothing to change');

@@ -113,13 +113,13 @@ export function drawCoverage(pages: SheetPages, input: PlanSheetInput, arms: Arm
   });
 }
 
-/** Shared zones (arm pairs, area m², points inside) and the layout's zones (fences, openings, areas). */
-export function drawZonesSheet(pages: SheetPages, input: PlanSheetInput): void {
-  pages.newPage('Shared zones and zones', 'zones');
+/** Shared zones (arm pairs, area m², points inside) and the layout's boundaries (fences, openings, areas). */
+export function drawBoundariesSheet(pages: SheetPages, input: PlanSheetInput): void {
+  pages.newPage('Shared zones and boundaries', 'boundaries');
   const doc = pages.doc;
-  const overlaps = input.analysis.overlaps;
+  const sharedZones = input.analysis.sharedZones;
   let y: number;
-  if (!overlaps.length) {
+  if (!sharedZones.length) {
     note(pages, 'No two arms share space on this layout.');
     y = pages.contentBox().y + 8;
   } else {
@@ -129,7 +129,7 @@ export function drawZonesSheet(pages: SheetPages, input: PlanSheetInput): void {
       { title: 'At work heights (m²)', width: 70, wrap: true },
       { title: 'Work points inside', width: 110, wrap: true },
     ];
-    const rows: Row[] = overlaps.map((s) => ({
+    const rows: Row[] = sharedZones.map((s) => ({
       cells: [
         { text: `${s.arms[0]} + ${s.arms[1]}`, bold: true },
         s.areaM2.toFixed(2),
@@ -139,7 +139,7 @@ export function drawZonesSheet(pages: SheetPages, input: PlanSheetInput): void {
     }));
     y = drawTable(doc, pages.contentBox(), pages.fit(cols), rows, () => pages.continuePage());
   }
-  const zones = input.layout.content.zones;
+  const boundaries = input.layout.content.boundaries;
   const box = pages.contentBox();
   if (y + 20 > box.y + box.h) {
     pages.continuePage();
@@ -148,8 +148,8 @@ export function drawZonesSheet(pages: SheetPages, input: PlanSheetInput): void {
   doc.setFont('Lato', 'bold');
   doc.setFontSize(9);
   doc.setTextColor(28, 34, 48);
-  doc.text('Zones of the layout', box.x, y + 8);
-  if (!zones.length) {
+  doc.text('Boundaries of the layout', box.x, y + 8);
+  if (!boundaries.length) {
     doc.setFont('Lato', 'normal');
     doc.setFontSize(8);
     doc.text('The layout has no fences, openings, keep-outs or operator areas.', box.x, y + 14);
@@ -157,14 +157,14 @@ export function drawZonesSheet(pages: SheetPages, input: PlanSheetInput): void {
   }
   const kindName = { fence: 'guard fence', opening: 'access opening', keepout: 'keep-out', operator: 'operator area' } as const;
   const cols: Column[] = [
-    { title: 'Zone', width: 24 },
+    { title: 'Boundary', width: 24 },
     { title: 'Kind', width: 30 },
     { title: 'Label', width: 50 },
     { title: 'Height mm', width: 20, align: 'right' },
     { title: 'Points', width: 14, align: 'right' },
     { title: 'In fence', width: 20 },
   ];
-  const rows: Row[] = zones.map((z) => ({
+  const rows: Row[] = boundaries.map((z) => ({
     cells: [{ text: z.id, bold: true }, kindName[z.kind], z.label || '—', z.height === undefined ? '—' : fmtMm(z.height), String(z.points.length), z.fenceId ?? '—'],
   }));
   drawTable(doc, { x: box.x, y: y + 11, w: box.w, h: box.y + box.h - (y + 11) }, cols, rows, () => pages.continuePage());

@@ -9,7 +9,7 @@ import type { FenceProposalDto } from '../../api/fenceProposals';
 import type { FloorPlanDto } from '../../api/floorPlans';
 import { useCreateLayout } from '../../api/layouts';
 import { commandForKey } from '../../editor/editorKeys';
-import { addArm, addWorkPoint, addZone, duplicateArm, moveArm, moveZoneVertex, nudgeArm, removeArm, removeZone, rotateArm, roundMm, setArmYaw } from '../../editor/layoutEdits';
+import { addArm, addWorkPoint, addBoundary, duplicateArm, moveArm, moveBoundaryVertex, nudgeArm, removeArm, removeBoundary, rotateArm, roundMm, setArmYaw } from '../../editor/layoutEdits';
 import { useAnalysisWorker } from '../../editor/useAnalysisWorker';
 import { placeAtCandidate } from '../../editor/placementEdits';
 import { usePlacementWorker } from '../../editor/usePlacementWorker';
@@ -33,7 +33,7 @@ import { cellAt, drawPlacementMap, drawPlacementMarks } from './placementMapDraw
 import { createLayoutScene, type EditorTool, type LayoutScene, type ShapeTool } from './layoutScene';
 import type { LayoutSelection } from './panelTypes';
 import { WorkHeightsEditor } from './WorkHeightsEditor';
-import { ZoneInspector } from './ZoneInspector';
+import { BoundaryInspector } from './BoundaryInspector';
 
 export interface LayoutEditorProps {
   layout: LayoutDto;
@@ -43,7 +43,7 @@ export interface LayoutEditorProps {
   readOnly: boolean;
 }
 
-const ZONE_WORD = { fence: 'fence', keepout: 'keep-out', operator: 'operator area', opening: 'opening' } as const;
+const BOUNDARY_WORD = { fence: 'fence', keepout: 'keep-out', operator: 'operator area', opening: 'opening' } as const;
 /** Height a new fence gets until the planner types its own, mm (a common guard height). */
 const NEW_FENCE_HEIGHT_MM = 2000;
 const NO_HIGHLIGHT: ReadonlySet<string> = new Set();
@@ -62,7 +62,7 @@ function findingBounds(f: Finding): PlanBounds | null {
   return null;
 }
 
-/** The layout editor: plan with arms, reach and zones, tools, inspector, live findings from the worker. */
+/** The layout editor: plan with arms, reach and boundaries, tools, inspector, live findings from the worker. */
 export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly }: LayoutEditorProps) {
   const ed = useLayoutEditor(layout);
   const { content, edit } = ed;
@@ -114,8 +114,8 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
   const handlers = useRef({
     onArmMoved: (id: string, x: number, y: number) => edit(moveArm(contentRef.current, id, x, y), `Move ${id}`, `drag:${id}`),
     onArmTurned: (id: string, yaw: number) => edit(setArmYaw(contentRef.current, id, yaw), `Turn ${id}`, `turn:${id}`),
-    onVertexMoved: (zoneId: string, index: number, to: [number, number]) =>
-      edit(moveZoneVertex(contentRef.current, zoneId, index, to), `Move corner of ${zoneId}`, `vertex:${zoneId}:${index}`),
+    onVertexMoved: (boundaryId: string, index: number, to: [number, number]) =>
+      edit(moveBoundaryVertex(contentRef.current, boundaryId, index, to), `Move corner of ${boundaryId}`, `vertex:${boundaryId}:${index}`),
     onPointPlaced: (at: [number, number]) => {
       const z = contentRef.current.workHeights[0] ?? 0;
       const r = addWorkPoint(contentRef.current, at, z);
@@ -125,9 +125,9 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
     },
     onShapeDrawn: (kind: ShapeTool, points: Array<[number, number]>) => {
       try {
-        const r = addZone(contentRef.current, kind, points, kind === 'fence' ? { height: NEW_FENCE_HEIGHT_MM } : {});
-        edit(r.content, `Draw ${ZONE_WORD[kind]} ${r.id}`);
-        setSelection({ kind: 'zone', id: r.id });
+        const r = addBoundary(contentRef.current, kind, points, kind === 'fence' ? { height: NEW_FENCE_HEIGHT_MM } : {});
+        edit(r.content, `Draw ${BOUNDARY_WORD[kind]} ${r.id}`);
+        setSelection({ kind: 'boundary', id: r.id });
         if (kind === 'fence') {
           setFocusHeightOf(r.id);
           setTool('select');
@@ -229,7 +229,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
   }, [canvas, placeOpen, placing.map]);
 
   const selectedArm = selection?.kind === 'arm' ? content.arms.find((a) => a.id === selection.id) : undefined;
-  const selectedZone = selection?.kind === 'zone' ? content.zones.find((z) => z.id === selection.id) : undefined;
+  const selectedBoundary = selection?.kind === 'boundary' ? content.boundaries.find((z) => z.id === selection.id) : undefined;
 
   const onAddArm = useCallback(
     (modelId: number) => {
@@ -247,7 +247,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
   useEffect(() => {
     function onKey(e: KeyboardEvent) {
       if (isEditable(e.target) || document.querySelector('dialog[open]')) return;
-      const cmd = commandForKey(e, { armSelected: !!selectedArm && !readOnly, zoneSelected: !!selectedZone && !readOnly, drawing: tool !== 'select' && !readOnly });
+      const cmd = commandForKey(e, { armSelected: !!selectedArm && !readOnly, boundarySelected: !!selectedBoundary && !readOnly, drawing: tool !== 'select' && !readOnly });
       if (!cmd) return;
       const c = contentRef.current;
       switch (cmd.kind) {
@@ -273,7 +273,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
         }
         case 'delete':
           if (selectedArm) edit(removeArm(c, selectedArm.id), `Remove ${selectedArm.id}`);
-          else if (selectedZone) edit(removeZone(c, selectedZone.id), `Remove ${selectedZone.id}`);
+          else if (selectedBoundary) edit(removeBoundary(c, selectedBoundary.id), `Remove ${selectedBoundary.id}`);
           setSelection(null);
           break;
         case 'finish':
@@ -293,7 +293,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
     }
     document.addEventListener('keydown', onKey, true);
     return () => document.removeEventListener('keydown', onKey, true);
-  }, [ed, edit, readOnly, selectedArm, selectedZone, tool]);
+  }, [ed, edit, readOnly, selectedArm, selectedBoundary, tool]);
 
   function pickFinding(f: Finding) {
     setSelection({ kind: 'finding', id: f.id });
@@ -366,7 +366,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
                 proposal={ringProposal}
                 onProposal={setRingProposal}
                 onAccept={(p) => {
-                  edit({ ...contentRef.current, zones: applyFenceProposal(contentRef.current.zones, p) }, `Accept guard ring (${p.zones.filter((z) => z.kind === 'fence').length} fences)`);
+                  edit({ ...contentRef.current, boundaries: applyFenceProposal(contentRef.current.boundaries, p) }, `Accept guard ring (${p.boundaries.filter((z) => z.kind === 'fence').length} fences)`);
                   setRingProposal(null);
                   setRingOpen(false);
                   setHint('Guard ring accepted as fences and doors; undo takes it back in one step.');
@@ -406,12 +406,12 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
               />
             </div>
           )}
-          {!ringOpen && !placeOpen && (selectedArm || selectedZone) && (
+          {!ringOpen && !placeOpen && (selectedArm || selectedBoundary) && (
             <div className="max-h-[55%] shrink-0 overflow-y-auto rounded-control border border-rule bg-paper-raised p-3">
               {selectedArm ? (
                 <ArmInspector arm={selectedArm} content={content} armModels={modelList} readOnly={readOnly} onEdit={edit} onSelectArm={(id) => setSelection(id ? { kind: 'arm', id } : null)} />
               ) : (
-                <ZoneInspector zone={selectedZone!} content={content} readOnly={readOnly} focusHeight={focusHeightOf === selectedZone!.id} onEdit={edit} onDeselect={() => setSelection(null)} />
+                <BoundaryInspector boundary={selectedBoundary!} content={content} readOnly={readOnly} focusHeight={focusHeightOf === selectedBoundary!.id} onEdit={edit} onDeselect={() => setSelection(null)} />
               )}
             </div>
           )}
