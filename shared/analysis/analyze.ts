@@ -5,7 +5,7 @@ import { polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
 import { type Polygon2 } from '../geometry/types';
 import type { ArmPlacement, WorkPoint } from '../schemas/layout';
 import { armClearance, bboxOverlap, centroidOf, fenceFindings, intersect, makeFinding, MIN_AREA_MM2, type BBox } from './clearance';
-import { m2, m2Text, mm, sortFindings } from './messages';
+import { m2, m2Text, mm, reasonOf, sortFindings } from './messages';
 import { buildPointGrid, pointsNear, type PointGrid } from './pointGrid';
 import { isReached, roundMargin, shortfallText } from './reached';
 import { measureArmSafeguarding, safeguardingChecks, type ArmSafeguardMeasure } from './safeguarding';
@@ -188,7 +188,8 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     try {
       polys = intersect(first.restricted, second.restricted);
     } catch (err) {
-      return { sharedZone: null, findings: [makeFinding('computation-failed', ['overlap', ...ids], { arms: ids, points: [], geometry: null, at: null, message: `Could not compute the overlap of ${ids.join('/')} (${err instanceof Error ? err.message : err}); check it by hand.` })] };
+      const why = reasonOf(err);
+      return { sharedZone: null, findings: [makeFinding('computation-failed', ['overlap', ...ids], { arms: ids, points: [], geometry: null, at: null, message: `Could not compute the shared zone of ${ids[0]} and ${ids[1]}${why ? ` (${why})` : ''}; check it by hand.` })] };
     }
     const area = polygonsArea(polys);
     if (area < MIN_AREA_MM2) return { sharedZone: null, findings: [] };
@@ -247,9 +248,10 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
         try {
           placed.push(placedArm(a, heights));
         } catch (err) {
+          const why = reasonOf(err);
           small.push(makeFinding('unknown-model', [a.id], {
             arms: [a.id], points: [], geometry: null, at: [a.x, a.y],
-            message: `${a.label || a.id}: its reach could not be computed (${err instanceof Error ? err.message : 'unknown arm model'}).`,
+            message: `${a.label || a.id}: its reach could not be computed (${why ?? 'check its arm model and its J1 limits'}).`,
           }));
         }
       }

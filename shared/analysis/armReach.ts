@@ -1,7 +1,11 @@
 import { canonicalJson as stableKey } from '../canonicalJson';
 import { armReach, parseArmParams } from '../kinematics';
+import { ReadableError } from '../schemas/errors';
 import type { ArmPlacement } from '../schemas/layout';
-import type { ArmReach } from './types';
+import type { ArmReach, ArmReachFactory } from './types';
+
+/** What an arm whose model is not among the loaded ones is told (the analysis shows it in a finding). */
+export const MISSING_MODEL_TEXT = 'its arm model is not in the catalogue: choose one that is';
 
 const cache = new Map<string, ArmReach>();
 const CACHE_LIMIT = 256;
@@ -38,4 +42,12 @@ export function armReachFor(params: unknown, restrict: ArmPlacement['restrict'])
     cache.set(key, r);
   }
   return r;
+}
+
+/** The reach factory over loaded arm models (id → stored parameters); a missing model is a ReadableError. */
+export function armReachFromModels(params: ReadonlyMap<number, unknown>): ArmReachFactory {
+  return (modelId, restrict) => {
+    if (!params.has(modelId)) throw new ReadableError(MISSING_MODEL_TEXT);
+    return armReachFor(params.get(modelId), restrict);
+  };
 }

@@ -2,6 +2,7 @@ import { polygonArea } from '../geometry/area';
 import { geoJSONToPolygons } from '../geometry/geojson';
 import { convexHull } from '../geometry/hull';
 import type { Pt } from '../geometry/types';
+import { ReadableError } from '../schemas/errors';
 import type { ArmPlacement, LayoutContent } from '../schemas/layout';
 import { bestAlone, placementSteps, type PlacementNeighbour, type PlacementPoint } from './placement';
 import { armPose } from '../geometry/frames';
@@ -104,8 +105,8 @@ function splitTwo(group: PlacementPoint[], rand: () => number): [PlacementPoint[
 
 /** The auto-layout as steps (progress between placement searches); the return value is the proposal. */
 export function* autoLayoutSteps(q: AutoLayoutQuery): Generator<AutoLayoutProgress, AutoLayoutResult, void> {
-  if (!q.points.length) throw new Error('Choose at least one work point');
-  if (!q.models.length) throw new Error('Choose at least one arm model');
+  if (!q.points.length) throw new ReadableError('Choose at least one work point');
+  if (!q.models.length) throw new ReadableError('Choose at least one arm model');
   const now = q.now ?? (() => (typeof performance !== 'undefined' ? performance.now() : Date.now()));
   const deadline = now() + (q.timeLimitMs ?? 10_000);
   const rand = seeded(q.seed);

@@ -5,7 +5,7 @@ import { polygonsToGeoJSON } from '../geometry/geojson';
 import { pointInPolygons } from '../geometry/pointInPolygon';
 import type { Polygon2 } from '../geometry/types';
 import type { ArmPlacement, Boundary } from '../schemas/layout';
-import { findingId, m2, m2Text, mm, SEVERITY_OF } from './messages';
+import { findingId, m2, m2Text, mm, reasonOf, SEVERITY_OF } from './messages';
 import { polylineDistanceToPolygons, polylineHitsPolygons, segmentsIntersect, subtractOpenings } from './segments';
 import type { Finding, FindingKind, PreparedFloor, StructureItem } from './types';
 
@@ -133,7 +133,8 @@ export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, bound
         // One clip per height already merges its items; only several heights need a union.
         union = byTop.size > 1 && parts.length ? clipUnion(parts) : parts;
       } catch (err) {
-        out.push(makeFinding('computation-failed', ['structure', id, layer], { arms: [id], points: [], geometry: null, at: null, message: `Could not measure ${name} against layer ${layer} (${err instanceof Error ? err.message : err}).` }));
+        const why = reasonOf(err);
+        out.push(makeFinding('computation-failed', ['structure', id, layer], { arms: [id], points: [], geometry: null, at: null, message: `Could not measure ${name} against layer ${layer}${why ? ` (${why})` : ''}; check it by hand.` }));
       }
       out.push(makeFinding('reach-into-structure', [id, layer], {
         arms: [id], points: [], geometry: union.length ? polygonsToGeoJSON(union) : null, at: union.length ? centroidOf(union) : at,
@@ -169,7 +170,9 @@ export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, bound
     try {
       inter = intersect(p.restricted, poly);
     } catch (err) {
-      out.push(makeFinding('computation-failed', ['boundary', id, z.id], { arms: [id], points: [], geometry: null, at: null, message: `Could not check ${name} against boundary ${z.id} (${err instanceof Error ? err.message : err}).` }));
+      const why = reasonOf(err);
+      const what = z.kind === 'operator' ? 'operator area' : 'keep-out';
+      out.push(makeFinding('computation-failed', ['boundary', id, z.id], { arms: [id], points: [], geometry: null, at: null, message: `Could not check ${name} against ${what} ${z.label || z.id}${why ? ` (${why})` : ''}; check it by hand.` }));
       continue;
     }
     const area = polygonsArea(inter);

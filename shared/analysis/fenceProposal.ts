@@ -21,9 +21,11 @@ import { armPose } from '../geometry/frames';
 import { distanceToBoundary, pointInPolygons } from '../geometry/pointInPolygon';
 import type { Polygon2, Pt, Ring } from '../geometry/types';
 import { CRUSHING_GAP_BODY_MM, NotCoveredError, reachOverDistance, reachThroughDistance, SafeguardInputError, separationDistance } from '../safety';
+import { ReadableError } from '../schemas/errors';
 import type { FenceSystem } from '../schemas/fenceProposal';
 import type { ArmPlacement, Boundary } from '../schemas/layout';
 import { fenceLinesOf, fenceParts, type BomLine, type FenceParts } from './fenceBom';
+import { reasonOf } from './messages';
 import { boxOverlap, boxUnion, obstacleBoxes, perimeter, routeAroundObstacles, snapToWalls, splitOnWalls, wallFacesOf, type Box } from './fenceRing';
 import { polylineDistanceToPolygons, segmentsIntersect } from './segments';
 import type { ArmReach, ArmReachFactory, PreparedFloor } from './types';
@@ -32,7 +34,7 @@ import type { ArmReach, ArmReachFactory, PreparedFloor } from './types';
 export const DOOR_INTERLOCK_RESPONSE_S = 0.1;
 
 /** Bad input to the proposal: names the field (null when it is about the layout as a whole). */
-export class FenceProposalError extends Error {
+export class FenceProposalError extends ReadableError {
   constructor(
     readonly field: string | null,
     message: string,
@@ -200,7 +202,7 @@ export function proposeFence(input: Readonly<FenceProposalInput>): FenceProposal
     try {
       reach = input.reachFor(arm.armModelId, arm.restrict);
     } catch (err) {
-      notes.push(`${arm.label || arm.id}: its reach cannot be computed (${err instanceof Error ? err.message : String(err)}); it is left out of the proposal.`);
+      notes.push(`${arm.label || arm.id}: its reach cannot be computed (${reasonOf(err) ?? 'check its arm model and its J1 limits'}); it is left out of the proposal.`);
       continue;
     }
     const restricted = armPose(arm).placePolygons(reach.restricted);

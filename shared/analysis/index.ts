@@ -17,7 +17,8 @@ export {
 } from './types';
 export { type FloorLayer, prepareFloor } from './floor';
 export { type Analyzer, createAnalyzer, FAR_MM, FENCE_CLEARANCE_MM, MIN_FENCE_HEIGHT_MM } from './analyze';
-export { findingId, m2, m2Text, mm, parseFindingId, SEVERITY_OF, sortFindings } from './messages';
+export { concernsText, type ConcernContent, type ConcernRole, type FindingConcern, findingConcerns } from './concerns';
+export { findingId, m2, m2Text, mm, parseFindingId, reasonOf, SEVERITY_OF, sortFindings } from './messages';
 export { isReached, roundMargin, shortfallText } from './reached';
 export {
   bestAlone,
@@ -47,7 +48,7 @@ export {
   layoutScore,
   proposalContent,
 } from './autoLayout';
-export { armReachFor } from './armReach';
+export { armReachFor, armReachFromModels, MISSING_MODEL_TEXT } from './armReach';
 export {
   ANCHORS_PER_POST,
   bomCsv,

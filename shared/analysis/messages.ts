@@ -1,4 +1,16 @@
+import { NotCoveredError, SafeguardInputError } from '../safety';
+import { readableMessage } from '../schemas/errors';
 import type { Finding, FindingKind, Severity } from './types';
+
+/**
+ * What a finding may say about an error it caught: the sentence of an input problem the planner
+ * can fix (arm parameters, J1 limits, a missing model, safeguard data), without its full stop;
+ * null for anything internal (geometry failures, argument checks), whose text never goes in a finding.
+ */
+export function reasonOf(err: unknown): string | null {
+  const text = err instanceof SafeguardInputError || err instanceof NotCoveredError ? err.message : readableMessage(err, null);
+  return text === null ? null : text.replace(/\.$/, '');
+}
 
 /** Stable finding id from its kind and the ids involved (order-independent for pairs). */
 export function findingId(kind: FindingKind, ...ids: string[]): string {

@@ -1,4 +1,5 @@
 import type { Polygon2 } from '../geometry/types';
+import { ReadableError } from '../schemas/errors';
 import type { Boundary } from '../schemas/layout';
 import { candidateScores } from './placementRank';
 import { siteContext, type SiteContext, type SiteVerdict } from './placementSite';
@@ -261,7 +262,7 @@ function store(map: PlacementMap, k: number, o: CellOutcome, yaws: number[]) {
 
 /** Checks the query's numbers once, with messages naming the field. */
 function checkQuery(q: PlacementQuery) {
-  if (q.points.length === 0) throw new Error('Choose at least one work point');
+  if (q.points.length === 0) throw new ReadableError('Choose at least one work point');
   if (!Number.isFinite(q.minMarginMm)) throw new Error('minMarginMm must be a number');
   if (!Number.isFinite(q.mountHeightMm)) throw new Error('mountHeightMm must be a number');
   const g = q.gridMm ?? 10;

@@ -1,4 +1,5 @@
 import { armPose } from '../geometry/frames';
+import { ReadableError } from '../schemas/errors';
 import type { LayoutContent } from '../schemas/layout';
 import type { PlacementSearchDto, PlacementSearchInput } from '../schemas/placement';
 import type { PlacementQuery, PlacementResult } from './placement';
@@ -13,8 +14,8 @@ import type { ArmReachFactory, PreparedFloor } from './types';
 export function placementQueryOf(req: Readonly<PlacementSearchInput>, content: Readonly<LayoutContent>, floor: PreparedFloor | null, reachFor: ArmReachFactory): PlacementQuery {
   const byId = new Map(content.workPoints.map((p) => [p.id, p]));
   const missing = req.pointIds.filter((id) => !byId.has(id));
-  if (missing.length) throw new Error(`No work point ${missing.slice(0, 3).join(', ')}${missing.length > 3 ? ' …' : ''} on this cell layout`);
-  if (req.armId && !content.arms.some((a) => a.id === req.armId)) throw new Error(`No arm ${req.armId} on this cell layout`);
+  if (missing.length) throw new ReadableError(`No work point ${missing.slice(0, 3).join(', ')}${missing.length > 3 ? ' …' : ''} on this cell layout`);
+  if (req.armId && !content.arms.some((a) => a.id === req.armId)) throw new ReadableError(`No arm ${req.armId} on this cell layout`);
   const neighbours = content.arms
     .filter((a) => a.id !== req.armId)
     .flatMap((a) => {

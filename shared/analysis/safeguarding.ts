@@ -19,7 +19,7 @@ import {
 } from '../safety';
 import type { ArmPlacement, Boundary } from '../schemas/layout';
 import { makeFinding, regionEdges, type BBox } from './clearance';
-import { mm } from './messages';
+import { mm, reasonOf } from './messages';
 import { polylineDistanceToPolygons, segmentsIntersect, subtractOpenings } from './segments';
 import type { ArmReach, Finding, PreparedFloor, SafeguardFenceRow, SafeguardingResult, SafeguardOpeningRow, StructureItem } from './types';
 
@@ -327,8 +327,9 @@ function openingCheck(o: Boundary, arms: ReadonlyArray<{ p: SafeguardArm; m: Arm
       try {
         s = separationDistance({ ...g, stopTimeS: stop });
       } catch (err) {
-        row = { ...base, stopTimeS: stop, note: `No separation distance: ${err instanceof Error ? err.message : err}` };
-        if (i === 0) findings.push(makeFinding('computation-failed', ['safeguard', o.id, p.arm.id], { arms: [p.arm.id], points: [], geometry: null, at, message: `Could not compute the separation distance of access opening ${label} for ${armName(p.arm)} (${err instanceof Error ? err.message : err}); check it by hand.` }));
+        const why = reasonOf(err);
+        row = { ...base, stopTimeS: stop, note: `No separation distance${why ? `: ${why}` : ''}` };
+        if (i === 0) findings.push(makeFinding('computation-failed', ['safeguard', o.id, p.arm.id], { arms: [p.arm.id], points: [], geometry: null, at, message: `Could not compute the separation distance of access opening ${label} for ${armName(p.arm)}${why ? ` (${why})` : ''}; check it by hand.` }));
         if (i === 0) nearestRow = row;
         continue;
       }
@@ -404,7 +405,8 @@ export function safeguardingChecks(arms: ReadonlyArray<{ p: SafeguardArm; m: Arm
         result.fences.push(c.row);
         findings.push(...c.findings);
       } catch (err) {
-        findings.push(makeFinding('computation-failed', ['fence', z.id], { arms: [], points: [], geometry: null, at: null, message: `Could not compute the ISO 13857 distances of fence ${z.label || z.id} (${err instanceof Error ? err.message : err}); check them by hand.` }));
+        const why = reasonOf(err);
+        findings.push(makeFinding('computation-failed', ['fence', z.id], { arms: [], points: [], geometry: null, at: null, message: `Could not compute the ISO 13857 distances of fence ${z.label || z.id}${why ? ` (${why})` : ''}; check them by hand.` }));
       }
     }
   }

@@ -10,6 +10,8 @@ import {
   type ScaraParams,
 } from '../schemas/armModel';
 import { canonicalJson } from '../canonicalJson';
+import { ReadableError } from '../schemas/errors';
+import { issueSentence, lowerFirst, type IssueLike } from '../schemas/labels';
 import { articulatedAxes, articulatedForward, articulatedJ1Range, articulatedReachProfile } from './articulated';
 import { chainFamily, type ChainParams } from './chain';
 import { linkageAxes, linkageFeasibility, linkageForward, linkageJ1Range, linkageReachProfile } from './linkage';
@@ -89,7 +91,7 @@ export function armParamsFeasibilityIssues(p: Readonly<ArmParams>): ArmParamsIss
     return [{ path: ['fourBar'], message: 'The four-bar does not assemble anywhere in the J2/J3 motor ranges: check the link lengths, the branch and the axis limits' }];
   }
   if (verdict === 'interior-angle') {
-    return [{ path: ['interiorAngle'], message: 'No pose in the motor ranges keeps the upper arm–forearm angle within interiorAngle: widen it or check the axis limits' }];
+    return [{ path: ['interiorAngle'], message: 'No pose in the motor ranges keeps the upper arm–forearm angle within the elbow angle limits: widen them or check the axis limits' }];
   }
   return [];
 }
@@ -102,13 +104,23 @@ export const feasibleArmParamsSchema = armParamsSchema.superRefine((p, ctx) => {
 /** A create or update of an arm model (name + parameters), with the kinematic checks added. */
 export const FeasibleArmModelInput = ArmModelInput.extend({ params: feasibleArmParamsSchema });
 
-/** Validates raw parameter JSON (defaults applied, kinematic checks made); throws a short message naming the first bad field. */
+/**
+ * Parameters that failed their checks: the issues (field paths of the parameters) and, as the
+ * message, the first one as a sentence about the arm using the model ("in its arm model, J1 max
+ * must be greater than J1 min"), as the analysis' findings quote it.
+ */
+export class ArmParamsError extends ReadableError {
+  override name = 'ArmParamsError';
+  constructor(readonly issues: ReadonlyArray<IssueLike>) {
+    super(issues[0] ? `in its arm model, ${lowerFirst(issueSentence(issues[0]))}` : 'its arm model has invalid parameters');
+  }
+}
+
+/** Validates raw parameter JSON (defaults applied, kinematic checks made); throws an ArmParamsError naming the first bad field by its label. */
 export function parseArmParams(raw: unknown): ArmParams {
   const r = feasibleArmParamsSchema.safeParse(raw);
   if (r.success) return r.data;
-  const first = r.error.issues[0];
-  const where = first && first.path.length ? first.path.join('.') : 'model';
-  throw new Error(`${where}: ${first?.message ?? 'invalid arm model parameters'}`);
+  throw new ArmParamsError(r.error.issues);
 }
 
 /** Forward kinematics of any family from controller joint values, arm frame, mm. */

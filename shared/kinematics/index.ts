@@ -74,6 +74,7 @@ export {
   linkageTwoLinkSpec,
 } from './linkage';
 export {
+  ArmParamsError,
   armParamsFeasibilityIssues,
   type ArmParamsIssue,
   articulatedFamily,

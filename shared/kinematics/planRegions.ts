@@ -5,6 +5,8 @@ import { polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
 import { DEFAULT_CHORD_TOLERANCE_MM } from '../geometry/tolerance';
 import type { Polygon2, Pt } from '../geometry/types';
 import type { ArmParams, ScaraParams } from '../schemas/armModel';
+import { ReadableError } from '../schemas/errors';
+import { withUnit } from '../schemas/labels';
 import { familyOf, reachProfileOf } from './families';
 import { profileProjection, profileSliceAt } from './profile';
 import { scaraPlanRegion } from './scara';
@@ -53,7 +55,7 @@ export function j1KinematicRange(model: ArmParams, restrict?: Readonly<J1Restric
   const min = Math.max(own.min, restrict.j1Min);
   const max = Math.min(own.max, restrict.j1Max);
   if (!(Number.isFinite(min) && Number.isFinite(max)) || !(min < max)) {
-    throw new Error(`restrict: J1 ${restrict.j1Min}…${restrict.j1Max}° does not overlap the model's J1 range ${own.min}…${own.max}°`);
+    throw new ReadableError(`its J1 limits ${withUnit(restrict.j1Min, '°')} to ${withUnit(restrict.j1Max, '°')} do not overlap the arm model's J1 range ${withUnit(own.min, '°')} to ${withUnit(own.max, '°')}`);
   }
   const narrowed: ArmParams =
     model.family === 'chain'

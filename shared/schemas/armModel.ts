@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { degrees, lengthMm, MAX_ANGLE_DEG, nonNegativeMm, nonNegativeNumber, positiveMm, positiveNumber, singleLineText } from './fields';
+import { greaterThan } from './labels';
 
 /**
  * Arm model parameters: a discriminated union on `family` (lengths mm, angles degrees).
@@ -7,7 +8,8 @@ import { degrees, lengthMm, MAX_ANGLE_DEG, nonNegativeMm, nonNegativeNumber, pos
  * from the flange), `payloadRadius` (default 0), optional stopping data, and `axes` for the
  * revolute axes: controller angle → kinematic angle = direction · angle + zeroOffset.
  * The chain family is a DH table (see kinematics/chain.ts for its conventions).
- * Messages name what to change; `superRefine` issues carry the field path.
+ * Messages name what to change by the field's label (shared/schemas/labels.ts); `superRefine` issues
+ * carry the field path.
  * Whether a linkage's four-bar assembles needs the kinematics: `parseArmParams` and
  * `feasibleArmParamsSchema` in shared/kinematics add that check.
  */
@@ -15,27 +17,27 @@ import { degrees, lengthMm, MAX_ANGLE_DEG, nonNegativeMm, nonNegativeNumber, pos
 /** One revolute axis: limits in controller degrees and the controller → kinematic mapping. */
 export const axisSchema = z
   .object({
-    min: degrees('min'),
-    max: degrees('max'),
-    zeroOffset: degrees('zeroOffset').default(0),
-    direction: z.union([z.literal(1), z.literal(-1)], { error: 'direction must be 1 or -1' }).default(1),
+    min: degrees(),
+    max: degrees(),
+    zeroOffset: degrees().default(0),
+    direction: z.union([z.literal(1), z.literal(-1)]).default(1),
   })
   .superRefine((a, ctx) => {
-    if (!(a.min < a.max)) ctx.addIssue({ code: 'custom', path: ['max'], message: 'max must be greater than min' });
+    if (!(a.min < a.max)) ctx.addIssue({ code: 'custom', path: ['max'], params: greaterThan('min'), message: 'The maximum must be greater than the minimum' });
     else if (a.max - a.min > 720) ctx.addIssue({ code: 'custom', path: ['max'], message: 'The axis range must not exceed 720°' });
   });
 export type AxisParams = z.infer<typeof axisSchema>;
 
 const commonFields = {
-  toolLength: nonNegativeMm('toolLength').default(0),
-  payloadRadius: nonNegativeMm('payloadRadius').default(0),
+  toolLength: nonNegativeMm().default(0),
+  payloadRadius: nonNegativeMm().default(0),
   /** Stopping time of a category 0 stop (power removed), s. */
-  stopTimeS: positiveNumber('stopTimeS').max(60).optional(),
+  stopTimeS: positiveNumber().max(60).optional(),
   /** Stopping time of a category 1 stop (controlled stop, then power removed), s. */
-  stopTimeCat1S: positiveNumber('stopTimeCat1S').max(60).optional(),
-  stopDistanceMm: nonNegativeMm('stopDistanceMm').optional(),
-  maxSpeedMmS: positiveMm('maxSpeedMmS').optional(),
-  payloadKg: nonNegativeNumber('payloadKg').max(100_000).optional(),
+  stopTimeCat1S: positiveNumber().max(60).optional(),
+  stopDistanceMm: nonNegativeMm().optional(),
+  maxSpeedMmS: positiveMm().optional(),
+  payloadKg: nonNegativeNumber().max(100_000).optional(),
 };
 
 /**
@@ -43,56 +45,56 @@ const commonFields = {
  * centre line into a capsule. Every field is optional; `linkSizesOf` in shared/kinematics/envelope.ts
  * fills what is missing from its documented defaults, so stored models stay valid.
  */
-const linkRadius = (what: string) => nonNegativeMm(what).refine((v) => v <= 5000, { message: `${what} must be at most 5000 mm` }).optional();
+const linkRadius = () => nonNegativeMm().max(5000).optional();
 
 export const scaraLinkSizesSchema = z.object({
-  innerLinkRadius: linkRadius('linkSizes.innerLinkRadius'),
-  outerLinkRadius: linkRadius('linkSizes.outerLinkRadius'),
-  toolRadius: linkRadius('linkSizes.toolRadius'),
+  innerLinkRadius: linkRadius(),
+  outerLinkRadius: linkRadius(),
+  toolRadius: linkRadius(),
 });
 export const articulatedLinkSizesSchema = z.object({
-  upperArmRadius: linkRadius('linkSizes.upperArmRadius'),
-  forearmRadius: linkRadius('linkSizes.forearmRadius'),
-  toolRadius: linkRadius('linkSizes.toolRadius'),
+  upperArmRadius: linkRadius(),
+  forearmRadius: linkRadius(),
+  toolRadius: linkRadius(),
 });
 export const linkageLinkSizesSchema = articulatedLinkSizesSchema.extend({
-  rearLength: linkRadius('linkSizes.rearLength'),
-  rearRadius: linkRadius('linkSizes.rearRadius'),
+  rearLength: linkRadius(),
+  rearRadius: linkRadius(),
 });
 export const chainLinkSizesSchema = z.object({
-  linkRadius: linkRadius('linkSizes.linkRadius'),
-  toolRadius: linkRadius('linkSizes.toolRadius'),
+  linkRadius: linkRadius(),
+  toolRadius: linkRadius(),
 });
 
 const axes = (count: number, labels: string) =>
-  z.array(axisSchema, { error: `axes must be a list of ${count} axes (${labels})` }).length(count, { message: `Give exactly ${count} axes (${labels})` });
+  z.array(axisSchema, { error: `Give a list of ${count} axes (${labels})` }).length(count, { message: `Give exactly ${count} axes (${labels})` });
 
 export const scaraParamsSchema = z
   .object({
-    family: z.literal('scara', { error: "family must be 'scara'" }),
-    innerLink: positiveMm('innerLink'),
-    outerLink: positiveMm('outerLink'),
-    strokeMin: lengthMm('strokeMin'),
-    strokeMax: lengthMm('strokeMax'),
+    family: z.literal('scara'),
+    innerLink: positiveMm(),
+    outerLink: positiveMm(),
+    strokeMin: lengthMm(),
+    strokeMax: lengthMm(),
     axes: axes(2, 'J1, J2'),
     linkSizes: scaraLinkSizesSchema.optional(),
     ...commonFields,
   })
   .superRefine((p, ctx) => {
-    if (!(p.strokeMin < p.strokeMax)) ctx.addIssue({ code: 'custom', path: ['strokeMax'], message: 'strokeMax must be greater than strokeMin' });
+    if (!(p.strokeMin < p.strokeMax)) ctx.addIssue({ code: 'custom', path: ['strokeMax'], params: greaterThan('strokeMin'), message: 'The stroke top must be above the stroke bottom' });
   });
 export type ScaraParams = z.infer<typeof scaraParamsSchema>;
 
 const armFields = {
-  shoulderHeight: lengthMm('shoulderHeight'),
-  shoulderOffset: nonNegativeMm('shoulderOffset'),
-  upperArm: positiveMm('upperArm'),
-  forearm: positiveMm('forearm'),
-  elbowOffset: lengthMm('elbowOffset').default(0),
+  shoulderHeight: lengthMm(),
+  shoulderOffset: nonNegativeMm(),
+  upperArm: positiveMm(),
+  forearm: positiveMm(),
+  elbowOffset: lengthMm().default(0),
 };
 
 export const articulatedParamsSchema = z.object({
-  family: z.literal('articulated', { error: "family must be 'articulated'" }),
+  family: z.literal('articulated'),
   ...armFields,
   axes: axes(3, 'J1, J2, J3'),
   linkSizes: articulatedLinkSizesSchema.optional(),
@@ -101,35 +103,35 @@ export const articulatedParamsSchema = z.object({
 export type ArticulatedParams = z.infer<typeof articulatedParamsSchema>;
 
 export const fourBarParamsSchema = z.object({
-  ground: positiveMm('ground'),
-  crank: positiveMm('crank'),
-  coupler: positiveMm('coupler'),
-  rocker: positiveMm('rocker'),
-  groundAngle: degrees('groundAngle').default(0),
-  branch: z.enum(['open', 'crossed'], { error: "branch must be 'open' or 'crossed'" }).default('open'),
-  rockerToForearm: degrees('rockerToForearm').default(0),
+  ground: positiveMm(),
+  crank: positiveMm(),
+  coupler: positiveMm(),
+  rocker: positiveMm(),
+  groundAngle: degrees().default(0),
+  branch: z.enum(['open', 'crossed']).default('open'),
+  rockerToForearm: degrees().default(0),
 });
 export type FourBarParams = z.infer<typeof fourBarParamsSchema>;
 
 export const linkageParamsSchema = z
   .object({
-    family: z.literal('linkage', { error: "family must be 'linkage'" }),
+    family: z.literal('linkage'),
     ...armFields,
     flangeOffset: z
-      .object({ horizontal: lengthMm('flangeOffset.horizontal').default(0), vertical: lengthMm('flangeOffset.vertical').default(0) })
+      .object({ horizontal: lengthMm().default(0), vertical: lengthMm().default(0) })
       .default({ horizontal: 0, vertical: 0 }),
     fourBar: fourBarParamsSchema.nullable(),
-    interiorAngle: z.object({ min: degrees('interiorAngle.min'), max: degrees('interiorAngle.max') }),
+    interiorAngle: z.object({ min: degrees(), max: degrees() }),
     axes: axes(3, 'J1, J2 motor, J3 motor'),
     linkSizes: linkageLinkSizesSchema.optional(),
     ...commonFields,
   })
   .superRefine((p, ctx) => {
     const ia = p.interiorAngle;
-    if (ia.min < 0 || ia.min >= 360) ctx.addIssue({ code: 'custom', path: ['interiorAngle', 'min'], message: 'interiorAngle.min must be within 0…360°' });
-    if (ia.max <= 0 || ia.max > 360) ctx.addIssue({ code: 'custom', path: ['interiorAngle', 'max'], message: 'interiorAngle.max must be within 0…360°' });
+    if (ia.min < 0 || ia.min >= 360) ctx.addIssue({ code: 'custom', path: ['interiorAngle', 'min'], message: 'Elbow angle min must be within 0…360°' });
+    if (ia.max <= 0 || ia.max > 360) ctx.addIssue({ code: 'custom', path: ['interiorAngle', 'max'], message: 'Elbow angle max must be within 0…360°' });
     if (!(ia.min < ia.max)) {
-      ctx.addIssue({ code: 'custom', path: ['interiorAngle', 'max'], message: 'interiorAngle.max must be greater than interiorAngle.min' });
+      ctx.addIssue({ code: 'custom', path: ['interiorAngle', 'max'], params: greaterThan('min'), message: 'Elbow angle max must be greater than elbow angle min' });
       return;
     }
     const fb = p.fourBar;
@@ -138,7 +140,7 @@ export const linkageParamsSchema = z
         ctx.addIssue({
           code: 'custom',
           path: ['fourBar', 'ground'],
-          message: `The ground link is the upper arm between the J2 and J3 axes: make fourBar.ground equal to upperArm (${p.upperArm} mm)`,
+          message: `The ground link is the upper arm between the J2 and J3 axes: make the ground link equal to the upper arm (${p.upperArm} mm)`,
         });
         return;
       }
@@ -146,7 +148,7 @@ export const linkageParamsSchema = z
         ctx.addIssue({
           code: 'custom',
           path: ['fourBar', 'groundAngle'],
-          message: 'The ground link lies along the upper arm (crank on the J2 axis, rocker on the J3 axis): set fourBar.groundAngle to 0',
+          message: 'The ground link lies along the upper arm (crank on the J2 axis, rocker on the J3 axis): set the ground angle to 0°',
         });
         return;
       }
@@ -154,29 +156,25 @@ export const linkageParamsSchema = z
   });
 export type LinkageParams = z.infer<typeof linkageParamsSchema>;
 
-/** Messages of the chain family name a value that is not a number as "not a finite number". */
-const notFinite = (what: string) => `${what} must be a finite number`;
-const chainLength = (what: string) => lengthMm(what, notFinite(what));
-const chainAngle = (what: string) => degrees(what, notFinite(what));
 
 /** One DH row: constant a, alpha, d, theta and the joint limits in controller units (deg or mm). */
 export const chainJointSchema = z
   .object({
-    type: z.enum(['revolute', 'prismatic'], { error: 'type must be revolute or prismatic' }),
-    a: chainLength('a'),
-    alpha: chainAngle('alpha'),
-    d: chainLength('d'),
-    theta: chainAngle('theta'),
-    min: chainLength('min'),
-    max: chainLength('max'),
-    zeroOffset: chainLength('zeroOffset').optional(),
-    direction: z.union([z.literal(1), z.literal(-1)], { error: 'direction must be 1 or -1' }).optional(),
+    type: z.enum(['revolute', 'prismatic']),
+    a: lengthMm(),
+    alpha: degrees(),
+    d: lengthMm(),
+    theta: degrees(),
+    min: lengthMm(),
+    max: lengthMm(),
+    zeroOffset: lengthMm().optional(),
+    direction: z.union([z.literal(1), z.literal(-1)]).optional(),
   })
   .superRefine((j, ctx) => {
-    if (j.min >= j.max) ctx.addIssue({ code: 'custom', path: ['max'], message: 'max must be greater than min' });
+    if (j.min >= j.max) ctx.addIssue({ code: 'custom', path: ['max'], params: greaterThan('min'), message: 'The maximum must be greater than the minimum' });
     if (j.type === 'revolute') {
-      if (Math.abs(j.min) > MAX_ANGLE_DEG) ctx.addIssue({ code: 'custom', path: ['min'], message: `min must be within ±${MAX_ANGLE_DEG}°` });
-      if (Math.abs(j.max) > MAX_ANGLE_DEG) ctx.addIssue({ code: 'custom', path: ['max'], message: `max must be within ±${MAX_ANGLE_DEG}°` });
+      if (Math.abs(j.min) > MAX_ANGLE_DEG) ctx.addIssue({ code: 'custom', path: ['min'], message: `A revolute joint takes limits within ±${MAX_ANGLE_DEG}°` });
+      if (Math.abs(j.max) > MAX_ANGLE_DEG) ctx.addIssue({ code: 'custom', path: ['max'], message: `A revolute joint takes limits within ±${MAX_ANGLE_DEG}°` });
     }
   });
 export type ChainJoint = z.infer<typeof chainJointSchema>;
@@ -184,35 +182,32 @@ export type ChainJoint = z.infer<typeof chainJointSchema>;
 /** The chain family: a DH table (standard or modified), the tool point in the last frame, mm. */
 export const chainParamsSchema = z
   .object({
-    family: z.literal('chain', { error: "family must be 'chain'" }),
-    convention: z.enum(['standard', 'modified'], { error: 'convention must be standard or modified' }),
-    joints: z
-      .array(chainJointSchema, { error: 'joints must be a list' })
-      .min(1, { message: 'Add at least one joint' })
-      .max(8, { message: 'At most 8 joints' }),
-    tool: z.object({ x: chainLength('tool x'), y: chainLength('tool y'), z: chainLength('tool z') }, { error: 'tool must be {x, y, z} in mm' }),
-    toolLength: nonNegativeNumber('toolLength', notFinite('toolLength')).optional(),
-    payloadRadius: nonNegativeNumber('payloadRadius', notFinite('payloadRadius')).optional(),
-    stopTimeS: positiveNumber('stopTimeS', notFinite('stopTimeS')).optional(),
-    stopTimeCat1S: positiveNumber('stopTimeCat1S', notFinite('stopTimeCat1S')).optional(),
-    stopDistanceMm: nonNegativeNumber('stopDistanceMm', notFinite('stopDistanceMm')).optional(),
-    maxSpeedMmS: positiveNumber('maxSpeedMmS', notFinite('maxSpeedMmS')).optional(),
-    payloadKg: nonNegativeNumber('payloadKg', notFinite('payloadKg')).optional(),
+    family: z.literal('chain'),
+    convention: z.enum(['standard', 'modified']),
+    joints: z.array(chainJointSchema).min(1, { message: 'Add at least one joint' }).max(8, { message: 'A chain has at most 8 joints' }),
+    tool: z.object({ x: lengthMm(), y: lengthMm(), z: lengthMm() }, { error: 'Give the tool point as x, y and z in mm' }),
+    toolLength: nonNegativeNumber().optional(),
+    payloadRadius: nonNegativeNumber().optional(),
+    stopTimeS: positiveNumber().optional(),
+    stopTimeCat1S: positiveNumber().optional(),
+    stopDistanceMm: nonNegativeNumber().optional(),
+    maxSpeedMmS: positiveNumber().optional(),
+    payloadKg: nonNegativeNumber().optional(),
     linkSizes: chainLinkSizesSchema.optional(),
   })
   .superRefine((p, ctx) => {
     const first = p.joints[0];
     if (!first) return;
     if (first.type !== 'revolute') {
-      ctx.addIssue({ code: 'custom', path: ['joints', 0, 'type'], message: 'Joint 1 must be revolute about the vertical base axis' });
+      ctx.addIssue({ code: 'custom', path: ['joints', 0, 'type'], message: 'J1 must be revolute about the vertical base axis' });
     }
     if (p.convention === 'modified') {
       const turns = first.alpha / 360;
       if (Math.abs(turns - Math.round(turns)) > 1e-12) {
-        ctx.addIssue({ code: 'custom', path: ['joints', 0, 'alpha'], message: 'Joint 1 axis must be vertical: alpha of row 1 must be 0' });
+        ctx.addIssue({ code: 'custom', path: ['joints', 0, 'alpha'], message: 'The J1 axis must be vertical: J1 alpha must be 0°' });
       }
       if (first.a !== 0) {
-        ctx.addIssue({ code: 'custom', path: ['joints', 0, 'a'], message: 'Joint 1 axis must pass through the base origin: a of row 1 must be 0' });
+        ctx.addIssue({ code: 'custom', path: ['joints', 0, 'a'], message: 'The J1 axis must pass through the base origin: J1 a must be 0 mm' });
       }
     }
   });
@@ -220,7 +215,7 @@ export type ChainParams = z.infer<typeof chainParamsSchema>;
 
 /** Parameters of any arm model family, discriminated on `family`. */
 export const armParamsSchema = z.discriminatedUnion('family', [scaraParamsSchema, articulatedParamsSchema, linkageParamsSchema, chainParamsSchema], {
-  error: "family must be one of 'scara', 'articulated', 'linkage', 'chain'",
+  error: 'Choose a kinematic family: SCARA, articulated, linkage-driven or DH chain',
 });
 export type ArmParams = z.infer<typeof armParamsSchema>;
 /** Parameters as typed or stored (defaults not yet applied). */

@@ -5,8 +5,8 @@ import { LayoutContent } from './layout';
 /** Mesh shapes of a fence panel (ISO 13857's opening shapes). */
 export const FENCE_MESH_SHAPES = ['slot', 'square', 'round'] as const;
 
-const mm = (what: string, min: number, max: number) =>
-  finiteNumber(what).refine((v) => v >= min && v <= max, { message: `${what} must be between ${min} and ${max} mm` });
+/** A length in mm from `min` to `max` (its label and unit come from labels.ts). */
+const mm = (min: number, max: number) => finiteNumber().min(min).max(max);
 
 /**
  * The fence system a guard ring is built from (mm). Defaults are a common mesh-panel system; the
@@ -16,27 +16,27 @@ export const FenceSystemInput = z
   .object({
     /** Panel widths the supplier stocks, mm. */
     panelWidthsMm: z
-      .array(mm('panelWidthsMm', 100, 3000))
-      .min(1, 'panelWidthsMm needs at least one panel width')
-      .max(20, 'panelWidthsMm takes at most 20 widths')
+      .array(mm(100, 3000))
+      .min(1, 'Give at least one panel width')
+      .max(20, 'Give at most 20 panel widths')
       .default([200, 300, 500, 700, 1000, 1200, 1500]),
     /** Panel height above the floor, mm (ISO 10218-2: a fixed perimeter guard is at least 1400 mm). */
-    panelHeightMm: mm('panelHeightMm', 1400, 3000).default(2000),
+    panelHeightMm: mm(1400, 3000).default(2000),
     /** Mesh opening: slot width, square side or round diameter, mm (ISO 13857 covers up to 120 mm). */
-    meshMm: mm('meshMm', 1, 120).default(20),
-    meshShape: z.enum(FENCE_MESH_SHAPES, { error: `meshShape must be one of ${FENCE_MESH_SHAPES.join(', ')}` }).default('square'),
+    meshMm: mm(1, 120).default(20),
+    meshShape: z.enum(FENCE_MESH_SHAPES).default('square'),
     /** Width of a post across the fence line, mm. */
-    postWidthMm: mm('postWidthMm', 20, 300).default(60),
+    postWidthMm: mm(20, 300).default(60),
     /** Kept beyond the ISO 13857 distance as the planner's margin, mm (150 mm is common practice). */
-    clearanceMm: mm('clearanceMm', 0, 3000).default(150),
+    clearanceMm: mm(0, 3000).default(150),
     /** Clear door widths on offer (a single-leaf and a double-leaf door, say), mm. */
     doorWidthsMm: z
-      .array(mm('doorWidthsMm', 500, 6000))
-      .min(1, 'doorWidthsMm needs at least one door width')
-      .max(6, 'doorWidthsMm takes at most 6 widths')
+      .array(mm(500, 6000))
+      .min(1, 'Give at least one door width')
+      .max(6, 'Give at most 6 door widths')
       .default([1000, 2000]),
     /** Whether walls of the floor plan may close part of the ring (no panels along them). */
-    useWalls: z.boolean({ error: 'useWalls must be true or false' }).default(true),
+    useWalls: z.boolean().default(true),
   })
   .strict();
 export type FenceSystemInput = z.input<typeof FenceSystemInput>;

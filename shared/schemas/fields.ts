@@ -1,9 +1,11 @@
 import { z } from 'zod';
 
 /**
- * Number fields shared by the schemas: lengths in mm, angles in degrees, ids. Each takes the name
- * the messages use; `notANumber` replaces the message for a value that is not a number.
- * zod's number already refuses NaN and ±Infinity, so every field here is finite.
+ * Number fields shared by the schemas: lengths in mm, angles in degrees, ids. They carry no field
+ * names: messages take the field's label and unit from labels.ts (`issueSentence`), so the checks
+ * here are zod's own (`too_small`, `too_big` with their bounds). `notANumber` replaces the message
+ * for a value that is not a number. zod's number already refuses NaN and ±Infinity, so every field
+ * here is finite.
  */
 
 /** Largest length any field accepts, mm (100 m). */
@@ -11,30 +13,26 @@ export const MAX_LENGTH_MM = 100_000;
 /** Largest angle any field accepts, degrees (two turns either way). */
 export const MAX_ANGLE_DEG = 720;
 
-/** A finite number; anything else gets `notANumber`. */
-export const finiteNumber = (what: string, notANumber = `${what} must be a number`) => z.number({ error: notANumber });
+/** A finite number; anything else gets `notANumber` (or the label's "… must be a number"). */
+export const finiteNumber = (notANumber?: string) => z.number(notANumber === undefined ? undefined : { error: notANumber });
 
 /** A finite number greater than 0 (no upper bound). */
-export const positiveNumber = (what: string, notANumber?: string) =>
-  finiteNumber(what, notANumber).refine((v) => v > 0, { message: `${what} must be greater than 0` });
+export const positiveNumber = (notANumber?: string) => finiteNumber(notANumber).gt(0);
 
 /** A finite number of at least 0 (no upper bound). */
-export const nonNegativeNumber = (what: string, notANumber?: string) =>
-  finiteNumber(what, notANumber).refine((v) => v >= 0, { message: `${what} must not be negative` });
+export const nonNegativeNumber = (notANumber?: string) => finiteNumber(notANumber).min(0);
 
 /** A length or coordinate, mm, within ±MAX_LENGTH_MM. */
-export const lengthMm = (what: string, notANumber?: string) =>
-  finiteNumber(what, notANumber).refine((v) => Math.abs(v) <= MAX_LENGTH_MM, { message: `${what} must be within ±${MAX_LENGTH_MM} mm` });
+export const lengthMm = (notANumber?: string) => finiteNumber(notANumber).min(-MAX_LENGTH_MM).max(MAX_LENGTH_MM);
 
 /** A length greater than 0, mm, within MAX_LENGTH_MM. */
-export const positiveMm = (what: string, notANumber?: string) => lengthMm(what, notANumber).refine((v) => v > 0, { message: `${what} must be greater than 0` });
+export const positiveMm = (notANumber?: string) => finiteNumber(notANumber).gt(0).max(MAX_LENGTH_MM);
 
 /** A length of at least 0, mm, within MAX_LENGTH_MM. */
-export const nonNegativeMm = (what: string, notANumber?: string) => lengthMm(what, notANumber).refine((v) => v >= 0, { message: `${what} must not be negative` });
+export const nonNegativeMm = (notANumber?: string) => finiteNumber(notANumber).min(0).max(MAX_LENGTH_MM);
 
 /** An angle, degrees, within ±MAX_ANGLE_DEG. */
-export const degrees = (what: string, notANumber?: string) =>
-  finiteNumber(what, notANumber).refine((v) => Math.abs(v) <= MAX_ANGLE_DEG, { message: `${what} must be within ±${MAX_ANGLE_DEG}°` });
+export const degrees = (notANumber?: string) => finiteNumber(notANumber).min(-MAX_ANGLE_DEG).max(MAX_ANGLE_DEG);
 
 /** A database id: a whole number from 1 (`message` for anything else below 1). */
 export const positiveId = (message?: string) => z.number().int().positive(message);

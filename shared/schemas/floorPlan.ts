@@ -142,7 +142,7 @@ export const DEFAULT_ROLE_HEIGHT: Record<LayerRole, number | null> = {
 export const LayerPatch = z.object({
   name: z.string().regex(NO_CONTROL_CHARACTERS, SINGLE_LINE_MESSAGE).min(1, 'Name the layer').max(255),
   role: LayerRole.optional(),
-  height: finiteNumber('height', 'Enter a height in mm')
+  height: finiteNumber('Enter a height in mm')
     .positive('Height must be above the floor')
     .max(MAX_LENGTH_MM, 'Height must be at most 100 m')
     .nullable()
@@ -167,7 +167,7 @@ export type FloorPlanPatch = z.infer<typeof FloorPlanPatch>;
 export const SavedLayerRole = z.object({
   name: z.string().min(1, 'Name the layer').max(255),
   role: LayerRole,
-  height: finiteNumber('height', 'Enter a height in mm')
+  height: finiteNumber('Enter a height in mm')
     .positive('Height must be above the floor')
     .max(MAX_LENGTH_MM, 'Height must be at most 100 m')
     .nullable(),

@@ -8,7 +8,7 @@ const Id = z
   .max(24, 'Use at most 24 characters')
   .regex(/^[A-Za-z0-9_.-]+$/, 'Use letters, digits, _ . or - only');
 /** A plan-frame point [x east, y north], mm. */
-const PlanXY = z.tuple([finiteNumber('x'), finiteNumber('y')]);
+const PlanXY = z.tuple([finiteNumber(), finiteNumber()]);
 
 /** One arm placed on a layout: plan position (mm), yaw (deg CCW from +x), mount height (mm). */
 export const ArmPlacement = z
@@ -17,15 +17,15 @@ export const ArmPlacement = z
     armModelId: positiveId('Choose an arm model'),
     label: singleLineText().max(60).default(''),
     /** Plan position of the J1 axis, mm (x east, y north). */
-    x: finiteNumber('x'),
-    y: finiteNumber('y'),
+    x: finiteNumber(),
+    y: finiteNumber(),
     /** Direction of J1 zero, degrees counter-clockwise from plan +x (east). */
-    yaw: finiteNumber('Yaw'),
+    yaw: finiteNumber(),
     /** Height of the mounting face above finished floor level, mm. */
-    mountHeight: finiteNumber('Mount height').default(0),
+    mountHeight: finiteNumber().default(0),
     /** Restricting J1 limits (controller degrees) set by mechanical stops or safety-rated soft limits. */
     restrict: z
-      .object({ j1Min: finiteNumber('J1 min'), j1Max: finiteNumber('J1 max') })
+      .object({ j1Min: finiteNumber(), j1Max: finiteNumber() })
       .refine((r) => r.j1Min < r.j1Max, { message: 'J1 min must be below J1 max', path: ['j1Max'] })
       .optional(),
   })
@@ -37,9 +37,9 @@ export const WorkPoint = z
   .object({
     id: Id,
     /** Plan position, mm (x east, y north); z above finished floor level, mm. */
-    x: finiteNumber('x'),
-    y: finiteNumber('y'),
-    z: finiteNumber('z'),
+    x: finiteNumber(),
+    y: finiteNumber(),
+    z: finiteNumber(),
     approach: z.enum(['top', 'any']).default('top'),
     tag: singleLineText().max(60).default(''),
     assignedArm: Id.optional(),
@@ -60,13 +60,13 @@ export const MESH_SHAPE_NAMES = ['slot', 'square', 'round'] as const;
  */
 export const Safeguard = z
   .object({
-    device: z.enum(SAFEGUARD_DEVICE_NAMES, { error: `Device must be one of ${SAFEGUARD_DEVICE_NAMES.join(', ')}` }),
-    responseTimeS: nonNegativeNumber('Response time').refine((v) => v <= 30, { message: 'Response time must be at most 30 s' }),
-    stopCategory: z.union([z.literal(0), z.literal(1)], { error: 'Stop category must be 0 or 1' }),
-    resolutionMm: positiveNumber('Resolution').refine((v) => v <= 300, { message: 'Resolution must be at most 300 mm' }).optional(),
-    beams: z.number({ error: 'Beams must be a number' }).int('Beams must be a whole number').min(2, 'A multi-beam device has 2 to 8 beams').max(8, 'A multi-beam device has 2 to 8 beams').optional(),
-    approach: z.enum(['normal', 'parallel'], { error: 'Approach must be normal or parallel' }).default('normal'),
-    heightMm: nonNegativeNumber('Detection height').refine((v) => v <= 1000, { message: 'Detection height must be at most 1000 mm (ISO 13855)' }).optional(),
+    device: z.enum(SAFEGUARD_DEVICE_NAMES),
+    responseTimeS: nonNegativeNumber().max(30),
+    stopCategory: z.union([z.literal(0), z.literal(1)]),
+    resolutionMm: positiveNumber().max(300).optional(),
+    beams: z.number().int().min(2, 'A multi-beam device has 2 to 8 beams').max(8, 'A multi-beam device has 2 to 8 beams').optional(),
+    approach: z.enum(['normal', 'parallel']).default('normal'),
+    heightMm: nonNegativeNumber().refine((v) => v <= 1000, { message: 'Detection height must be at most 1000 mm (ISO 13855)' }).optional(),
   })
   .strict()
   .superRefine((g, ctx) => {
@@ -92,15 +92,15 @@ export const Boundary = z
     label: singleLineText().max(60).default(''),
     points: z.array(PlanXY).max(2000, 'At most 2000 points'),
     /** Fence height (mm above floor); required for fences. */
-    height: finiteNumber('Height').positive('Height must be above 0').optional(),
+    height: finiteNumber().gt(0).optional(),
     /** For an opening: the fence it is cut into. */
     fenceId: Id.optional(),
     /** For an opening: the device guarding it. */
     safeguard: Safeguard.optional(),
     /** For a fence: the size e of its mesh openings (slot width, square side or round diameter), mm. */
-    meshMm: positiveNumber('Mesh size').refine((v) => v <= 120, { message: 'Mesh size must be at most 120 mm (larger openings let a body through: draw an access opening)' }).optional(),
+    meshMm: positiveNumber().refine((v) => v <= 120, { message: 'Mesh size must be at most 120 mm (larger openings let a body through: draw an access opening)' }).optional(),
     /** For a fence: the shape of its mesh openings. */
-    meshShape: z.enum(MESH_SHAPE_NAMES, { error: `Mesh shape must be one of ${MESH_SHAPE_NAMES.join(', ')}` }).optional(),
+    meshShape: z.enum(MESH_SHAPE_NAMES).optional(),
   })
   .strict()
   .superRefine((z0, ctx) => {
@@ -144,7 +144,7 @@ export const LayoutContent = z
     workPoints: z.array(WorkPoint).max(200_000).default([]),
     boundaries: z.array(Boundary).max(2000).default([]),
     /** Heights above finished floor level at which reach bands are drawn and compared, mm. */
-    workHeights: z.array(finiteNumber('Work height')).max(20).default([]),
+    workHeights: z.array(finiteNumber()).max(20).default([]),
   })
   .strict()
   .superRefine((c, ctx) => {

@@ -10,19 +10,19 @@ export const PlacementSearchInput = z
     /** A placed arm being moved: left out of the arms the candidates are ranked against. */
     armId: Id.optional(),
     pointIds: z.array(Id).min(1, 'Choose at least one work point').max(5000, 'At most 5000 work points'),
-    minMarginMm: nonNegativeMm('Minimum margin').default(0),
-    yawMinDeg: degrees('Yaw min').default(-180),
-    yawMaxDeg: degrees('Yaw max').default(180),
-    yawStepDeg: finiteNumber('Yaw step').refine((v) => v >= 0.5 && v <= 360, { message: 'Yaw step must be between 0.5° and 360°' }).default(5),
-    mountHeightMm: lengthMm('Mount height').default(0),
+    minMarginMm: nonNegativeMm().default(0),
+    yawMinDeg: degrees().default(-180),
+    yawMaxDeg: degrees().default(180),
+    yawStepDeg: finiteNumber().refine((v) => v >= 0.5 && v <= 360, { message: 'Yaw step must be between 0.5° and 360°' }).default(5),
+    mountHeightMm: lengthMm().default(0),
     restrict: z
-      .object({ j1Min: degrees('J1 min'), j1Max: degrees('J1 max') })
+      .object({ j1Min: degrees(), j1Max: degrees() })
       .refine((r) => r.j1Min < r.j1Max, { message: 'J1 min must be below J1 max', path: ['j1Max'] })
       .optional(),
-    gridMm: finiteNumber('Grid').refine((v) => v >= 5 && v <= 50, { message: 'Grid must be between 5 and 50 mm' }).default(10),
+    gridMm: finiteNumber().refine((v) => v >= 5 && v <= 50, { message: 'Grid must be between 5 and 50 mm' }).default(10),
   })
   .strict()
-  .refine((q) => q.yawMaxDeg >= q.yawMinDeg, { message: 'Yaw max must not be below yaw min', path: ['yawMaxDeg'] })
+  .refine((q) => q.yawMaxDeg >= q.yawMinDeg, { message: 'Yaw to must not be below yaw from', path: ['yawMaxDeg'] })
   .refine((q) => (q.yawMaxDeg - q.yawMinDeg) / q.yawStepDeg <= 720, { message: 'Too many yaw steps: use a larger yaw step', path: ['yawStepDeg'] });
 export type PlacementSearchInput = z.infer<typeof PlacementSearchInput>;
 
@@ -34,10 +34,10 @@ export const AutoLayoutInput = z
       .min(1, 'Choose at least one arm model')
       .max(20),
     pointIds: z.array(Id).min(1, 'Choose at least one work point').max(5000, 'At most 5000 work points'),
-    minMarginMm: nonNegativeMm('Minimum margin').default(0),
-    mountHeightMm: lengthMm('Mount height').default(0),
+    minMarginMm: nonNegativeMm().default(0),
+    mountHeightMm: lengthMm().default(0),
     seed: z.number().int().min(0).max(2 ** 31 - 1).default(1),
-    timeLimitS: finiteNumber('Time limit').refine((v) => v > 0 && v <= 60, { message: 'Time limit must be between 0 and 60 s' }).default(10),
+    timeLimitS: finiteNumber().refine((v) => v > 0 && v <= 60, { message: 'Time limit must be between 0 and 60 s' }).default(10),
   })
   .strict();
 export type AutoLayoutInput = z.infer<typeof AutoLayoutInput>;

@@ -41,6 +41,14 @@ export const UserUpdateInput = z
   .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change' });
 export type UserUpdateInput = z.infer<typeof UserUpdateInput>;
 
+/** An invitation an admin sends: the address, the role, and for a client the project they may see. */
+export const InvitationInput = z.object({ email: Email, role: Role, projectId: z.number().int().positive().nullable().optional() }).strict();
+export type InvitationInput = z.infer<typeof InvitationInput>;
+
+/** What the invited person gives when taking the invitation up. */
+export const InvitationAcceptInput = z.object({ name: singleLineText().min(1, 'Enter your name').max(120), password: Password }).strict();
+export type InvitationAcceptInput = z.infer<typeof InvitationAcceptInput>;
+
 /** A user as the API presents it. */
 export interface UserDto {
   id: number;

@@ -132,10 +132,10 @@ describe('labels that try to write DXF records of their own', () => {
     const content = layout.content as { arms: Array<{ label: string }> };
     const res = await a.put(`/api/layouts/${layoutId}`).send({ version: layout.version, content: { ...content, arms: content.arms.map((x, i) => (i === 0 ? { ...x, label: EVIL } : x)) } });
     expect(res.status).toBe(400);
-    expect(res.body.error.fields['content.arms.0.label']).toBe('Use one line of text without control characters');
+    expect(res.body.error.fields['content.arms.0.label']).toBe('Label of arm R1: use one line of text without control characters');
     const named = await a.put(`/api/layouts/${layoutId}`).send({ version: layout.version, name: 'Cell\r\nBcc: someone' });
     expect(named.status).toBe(400);
-    expect(named.body.error.fields.name).toBe('Use one line of text without control characters');
+    expect(named.body.error.fields.name).toBe('Name: use one line of text without control characters');
     expect((await Layout.findByPk(layoutId))!.version).toBe(layout.version);
   });
 

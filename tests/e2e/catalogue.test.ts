@@ -51,13 +51,28 @@ describe('arm catalogue in Chromium', () => {
     // A longer upper arm adds at most its own extra length to the reach (triangle inequality), plus the boundary tolerance.
     expect(after).toBeLessThanOrEqual(before + 300 + 5);
 
-    // An invalid entry names the field and keeps the last valid profile on screen.
+    // An invalid entry names the field by its label (and unit) and keeps the last valid profile on screen.
     await upperArm.fill('long');
-    await page.getByText('upperArm must be a number').first().waitFor();
+    await page.getByText('Upper arm must be a number').first().waitFor();
     await page.getByText('Showing the last valid profile').waitFor();
     await upperArm.fill(String(upper + 300));
     await page.getByText('Showing the last valid profile').waitFor({ state: 'detached' });
     expect(await plottedMaxReach(page)).toBe(after);
+    const stopTime = page.getByLabel('Stop time, category 0 (s)');
+    const stopBefore = await stopTime.inputValue();
+    await stopTime.fill('0');
+    await page.getByText('Stop time (category 0) must be greater than 0 s').waitFor();
+    const j1Max = page.getByLabel('J1 max', { exact: true });
+    const j1MaxBefore = await j1Max.inputValue();
+    await j1Max.fill('-999');
+    await page.getByText('J1 max must be at least −720°').waitFor();
+    // No message on the form shows a property name or a field path.
+    const alerts = await page.getByRole('alert').allTextContents();
+    expect(alerts.length).toBeGreaterThanOrEqual(2);
+    for (const text of alerts) expect(text).not.toMatch(/\b[a-z]+[A-Z]\w*\b|\b[A-Za-z_]\w*\.(?:[A-Za-z_]\w*|\d+\b)/);
+    await stopTime.fill(stopBefore);
+    await j1Max.fill(j1MaxBefore);
+    await page.getByText('Stop time (category 0) must be greater than 0 s').waitFor({ state: 'detached' });
 
     // Pose panel: the tool point follows J2; beyond a limit the pose is reported and drawn greyed.
     const tool = page.getByTestId('tool-point');

@@ -65,6 +65,7 @@ describe('review and release in Chromium', () => {
     const finding = reviewer.locator('[data-finding]').first();
     await finding.waitFor();
     const findingId = (await finding.getAttribute('data-finding'))!;
+    const findingMessage = (await finding.locator('[data-finding-message]').textContent())!;
     await finding.getByRole('textbox').fill('Check this against the cell drawing and move the arm if you can.');
     await finding.getByRole('button', { name: 'Comment' }).click();
     await finding.getByText('Check this against the cell drawing and move the arm if you can.').waitFor();
@@ -101,8 +102,8 @@ describe('review and release in Chromium', () => {
     const same = reviewer.locator(`[data-finding="${findingId}"]`);
     // The finding either persists (C's comment shown as its history) or is listed as gone in the diff.
     await reviewer.locator('[data-finding]').first().waitFor();
-    if (await same.count()) await same.getByRole('list', { name: `Earlier comments on ${findingId}` }).getByText('Check this against the cell drawing and move the arm if you can.').waitFor();
-    else await reviewer.locator('[data-diff]').getByText(findingId).waitFor();
+    if (await same.count()) await same.getByRole('list', { name: 'Earlier comments on this finding' }).getByText('Check this against the cell drawing and move the arm if you can.').waitFor();
+    else await reviewer.locator('[data-diff]').getByText(`Gone: ${findingMessage}`).waitFor();
     await reviewer.getByRole('button', { name: `Sign off revision ${SECOND}` }).click();
     await reviewer.locator('[data-revision-state="signed_off"]').first().waitFor();
     await shot(reviewer, '2-signed-off');

@@ -1,17 +1,21 @@
 import type { z } from 'zod';
-import { fieldErrors } from '@shared/schemas/errors';
+import { fieldErrors, invalidFieldsMessage } from '@shared/schemas/errors';
 import { badRequest, notFound } from './errors';
 
-/** Parses a request part with a zod schema; throws a 400 with per-field messages. */
+/**
+ * Parses a request part with a zod schema; throws a 400 whose message and `fields` name each field
+ * by its label (shared/schemas/labels.ts), keyed by the field path.
+ */
 export function parseOr400<S extends z.ZodType>(schema: S, value: unknown, what = 'The request'): z.infer<S> {
-  const r = schema.safeParse(value ?? {});
-  if (!r.success) {
-    const fields = fieldErrors(r.error.issues);
-    const first = r.error.issues[0];
-    const where = first && first.path.length ? ` (${first.path.join('.')})` : '';
-    throw badRequest(`${what} has invalid fields${where}: ${first?.message ?? 'invalid'}.`, fields);
-  }
+  const input = value ?? {};
+  const r = schema.safeParse(input);
+  if (!r.success) throw invalidInput(what, r.error.issues, input);
   return r.data;
+}
+
+/** The 400 of input that failed its schema: readable message and fields (paths under `prefix` when given). */
+export function invalidInput(what: string, issues: z.core.$ZodIssue[], input: unknown, prefix?: string) {
+  return badRequest(invalidFieldsMessage(what, issues, input), fieldErrors(issues, { input, prefix }));
 }
 
 /** A positive integer route id, or 404 (a malformed id names nothing). */

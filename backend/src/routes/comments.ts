@@ -9,7 +9,8 @@ import { ReviewComment, User } from '../models';
 import { audit } from '../services/audit/audit';
 import { loadVisibleRevision, presentComment } from '../services/revisions';
 
-const finite = z.number().refine(Number.isFinite, 'must be finite');
+// zod's number refuses NaN and ±Infinity.
+const finite = z.number();
 const CommentInput = z
   .object({
     body: multiLineText().min(1, 'Write the comment').max(10_000, 'Use at most 10 000 characters'),

@@ -1,9 +1,7 @@
 import { Router } from 'express';
 import { ipKeyGenerator } from 'express-rate-limit';
 import { Op } from 'sequelize';
-import { z } from 'zod';
-import { singleLineText } from '@shared/schemas/fields';
-import { Email, Password, Role } from '@shared/schemas/user';
+import { InvitationAcceptInput, InvitationInput } from '@shared/schemas/user';
 import { allow, currentUser } from '../auth/guards';
 import { markSignedIn } from '../auth/passport';
 import type { FeatureContext } from '../featureContext';
@@ -12,9 +10,6 @@ import { idParam, parseOr400 } from '../http/validate';
 import { Invitation, Project, User } from '../models';
 import { mailContextFor } from '../services/mailContext';
 import { acceptInvitation, createInvitation, findByToken, invitationGone, revokeInvitation } from '../services/invitations';
-
-const InvitationInput = z.object({ email: Email, role: Role, projectId: z.number().int().positive().nullable().optional() }).strict();
-const AcceptInput = z.object({ name: singleLineText().min(1, 'Enter your name').max(120), password: Password }).strict();
 
 function presentInvitation(i: Invitation, projects: Map<number, string>, now: Date) {
   return {
@@ -80,7 +75,7 @@ export function invitationsRouter(ctx: FeatureContext): Router {
 
   // Public: sets name and password, creates the account and signs it in (a new session).
   r.post('/invitations/token/:token/accept', async (req, res, next) => {
-    const input = parseOr400(AcceptInput, req.body, 'Your details');
+    const input = parseOr400(InvitationAcceptInput, req.body, 'Your details');
     const user: User = await acceptInvitation(ctx.sequelize, String(req.params.token), input, ctx.config.bcryptCost, now());
     const sessionUser = { id: user.id, email: user.email, name: user.name, role: user.role };
     req.logIn(sessionUser, (err) => {

@@ -6,17 +6,18 @@ import { parseOr400 } from '../http/validate';
 import { forwardModel, resolveModelParams } from '../services/armModels';
 import { runHeavy } from '../services/workerPool';
 
-const finite = (what: string) => z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be finite`);
+// zod's number refuses NaN and ±Infinity; labels of the messages come from shared/schemas/labels.ts.
+const finite = () => z.number();
 
 const ForwardBody = z.object({
   model: z.unknown(),
-  joints: z.array(finite('Each joint value'), { error: 'joints must be a list of controller values (deg, or mm for a stroke)' }).max(12, 'At most 12 joint values'),
+  joints: z.array(finite(), { error: 'Give the joint values as a list of controller values (deg, or mm for a stroke)' }).max(12, 'Give at most 12 joint values'),
 });
 
 const ReachBody = z.object({
   model: z.unknown(),
   heights: z
-    .array(finite('Each height').refine((v) => Math.abs(v) <= 100_000, 'Heights must be within ±100 000 mm'), { error: 'heights must be a list of heights in mm' })
+    .array(finite().refine((v) => Math.abs(v) <= 100_000, 'Heights must be within ±100 000 mm'), { error: 'Give the heights as a list, in mm' })
     .max(50, 'At most 50 heights')
     .optional(),
 });

@@ -5,22 +5,23 @@ import { allow } from '../auth/guards';
 import { HttpError, badRequest } from '../http/errors';
 import { parseOr400 } from '../http/validate';
 
-const num = (what: string) => z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be finite`);
+// zod's number refuses NaN and ±Infinity; labels and units of the messages come from shared/schemas/labels.ts.
+const num = () => z.number();
 
 const SeparationBody = z.object({
-  device: z.enum(SAFEGUARD_DEVICES, { error: `device must be one of ${SAFEGUARD_DEVICES.join(', ')}` }),
-  resolutionMm: num('resolutionMm').optional(),
-  beams: num('beams').optional(),
-  approach: z.enum(['normal', 'parallel'], { error: 'approach must be normal or parallel' }).optional(),
-  heightMm: num('heightMm').optional(),
-  responseTimeS: num('responseTimeS'),
-  stopTimeS: num('stopTimeS'),
+  device: z.enum(SAFEGUARD_DEVICES),
+  resolutionMm: num().optional(),
+  beams: num().optional(),
+  approach: z.enum(['normal', 'parallel']).optional(),
+  heightMm: num().optional(),
+  responseTimeS: num(),
+  stopTimeS: num(),
 });
 
-const ReachOverBody = z.object({ hazardHeightMm: num('hazardHeightMm'), structureHeightMm: num('structureHeightMm') });
+const ReachOverBody = z.object({ hazardHeightMm: num(), structureHeightMm: num() });
 const ReachThroughBody = z.object({
-  openingMm: num('openingMm'),
-  shape: z.enum(MESH_SHAPES, { error: `shape must be one of ${MESH_SHAPES.join(', ')}` }),
+  openingMm: num(),
+  shape: z.enum(MESH_SHAPES),
 });
 
 /** The shared formulas' own errors as HTTP answers: bad input 400 naming the field, a case the standard does not cover 422. */

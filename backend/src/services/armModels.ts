@@ -2,8 +2,8 @@ import type { z } from 'zod';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { FeasibleArmModelInput, feasibleArmParamsSchema, forwardModel } from '@shared/kinematics';
 import type { ArmParams } from '@shared/schemas/armModel';
-import { fieldErrors } from '@shared/schemas/errors';
 import { badRequest, notFound } from '../http/errors';
+import { invalidInput } from '../http/validate';
 import { ArmModel } from '../models';
 import type { ArmReachSummary } from './armReachSummary';
 import { runHeavy } from './workerPool';
@@ -70,12 +70,7 @@ export async function resolveModelParams(model: unknown): Promise<ArmModelParams
     return parsed.data;
   }
   const parsed = ArmModelParams.safeParse(model ?? null);
-  if (!parsed.success) {
-    const fields = Object.fromEntries(Object.entries(fieldErrors(parsed.error.issues)).map(([k, v]) => [k === '_' ? 'model' : `model.${k}`, v]));
-    const first = parsed.error.issues[0];
-    const where = first && first.path.length ? ` (model.${first.path.join('.')})` : '';
-    throw badRequest(`The model has invalid fields${where}: ${first?.message ?? 'invalid'}.`, fields);
-  }
+  if (!parsed.success) throw invalidInput('The model', parsed.error.issues, model, 'model');
   return parsed.data;
 }
 

@@ -1,5 +1,5 @@
 import { prepareFloor, type FloorLayer } from '@shared/analysis';
-import { armReachFor } from '@shared/analysis';
+import { armReachFromModels } from '@shared/analysis';
 import { FenceProposalError, proposeFence, type FenceProposal } from '@shared/analysis';
 import type { FenceSystem } from '@shared/schemas/fenceProposal';
 import type { LayoutContent } from '@shared/schemas/layout';
@@ -24,11 +24,7 @@ export async function proposeLayoutFence(layout: Layout, system: FenceSystem, co
       boundaries: content.boundaries,
       floor,
       system,
-      reachFor: (modelId, restrict) => {
-        const p = params.get(modelId);
-        if (!p) throw new Error(`arm model ${modelId} does not exist`);
-        return armReachFor(p, restrict);
-      },
+      reachFor: armReachFromModels(params),
       stopTimeS: (modelId) => {
         const s = params.get(modelId)?.stopTimeS;
         return typeof s === 'number' ? s : undefined;

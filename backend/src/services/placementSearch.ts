@@ -1,6 +1,6 @@
-import { placementSearch, prepareFloor, type FloorLayer } from '@shared/analysis';
-import { armReachFor } from '@shared/analysis';
+import { armReachFromModels, placementSearch, prepareFloor, type FloorLayer } from '@shared/analysis';
 import { placementQueryOf, presentPlacement } from '@shared/analysis';
+import { readableMessage } from '@shared/schemas/errors';
 import type { LayoutContent } from '@shared/schemas/layout';
 import type { PlacementSearchDto, PlacementSearchInput } from '@shared/schemas/placement';
 import { badRequest } from '../http/errors';
@@ -15,16 +15,13 @@ export async function searchPlacement(layout: Layout, input: PlacementSearchInpu
   if (!params.has(input.armModelId)) throw badRequest(`Unknown arm model ${input.armModelId}.`, { armModelId: 'Choose an arm model of the catalogue' });
   const fp = layout.floorPlanId ? await FloorPlan.findByPk(layout.floorPlanId, { attributes: ['id', 'geometry', 'layers'] }) : null;
   const floor = fp ? prepareFloor(fp.geometry, fp.layers as FloorLayer[]) : null;
-  const reachFor = (id: number, restrict: Parameters<typeof armReachFor>[1]) => {
-    const p = params.get(id);
-    if (!p) throw new Error(`arm model ${id} does not exist`);
-    return armReachFor(p, restrict);
-  };
   let query;
   try {
-    query = placementQueryOf(input, content, floor, reachFor);
+    query = placementQueryOf(input, content, floor, armReachFromModels(params));
   } catch (err) {
-    throw badRequest(`The placement search cannot run: ${err instanceof Error ? err.message : String(err)}.`);
+    const why = readableMessage(err, null);
+    if (why === null) throw err;
+    throw badRequest(`The placement search cannot run: ${why}.`);
   }
   return presentPlacement(placementSearch(query));
 }

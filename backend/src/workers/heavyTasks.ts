@@ -2,7 +2,7 @@
 // analysis, reach profiles and bands, arm models' reach summaries, plan-sheet rendering. Pure work on plain data: no database.
 import type { FeatureCollection } from 'geojson';
 import { createAnalyzer, prepareFloor, type AnalysisResult, type FloorLayer } from '@shared/analysis';
-import { armReachFor } from '@shared/analysis';
+import { armReachFromModels } from '@shared/analysis';
 import { reachProfileOf } from '@shared/kinematics';
 import { bandAt } from '@shared/kinematics';
 import type { AreaGeometry } from '@shared/geometry';
@@ -46,11 +46,7 @@ export interface HeavyResults {
 export function analyzeLoaded(job: AnalysisJob): AnalysisResult {
   const params = new Map(job.models);
   const floor = job.floor ? prepareFloor(job.floor.geometry, job.floor.layers) : null;
-  const analyzer = createAnalyzer((modelId, restrict) => {
-    const p = params.get(modelId);
-    if (!p) throw new Error(`arm model ${modelId} does not exist`);
-    return armReachFor(p, restrict);
-  });
+  const analyzer = createAnalyzer(armReachFromModels(params));
   const c = job.content;
   return analyzer.analyze({ arms: c.arms, workPoints: c.workPoints, boundaries: c.boundaries, workHeights: c.workHeights, floor });
 }

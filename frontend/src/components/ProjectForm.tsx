@@ -1,7 +1,7 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { ProjectInput } from '@shared/schemas/project';
+import { labelledResolver } from '../lib/labelledResolver';
 import { applyServerErrors } from '../lib/serverErrors';
 import { Button } from './Button';
 import { TextAreaField, TextField } from './Field';
@@ -24,7 +24,7 @@ export interface ProjectFormProps {
 /** Name, client, site and description of a project, checked with ProjectInput before sending. */
 export function ProjectForm({ defaultValues, submitLabel, onSubmit, onCancel }: ProjectFormProps) {
   const { register, handleSubmit, setError, formState } = useForm<ProjectFormInput, unknown, ProjectFormValues>({
-    resolver: zodResolver(ProjectInput),
+    resolver: labelledResolver(ProjectInput),
     defaultValues: { name: '', clientName: '', siteName: '', description: '', ...defaultValues },
   });
   const { errors, isSubmitting } = formState;

@@ -2,6 +2,7 @@
  * The arm inspector's form as text fields (what a person types) and its parsing into a placement
  * patch with one message per field. Lengths mm, angles degrees (controller angles for J1 limits).
  */
+import { issueSentence } from '@shared/schemas/labels';
 import { ArmPlacement } from '@shared/schemas/layout';
 
 export const ARM_FIELDS = ['label', 'x', 'y', 'yaw', 'mountHeight', 'j1Min', 'j1Max'] as const;
@@ -69,7 +70,7 @@ export function parseArmForm(arm: ArmPlacement, v: ArmFormValues): { ok: true; p
     for (const issue of checked.error.issues) {
       const key = String(issue.path[issue.path.length - 1] ?? '');
       const field = (ARM_FIELDS as readonly string[]).includes(key) ? (key as ArmField) : key === 'restrict' ? 'j1Max' : 'label';
-      errors[field] ??= issue.message;
+      errors[field] ??= issueSentence(issue);
     }
     return { ok: false, errors };
   }

@@ -3,6 +3,7 @@
  * layout schema (shared/schemas/layout.ts); errors are keyed by field and name the field's label.
  */
 import { MESH_SHAPE_NAMES, SAFEGUARD_DEVICE_NAMES, Safeguard, type Boundary } from '@shared/schemas/layout';
+import { issueSentence } from '@shared/schemas/labels';
 import { parseNumber } from './armForm';
 
 export type SafeguardDeviceName = (typeof SAFEGUARD_DEVICE_NAMES)[number];
@@ -101,8 +102,9 @@ export function parseSafeguardForm(v: Readonly<SafeguardFormValues>): SafeguardP
   const r = Safeguard.safeParse(candidate);
   if (r.success) return { ok: true, safeguard: r.data };
   for (const issue of r.error.issues) {
-    const field = (issue.path[0] as SafeguardField | undefined) ?? 'device';
-    errors[field] ??= `${SAFEGUARD_FIELD_LABEL[field] ?? 'Safeguard'}: ${issue.message}`;
+    const key = issue.path[0];
+    const field: SafeguardField = typeof key === 'string' && key in SAFEGUARD_FIELD_LABEL ? (key as SafeguardField) : 'device';
+    errors[field] ??= issueSentence(issue, { input: candidate });
   }
   return { ok: false, errors };
 }

@@ -125,13 +125,14 @@ function ReviewLoader({ projectId, revisionId }: { projectId: number; revisionId
           )}
           <section aria-labelledby="diff-heading" className="rounded-control border border-rule bg-paper-raised p-3">
             <h2 id="diff-heading" className="mb-1 text-sm font-bold">Changes since the previous revision</h2>
-            {r.diff && <RevisionDiffPanel diff={r.diff} />}
+            {r.diff && <RevisionDiffPanel diff={r.diff} content={r.snapshot.layout.content} />}
           </section>
         </div>
         <aside className="flex min-w-0 flex-col gap-4" aria-label="Sign-off and findings">
           <DecisionPanel revision={r} user={user} />
           <FindingComments
             findings={r.snapshot.analysis.findings}
+            content={r.snapshot.layout.content}
             comments={r.comments ?? []}
             history={r.history ?? []}
             selectedId={selected?.id ?? null}

@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { Navigate, useLocation, useSearchParams, type Location } from 'react-router-dom';
 import { LoginInput } from '@shared/schemas/user';
@@ -7,6 +6,7 @@ import { Button } from '../components/Button';
 import { TextField } from '../components/Field';
 import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { RingfenceMark } from '../components/RingfenceMark';
+import { labelledResolver } from '../lib/labelledResolver';
 import { applyServerErrors } from '../lib/serverErrors';
 
 const DEFAULT_PAGE = '/projects';
@@ -33,7 +33,7 @@ export default function SignInPage() {
   const target = returnPath(location.state, params.get('next'));
 
   const form = useForm<LoginInput>({
-    resolver: zodResolver(LoginInput),
+    resolver: labelledResolver(LoginInput),
     defaultValues: { email: '', password: '' },
   });
   const { register, handleSubmit, setError, formState } = form;

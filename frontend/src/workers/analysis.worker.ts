@@ -5,11 +5,14 @@
  * arrive while an analysis runs are folded together: only the latest input is analysed next.
  */
 import { armReachFor } from '@shared/analysis';
+import { readableMessage } from '@shared/schemas/errors';
 import type { FromWorker, ToWorker } from './analysisProtocol';
 import { createAnalysisSession } from './analysisSession';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 const session = createAnalysisSession(armReachFor);
+/** Shown for an internal failure, whose own text is no message for people. */
+const FAILED = 'the checks hit a problem with this layout; undo the last change or reload the page';
 let scheduled = false;
 
 function runLatest(): void {
@@ -19,7 +22,8 @@ function runLatest(): void {
     const r = session.run();
     if (r) out = { type: 'result', ...r };
   } catch (err) {
-    out = { type: 'error', seq: session.currentSeq(), message: err instanceof Error ? err.message : String(err) };
+    console.error(err);
+    out = { type: 'error', seq: session.currentSeq(), message: readableMessage(err, FAILED) };
   }
   if (out) scope.postMessage(out);
 }
@@ -29,7 +33,8 @@ scope.onmessage = (event: MessageEvent<ToWorker>) => {
   try {
     again = session.receive(event.data);
   } catch (err) {
-    scope.postMessage({ type: 'error', seq: 'seq' in event.data ? event.data.seq : 0, message: err instanceof Error ? err.message : String(err) } satisfies FromWorker);
+    console.error(err);
+    scope.postMessage({ type: 'error', seq: 'seq' in event.data ? event.data.seq : 0, message: readableMessage(err, FAILED) } satisfies FromWorker);
     return;
   }
   if (again && !scheduled) {

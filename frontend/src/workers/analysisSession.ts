@@ -4,13 +4,14 @@
  * restricting limits), the prepared floor, the latest content and the pose being dragged. Pure
  * apart from its own caches, so it runs the same in a test as in the worker.
  */
-import { createAnalyzer, type Analyzer } from '@shared/analysis';
+import { createAnalyzer, MISSING_MODEL_TEXT, type Analyzer } from '@shared/analysis';
 import { prepareFloor } from '@shared/analysis';
 import { checkSectionLine, sectionOf, type SectionArm, type SectionLine, type SectionResult } from '@shared/analysis';
 import type { ArmReach, PreparedFloor } from '@shared/analysis';
 import { armPose } from '@shared/geometry';
 import { polygonsToGeoJSON, type AreaGeometry } from '@shared/geometry';
 import type { Polygon2 } from '@shared/geometry';
+import { ReadableError } from '@shared/schemas/errors';
 import type { ArmPlacement, LayoutContent } from '@shared/schemas/layout';
 import type { AnalysisView, DragPose, ToWorker, WorkerArmModel } from './analysisProtocol';
 
@@ -62,7 +63,7 @@ export function createAnalysisSession(build: ReachBuilder): AnalysisSession {
     const key = `${modelId}|${restrictKey(restrict)}`;
     let r = reaches.get(key);
     if (!r) {
-      if (!models.has(modelId)) throw new Error(`arm model ${modelId} is not in the catalogue`);
+      if (!models.has(modelId)) throw new ReadableError(MISSING_MODEL_TEXT);
       r = build(models.get(modelId), restrict);
       builds++;
       reaches.set(key, r);

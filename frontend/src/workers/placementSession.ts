@@ -9,7 +9,15 @@ import { prepareFloor } from '@shared/analysis';
 import { placementSteps } from '@shared/analysis';
 import { placementQueryOf } from '@shared/analysis';
 import type { ArmReachFactory, PreparedFloor } from '@shared/analysis';
+import { readableMessage } from '@shared/schemas/errors';
 import type { FromPlacementWorker, PlacementJobInput, ToPlacementWorker } from './placementProtocol';
+
+/** What a failed search tells the planner: an input problem's own sentence; never an internal error's text. */
+function failureText(err: unknown): string {
+  const text = readableMessage(err, null);
+  if (text === null) console.error(err);
+  return text ?? 'The search could not run on this layout; check the arms and work points chosen, then try again.';
+}
 
 const SLICE_MS = 12;
 const MAP_EVERY_MS = 120;
@@ -55,7 +63,7 @@ export function createPlacementSession(reachOf: ReachAdapter, post: (m: FromPlac
           if (now() - t0 > SLICE_MS) break;
         }
       } catch (err) {
-        post({ type: 'error', id, message: err instanceof Error ? err.message : String(err) });
+        post({ type: 'error', id, message: failureText(err) });
         return;
       }
       schedule(slice);
@@ -73,7 +81,7 @@ export function createPlacementSession(reachOf: ReachAdapter, post: (m: FromPlac
       try {
         ctx = context(msg);
       } catch (err) {
-        post({ type: 'error', id: msg.id, message: err instanceof Error ? err.message : String(err) });
+        post({ type: 'error', id: msg.id, message: failureText(err) });
         return;
       }
       if (msg.type === 'search') {
@@ -81,7 +89,7 @@ export function createPlacementSession(reachOf: ReachAdapter, post: (m: FromPlac
         try {
           it = placementSteps(placementQueryOf(msg.request, msg.content, ctx.floor, ctx.reachFor));
         } catch (err) {
-          post({ type: 'error', id: msg.id, message: err instanceof Error ? err.message : String(err) });
+          post({ type: 'error', id: msg.id, message: failureText(err) });
           return;
         }
         let lastMap = -Infinity;
@@ -111,7 +119,7 @@ export function createPlacementSession(reachOf: ReachAdapter, post: (m: FromPlac
           seed: req.seed, timeLimitMs: req.timeLimitS * 1000, takenIds: [], now,
         });
       } catch (err) {
-        post({ type: 'error', id: msg.id, message: err instanceof Error ? err.message : String(err) });
+        post({ type: 'error', id: msg.id, message: failureText(err) });
         return;
       }
       drive(msg.id, it, (y) => post({ type: 'progress', id: msg.id, progress: y.progress }), (result) => {

@@ -8,6 +8,7 @@ import { annularSector } from '@shared/geometry/annularSector';
 import { createAnalyzer, prepareFloor, type AnalysisInput, type AnalysisResult, type ArmReach, type ArmReachFactory, type Finding } from '@shared/analysis';
 import { ArmModelInput } from '@shared/schemas/armModel';
 import { LayoutContent, Boundary } from '@shared/schemas/layout';
+import { issueSentence } from '@shared/schemas/labels';
 
 /** Models (R 1000 mm each): 1 with both stopping times, 2 with only the category 0 time, 3 stopping in 0.18 s. */
 const MODELS: Record<number, { R: number; stop: { 0?: number; 1?: number } }> = {
@@ -179,26 +180,27 @@ describe('crushing gaps (ISO 13854)', () => {
 describe('layout schema: safeguards and meshes', () => {
   const fence = { id: 'F1', kind: 'fence', points: [[0, 0], [4000, 0]], height: 2000 };
   const opening = { id: 'O1', kind: 'opening', points: [[1000, 0], [2000, 0]], fenceId: 'F1' };
-  const parse = (boundaries: unknown[]) => LayoutContent.safeParse({ boundaries });
-  const messages = (r: ReturnType<typeof parse>) => (r.success ? [] : r.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`));
+  const parse = (boundaries: unknown[]) => ({ input: { boundaries }, r: LayoutContent.safeParse({ boundaries }) });
+  // The sentences people see: the field's label, the boundary by its kind and id (shared/schemas/labels.ts).
+  const messages = ({ input, r }: ReturnType<typeof parse>) => (r.success ? [] : r.error.issues.map((i) => `${i.path.join('.')}: ${issueSentence(i, { input })}`));
 
   it('takes a safeguard on an opening, defaulting the approach to normal', () => {
-    const r = parse([fence, { ...opening, safeguard: { device: 'interlock', responseTimeS: 0.05, stopCategory: 1 } }]);
+    const { r } = parse([fence, { ...opening, safeguard: { device: 'interlock', responseTimeS: 0.05, stopCategory: 1 } }]);
     expect(r.success).toBe(true);
     expect(r.data!.boundaries[1].safeguard).toEqual({ device: 'interlock', responseTimeS: 0.05, stopCategory: 1, approach: 'normal' });
     const mesh = parse([{ ...fence, meshMm: 30, meshShape: 'square' }]);
-    expect(mesh.success).toBe(true);
+    expect(mesh.r.success).toBe(true);
   });
 
   it('names the field of a bad safeguard or mesh', () => {
-    expect(messages(parse([{ ...fence, safeguard: { device: 'interlock', responseTimeS: 0.05, stopCategory: 0 } }]))).toContain('boundaries.0.safeguard: Only an access opening carries a safeguard');
-    expect(messages(parse([fence, { ...opening, safeguard: { device: 'mat', responseTimeS: 0.05, stopCategory: 0 } }]))[0]).toMatch(/^boundaries\.1\.safeguard\.device: Device must be one of/);
-    expect(messages(parse([fence, { ...opening, safeguard: { device: 'interlock', responseTimeS: 0.05, stopCategory: 2 } }]))).toContain('boundaries.1.safeguard.stopCategory: Stop category must be 0 or 1');
-    expect(messages(parse([fence, { ...opening, safeguard: { device: 'light-curtain', responseTimeS: 0.02, stopCategory: 0 } }]))).toContain('boundaries.1.safeguard.resolutionMm: Give the light curtain its resolution (mm)');
-    expect(messages(parse([fence, { ...opening, safeguard: { device: 'interlock', responseTimeS: -1, stopCategory: 0 } }]))).toContain('boundaries.1.safeguard.responseTimeS: Response time must not be negative');
-    expect(messages(parse([{ ...fence, meshMm: 150, meshShape: 'slot' }]))[0]).toMatch(/^boundaries\.0\.meshMm: Mesh size must be at most 120 mm/);
-    expect(messages(parse([{ ...fence, meshMm: 20 }]))).toContain('boundaries.0.meshShape: Give the mesh shape with its size');
-    expect(messages(parse([fence, { ...opening, meshMm: 20, meshShape: 'slot' }]))).toContain('boundaries.1.meshMm: Only a fence has a mesh');
+    expect(messages(parse([{ ...fence, safeguard: { device: 'interlock', responseTimeS: 0.05, stopCategory: 0 } }]))).toContain('boundaries.0.safeguard: Fence F1: only an access opening carries a safeguard');
+    expect(messages(parse([fence, { ...opening, safeguard: { device: 'mat', responseTimeS: 0.05, stopCategory: 0 } }]))[0]).toBe('boundaries.1.safeguard.device: Safeguard device of access opening O1 must be one of interlock, interlock-locking, light-curtain, multi-beam or single-beam');
+    expect(messages(parse([fence, { ...opening, safeguard: { device: 'interlock', responseTimeS: 0.05, stopCategory: 2 } }]))).toContain('boundaries.1.safeguard.stopCategory: Stop category of access opening O1 must be 0 or 1');
+    expect(messages(parse([fence, { ...opening, safeguard: { device: 'light-curtain', responseTimeS: 0.02, stopCategory: 0 } }]))).toContain('boundaries.1.safeguard.resolutionMm: Access opening O1: give the light curtain its resolution (mm)');
+    expect(messages(parse([fence, { ...opening, safeguard: { device: 'interlock', responseTimeS: -1, stopCategory: 0 } }]))).toContain('boundaries.1.safeguard.responseTimeS: Response time of access opening O1 must not be negative');
+    expect(messages(parse([{ ...fence, meshMm: 150, meshShape: 'slot' }]))[0]).toMatch(/^boundaries\.0\.meshMm: Fence F1: mesh size must be at most 120 mm/);
+    expect(messages(parse([{ ...fence, meshMm: 20 }]))).toContain('boundaries.0.meshShape: Fence F1: give the mesh shape with its size');
+    expect(messages(parse([fence, { ...opening, meshMm: 20, meshShape: 'slot' }]))).toContain('boundaries.1.meshMm: Access opening O1: only a fence has a mesh');
   });
 
   it('keeps the category 0 stopping time as stopTimeS and adds stopTimeCat1S to arm models', () => {

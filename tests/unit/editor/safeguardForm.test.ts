@@ -24,7 +24,7 @@ describe('safeguard form', () => {
     expect(r.errors.responseTimeS).toBe('Response time (s): enter a number');
     expect(r.errors.stopCategory).toMatch(/^Stop category: /);
     const c = parseSafeguardForm({ ...blank, device: 'light-curtain', responseTimeS: '0.02', stopCategory: '0' });
-    expect(c.ok === false && c.errors.resolutionMm).toBe('Resolution (mm): Give the light curtain its resolution (mm)');
+    expect(c.ok === false && c.errors.resolutionMm).toBe('Give the light curtain its resolution (mm)');
     expect(parseSafeguardForm(blank)).toEqual({ ok: true, safeguard: null });
   });
 

@@ -31,7 +31,7 @@ describe('arm model schema', () => {
     expect(errorsOf({ ...articulated, forearm: -5 })).toHaveProperty('forearm');
     expect(errorsOf({ ...scara, outerLink: 0 })).toHaveProperty('outerLink');
     expect(errorsOf({ ...scara, strokeMin: 300 })).toHaveProperty('strokeMax');
-    expect(errorsOf({ ...articulated, axes: [{ min: -170, max: 170 }, { min: 10, max: 10 }, { min: -200, max: 70 }] })['axes.1.max']).toMatch(/greater than min/);
+    expect(errorsOf({ ...articulated, axes: [{ min: -170, max: 170 }, { min: 10, max: 10 }, { min: -200, max: 70 }] })['axes.1.max']).toBe('J2 max must be greater than J2 min');
     expect(errorsOf({ ...articulated, axes: [{ min: -170, max: 170 }] })).toHaveProperty('axes');
     expect(errorsOf({ ...articulated, axes: [{ min: -170, max: 170, direction: 2 }, { min: 0, max: 1 }, { min: 0, max: 1 }] })).toHaveProperty('axes.0.direction');
     expect(errorsOf({ ...scara, toolLength: -1 })).toHaveProperty('toolLength');
@@ -43,13 +43,13 @@ describe('arm model schema', () => {
     // Coupler far too short to bridge crank and rocker across the 1350 mm ground.
     const broken = { ...palletizerFourBar, fourBar: { ...palletizerFourBar.fourBar, coupler: 300 } };
     expect(errorsOf(broken).fourBar).toMatch(/does not assemble/);
-    expect(() => parseArmParams(broken)).toThrow(/^fourBar: The four-bar does not assemble/);
+    expect(() => parseArmParams(broken)).toThrow(/^in its arm model, the four-bar does not assemble/);
     // The schema alone (zod only, no kinematics) leaves assembly to the kinematic check.
     expect(armParamsSchema.safeParse(broken).success).toBe(true);
     const wrongGround = { ...palletizerFourBar, fourBar: { ...palletizerFourBar.fourBar, ground: 900 } };
-    expect(errorsOf(wrongGround)['fourBar.ground']).toMatch(/upperArm/);
+    expect(errorsOf(wrongGround)['fourBar.ground']).toMatch(/make the ground link equal to the upper arm/);
     const tight = { ...palletizerFourBar, interiorAngle: { min: 170, max: 175 } };
-    expect(errorsOf(tight).interiorAngle).toMatch(/interiorAngle/);
+    expect(errorsOf(tight).interiorAngle).toMatch(/within the elbow angle limits/);
     expect(errorsOf({ ...palletizerFourBar, interiorAngle: { min: 90, max: 40 } })).toHaveProperty('interiorAngle.max');
     expect(armParamsSchema.safeParse(palletizerFourBar).success).toBe(true);
     expect(armParamsSchema.safeParse({ ...palletizerFourBar, fourBar: null }).success).toBe(true);

@@ -109,7 +109,7 @@ describe('reach bands and spaces', () => {
 
   it('rejects restricting limits that miss the model range, and does not mutate frozen inputs', () => {
     const m = deepFreeze(structuredClone(articulatedSets[0]));
-    expect(() => restrictedSpacePolygons(m, { j1Min: 171, j1Max: 200 })).toThrow(/restrict/);
+    expect(() => restrictedSpacePolygons(m, { j1Min: 171, j1Max: 200 })).toThrow(/^its J1 limits 171° to 200° do not overlap the arm model's J1 range/);
     expect(() => bandAt(m, Number.NaN)).toThrow(/zArm/);
     expect(() => restrictedSpacePolygons(m, deepFreeze({ j1Min: -20, j1Max: 20 }))).not.toThrow();
   });

@@ -53,7 +53,7 @@ describe('editWorkPoint', () => {
     expect(msg('z', ' ')).toBe('z is missing');
     expect(msg('id', 'P2')).toBe('id P2 is already used');
     expect(msg('id', '')).toBe('Give it an id');
-    expect(msg('id', 'x'.repeat(25))).toBe('Use at most 24 characters');
+    expect(msg('id', 'x'.repeat(25))).toBe('Id: use at most 24 characters');
     expect(msg('assignedArm', 'R9')).toBe('arm R9 is not on this cell layout');
     expect(msg('approach', 'side')).toBe('approach must be top or any');
     expect(msg('tag', 't'.repeat(61))).toMatch(/60/);

@@ -50,7 +50,7 @@ describe('parseWorkPointsCsv', () => {
       'row 5: duplicate id P1 (first on row 2)',
       'row 6: approach must be top or any, not "side"',
       'row 7: assigned arm R9 is not on this cell layout',
-      'row 8: id: Use letters, digits, _ . or - only',
+      'row 8: Id: use letters, digits, _ . or - only',
       'row 9: id is missing',
       'row 10: has 8 values but the header names 7 columns',
     ]);
@@ -63,7 +63,7 @@ describe('parseWorkPointsCsv', () => {
     const r = parseWorkPointsCsv(text);
     // header row 1, P1 row 2 (one record over two lines; a tag is one line of text), blank row 3, P2 row 4
     expect(r.errors).toEqual([
-      { row: 2, message: 'tag: Use one line of text without control characters' },
+      { row: 2, message: 'Tag: use one line of text without control characters' },
       { row: 4, message: 'z is not a number ("x")' },
     ]);
     expect(r.notes).toContain('Skipped 1 blank row.');

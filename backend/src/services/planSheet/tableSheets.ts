@@ -1,4 +1,4 @@
-import { isReached } from '@shared/analysis';
+import { concernsText, findingConcerns, isReached } from '@shared/analysis';
 import type { Severity } from '@shared/analysis';
 import type { ArmSummary } from './armSummary';
 import type { SheetPages } from './sheetPages';
@@ -170,27 +170,30 @@ export function drawBoundariesSheet(pages: SheetPages, input: PlanSheetInput): v
   drawTable(doc, { x: box.x, y: y + 11, w: box.w, h: box.y + box.h - (y + 11) }, cols, rows, () => pages.continuePage());
 }
 
-/** Findings, most severe first, with their message, arms and points. */
+/** Findings, most severe first, with their message and what each concerns by name (arms, boundaries, layers; work points apart). */
 export function drawFindings(pages: SheetPages, input: PlanSheetInput): void {
   pages.newPage('Findings', 'findings');
   const findings = [...input.analysis.findings].sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity] || a.id.localeCompare(b.id));
   if (!findings.length) return note(pages, 'The checks found nothing to report on this layout.');
   const cols: Column[] = [
     { title: 'Severity', width: 18, align: 'center' },
-    { title: 'Finding', width: 52, wrap: true },
-    { title: 'Message', width: 150, wrap: true },
-    { title: 'Arms', width: 30, wrap: true },
-    { title: 'Points', width: 40, wrap: true },
+    { title: 'Finding', width: 150, wrap: true },
+    { title: 'Concerns', width: 82, wrap: true },
+    { title: 'Work points', width: 40, wrap: true },
   ];
-  const rows: Row[] = findings.map((f) => ({
-    cells: [
-      { text: SEVERITY_LABEL[f.severity], bold: true, ...SEVERITY_STYLE[f.severity] },
-      f.id,
-      f.message,
-      f.arms.join(', ') || '—',
-      f.points.length > 12 ? `${f.points.slice(0, 12).join(', ')} and ${f.points.length - 12} more` : f.points.join(', ') || '—',
-    ],
-  }));
+  const content = input.layout.content;
+  const rows: Row[] = findings.map((f) => {
+    const concerns = findingConcerns(f, content);
+    const points = f.points.length > 12 ? `${f.points.slice(0, 12).join(', ')} and ${f.points.length - 12} more` : f.points.join(', ');
+    return {
+      cells: [
+        { text: SEVERITY_LABEL[f.severity], bold: true, ...SEVERITY_STYLE[f.severity] },
+        f.message,
+        concernsText(concerns.filter((c) => c.role !== 'work point')) || '—',
+        points || '—',
+      ],
+    };
+  });
   drawTable(pages.doc, pages.contentBox(), pages.fit(cols), rows, () => pages.continuePage());
 }
 

@@ -1,6 +1,6 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useEffectEvent, useMemo, type ReactNode } from 'react';
 import { useForm, useWatch, type FieldValues, type Path } from 'react-hook-form';
+import { labelledResolver } from '../../lib/labelledResolver';
 import { applyServerErrors } from '../../lib/serverErrors';
 import { Button } from '../Button';
 import { TextField } from '../Field';
@@ -57,7 +57,7 @@ export interface ArmModelEditorProps {
  */
 export function ArmModelEditor({ initial, readOnly, submitLabel, onSubmit, onChange, onCancel, actions }: ArmModelEditorProps) {
   const form = useForm<ArmModelFormValues, unknown, ArmModelInput>({
-    resolver: zodResolver(ArmModelInput),
+    resolver: labelledResolver(ArmModelInput),
     defaultValues: initial,
     mode: 'onChange',
   });

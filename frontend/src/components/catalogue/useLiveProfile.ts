@@ -1,6 +1,7 @@
 import { useMemo, useState } from 'react';
 import type { ReachProfile } from '@shared/kinematics';
 import type { EnvelopeProfile } from '@shared/kinematics';
+import { readableMessage, ReadableError } from '@shared/schemas/errors';
 import { ArmModelParams, envelopeOf, profileOf } from './modelCore';
 import { useDebouncedValue } from './useDebouncedValue';
 
@@ -52,6 +53,7 @@ function computeProfile(json: string): Computed {
   try {
     return { kind: 'good', good: { params: parsed.data, profile: profileOf(parsed.data), envelope: envelopeOf(parsed.data) } };
   } catch (error) {
-    return { kind: 'failed', failure: error instanceof Error ? error.message : 'The profile could not be computed.' };
+    if (!(error instanceof ReadableError)) console.error(error);
+    return { kind: 'failed', failure: readableMessage(error, 'No reach could be worked out from these values: check the link lengths and the axis limits.') };
   }
 }

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import type { ImportLayer, LayerPatch, LayerRole } from '@shared/schemas/floorPlan';
 import { LayerPatch as LayerPatchSchema } from '@shared/schemas/floorPlan';
+import { issueSentence } from '@shared/schemas/labels';
 import { cn } from '../../lib/cn';
 import { ROLE_LABEL, ROLE_OPTIONS, ROLE_STYLE, ROLES_WITH_HEIGHT } from './layerRoles';
 
@@ -74,7 +75,7 @@ function LayerRow({
     const value = text === '' ? null : Number(text.replace(',', '.'));
     const parsed = LayerPatchSchema.safeParse({ name: layer.name, height: value });
     if (!parsed.success || (value !== null && Number.isNaN(value))) {
-      setHeightError(parsed.success ? 'Enter a height in mm' : parsed.error.issues[0].message);
+      setHeightError(parsed.success ? 'Enter a height in mm' : issueSentence(parsed.error.issues[0]));
       return;
     }
     setHeightError(null);

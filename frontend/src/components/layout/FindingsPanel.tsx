@@ -1,4 +1,4 @@
-import type { Finding, Severity } from '@shared/analysis';
+import { concernsText, findingConcerns, type ConcernContent, type Finding, type Severity } from '@shared/analysis';
 import { cn } from '../../lib/cn';
 
 const SEVERITY_TEXT: Record<Severity, string> = { critical: 'Critical', warning: 'Warning', info: 'Note' };
@@ -20,6 +20,21 @@ export const PLANNING_CAUTION =
   'They are no substitute for the risk assessment (ISO 12100), the robot-system safety requirements of ISO 10218-2 or the arm maker’s stopping data. ' +
   'Safeguarding must be designed and validated by a competent person under the local codes and regulations.';
 
+/** The sentence of a finding and, under it, the elements it concerns by their names (never the finding's id). */
+export function FindingText({ finding, content }: { finding: Finding; content: ConcernContent }) {
+  const concerns = concernsText(findingConcerns(finding, content));
+  return (
+    <span className="min-w-0 flex-1">
+      <span data-finding-message>{finding.message}</span>
+      {concerns && (
+        <span className="mt-0.5 block text-[0.6875rem] text-ink-muted" data-concerns>
+          {concerns}
+        </span>
+      )}
+    </span>
+  );
+}
+
 /** Severity mark: octagon (critical), triangle (warning), circle (note); shape and colour both carry it. */
 export function SeverityIcon({ severity, className }: { severity: Severity; className?: string }) {
   return (
@@ -34,6 +49,8 @@ export function SeverityIcon({ severity, className }: { severity: Severity; clas
 
 export interface FindingsPanelProps {
   findings: readonly Finding[] | null;
+  /** The layout the findings are about: names the arms, boundaries and work points each concerns. */
+  content: ConcernContent;
   selectedId: string | null;
   onPick(f: Finding): void;
   /** True while the shown findings belong to an older input than the one on screen. */
@@ -42,8 +59,8 @@ export interface FindingsPanelProps {
   timingMs: number | null;
 }
 
-/** The live findings: severity, message; a click selects the arms involved and shows the spot. */
-export function FindingsPanel({ findings, selectedId, onPick, busy, error, timingMs }: FindingsPanelProps) {
+/** The live findings: severity, message, what each concerns; a click selects the arms involved and shows the spot. */
+export function FindingsPanel({ findings, content, selectedId, onPick, busy, error, timingMs }: FindingsPanelProps) {
   const counts = { critical: 0, warning: 0, info: 0 } as Record<Severity, number>;
   for (const f of findings ?? []) counts[f.severity]++;
   return (
@@ -84,7 +101,7 @@ export function FindingsPanel({ findings, selectedId, onPick, busy, error, timin
             >
               <SeverityIcon severity={f.severity} className="mt-0.5" />
               <span className="sr-only">{SEVERITY_TEXT[f.severity]}:</span>
-              <span className="min-w-0 flex-1">{f.message}</span>
+              <FindingText finding={f} content={content} />
             </button>
           </li>
         ))}

@@ -416,7 +416,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
             </div>
           )}
           <div className="flex min-h-0 flex-1 flex-col">
-            <FindingsPanel findings={findings} selectedId={selectedFinding?.id ?? null} onPick={pickFinding} busy={live.busy} error={live.error} timingMs={live.view?.analysis.timingMs ?? null} />
+            <FindingsPanel findings={findings} content={content} selectedId={selectedFinding?.id ?? null} onPick={pickFinding} busy={live.busy} error={live.error} timingMs={live.view?.analysis.timingMs ?? null} />
           </div>
         </aside>
       </div>

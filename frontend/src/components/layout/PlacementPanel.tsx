@@ -1,6 +1,7 @@
 import { useMemo, useState } from 'react';
 import type { PlacementResult } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
+import { issueSentence } from '@shared/schemas/labels';
 import { AutoLayoutInput, PlacementSearchInput } from '@shared/schemas/placement';
 import { chosenPoints, pointTags, type PointChoice } from '../../editor/placementEdits';
 import type { PlacementWork } from '../../editor/usePlacementWorker';
@@ -53,7 +54,7 @@ export function PlacementPanel(p: PlacementPanelProps) {
       armModelId, armId: placed?.id, pointIds: ids, minMarginMm: num(f.minMargin), yawMinDeg: num(f.yawMin), yawMaxDeg: num(f.yawMax), yawStepDeg: num(f.yawStep),
       mountHeightMm: num(f.mount), restrict, gridMm: 10,
     });
-    if (!r.success) return setError(r.error.issues[0]?.message ?? 'Check the fields');
+    if (!r.success) return setError(r.error.issues[0] ? issueSentence(r.error.issues[0]) : 'Check the fields');
     setError(null);
     p.onSearch(r.data);
   }
@@ -61,7 +62,7 @@ export function PlacementPanel(p: PlacementPanelProps) {
   function propose() {
     const models = p.armModels.map((m) => ({ armModelId: m.id, count: Math.trunc(num(counts[m.id] ?? '0')) })).filter((m) => m.count > 0);
     const r = AutoLayoutInput.safeParse({ models, pointIds: ids, minMarginMm: num(f.minMargin), mountHeightMm: num(f.mount), seed: 1, timeLimitS: 10 });
-    if (!r.success) return setError(r.error.issues[0]?.message ?? 'Check the fields');
+    if (!r.success) return setError(r.error.issues[0] ? issueSentence(r.error.issues[0]) : 'Check the fields');
     setError(null);
     p.onPropose(r.data);
   }

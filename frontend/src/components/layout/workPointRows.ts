@@ -1,4 +1,5 @@
 import { WorkPoint } from '@shared/schemas/layout';
+import { issueSentence } from '@shared/schemas/labels';
 import type { AnalysisResult } from '@shared/analysis';
 import { isReached } from '@shared/analysis';
 import { parseNumberCell } from './workPointsCsv';
@@ -80,7 +81,7 @@ export function editWorkPoint(
     draft[field] = raw;
   }
   const checked = WorkPoint.safeParse(draft);
-  if (!checked.success) return { ok: false, message: checked.error.issues[0]?.message ?? 'not a valid work point' };
+  if (!checked.success) return { ok: false, message: checked.error.issues[0] ? issueSentence(checked.error.issues[0]) : 'not a valid work point' };
   const next = checked.data;
   if (next.id !== id && points.some((p) => p.id === next.id)) return { ok: false, message: `id ${next.id} is already used` };
   const out = points.slice();

@@ -1,5 +1,6 @@
 import Papa from 'papaparse';
 import { WorkPoint } from '@shared/schemas/layout';
+import { issueSentence } from '@shared/schemas/labels';
 import type { AnalysisResult } from '@shared/analysis';
 
 /** The columns a work-point CSV file carries, in the order export writes them. */
@@ -205,7 +206,7 @@ export function parseWorkPointsCsv(text: string, options: WorkPointsCsvOptions =
         const field = String(issue.path[0] ?? '');
         // A missing or unreadable cell has already been reported above.
         if ((NUMERIC.has(field as WorkPointColumn) || field === 'id') && !(field in draft)) continue;
-        problems.push(field ? `${field}: ${issue.message}` : issue.message);
+        problems.push(issueSentence(issue));
       }
     }
     if (problems.length) for (const message of problems) result.errors.push({ row, message });

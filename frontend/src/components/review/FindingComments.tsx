@@ -1,13 +1,15 @@
-import { useState, type FormEvent } from 'react';
-import type { Finding } from '@shared/analysis';
+import { useId, useState, type FormEvent } from 'react';
+import type { ConcernContent, Finding } from '@shared/analysis';
 import type { ReviewCommentDto } from '../../api/revisions';
 import { formatDateTime } from '../../lib/format';
 import { cn } from '../../lib/cn';
 import { Button } from '../Button';
-import { PLANNING_CAUTION, SeverityIcon } from '../layout/FindingsPanel';
+import { FindingText, PLANNING_CAUTION, SeverityIcon } from '../layout/FindingsPanel';
 
 export interface FindingCommentsProps {
   findings: readonly Finding[];
+  /** The revision's layout: names what each finding concerns. */
+  content: ConcernContent;
   comments: readonly ReviewCommentDto[];
   /** Comments of earlier revisions, matched to findings by their stable id. */
   history: readonly ReviewCommentDto[];
@@ -38,9 +40,10 @@ export function CommentItem({ c, onResolve, label }: { c: ReviewCommentDto; onRe
   );
 }
 
-function CommentBox({ findingId, onComment }: { findingId: string; onComment: (id: string, body: string) => Promise<unknown> }) {
+function CommentBox({ findingId, about, onComment }: { findingId: string; about: string; onComment: (id: string, body: string) => Promise<unknown> }) {
   const [body, setBody] = useState('');
   const [busy, setBusy] = useState(false);
+  const id = useId();
   async function submit(e: FormEvent) {
     e.preventDefault();
     if (!body.trim()) return;
@@ -54,11 +57,11 @@ function CommentBox({ findingId, onComment }: { findingId: string; onComment: (i
   }
   return (
     <form onSubmit={submit} className="mt-1.5 flex items-start gap-2">
-      <label className="sr-only" htmlFor={`c-${findingId}`}>
-        Comment on {findingId}
+      <label className="sr-only" htmlFor={id}>
+        Comment on: {about}
       </label>
       <textarea
-        id={`c-${findingId}`}
+        id={id}
         rows={2}
         value={body}
         onChange={(e) => setBody(e.target.value)}
@@ -73,7 +76,7 @@ function CommentBox({ findingId, onComment }: { findingId: string; onComment: (i
 }
 
 /** The revision's findings, each with its comments, a comment box, and what was said about it in earlier revisions. */
-export function FindingComments({ findings, comments, history, selectedId, onSelect, onComment, onResolve }: FindingCommentsProps) {
+export function FindingComments({ findings, content, comments, history, selectedId, onSelect, onComment, onResolve }: FindingCommentsProps) {
   return (
     <section aria-labelledby="review-findings" className="flex flex-col gap-2">
       <h2 id="review-findings" className="text-sm font-bold">
@@ -89,15 +92,12 @@ export function FindingComments({ findings, comments, history, selectedId, onSel
             <li key={f.id} data-finding={f.id} className={cn('rounded-control border bg-paper-raised p-2.5', selectedId === f.id ? 'border-accent' : 'border-rule')}>
               <button type="button" onClick={() => onSelect(f)} className="flex w-full items-start gap-2 text-left text-sm">
                 <SeverityIcon severity={f.severity} className="mt-0.5" />
-                <span className="flex-1">
-                  {f.message}
-                  <code className="mt-0.5 block text-[0.6875rem] text-ink-faint">{f.id}</code>
-                </span>
+                <FindingText finding={f} content={content} />
               </button>
               {before.length > 0 && (
                 <details className="mt-1.5" open>
                   <summary className="cursor-pointer text-xs font-bold text-ink-muted">Said in earlier revisions ({before.length})</summary>
-                  <ul className="mt-1 flex flex-col gap-1" aria-label={`Earlier comments on ${f.id}`}>
+                  <ul className="mt-1 flex flex-col gap-1" aria-label="Earlier comments on this finding">
                     {before.map((c) => (
                       <CommentItem key={c.id} c={c} label={`Rev. ${c.revisionLetter ?? '?'}`} />
                     ))}
@@ -105,13 +105,13 @@ export function FindingComments({ findings, comments, history, selectedId, onSel
                 </details>
               )}
               {mine.length > 0 && (
-                <ul className="mt-1.5 flex flex-col gap-1" aria-label={`Comments on ${f.id}`}>
+                <ul className="mt-1.5 flex flex-col gap-1" aria-label="Comments on this finding">
                   {mine.map((c) => (
                     <CommentItem key={c.id} c={c} onResolve={onResolve} />
                   ))}
                 </ul>
               )}
-              {onComment && <CommentBox findingId={f.id} onComment={onComment} />}
+              {onComment && <CommentBox findingId={f.id} about={f.message} onComment={onComment} />}
             </li>
           );
         })}

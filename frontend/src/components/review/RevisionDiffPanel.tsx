@@ -1,7 +1,9 @@
 import { useId, useState } from 'react';
 import type { DiffElement, RevisionChangeGroup } from '@shared/schemas/revision';
+import { concernsText, findingConcerns, type ConcernContent } from '@shared/analysis';
 import type { RevisionDiffDto } from '../../api/revisions';
 import { Button } from '../Button';
+import { SEVERITY_LABEL } from '@shared/words';
 
 /** The sections of the diff, in the order the server groups them; one-of-a-kind parts list their changes directly. */
 const SECTIONS: ReadonlyArray<{ element: DiffElement; heading: string; single?: boolean }> = [
@@ -64,12 +66,18 @@ function Section({ heading, groups, single }: { heading: string; groups: Revisio
   );
 }
 
+/** What a diff finding concerns, by the names this revision's layout gives them (gone elements are left out). */
+function Concerns({ id, content }: { id: string; content: ConcernContent }) {
+  const text = concernsText(findingConcerns({ id }, content));
+  return text ? <span className="block text-xs text-ink-muted">{text}</span> : null;
+}
+
 /**
  * What changed since the previous revision, grouped by element: project and cell layout, floor plan,
  * work heights, arms, arm models, boundaries (fences, access openings, keep-outs, operator areas),
  * work points; then findings new, gone and changed.
  */
-export function RevisionDiffPanel({ diff }: { diff: RevisionDiffDto }) {
+export function RevisionDiffPanel({ diff, content }: { diff: RevisionDiffDto; content: ConcernContent }) {
   if (!diff.previous) return <p className="text-sm text-ink-muted">First revision of this layout: nothing to compare with.</p>;
   const { groups, findings } = diff;
   const noFindings = !findings.added.length && !findings.removed.length && !findings.changed.length;
@@ -93,19 +101,22 @@ export function RevisionDiffPanel({ diff }: { diff: RevisionDiffDto }) {
           <ul className="flex flex-col gap-1">
             {findings.added.map((f) => (
               <li key={`fa${f.id}`} className="text-finding-critical">
-                New finding: {f.message} <code className="text-xs">{f.id}</code>
+                New finding: {f.message}
+                <Concerns id={f.id} content={content} />
               </li>
             ))}
             {findings.removed.map((f) => (
               <li key={`fr${f.id}`} className="text-accent">
-                Gone: {f.message} <code className="text-xs">{f.id}</code>
+                Gone: {f.message}
+                <Concerns id={f.id} content={content} />
               </li>
             ))}
             {findings.changed.map((f) => (
               <li key={`fc${f.id}`}>
-                Changed: {f.message} <code className="text-xs">{f.id}</code>
+                Changed: {f.message}
+                <Concerns id={f.id} content={content} />
                 <span className="block text-ink-muted">
-                  Was{f.before.severity !== f.severity ? ` ${f.before.severity}` : ''}: {f.before.message}
+                  Was{f.before.severity !== f.severity ? ` ${SEVERITY_LABEL[f.before.severity].toLowerCase()}` : ''}: {f.before.message}
                 </span>
               </li>
             ))}

@@ -1,6 +1,6 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { ROLES, UserCreateInput } from '@shared/schemas/user';
+import { labelledResolver } from '../../lib/labelledResolver';
 import { applyServerErrors } from '../../lib/serverErrors';
 import { Button } from '../Button';
 import { SelectField, TextField } from '../Field';
@@ -24,7 +24,7 @@ export interface UserCreateFormProps {
 /** E-mail, name, role and a temporary password for a new account, checked with UserCreateInput. */
 export function UserCreateForm({ onSubmit, onCancel }: UserCreateFormProps) {
   const { register, handleSubmit, setError, setValue, formState } = useForm<UserCreateInput>({
-    resolver: zodResolver(UserCreateInput),
+    resolver: labelledResolver(UserCreateInput),
     defaultValues: { email: '', name: '', role: 'planner', password: '' },
   });
   const { errors, isSubmitting } = formState;
