@@ -90,7 +90,7 @@ describe('heavy work in the pool', () => {
     const res = await agent.post(`/api/layouts/${layoutId}/analysis`).send({ content: heavyLayoutContent(modelIds) });
     expect(res.status).toBe(503);
     expect(res.body.error.code).toBe('too_slow');
-    expect(res.body.error.message).toBe('The analysis took longer than 0.1 s and was stopped; split the layout or try again.');
+    expect(res.body.error.message).toBe('The analysis took longer than 0.1 s and was stopped; split the cell layout or try again.');
     // the server goes on answering
     expect((await request(hurried).get('/api/health')).status).toBe(200);
   });
