@@ -13,12 +13,6 @@ export const REVISION_STATE_LABEL = {
   released: 'Released',
 } as const satisfies Record<'submitted' | 'returned' | 'signed_off' | 'released', string>;
 
-/** The reviewer's two decisions, as buttons and audit lines say them. */
-export const DECISION_LABEL = {
-  sign_off: 'Sign off',
-  return: 'Return for changes',
-} as const satisfies Record<'sign_off' | 'return', string>;
-
 /** Kinematic families of arm models. */
 export const FAMILY_LABEL = {
   scara: 'SCARA',
@@ -33,46 +27,21 @@ export function familyLabel(family: string): string {
 }
 
 /**
- * Boundaries: what the planner draws on a cell layout besides arms and work points (the umbrella
- * word, so "zone" keeps one meaning: the shared zone of two arms).
+ * Each kind of boundary (what the planner draws on a cell layout besides arms and work points; the
+ * umbrella word keeps "zone" for the shared zone of two arms), as named inside a sentence.
  */
-export const BOUNDARY_WORD = { one: 'boundary', many: 'boundaries', One: 'Boundary', Many: 'Boundaries' } as const;
-
-/** Each kind of boundary: its name, its name inside a sentence, and the id prefix of new ones. */
-export const BOUNDARY_KIND_LABEL = {
-  fence: 'Guard fence',
-  opening: 'Access opening',
-  keepout: 'Keep-out',
-  operator: 'Operator area',
-} as const satisfies Record<'fence' | 'opening' | 'keepout' | 'operator', string>;
-
 export const BOUNDARY_KIND_WORD = {
   fence: 'guard fence',
   opening: 'access opening',
   keepout: 'keep-out',
   operator: 'operator area',
-} as const satisfies Record<keyof typeof BOUNDARY_KIND_LABEL, string>;
+} as const satisfies Record<'fence' | 'opening' | 'keepout' | 'operator', string>;
 
 /** Id prefixes of new elements, the same as the demo's (R1, P1, F1, O1, K1, OP1). */
 export const ID_PREFIX = { arm: 'R', workPoint: 'P', fence: 'F', opening: 'O', keepout: 'K', operator: 'OP' } as const;
 
 /** Severities of findings. */
 export const SEVERITY_LABEL = { critical: 'Critical', warning: 'Warning', info: 'Note' } as const satisfies Record<'critical' | 'warning' | 'info', string>;
-
-/** Layer roles of a floor plan. */
-export const LAYER_ROLE_LABEL = {
-  outline: 'Floor outline',
-  wall: 'Wall',
-  column: 'Column',
-  obstacle: 'Obstacle',
-  ignore: 'Not used',
-} as const satisfies Record<'outline' | 'wall' | 'column' | 'obstacle' | 'ignore', string>;
-
-/** Where a cell layout's state is written on an export: the working copy or the revision. */
-export function layoutStateLabel(revisionLetter: string | null | undefined, state?: keyof typeof REVISION_STATE_LABEL): string {
-  if (!revisionLetter) return 'Working copy (not a revision)';
-  return state ? `Revision ${revisionLetter} (${REVISION_STATE_LABEL[state].toLowerCase()})` : `Revision ${revisionLetter}`;
-}
 
 /** The two reach figures of an arm model, named apart: they are different numbers. */
 export const REACH_FIGURE_LABEL = {
