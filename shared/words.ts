@@ -60,3 +60,14 @@ export function revisionStateLabel(state: string): string {
 
 /** How a work point is approached by the tool. */
 export const APPROACH_LABEL = { top: 'From above', any: 'Any direction' } as const satisfies Record<'top' | 'any', string>;
+
+/**
+ * The plan's reference direction. Floor plans carry no surveyed true north, so every plan drawing
+ * (sheet, editor key) marks plan north: the drawing's +y axis, up on paper and on screen.
+ */
+export const PLAN_NORTH = { mark: 'PN', label: 'Plan north (+y)' } as const;
+
+/** What a cell layout shown or exported is: the editable working copy, or a frozen revision. */
+export function layoutStateWords(revision: { letter: string; state: string } | null): string {
+  return revision ? `Revision ${revision.letter} · ${revisionStateLabel(revision.state)}` : 'Working copy (not a revision)';
+}

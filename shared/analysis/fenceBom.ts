@@ -298,11 +298,13 @@ export function fenceLinesOf(boundaries: ReadonlyArray<Boundary>): FenceLine[] {
     }));
 }
 
-/** The bill of materials as CSV (item, size, quantity), RFC 4180 quoting. */
-export function bomCsv(bom: ReadonlyArray<BomLine>): string {
+/** The bill of materials as CSV (notes as `# ` lines, then item, size, quantity), RFC 4180 quoting. */
+export function bomCsv(bom: ReadonlyArray<BomLine>, notes: ReadonlyArray<string> = []): string {
   const q = (v: string | number) => {
     const s = String(v);
     return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
   };
-  return ['item,size,quantity', ...bom.map((b) => [q(b.item), q(b.size), q(b.quantity)].join(','))].join('\r\n') + '\r\n';
+  // Notes (what, when, cautions) as `# ` lines before the header, one quoted cell each.
+  const noteLines = notes.map((n) => `"# ${n.replace(/"/g, '""')}"`);
+  return [...noteLines, 'item,size,quantity', ...bom.map((b) => [q(b.item), q(b.size), q(b.quantity)].join(','))].join('\r\n') + '\r\n';
 }

@@ -22,3 +22,4 @@ export {
   type MeshShape,
   type ReachOver,
 } from './reachDistances';
+export { CAUTION_TEXT, CAUTIONS, exportNotes, exportStamp } from './cautions';

@@ -38,6 +38,20 @@ export const UNIT_NAMES = [
 ] as const;
 
 export type UnitName = (typeof UNIT_NAMES)[number]['name'];
+
+/**
+ * The units a building's floor plan is drawn in, in the order a person would look for them: the
+ * metric lengths of architectural drawings and the inch-based ones of US and UK practice (common
+ * practice). The unit picker offers these; a file whose header names another unit is still read in
+ * it, and the picker shows that unit too so the choice stays visible.
+ */
+export const BUILDING_UNITS: readonly UnitName[] = ['mm', 'cm', 'dm', 'm', 'in', 'ft', 'yd', 'us-ft', 'us-in'];
+
+/** The units the unit picker offers: the building units, plus `current` when the file named another. */
+export function pickerUnits(current: UnitName): Array<(typeof UNIT_NAMES)[number]> {
+  const names = BUILDING_UNITS.includes(current) ? BUILDING_UNITS : [...BUILDING_UNITS, current];
+  return names.map((n) => UNIT_NAMES.find((u) => u.name === n)!);
+}
 const unitNameList = UNIT_NAMES.map((u) => u.name) as [UnitName, ...UnitName[]];
 export const UnitNameSchema = z.enum(unitNameList);
 

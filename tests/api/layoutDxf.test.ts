@@ -10,6 +10,7 @@ import { ArmModel, Layout } from '../../backend/src/models';
 import { importDxf } from '../../backend/src/services/dxf';
 import { DXF_LAYERS, layoutDxf, loadLayoutSheetInput } from '../../backend/src/services/planSheet';
 import { summarizeArms } from '../../backend/src/services/planSheet/armSummary';
+import { CAUTIONS } from '@shared/safety';
 import { buildProject, buildUser, TEST_PASSWORD } from '../support/factories';
 import { createTestApp, signedIn, type TestApp } from '../support/testApp';
 
@@ -141,13 +142,33 @@ describe('labels that try to write DXF records of their own', () => {
 
   it('written directly through layoutDxf give no extra entity when read back with the importer', async () => {
     const input = await loadLayoutSheetInput((await Layout.findByPk(layoutId))!);
-    const clean = importDxf(layoutDxf(input));
+    const clean = importDxf(layoutDxf(input, { createdAt: new Date() }));
     const content = input.layout.content;
     const evil = { ...input, layout: { ...input.layout, content: { ...content, arms: content.arms.map((x, i) => (i === 0 ? { ...x, label: EVIL } : x)) } } };
-    const back = importDxf(layoutDxf(evil));
+    const back = importDxf(layoutDxf(evil, { createdAt: new Date() }));
     expect(back.layers.map((l) => l.name)).not.toContain('EVIL');
     expect(back.geometry.features.length).toBe(clean.geometry.features.length);
     const texts = (back.geometry.features as F[]).filter((f) => f.geometry.type === 'Point' && f.properties.layer === DXF_LAYERS.arms).map((f) => f.properties.text);
     expect(texts).toContain(`${content.arms[0].id} R1 0 LINE 8 EVIL 10 0 20 0 11 99999 21 99999`);
+  });
+});
+
+describe('notes in the DXF export', () => {
+  it('carry what the file is, working copy or revision, the date and every caution: 999 comments and RF_NOTES text', async () => {
+    const input = await loadLayoutSheetInput((await Layout.findByPk(layoutId))!);
+    const at = new Date('2026-03-04T05:06:07Z');
+    const text = layoutDxf(input, { createdAt: at });
+    // Group code 999 is a comment (DXF reference, general structure — from memory); dxf-parser skips it.
+    const lines = text.split('\n');
+    const comments: string[] = [];
+    for (let i = 0; lines[i] === '999'; i += 2) comments.push(lines[i + 1]);
+    expect(comments[0]).toBe(`Ringfence cell layout drawing · cell layout ${input.layout.name} · Working copy (not a revision) · exported 2026-03-04 05:06 UTC`);
+    for (const c of CAUTIONS) expect(comments).toContain(c);
+    const back = importDxf(text);
+    const notes = (back.geometry.features as F[]).filter((f) => f.properties.layer === DXF_LAYERS.notes).map((f) => f.properties.text);
+    expect(notes).toEqual(comments);
+    // A revision's export says its letter and state.
+    const rev = layoutDxf({ ...input, revision: { letter: 'B', state: 'signed_off', submittedBy: null, decidedBy: null, decidedAt: null, releasedAt: null } }, { createdAt: at });
+    expect(rev.split('\n')[1]).toContain('· Revision B · Signed off ·');
   });
 });

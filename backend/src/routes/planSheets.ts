@@ -59,7 +59,7 @@ export function planSheetsRouter(): Router {
     res.set('Content-Type', 'application/dxf');
     res.set('Content-Disposition', `attachment; filename="${fileBase(layout.name)}.dxf"`);
     res.set('Cache-Control', 'no-store');
-    res.send(layoutDxf(input));
+    res.send(layoutDxf(input, { createdAt: new Date() }));
   });
 
   return r;

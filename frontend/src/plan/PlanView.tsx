@@ -1,4 +1,4 @@
-import { useEffect, useLayoutEffect, useRef, useState } from 'react';
+import { useEffect, useLayoutEffect, useRef, useState, type ReactNode } from 'react';
 import type { FeatureCollection, Geometry } from 'geojson';
 import { cn } from '../lib/cn';
 import { createPlanCanvas, type LayerStyles, type PlanBounds, type PlanCanvas, type PlanFeatureLike, type PlanPoint } from './planCanvas';
@@ -19,6 +19,8 @@ export interface PlanViewProps {
   /** Show the grid at first. */
   grid?: boolean;
   className?: string;
+  /** Drawn over the drawing's corner (e.g. the editor's key); positioned by its own classes. */
+  overlay?: ReactNode;
 }
 
 const mmFormat = new Intl.NumberFormat(undefined, { maximumFractionDigits: 0 });
@@ -34,7 +36,7 @@ const reducedMotion = () => typeof window !== 'undefined' && window.matchMedia?.
  * The plan drawing with its own controls (fit, zoom in/out, grid) and the pointer position in
  * plan mm. React owns the props; the d3 canvas (planCanvas.ts) owns everything under the svg.
  */
-export function PlanView({ geometry, layerStyles, bounds, onCursor, onCanvas, label = 'Floor plan drawing', grid = false, className }: PlanViewProps) {
+export function PlanView({ geometry, layerStyles, bounds, onCursor, onCanvas, label = 'Floor plan drawing', grid = false, className, overlay }: PlanViewProps) {
   const svgRef = useRef<SVGSVGElement>(null);
   const canvasRef = useRef<PlanCanvas | null>(null);
   const cursorRef = useRef<HTMLOutputElement>(null);
@@ -115,6 +117,7 @@ export function PlanView({ geometry, layerStyles, bounds, onCursor, onCanvas, la
       >
         <title>{`${label}. Drag to pan, scroll or use + and − to zoom, 0 to fit.`}</title>
       </svg>
+      {overlay}
     </div>
   );
 }

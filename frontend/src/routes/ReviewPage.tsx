@@ -1,6 +1,6 @@
 import { useCallback, useState, type FormEvent } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import type { Finding } from '@shared/analysis';
+import { checkedFloorOf, type Finding } from '@shared/analysis';
 import { can } from '@shared/policy';
 import { useSessionUser } from '../api/auth';
 import { isApiError } from '../api/client';
@@ -133,6 +133,7 @@ function ReviewLoader({ projectId, revisionId }: { projectId: number; revisionId
           <FindingComments
             findings={r.snapshot.analysis.findings}
             content={r.snapshot.layout.content}
+            floor={checkedFloorOf(r.snapshot.floorPlan?.layers)}
             comments={r.comments ?? []}
             history={r.history ?? []}
             selectedId={selected?.id ?? null}

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { guessLayerRole, defaultLayerHeight } from '../../../backend/src/services/dxf/layerRoles';
 import { resolveUnits, unitFromInsunits, UNIT_NAMES, unitToMm } from '../../../backend/src/services/dxf/units';
-import { FloorPlanPatch } from '@shared/schemas/floorPlan';
+import { BUILDING_UNITS, FloorPlanPatch, pickerUnits } from '@shared/schemas/floorPlan';
 
 describe('drawing units', () => {
   it('every $INSUNITS code 1–24 of the DXF reference has one unit, and 0 has none', () => {
@@ -75,5 +75,21 @@ describe('layer roles', () => {
     expect(FloorPlanPatch.safeParse({ units: 'furlong' }).success).toBe(false);
     expect(FloorPlanPatch.safeParse({ layers: [{ name: 'A', height: -5 }] }).success).toBe(false);
     expect(FloorPlanPatch.safeParse({ layers: [{ name: 'A' }, { name: 'A' }] }).success).toBe(false);
+  });
+});
+
+describe('the unit picker', () => {
+  it('offers the units building drawings are made in, not astronomical or microscopic ones', () => {
+    // Building drawings are dimensioned in mm, cm or m (metric practice) or in inches, feet and yards
+    // (US/UK practice) — common practice.
+    const offered = pickerUnits('mm').map((u) => u.name);
+    expect(offered).toEqual(['mm', 'cm', 'dm', 'm', 'in', 'ft', 'yd', 'us-ft', 'us-in']);
+    for (const odd of ['ly', 'pc', 'au', 'Gm', 'angstrom', 'nm', 'um', 'uin', 'mi', 'km']) expect(offered).not.toContain(odd);
+  });
+
+  it('keeps the unit a file header named visible even when it is not a building unit', () => {
+    const offered = pickerUnits('km').map((u) => u.name);
+    expect(offered.at(-1)).toBe('km');
+    expect(offered).toHaveLength(BUILDING_UNITS.length + 1);
   });
 });

@@ -63,4 +63,8 @@ describe('BOM of fences drawn by hand', () => {
     const csv = bomCsv([{ item: 'panel', size: '1500 × 2000 mm', quantity: 3 }, { item: 'post, line', size: '60 mm', quantity: 4 }]);
     expect(csv).toBe('item,size,quantity\r\npanel,1500 × 2000 mm,3\r\n"post, line",60 mm,4\r\n');
   });
+  it('opens the CSV with the notes (what, state, date, cautions) as "# " lines, one cell each', () => {
+    const csv = bomCsv([{ item: 'panel', size: '1500 × 2000 mm', quantity: 3 }], ['Ringfence fence parts · cell layout A', 'say "no"']);
+    expect(csv).toBe('"# Ringfence fence parts · cell layout A"\r\n"# say ""no"""\r\nitem,size,quantity\r\npanel,1500 × 2000 mm,3\r\n');
+  });
 });

@@ -22,7 +22,7 @@ async function outputs() {
     findingIds: analysis.findings.map((f) => f.id),
     planSheetSha256: sha(pdf),
     planSheetBytes: pdf.length,
-    dxfSha256: sha(layoutDxf(input)),
+    dxfSha256: sha(layoutDxf(input, { createdAt: new Date('2026-03-02T09:00:00Z') })),
   };
 }
 

@@ -1,6 +1,8 @@
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { WorkPoint } from '@shared/schemas/layout';
+import { CAUTIONS, exportNotes } from '@shared/safety';
+import { layoutStateWords } from '@shared/words';
 import {
   detectDelimiter,
   mergeWorkPoints,
@@ -149,7 +151,7 @@ describe('workPointsToCsv', () => {
     const text = workPointsToCsv(points, ARMS, coverage);
     // Read back with papaparse itself as the independent CSV reader.
     const rows = Papa.parse<string[]>(text, { skipEmptyLines: true }).data;
-    expect(rows[0]).toEqual(['id', 'x', 'y', 'z', 'approach', 'tag', 'assignedArm', 'margin R1', 'margin R2']);
+    expect(rows[0]).toEqual(['id', 'x (mm)', 'y (mm)', 'z (mm above floor)', 'approach (top/any)', 'tag', 'assignedArm', 'margin R1 (mm)', 'margin R2 (mm)']);
     expect(rows[1]).toEqual(['P1', '10000', '6200.5', '900', 'top', 'infeed, left', 'R1', '120.5', '-40']);
     expect(rows[2]).toEqual(['P2', '-17250.25', '2000', '800', 'any', 'says "hi"', '', '-3.2', '0']);
     expect(rows[3].slice(7)).toEqual(['', '']);
@@ -162,7 +164,7 @@ describe('workPointsToCsv', () => {
     expect(text).toContain('"infeed, left"');
     expect(text).toContain('"says ""hi"""');
     expect(text).toContain('"two\nlines"');
-    expect(text.split('\r\n')[0]).toBe(HEADER);
+    expect(text.split('\r\n')[0]).toBe('id,x (mm),y (mm),z (mm above floor),approach (top/any),tag,assignedArm');
   });
 
   it('round-trips: export then import gives the same points, margins noted and not read', () => {
@@ -171,6 +173,32 @@ describe('workPointsToCsv', () => {
     expect(back.errors).toEqual([]);
     expect(back.points.map((p) => p.point)).toEqual(oneLine);
     expect(back.notes).toEqual(['Margin columns (2) are not read: the analysis works margins out again.']);
+  });
+});
+
+describe('export notes', () => {
+  const points = [wp({ id: 'P1', x: 10000, y: 6200.5, z: 900, tag: 'infeed' })];
+  const notes = exportNotes({ what: 'work points', layoutName: 'Cell 1', state: layoutStateWords(null), at: new Date('2026-03-04T05:06:07Z') });
+
+  it('opens with what the file is, its state and date, the frame and every caution, each a "# " line', () => {
+    const text = workPointsToCsv(points, ARMS, null, notes);
+    // Read back with papaparse as the independent CSV reader: each note is one cell.
+    const rows = Papa.parse<string[]>(text, { skipEmptyLines: true }).data;
+    const noteRows = rows.filter((r) => r[0].startsWith('# '));
+    expect(noteRows.every((r) => r.length === 1)).toBe(true);
+    expect(noteRows[0][0]).toBe('# Ringfence work points · cell layout Cell 1 · Working copy (not a revision) · exported 2026-03-04 05:06 UTC');
+    for (const c of CAUTIONS) expect(noteRows.map((r) => r[0])).toContain(`# ${c}`);
+    expect(rows[noteRows.length][0]).toBe('id');
+  });
+
+  it('imports again: note lines and unit brackets are read past, row numbers stay the spreadsheet ones', () => {
+    const text = workPointsToCsv(points, ARMS, null, notes);
+    const back = parseWorkPointsCsv(text, { armIds: ARMS });
+    expect(back.errors).toEqual([]);
+    expect(back.points.map((p) => p.point)).toEqual(points);
+    expect(back.points[0].row).toBe(notes.length + 2);
+    // a semicolon file with notes still finds its delimiter from the header line
+    expect(detectDelimiter('"# a, b, c"\nid;x;y;z\n')).toBe(';');
   });
 });
 

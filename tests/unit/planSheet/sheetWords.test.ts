@@ -53,3 +53,16 @@ describe('plan sheet words', () => {
     expect(text).toMatch(/Demo SCARA 600[^]*?not given/);
   }, 60_000);
 });
+
+describe('plan sheet reference direction and empty findings', () => {
+  it('marks plan north (+y), and an empty findings page lists what was checked', async () => {
+    const input = demoSheetInput();
+    input.analysis = { ...input.analysis, findings: [] };
+    const { text } = await read(await renderPlanSheet(input, { size: 'A3', draft: true, createdAt: new Date('2026-11-20T09:00:00Z'), sheets: ['plan', 'findings'] }));
+    expect(text).toContain('Plan north (+y)');
+    expect(text).toContain('PN');
+    expect(text).toContain('No findings from the checks run on this cell layout:');
+    expect(text).toContain('shared zones of every pair of arms');
+    expect(text).not.toContain('The checks found nothing');
+  }, 60_000);
+});

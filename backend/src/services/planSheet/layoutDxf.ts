@@ -5,7 +5,8 @@ import { BOUNDARY_STYLES, type DxfLook } from '@shared/style/boundaryStyles';
 import { summarizeArms } from './armSummary';
 import { moveDxfEntities } from './dxfOrigin';
 import type { PlanSheetInput } from './types';
-import { BOUNDARY_KIND_WORD } from '@shared/words';
+import { BOUNDARY_KIND_WORD, layoutStateWords } from '@shared/words';
+import { exportNotes } from '@shared/safety';
 
 /** Layer names of the exported layout (CAD side). */
 export const DXF_LAYERS = {
@@ -18,6 +19,8 @@ export const DXF_LAYERS = {
   fences: BOUNDARY_STYLES.fence.dxf.layer,
   /** Openings, operator areas and keep-outs share one layer. */
   boundaries: BOUNDARY_STYLES.keepout.dxf.layer,
+  /** What the file is, its state and date, the frame and the cautions, as text below the plan. */
+  notes: 'RF_NOTES',
 } as const;
 
 /** Radius of the arm-base circle, plan mm. */
@@ -42,12 +45,27 @@ function rings(d: Drawing, polygons: ReadonlyArray<Polygon2>): void {
   for (const p of polygons) for (const ring of p) if (ring.length >= 3) d.drawPolyline(ring.map(([x, y]) => [round(x), round(y)]), true);
 }
 
+/** The lowest-left corner of what the export draws (floor plan, or the layout's own elements), plan mm. */
+function lowerLeft(input: PlanSheetInput): [number, number] {
+  if (input.floorPlan) return [input.floorPlan.bounds.minX, input.floorPlan.bounds.minY];
+  const c = input.layout.content;
+  const xs = [...c.arms.map((a) => a.x), ...c.workPoints.map((p) => p.x), ...c.boundaries.flatMap((b) => b.points.map((q) => q[0]))];
+  const ys = [...c.arms.map((a) => a.y), ...c.workPoints.map((p) => p.y), ...c.boundaries.flatMap((b) => b.points.map((q) => q[1]))];
+  let x = 0;
+  let y = 0;
+  for (const v of xs) x = Math.min(x, v);
+  for (const v of ys) y = Math.min(y, v);
+  return [xs.length ? x : 0, ys.length ? y : 0];
+}
+
 /**
  * The layout as DXF for CAD, plan mm ($INSUNITS 4): arm bases (circle, label at the base point),
  * maximum and restricted space outlines, reach bands per work height, shared zones, work points
- * (circle, id at the point), fences and the other boundaries, each on its named layer.
+ * (circle, id at the point), fences and the other boundaries, each on its named layer; the notes
+ * (what, state — working copy or revision — date, frame, cautions) as 999 comments at the top of the
+ * file and as text on RF_NOTES below the plan.
  */
-export function layoutDxf(input: PlanSheetInput): string {
+export function layoutDxf(input: PlanSheetInput, opts: { createdAt: Date }): string {
   const d = new Drawing();
   d.setUnits('Millimeters');
   const content = input.layout.content;
@@ -60,6 +78,7 @@ export function layoutDxf(input: PlanSheetInput): string {
   layer(DXF_LAYERS.points, BOUNDARY_STYLES.pointReached.dxf);
   layer(DXF_LAYERS.fences, BOUNDARY_STYLES.fence.dxf);
   layer(DXF_LAYERS.boundaries, BOUNDARY_STYLES.keepout.dxf);
+  d.addLayer(DXF_LAYERS.notes, 7, 'CONTINUOUS');
 
   const arms = summarizeArms({ models: input.models, analysis: input.analysis, content });
   d.setActiveLayer(DXF_LAYERS.arms);
@@ -92,7 +111,17 @@ export function layoutDxf(input: PlanSheetInput): string {
     const [x, y] = pts[0];
     d.drawText(x, y, TEXT_MM / 2, 0, dxfText(`${z.id} ${BOUNDARY_KIND_WORD[z.kind]}${z.height ? `, height ${Math.round(z.height)} mm` : ''}`));
   }
+  const notes = exportNotes({
+    what: 'cell layout drawing',
+    layoutName: dxfText(input.layout.name),
+    state: layoutStateWords(input.revision ? { letter: input.revision.letter, state: input.revision.state } : null),
+    at: opts.createdAt,
+  }).map(dxfText);
+  d.setActiveLayer(DXF_LAYERS.notes);
+  const [nx, ny] = lowerLeft(input);
+  notes.forEach((n, i) => d.drawText(round(nx), round(ny - 2 * TEXT_MM * (i + 2)), TEXT_MM, 0, n));
   // back to where the building lies in its own drawing (see the floor plan's local origin)
   const o = input.floorPlan?.origin;
-  return o ? moveDxfEntities(d.toDxfString(), o.x, o.y) : d.toDxfString();
+  const body = o ? moveDxfEntities(d.toDxfString(), o.x, o.y) : d.toDxfString();
+  return notes.map((n) => `999\n${n}\n`).join('') + body;
 }

@@ -7,6 +7,7 @@ import { geoJSONToPolygons } from '@shared/geometry';
 import type { Polygon2 } from '@shared/geometry';
 import type { Boundary } from '@shared/schemas/layout';
 import { BOUNDARY_STYLES } from '@shared/style/boundaryStyles';
+import { PLAN_NORTH } from '@shared/words';
 import type { ArmSummary } from './armSummary';
 import { sheetText } from './fonts';
 import { drawingArea, planToPaper, type Box, type Extent, type PageFrame } from './paper';
@@ -239,7 +240,7 @@ export function drawScaleBar(doc: jsPDF, x: number, y: number, n: number, sizeNa
   label(doc, `at ${sizeName} · plan mm`, x + 5 * segPaper + 8, y + 5.6, 5.5, GREY);
 }
 
-/** Reference arrow: plan +y (north) pointing up on paper. */
+/** Reference arrow: plan north (the drawing's +y) pointing up on paper; floor plans carry no true north. */
 function drawNorthArrow(doc: jsPDF, cx: number, cy: number): void {
   const r = 5.5;
   doc.setDrawColor(INK[0], INK[1], INK[2]);
@@ -249,8 +250,8 @@ function drawNorthArrow(doc: jsPDF, cx: number, cy: number): void {
   doc.triangle(cx, cy - r + 0.6, cx - 2, cy + 2.6, cx, cy + 1.2, 'F');
   doc.setFillColor(255, 255, 255);
   doc.triangle(cx, cy - r + 0.6, cx + 2, cy + 2.6, cx, cy + 1.2, 'FD');
-  label(doc, 'N', cx, cy - r - 1.2, 7, INK, true, 'center');
-  label(doc, 'plan +y', cx, cy + r + 3, 4.5, GREY, false, 'center');
+  label(doc, PLAN_NORTH.mark, cx, cy - r - 1.2, 7, INK, true, 'center');
+  label(doc, PLAN_NORTH.label, cx, cy + r + 3, 4.5, GREY, false, 'center');
 }
 
 /** Legend in the side column's top part; returns the height used, mm. */

@@ -5,14 +5,10 @@ import { withOpacity } from './pdfPaths';
 import type { Column } from './table';
 import type { PlanSheetInput, SheetKind, SheetSize } from './types';
 import { revisionStateLabel } from '@shared/words';
+import { CAUTIONS } from '@shared/safety';
 
-/** The cautions every page carries (docs/product.md "Cautions", in the product's wording). */
-export const CAUTIONS: readonly string[] = [
-  'Reach regions, distances and margins on this sheet are planning estimates from nominal kinematics and catalogue axis limits.',
-  "Restricted spaces cover the links, tool and payload as sized in the arm model (link radii are estimates); cables, dress pack and the base are not included.",
-  "This sheet does not replace the risk assessment (ISO 12100), the robot-system safety requirements of ISO 10218-2 or the arm maker's stopping data.",
-  'Safeguarding must be designed and validated by a competent person under the local codes and regulations.',
-];
+/** The cautions every page carries (one wording for every output: shared/safety/cautions.ts). */
+export { CAUTIONS };
 export const DRAFT_MARK = 'DRAFT — not for construction';
 
 const INK = [28, 34, 48] as const;

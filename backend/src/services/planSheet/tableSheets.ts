@@ -1,4 +1,4 @@
-import { concernsText, findingConcerns, isReached } from '@shared/analysis';
+import { checkedFloorOf, concernsText, findingConcerns, isReached, noFindingsSentence } from '@shared/analysis';
 import type { Severity } from '@shared/analysis';
 import type { ArmSummary } from './armSummary';
 import type { SheetPages } from './sheetPages';
@@ -174,7 +174,7 @@ export function drawBoundariesSheet(pages: SheetPages, input: PlanSheetInput): v
 export function drawFindings(pages: SheetPages, input: PlanSheetInput): void {
   pages.newPage('Findings', 'findings');
   const findings = [...input.analysis.findings].sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity] || a.id.localeCompare(b.id));
-  if (!findings.length) return note(pages, 'The checks found nothing to report on this layout.');
+  if (!findings.length) return note(pages, noFindingsSentence(input.layout.content, checkedFloorOf(input.floorPlan?.layers)));
   const cols: Column[] = [
     { title: 'Severity', width: 18, align: 'center' },
     { title: 'Finding', width: 150, wrap: true },

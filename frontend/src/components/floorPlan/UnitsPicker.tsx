@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { UNIT_NAMES, type UnitName } from '@shared/schemas/floorPlan';
+import { pickerUnits, UNIT_NAMES, type UnitName } from '@shared/schemas/floorPlan';
 
 const SOURCE_TEXT = {
   header: 'Read from the file header ($INSUNITS).',
@@ -34,7 +34,7 @@ export function UnitsPicker({
           onChange={(e) => onChange(e.target.value as UnitName)}
           className="h-9 w-64 rounded-control border border-rule-strong bg-paper-raised px-3 text-sm"
         >
-          {UNIT_NAMES.map((u) => (
+          {pickerUnits(units).map((u) => (
             <option key={u.name} value={u.name}>
               {u.label}
             </option>

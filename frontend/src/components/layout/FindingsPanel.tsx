@@ -1,4 +1,5 @@
-import { concernsText, findingConcerns, type ConcernContent, type Finding, type Severity } from '@shared/analysis';
+import { concernsText, findingConcerns, noFindingsSentence, type CheckedFloor, type ConcernContent, type Finding, type Severity } from '@shared/analysis';
+import { CAUTION_TEXT } from '@shared/safety';
 import { cn } from '../../lib/cn';
 
 const SEVERITY_TEXT: Record<Severity, string> = { critical: 'Critical', warning: 'Warning', info: 'Note' };
@@ -13,12 +14,8 @@ const SEVERITY_WASH: Record<Severity, string> = {
   info: 'bg-finding-info-wash',
 };
 
-/** The caution every findings list carries (docs/product.md "Cautions"). */
-export const PLANNING_CAUTION =
-  'Planning estimates only: reach regions, shared zones and distances here come from nominal kinematics and the values entered. ' +
-  'Restricted spaces cover the links, tool and payload at the link sizes entered, not cables, dress pack or the base. ' +
-  'They are no substitute for the risk assessment (ISO 12100), the robot-system safety requirements of ISO 10218-2 or the arm maker’s stopping data. ' +
-  'Safeguarding must be designed and validated by a competent person under the local codes and regulations.';
+/** The caution every findings list carries (one wording for every output: shared/safety/cautions.ts). */
+export const PLANNING_CAUTION = CAUTION_TEXT;
 
 /** The sentence of a finding and, under it, the elements it concerns by their names (never the finding's id). */
 export function FindingText({ finding, content }: { finding: Finding; content: ConcernContent }) {
@@ -51,6 +48,8 @@ export interface FindingsPanelProps {
   findings: readonly Finding[] | null;
   /** The layout the findings are about: names the arms, boundaries and work points each concerns. */
   content: ConcernContent;
+  /** The floor plan's layer roles as the check list reads them; null without a floor plan. */
+  floor: CheckedFloor | null;
   selectedId: string | null;
   onPick(f: Finding): void;
   /** True while the shown findings belong to an older input than the one on screen. */
@@ -60,7 +59,7 @@ export interface FindingsPanelProps {
 }
 
 /** The live findings: severity, message, what each concerns; a click selects the arms involved and shows the spot. */
-export function FindingsPanel({ findings, content, selectedId, onPick, busy, error, timingMs }: FindingsPanelProps) {
+export function FindingsPanel({ findings, content, floor, selectedId, onPick, busy, error, timingMs }: FindingsPanelProps) {
   const counts = { critical: 0, warning: 0, info: 0 } as Record<Severity, number>;
   for (const f of findings ?? []) counts[f.severity]++;
   return (
@@ -85,7 +84,11 @@ export function FindingsPanel({ findings, content, selectedId, onPick, busy, err
       )}
       <ul aria-label="Findings" className="min-h-0 flex-1 overflow-y-auto">
         {findings === null && !error && <li className="px-3 py-3 text-sm text-ink-muted">Working out reach and findings…</li>}
-        {findings?.length === 0 && <li className="px-3 py-3 text-sm text-ink-muted">No findings for this cell layout.</li>}
+        {findings?.length === 0 && (
+          <li className="px-3 py-3 text-sm text-ink-muted" data-no-findings>
+            {noFindingsSentence(content, floor)}
+          </li>
+        )}
         {findings?.map((f) => (
           <li key={f.id} className="border-b border-rule last:border-b-0">
             <button

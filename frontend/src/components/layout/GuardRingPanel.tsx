@@ -121,7 +121,7 @@ export function GuardRingPanel({ layoutId, layoutName, content, proposal, onProp
           <p className="text-ink-muted">
             {proposal.rings.length} guard ring{proposal.rings.length === 1 ? '' : 's'}, {proposal.parts.doors.length} door{proposal.parts.doors.length === 1 ? '' : 's'} — shown dashed on the plan.
           </p>
-          <BomTable bom={proposal.bom} lengthMm={proposal.lengthMm} areaM2={proposal.areaEnclosedM2} fileName={`${layoutName.replace(/[^\w.-]+/g, '-')}-guard-ring-parts.csv`} label="Proposed fence parts" />
+          <BomTable bom={proposal.bom} lengthMm={proposal.lengthMm} areaM2={proposal.areaEnclosedM2} fileName={`${layoutName.replace(/[^\w.-]+/g, '-')}-guard-ring-parts.csv`} label="Proposed fence parts" layoutName={layoutName} />
           <ul className="flex list-disc flex-col gap-1 pl-4 text-ink-muted">
             {proposal.notes.map((n) => (
               <li key={n}>{n}</li>

@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
-import { applyFenceProposal } from '@shared/analysis';
+import { applyFenceProposal, checkedFloorOf } from '@shared/analysis';
 import type { Finding } from '@shared/analysis';
 import { padBounds, pointsBounds } from '@shared/geometry';
 import type { LayoutContent, LayoutDto } from '@shared/schemas/layout';
@@ -34,6 +34,7 @@ import { createLayoutScene, type EditorTool, type LayoutScene, type ShapeTool } 
 import type { LayoutSelection } from './panelTypes';
 import { WorkHeightsEditor } from './WorkHeightsEditor';
 import { BoundaryInspector } from './BoundaryInspector';
+import { PlanKey } from './PlanKey';
 
 export interface LayoutEditorProps {
   layout: LayoutDto;
@@ -91,6 +92,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
     () => (floorPlan ? { geometry: floorPlan.geometry, layers: floorPlan.layers.map((l) => ({ name: l.name, role: l.role, height: l.height })) } : null),
     [floorPlan],
   );
+  const checkedFloor = useMemo(() => checkedFloorOf(floorPlan?.layers), [floorPlan]);
   const live = useAnalysisWorker({ models, floor, content, sectionLine });
   const placing = usePlacementWorker();
   const [placeOpen, setPlaceOpen] = useState(false);
@@ -351,6 +353,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
             onCanvas={setCanvas}
             label={`Layout ${layout.name}`}
             className="min-h-0 flex-1"
+            overlay={<PlanKey withFloor={floorPlan !== null} className="absolute top-11 left-2 max-w-72" />}
           />
           <p className="min-h-5 text-xs text-ink-muted" aria-live="polite" data-hint>
             {hint ?? (readOnly ? '' : tool === 'select' ? 'Click an arm to select it; drag to move it, drag its round handle to turn it.' : '')}
@@ -416,12 +419,13 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
             </div>
           )}
           <div className="flex min-h-0 flex-1 flex-col">
-            <FindingsPanel findings={findings} content={content} selectedId={selectedFinding?.id ?? null} onPick={pickFinding} busy={live.busy} error={live.error} timingMs={live.view?.analysis.timingMs ?? null} />
+            <FindingsPanel findings={findings} content={content} floor={checkedFloor} selectedId={selectedFinding?.id ?? null} onPick={pickFinding} busy={live.busy} error={live.error} timingMs={live.view?.analysis.timingMs ?? null} />
           </div>
         </aside>
       </div>
       <SectionView section={sectionLine ? (live.view?.section ?? null) : null} hasLine={sectionLine !== null} arms={content.arms} busy={live.busy} onClear={() => setSectionLine(null)} />
       <LayoutPanels
+        layoutName={layout.name}
         content={content}
         analysis={live.view?.analysis ?? null}
         armModels={modelList}

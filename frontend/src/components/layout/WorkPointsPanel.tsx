@@ -9,7 +9,8 @@ import { WorkPointCell } from './WorkPointCell';
 import { WorkPointsImportDialog } from './WorkPointsImportDialog';
 import { editWorkPoint, filterWorkPointRows, newWorkPoint, removeWorkPoints, workPointRows, type EditableField, type WorkPointRow } from './workPointRows';
 import { workPointsToCsv } from './workPointsCsv';
-import { APPROACH_LABEL } from '@shared/words';
+import { APPROACH_LABEL, layoutStateWords } from '@shared/words';
+import { exportNotes } from '@shared/safety';
 
 const ROW_HEIGHT = 34;
 const VIEW_HEIGHT = 420;
@@ -31,7 +32,7 @@ const fmtMm = (v: number) => (Number.isInteger(v) ? String(v) : v.toFixed(1));
  * (checked with the WorkPoint schema), add and delete points, import and export CSV. Rows are
  * windowed (only the rows in view are in the DOM), so 10⁴ points scroll smoothly.
  */
-export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect, selected }: LayoutPanelProps) {
+export function WorkPointsPanel({ layoutName, content, analysis, readOnly, onEdit, onSelect, selected }: LayoutPanelProps) {
   const points = content.workPoints;
   const armIds = useMemo(() => content.arms.map((a) => a.id), [content.arms]);
   const armOptions = useMemo(
@@ -148,7 +149,7 @@ export function WorkPointsPanel({ content, analysis, readOnly, onEdit, onSelect,
   };
   const exportCsv = () => {
     // A BOM makes spreadsheets read the file as UTF-8 (common practice); the import strips it.
-    const blob = new Blob(['\uFEFF', workPointsToCsv(points, armIds, analysis?.coverage ?? null)], { type: 'text/csv;charset=utf-8' });
+    const blob = new Blob(['\uFEFF', workPointsToCsv(points, armIds, analysis?.coverage ?? null, exportNotes({ what: 'work points', layoutName, state: layoutStateWords(null), at: new Date() }))], { type: 'text/csv;charset=utf-8' });
     const url = URL.createObjectURL(blob);
     const a = document.createElement('a');
     a.href = url;

@@ -9,6 +9,8 @@ export interface LayoutSelection {
 
 /** Props every layout panel (work points, coverage, shared zones) receives from the editor page. */
 export interface LayoutPanelProps {
+  /** The cell layout's name (export files say what they are of). */
+  layoutName: string;
   content: LayoutContent;
   analysis: AnalysisResult | null;
   armModels: Array<{ id: number; name: string }>;

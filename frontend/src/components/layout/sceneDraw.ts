@@ -137,7 +137,8 @@ export function drawReach(layer: G, data: readonly ArmRegionsDatum[]): void {
     .select('path.reach-band')
     .attr('d', (d) => geometryPath(d.band))
     .style('stroke', band.screen.colour)
-    .style('stroke-width', (d) => (d.emphasis ? band.screen.widthEmphasis : band.screen.width));
+    .style('stroke-width', (d) => (d.emphasis ? band.screen.widthEmphasis : band.screen.width))
+    .style('stroke-dasharray', band.screen.dash);
 }
 
 /** Shared zones: hatched (the pattern) with an outline, plan space. */

@@ -9,8 +9,20 @@ export type WorkPointColumn = (typeof WORK_POINT_COLUMNS)[number];
 const REQUIRED: ReadonlyArray<WorkPointColumn> = ['id', 'x', 'y', 'z'];
 const NUMERIC = new Set<WorkPointColumn>(['x', 'y', 'z']);
 const DELIMITERS = [',', ';', '\t'] as const;
-/** Export prefixes margin columns with this, one per arm ("margin R1"). */
+/** Export prefixes margin columns with this, one per arm ("margin R1 (mm)"). */
 export const MARGIN_COLUMN_PREFIX = 'margin ';
+/** The header cells export writes: each column with its unit or its values (import reads both forms). */
+export const WORK_POINT_HEADERS: Record<WorkPointColumn, string> = {
+  id: 'id',
+  x: 'x (mm)',
+  y: 'y (mm)',
+  z: 'z (mm above floor)',
+  approach: 'approach (top/any)',
+  tag: 'tag',
+  assignedArm: 'assignedArm',
+};
+/** Lines starting with this before the header row are notes (what, when, cautions), not data. */
+export const NOTE_PREFIX = '#';
 
 /** One problem with one row; `row` counts records as a spreadsheet does (the header is row 1). */
 export interface CsvRowError {
@@ -45,15 +57,22 @@ const DECIMAL_COMMA_RE = /^[+-]?\d+,\d+$/;
 // Export escapes text a spreadsheet would run as a formula with a leading apostrophe; undo that.
 const ESCAPED_FORMULA_RE = /^'(?=[=+\-@\t\r])/;
 
-/** Lower-cases a header cell and drops spaces, `_` and `-`, so "Assigned arm" matches assignedArm. */
+/**
+ * Lower-cases a header cell, drops a unit in brackets at its end and spaces, `_` and `-`, so
+ * "Assigned arm" matches assignedArm and "x (mm)" matches x.
+ */
 function headerKey(cell: string): string {
-  return cell.trim().toLowerCase().replace(/[\s_-]+/g, '');
+  return cell.trim().replace(/\s*\([^()]*\)\s*$/, '').toLowerCase().replace(/[\s_-]+/g, '');
+}
+
+function isNoteLine(line: string): boolean {
+  return line.trim().replace(/^"/, '').startsWith(NOTE_PREFIX);
 }
 const COLUMN_BY_KEY = new Map<string, WorkPointColumn>(WORK_POINT_COLUMNS.map((c) => [headerKey(c), c]));
 
 /** The delimiter of the header line: whichever of `,` `;` tab occurs most outside quotes (`,` on a tie). */
 export function detectDelimiter(text: string): string {
-  const firstLine = text.split(/\r\n|\n|\r/).find((l) => l.trim() !== '') ?? '';
+  const firstLine = text.split(/\r\n|\n|\r/).find((l) => l.trim() !== '' && !isNoteLine(l)) ?? '';
   const unquoted = firstLine.replace(/"[^"]*"/g, '');
   let best: string = ',';
   let bestCount = 0;
@@ -109,7 +128,8 @@ export function parseWorkPointsCsv(text: string, options: WorkPointsCsvOptions =
     if (e.type === 'Quotes' && typeof e.row === 'number') badRecords.set(e.row, e.message.replace(/\.$/, '').toLowerCase());
   }
 
-  const headerIndex = records.findIndex((r) => !isBlank(r));
+  // Note lines (what, when, cautions) may come before the header row; they are not data.
+  const headerIndex = records.findIndex((r) => !isBlank(r) && !(r[0] ?? '').trim().startsWith(NOTE_PREFIX));
   if (headerIndex < 0) {
     result.errors.push({ row: 1, message: 'the file is empty: the first row must name the columns (id, x, y, z …)' });
     return result;
@@ -252,16 +272,18 @@ export function mergeWorkPoints(existing: ReadonlyArray<WorkPoint>, incoming: Re
 }
 
 /**
- * Work points as CSV text: the import columns, then one `margin <arm id>` column per arm (mm,
- * positive = reached; blank when not analysed). Text that a spreadsheet would run as a formula is
- * prefixed with an apostrophe; import strips it again.
+ * Work points as CSV text: `notes` as `# ` lines (one quoted cell each), then the import columns
+ * with their units, then one `margin <arm id> (mm)` column per arm (positive = reached; blank when
+ * not analysed). Text that a spreadsheet would run as a formula is prefixed with an apostrophe;
+ * import strips it again and skips the note lines.
  */
 export function workPointsToCsv(
   points: ReadonlyArray<WorkPoint>,
   armIds: ReadonlyArray<string>,
   coverage: AnalysisResult['coverage'] | null,
+  notes: ReadonlyArray<string> = [],
 ): string {
-  const fields = [...WORK_POINT_COLUMNS, ...armIds.map((a) => `${MARGIN_COLUMN_PREFIX}${a}`)];
+  const fields = [...WORK_POINT_COLUMNS.map((c) => WORK_POINT_HEADERS[c]), ...armIds.map((a) => `${MARGIN_COLUMN_PREFIX}${a} (mm)`)];
   const data = points.map((p) => {
     const row = coverage?.[p.id];
     return [
@@ -275,5 +297,10 @@ export function workPointsToCsv(
       ...armIds.map((a) => (row && typeof row[a] === 'number' ? row[a] : '')),
     ];
   });
-  return Papa.unparse({ fields, data }, { escapeFormulae: true, newline: '\r\n' });
+  return csvNoteLines(notes) + Papa.unparse({ fields, data }, { escapeFormulae: true, newline: '\r\n' });
+}
+
+/** Notes as CSV comment lines: `# ` and the text, one quoted cell per line (quotes doubled, RFC 4180). */
+export function csvNoteLines(notes: ReadonlyArray<string>): string {
+  return notes.map((n) => `"${NOTE_PREFIX} ${n.replace(/"/g, '""')}"\r\n`).join('');
 }

@@ -1,5 +1,5 @@
 import { useId, useState, type FormEvent } from 'react';
-import type { ConcernContent, Finding } from '@shared/analysis';
+import { noFindingsSentence, type CheckedFloor, type ConcernContent, type Finding } from '@shared/analysis';
 import type { ReviewCommentDto } from '../../api/revisions';
 import { formatDateTime } from '../../lib/format';
 import { cn } from '../../lib/cn';
@@ -10,6 +10,8 @@ export interface FindingCommentsProps {
   findings: readonly Finding[];
   /** The revision's layout: names what each finding concerns. */
   content: ConcernContent;
+  /** The frozen floor plan's layer roles as the check list reads them; null without a floor plan. */
+  floor: CheckedFloor | null;
   comments: readonly ReviewCommentDto[];
   /** Comments of earlier revisions, matched to findings by their stable id. */
   history: readonly ReviewCommentDto[];
@@ -76,14 +78,18 @@ function CommentBox({ findingId, about, onComment }: { findingId: string; about:
 }
 
 /** The revision's findings, each with its comments, a comment box, and what was said about it in earlier revisions. */
-export function FindingComments({ findings, content, comments, history, selectedId, onSelect, onComment, onResolve }: FindingCommentsProps) {
+export function FindingComments({ findings, content, floor, comments, history, selectedId, onSelect, onComment, onResolve }: FindingCommentsProps) {
   return (
     <section aria-labelledby="review-findings" className="flex flex-col gap-2">
       <h2 id="review-findings" className="text-sm font-bold">
         Findings ({findings.length})
       </h2>
       <p className="text-xs text-ink-muted">{PLANNING_CAUTION}</p>
-      {findings.length === 0 && <p className="text-sm text-ink-muted">This revision has no findings.</p>}
+      {findings.length === 0 && (
+        <p className="text-sm text-ink-muted" data-no-findings>
+          {noFindingsSentence(content, floor)}
+        </p>
+      )}
       <ul className="flex flex-col gap-2">
         {findings.map((f) => {
           const mine = comments.filter((c) => c.findingId === f.id);
