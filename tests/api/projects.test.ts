@@ -48,6 +48,7 @@ describe('projects', () => {
     const list = await agent.get('/api/projects');
     expect(list.status).toBe(200);
     expect(list.body.projects.map((p: { id: number }) => p.id)).toEqual([mine.id]);
+    expect(list.body.projects[0].memberCount).toBe(1);
     expect((await agent.get(`/api/projects/${mine.id}`)).status).toBe(200);
     const hidden = await agent.get(`/api/projects/${other.id}`);
     expect(hidden.status).toBe(404);
@@ -78,6 +79,9 @@ describe('projects', () => {
     expect((await agent.post(`/api/projects/${p.id}/members`).send({ userId: 999999 })).status).toBe(400);
     const detail = await agent.get(`/api/projects/${p.id}`);
     expect(detail.body.project.memberCount).toBe(1);
+    const listed = (await agent.get('/api/projects')).body.projects as Array<{ id: number; memberCount: number }>;
+    expect(listed.find((x) => x.id === p.id)?.memberCount).toBe(1);
+    expect(listed.every((x) => Number.isInteger(x.memberCount))).toBe(true);
     expect((await agent.delete(`/api/projects/${p.id}/members/${client.id}`)).status).toBe(204);
     expect(await ProjectMember.count({ where: { projectId: p.id } })).toBe(0);
     expect((await agent.delete(`/api/projects/${p.id}/members/${client.id}`)).status).toBe(404);

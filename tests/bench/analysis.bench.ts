@@ -4,7 +4,7 @@
 // same unreached points. Target: ≥ 10× faster and ≤ 100 ms. Then incremental re-analysis after one
 // arm moves with 100 arms × 50 000 points — target ≤ 16 ms. Between them, the same 40-arm layout with
 // fences and safeguarded openings (the safeguarding checks' cost; compare with a run before them).
-// Prints figures and ratios.
+// Reports figures and ratios (report.ts); the same shared zones as the baseline is a check.
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -16,6 +16,7 @@ import { armPose } from '@shared/geometry/frames';
 import { polygonsToGeoJSON } from '@shared/geometry/geojson';
 import { polygonsArea } from '@shared/geometry/area';
 import type { ArmPlacement, WorkPoint, Boundary } from '@shared/schemas/layout';
+import { check, report } from './report';
 
 const FULL_TARGET_MS = 100;
 const SPEEDUP_TARGET = 10;
@@ -139,11 +140,11 @@ const b = new Set(base.unreached);
 const onlyOurs = [...a].filter((x) => !b.has(x));
 const onlyBase = [...b].filter((x) => !a.has(x));
 const full = median(fullTimes);
-console.log(`full analysis, 40 arms × 10 000 points × 3 heights, 2 000 floor entities`);
-console.log(`  ours     ${full.toFixed(1)} ms (median of 5; target ≤ ${FULL_TARGET_MS} ms) ${full <= FULL_TARGET_MS ? 'OK' : 'MISSED'}`);
+const what = 'full analysis, 40 arms × 10 000 points × 3 heights, 2 000 floor entities';
+report({ what: `${what} (median of 5)`, figure: full, unit: 'ms', target: FULL_TARGET_MS, better: 'lower', digits: 1 });
 console.log(`  baseline ${naiveMs.toFixed(1)} ms (turf.intersect per pair, booleanPointInPolygon per point × arm)`);
-console.log(`  speed-up ${(naiveMs / full).toFixed(1)}× (target ≥ ${SPEEDUP_TARGET}×) ${naiveMs / full >= SPEEDUP_TARGET ? 'OK' : 'MISSED'}`);
-console.log(`  same shared zones: ${sameShared ? 'yes' : 'NO'} (${ours.shared.length}); unreached points ${a.size} vs ${b.size}` +
+report({ what: `${what}, speed-up over the baseline`, figure: naiveMs / full, unit: '×', target: SPEEDUP_TARGET, better: 'higher', digits: 1 });
+check('full analysis finds the same shared zones as the baseline', sameShared, `${ours.shared.length} vs ${base.shared.length}; unreached points ${a.size} vs ${b.size}` +
   (onlyOurs.length + onlyBase.length ? `, differing ${onlyOurs.length + onlyBase.length} (within the 1 mm chord tolerance of a band edge)` : ', identical'));
 
 // ---- full analysis with fences and safeguarded openings (ISO 13855/13857/13854 checks)
@@ -190,6 +191,7 @@ for (let i = 0; i < 15; i++) {
   big.arms = arms;
 }
 const inc = median(incTimes);
-console.log(`incremental re-analysis after one arm moves, 100 arms × 50 000 points`);
-console.log(`  ${inc.toFixed(1)} ms (median of 15; target ≤ ${INCREMENTAL_TARGET_MS} ms) ${inc <= INCREMENTAL_TARGET_MS ? 'OK' : 'MISSED'}; last recomputed ${JSON.stringify(analyzer.lastStats())}`);
-if (!sameShared) process.exitCode = 1;
+report({
+  what: 'incremental re-analysis after one arm moves, 100 arms × 50 000 points (median of 15)', figure: inc, unit: 'ms', target: INCREMENTAL_TARGET_MS, better: 'lower', digits: 1,
+  note: `last recomputed ${JSON.stringify(analyzer.lastStats())}`,
+});

@@ -12,6 +12,7 @@ import { fileURLToPath } from 'node:url';
 import DxfParser from 'dxf-parser';
 import { importDxf } from '../../backend/src/services/dxf/importDxf';
 import { DxfWriter } from '../../samples/make-samples';
+import { report } from './report';
 
 const TIME_TARGET = 1.5;
 const MEMORY_TARGET = 8;
@@ -149,8 +150,7 @@ function main(): void {
     const cpuRatio = median(runs.map((r) => r.imp.cpu / r.parse.cpu));
     console.log(`dxf-parser parseSync   ${parseMs.toFixed(0)} ms wall, ${median(runs.map((r) => r.parse.cpu)).toFixed(0)} ms CPU (median of ${rounds})`);
     console.log(`importDxf              ${importMs.toFixed(0)} ms wall, ${median(runs.map((r) => r.imp.cpu)).toFixed(0)} ms CPU`);
-    console.log(`time ratio             ${ratio.toFixed(2)}× wall, ${cpuRatio.toFixed(2)}× CPU (median of pairs; target ≤ ${TIME_TARGET}×) ${ratio <= TIME_TARGET ? 'met' : 'MISSED'}`);
-    console.log(`  machine load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')} on ${os.cpus().length} cores`);
+    report({ what: 'importDxf time over the bare dxf-parser parse (wall, median of pairs)', figure: ratio, unit: '×', target: TIME_TARGET, better: 'lower', digits: 2, note: `${cpuRatio.toFixed(2)}× CPU` });
 
     // peak memory, each in a fresh process; the baseline process only reads the file
     const base = measure('baseline', file);
@@ -162,7 +162,7 @@ function main(): void {
     console.log(`peak RSS, dxf-parser          ${mb(parser.peak)}  (+${mb(parserDelta)}, ${(parserDelta / size).toFixed(1)}× file)`);
     console.log(`peak RSS, importDxf           ${mb(imp.peak)}  (+${mb(importDelta)}, ${(importDelta / size).toFixed(1)}× file)`);
     const memRatio = importDelta / size;
-    console.log(`memory ratio           ${memRatio.toFixed(1)}×  (target ≤ ${MEMORY_TARGET}×) ${memRatio <= MEMORY_TARGET ? 'met' : 'MISSED'}`);
+    report({ what: 'importDxf peak memory over the file size', figure: memRatio, unit: '×', target: MEMORY_TARGET, better: 'lower', digits: 1 });
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -6,6 +6,7 @@ import { armReachFor } from '@shared/analysis/armReach';
 import { proposeFence } from '@shared/analysis/fenceProposal';
 import { DEFAULT_FENCE_SYSTEM } from '@shared/schemas/fenceProposal';
 import { demoSheetInput, gridSheetInput } from '../support/planSheetInput';
+import { report } from './report';
 
 const TIME_TARGET_MS = 1000;
 const RUNS = 7;
@@ -25,13 +26,11 @@ function measure(name: string, input: ReturnType<typeof gridSheetInput>) {
   }
   times.sort((a, b) => a - b);
   const median = times[Math.floor(times.length / 2)];
-  console.log(
-    `${name}: ${input.layout.content.arms.length} arms → ${last.rings.length} ring(s), ${(last.lengthMm / 1000).toFixed(1)} m, ${last.parts.panels.length} panels — ` +
-      `median ${median.toFixed(1)} ms (target ${TIME_TARGET_MS} ms, ratio ${(median / TIME_TARGET_MS).toFixed(3)})`,
-  );
-  return median;
+  report({
+    what: `guard-ring proposal, ${name} (median of ${RUNS})`, figure: median, unit: 'ms', target: TIME_TARGET_MS, better: 'lower', digits: 1,
+    note: `${input.layout.content.arms.length} arms → ${last.rings.length} ring(s), ${(last.lengthMm / 1000).toFixed(1)} m, ${last.parts.panels.length} panels`,
+  });
 }
 
 measure('Fernhill demo', demoSheetInput());
-const m = measure('40-arm grid', gridSheetInput(40));
-if (m > TIME_TARGET_MS) console.log('40-arm grid: over target');
+measure('40-arm grid', gridSheetInput(40));

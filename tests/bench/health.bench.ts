@@ -1,6 +1,6 @@
 // Health under heavy load: a throwaway PostgreSQL and server of our own, four large layout
 // analyses posted at once, and /api/health measured (autocannon) while they run.
-// Target: /api/health p99 ≤ 100 ms while heavy work runs (printed with ratios, idle figures beside).
+// Target: /api/health p99 ≤ 100 ms while heavy work runs (reported with ratios, report.ts; idle figures beside).
 // Run: npm run bench health
 import autocannon from 'autocannon';
 import { ensureDatabase } from '../../backend/scripts/pg';
@@ -10,6 +10,7 @@ import { ArmModel, Layout } from '../../backend/src/models';
 import { startServer } from '../../backend/src/server';
 import { heavyLayoutContent } from '../support/heavyLayout';
 import { startTestPg, TEMPLATE_DB } from '../support/pgForTests';
+import { report } from './report';
 
 const TARGET_MS = 100;
 const HEAVY = 4;
@@ -63,9 +64,10 @@ try {
   const p50s = under.map((r) => r.latency.p50).sort((a, b) => a - b);
   console.log(`${HEAVY} heavy analyses (${content.arms.length} arms × ${content.workPoints.length} points × ${content.workHeights.length} heights): answered in ${heavyS.toFixed(1)} s, statuses ${statuses.sort().join(', ')}`);
   if (worst) {
-    console.log(line(`under load (${under.length} rounds of 2 s; worst round)`, worst));
-    console.log(`under load: median of round p50s ${p50s[Math.floor(p50s.length / 2)]} ms`);
-    if (worst.latency.p99 > TARGET_MS) console.log('health under load: over target');
+    report({
+      what: `/api/health p99 under heavy load (worst of ${under.length} rounds of 2 s)`, figure: worst.latency.p99, unit: 'ms', target: TARGET_MS, better: 'lower', digits: 0,
+      note: `that round: ${worst.requests.total} requests, p50 ${worst.latency.p50} ms, errors ${worst.errors + worst.non2xx}; median of round p50s ${p50s[Math.floor(p50s.length / 2)]} ms`,
+    });
   } else {
     console.log('the heavy analyses finished before a health round completed; raise the layout size');
   }

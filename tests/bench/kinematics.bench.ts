@@ -1,5 +1,5 @@
 // Kinematics core benchmark: reach profile and whole-arm envelope time per family (target ≤ 50 ms each) and point-reach
-// throughput (target ≥ 5 million checks per second on one core). Prints figures and ratios.
+// throughput (target ≥ 5 million checks per second on one core). Reports figures and ratios (report.ts).
 // "region built" is the first marginFnOf call: the (cached) reach profile, for a chain the outline
 // simplified outward by half a raster cell, and the distance grid over it.
 import { readFileSync, readdirSync } from 'node:fs';
@@ -10,6 +10,7 @@ import { familyOf, reachProfileOf } from '@shared/kinematics/families';
 import { makePointReach, marginFnOf } from '@shared/kinematics/pointReach';
 import { scaraPlanRegion } from '@shared/kinematics/scara';
 import { ArmModelInput, type ArmParams, type ScaraParams } from '@shared/schemas/armModel';
+import { report } from './report';
 
 const PROFILE_TARGET_MS = 50;
 const REACH_TARGET_PER_S = 5e6;
@@ -38,9 +39,10 @@ for (const m of models) {
   }
   const ms = median(times);
   const verts = profile.polygons.reduce((n, p) => n + p.reduce((k, r) => k + r.length, 0), 0);
-  console.log(
-    `  ${m.params.family.padEnd(12)} ${m.name.padEnd(24)} ${ms.toFixed(2).padStart(7)} ms  (${profile.method}, ${verts} vertices, ±${profile.toleranceMm.toFixed(2)} mm)  target ≤ ${PROFILE_TARGET_MS} ms  ratio ${(PROFILE_TARGET_MS / ms).toFixed(1)}× ${ms <= PROFILE_TARGET_MS ? 'OK' : 'SLOW'}`,
-  );
+  report({
+    what: `reach profile, ${m.params.family}, ${m.name}`, figure: ms, unit: 'ms', target: PROFILE_TARGET_MS, better: 'lower', digits: 2,
+    note: `${profile.method}, ${verts} vertices, ±${profile.toleranceMm.toFixed(2)} mm`,
+  });
 }
 
 // A scara's side profile is a rectangle; its real work is the plan region over J1 × J2.
@@ -54,7 +56,7 @@ for (const m of models.filter((x) => x.params.family === 'scara')) {
     times.push(performance.now() - t);
   }
   const ms = median(times);
-  console.log(`  ${'scara plan'.padEnd(12)} ${m.name.padEnd(24)} ${ms.toFixed(2).padStart(7)} ms  (exact, 2R plan region)  target ≤ ${PROFILE_TARGET_MS} ms  ratio ${(PROFILE_TARGET_MS / ms).toFixed(1)}× ${ms <= PROFILE_TARGET_MS ? 'OK' : 'SLOW'}`);
+  report({ what: `scara plan region, ${m.name}`, figure: ms, unit: 'ms', target: PROFILE_TARGET_MS, better: 'lower', digits: 2, note: 'exact, 2R plan region' });
 }
 
 // The whole-arm envelope (links, tool, payload as capsules): built afresh each run from the cached
@@ -72,9 +74,10 @@ for (const m of models) {
   }
   const ms = median(times);
   const verts = env.polygons.reduce((n, p) => n + p.reduce((k, r) => k + r.length, 0), 0);
-  console.log(
-    `  ${m.params.family.padEnd(12)} ${m.name.padEnd(24)} ${ms.toFixed(2).padStart(7)} ms  (${env.method}, ${verts} vertices, ±${env.toleranceMm.toFixed(2)} mm)  target ≤ ${PROFILE_TARGET_MS} ms  ratio ${(PROFILE_TARGET_MS / ms).toFixed(1)}× ${ms <= PROFILE_TARGET_MS ? 'OK' : 'SLOW'}`,
-  );
+  report({
+    what: `whole-arm envelope, ${m.params.family}, ${m.name}`, figure: ms, unit: 'ms', target: PROFILE_TARGET_MS, better: 'lower', digits: 2,
+    note: `${env.method}, ${verts} vertices, ±${env.toleranceMm.toFixed(2)} mm`,
+  });
 }
 
 console.log('\npoint reach (arm-frame points in a box of ±1.2 × max reach, z over the profile heights ± 300 mm)');
@@ -102,9 +105,10 @@ for (const m of models) {
   }
   const s = (performance.now() - t) / 1000;
   const rate = N / s;
-  console.log(
-    `  ${m.params.family.padEnd(12)} ${(rate / 1e6).toFixed(2).padStart(6)} M checks/s  (${((100 * reached) / N).toFixed(1)} % reached, region built in ${buildMs.toFixed(1)} ms)  target ≥ ${REACH_TARGET_PER_S / 1e6} M/s  ratio ${(rate / REACH_TARGET_PER_S).toFixed(2)}× ${rate >= REACH_TARGET_PER_S ? 'OK' : 'SLOW'}`,
-  );
+  report({
+    what: `point reach, ${m.params.family}, ${m.name}`, figure: rate / 1e6, unit: 'M checks/s', target: REACH_TARGET_PER_S / 1e6, better: 'higher', digits: 2,
+    note: `${((100 * reached) / N).toFixed(1)} % reached, region built in ${buildMs.toFixed(1)} ms`,
+  });
 }
 
 // The object form used by callers that want {reached, marginMm}.

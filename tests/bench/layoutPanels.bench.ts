@@ -6,6 +6,7 @@ import { performance } from 'node:perf_hooks';
 import { buildCoverageMatrix, marginColourScale, marginScaleSpan, visibleRows } from '../../frontend/src/components/layout/coverageMatrixModel';
 import { parseWorkPointsCsv, workPointsToCsv } from '../../frontend/src/components/layout/workPointsCsv';
 import { workPointRows } from '../../frontend/src/components/layout/workPointRows';
+import { report } from './report';
 
 const POINTS = 10_000;
 const ARMS = 20;
@@ -33,8 +34,7 @@ function median(f: () => unknown, runs = 15): number {
   }
   return t.sort((a, b) => a - b)[Math.floor(runs / 2)];
 }
-const line = (name: string, ms: number, target: number) =>
-  console.log(`${name.padEnd(44)} ${ms.toFixed(2).padStart(8)} ms   target ${target} ms   ratio ${(ms / target).toFixed(2)}${ms <= target ? '' : '   OVER TARGET'}`);
+const line = (name: string, ms: number, target: number) => report({ what: name, figure: ms, unit: 'ms', target, better: 'lower', digits: 2 });
 
 const matrixMs = median(() => buildCoverageMatrix(points, armIds, coverage, { by: 'worst', dir: 'asc' }));
 line(`coverage matrix ${POINTS} × ${ARMS}, worst first`, matrixMs, MATRIX_TARGET_MS);

@@ -1,7 +1,7 @@
 // Placement search and auto-layout on the demo hall (24 m × 16 m, its columns, walls, machines and
 // boundaries). Search: 20 work points around the infeed for the demo SCARA, 10 mm final grid, 5° yaw
 // steps — target ≤ 2 s, first map ≤ 300 ms. Auto-layout: 60 points in three groups, three arms of the demo catalogue —
-// target ≤ 10 s. Prints figure, target and ratio (figure / target; ≤ 1 meets it).
+// target ≤ 10 s. Reports figure, target and ratio (figure / target; ≤ 1 meets it) through report.ts.
 import { autoLayout, placementSearch, placementSteps, prepareFloor, type FloorLayer } from '@shared/analysis';
 import { armReachFor } from '@shared/analysis/armReach';
 import { placementQueryOf } from '@shared/analysis/placementRequest';
@@ -10,6 +10,7 @@ import { PlacementSearchInput } from '@shared/schemas/placement';
 import { armReach, parseArmParams } from '@shared/kinematics';
 import { readDemoLayout } from '../../backend/src/db/demoLayout';
 import { demoFloorPlan, demoModels } from '../support/planSheetInput';
+import { report as reportFigure } from './report';
 
 const SEARCH_TARGET_MS = 2000;
 const FIRST_MAP_TARGET_MS = 300;
@@ -37,7 +38,7 @@ const around = (prefix: string, n: number, cx: number, cy: number, r: number, z:
   Array.from({ length: n }, (_, i) => ({ id: `${prefix}${i + 1}`, x: cx + (rand() - 0.5) * 2 * r, y: cy + (rand() - 0.5) * 2 * r, z, approach: 'top', tag: '' }));
 
 const report = (what: string, ms: number, target: number, extra: string) =>
-  console.log(`${what}\n  ${ms.toFixed(0)} ms (target ≤ ${target} ms, ratio ${(ms / target).toFixed(2)}) ${ms <= target ? 'OK' : 'MISSED'}  ${extra}`);
+  reportFigure({ what, figure: ms, unit: 'ms', target, better: 'lower', digits: 0, note: extra || undefined });
 
 // Placement search: 20 points over the infeed belt (a 500 mm square around x 12 600, y 6 800, z 900).
 {

@@ -4,6 +4,7 @@
 import { performance } from 'node:perf_hooks';
 import type { Feature, LineString, Polygon } from 'geojson';
 import { geometryPath } from '../../frontend/src/plan/pathData';
+import { report } from './report';
 
 const FEATURES = 20_000;
 const TARGET_MS = 100;
@@ -37,5 +38,7 @@ for (let run = 0; run < 12; run += 1) {
 }
 times.sort((a, b) => a - b);
 const median = times[Math.floor(times.length / 2)];
-console.log(`path data for ${FEATURES} features: median ${median.toFixed(1)} ms, best ${times[0].toFixed(1)} ms, ${(chars / 1e6).toFixed(2)} M characters`);
-console.log(`target ${TARGET_MS} ms: ratio ${(median / TARGET_MS).toFixed(2)} (${median <= TARGET_MS ? 'within' : 'OVER'} target)`);
+report({
+  what: `plan canvas path data for ${FEATURES} features (median of 12)`, figure: median, unit: 'ms', target: TARGET_MS, better: 'lower', digits: 1,
+  note: `best ${times[0].toFixed(1)} ms, ${(chars / 1e6).toFixed(2)} M characters`,
+});

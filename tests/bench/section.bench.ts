@@ -9,6 +9,7 @@ import { armReachFor } from '../../shared/analysis/armReach';
 import { sectionOf, type SectionArm } from '../../shared/analysis/section';
 import { profileColumnAt, profileColumnIndex } from '../../shared/kinematics/profile';
 import type { Boundary } from '../../shared/schemas/layout';
+import { report } from './report';
 
 const FRAME_TARGET_MS = 16;
 
@@ -38,7 +39,7 @@ for (let i = 0; i < 40; i++) {
 }
 times.sort((a, b) => a - b);
 const median = times[times.length >> 1];
-console.log(`  section of the demo cell (${cuts} arms cut, 13 m line): median ${median.toFixed(2)} ms  target ≤ ${FRAME_TARGET_MS} ms  ratio ${(FRAME_TARGET_MS / median).toFixed(2)}× ${median <= FRAME_TARGET_MS ? 'OK' : 'SLOW'}`);
+report({ what: `section of the demo cell, 13 m line (median of 40)`, figure: median, unit: 'ms', target: FRAME_TARGET_MS, better: 'lower', digits: 2, note: `${cuts} arms cut` });
 
 // The vertical slice: bucketed index against the plain scan over every edge.
 const profile = { polygons: arms[2].envelope.profile };

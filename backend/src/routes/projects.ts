@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { fn, col, type Sequelize } from 'sequelize';
+import { literal, Op, type Sequelize } from 'sequelize';
 import { can } from '@shared/policy';
 import { MemberInput, ProjectInput, ProjectUpdateInput, type MemberDto } from '@shared/schemas/project';
 import { allow, currentUser } from '../auth/guards';
@@ -9,17 +9,6 @@ import { Project, ProjectMember, User, presentProject } from '../models';
 import { deleteReturnedRevisions, refuseDeletingRecords } from '../services/archive';
 import { audit } from '../services/audit/audit';
 import { loadVisibleProject } from '../services/projectAccess';
-
-async function memberCounts(ids: number[]): Promise<Map<number, number>> {
-  if (ids.length === 0) return new Map();
-  const rows = (await ProjectMember.findAll({
-    attributes: ['projectId', [fn('COUNT', col('userId')), 'n']],
-    where: { projectId: ids },
-    group: ['projectId'],
-    raw: true,
-  })) as unknown as Array<{ projectId: number; n: number }>;
-  return new Map(rows.map((r) => [r.projectId, Number(r.n)]));
-}
 
 async function membersOf(projectId: number): Promise<MemberDto[]> {
   const rows = await ProjectMember.findAll({ where: { projectId }, order: [['createdAt', 'ASC']] });
@@ -43,18 +32,20 @@ export function projectsRouter(sequelize: Sequelize): Router {
 
   r.get('/projects', allow('project.read'), async (req, res) => {
     const user = currentUser(req);
-    const include = [{ model: User, as: 'creator' }];
     // Archived projects only with ?archived=1 (then beside the active ones).
     const active = req.query.archived === '1' ? {} : { archivedAt: null };
-    let projects: Project[];
-    if (can(user.role, 'project.readAll')) {
-      projects = await Project.findAll({ where: active, include, order: [['updatedAt', 'DESC']] });
-    } else {
-      const memberOf = await ProjectMember.findAll({ where: { userId: user.id } });
-      projects = await Project.findAll({ where: { id: memberOf.map((m) => m.projectId), ...active }, include, order: [['updatedAt', 'DESC']] });
-    }
-    const counts = await memberCounts(projects.map((p) => p.id));
-    res.json({ projects: projects.map((p) => presentProject(p, counts.get(p.id) ?? 0)) });
+    // Clients see their member projects only. One statement: the projects, their creators and
+    // member counts (subqueries on project_members).
+    const visible = can(user.role, 'project.readAll')
+      ? {}
+      : { id: { [Op.in]: literal(`(SELECT "projectId" FROM project_members WHERE "userId" = ${sequelize.escape(user.id)})`) } };
+    const projects = await Project.findAll({
+      where: { ...visible, ...active },
+      attributes: { include: [[literal('(SELECT COUNT(*) FROM project_members AS pm WHERE pm."projectId" = "Project"."id")'), 'memberCount']] },
+      include: [{ model: User, as: 'creator' }],
+      order: [['updatedAt', 'DESC']],
+    });
+    res.json({ projects: projects.map((p) => presentProject(p, Number(p.get('memberCount')))) });
   });
 
   r.post('/projects', allow('project.write'), async (req, res) => {
