@@ -33,7 +33,7 @@ export default tseslint.config(
         {
           patterns: [
             {
-              group: ['@shared/analysis/*', '@shared/geometry/*', '@shared/kinematics/*', '@shared/safety/*'],
+              group: ['@shared/analysis/*', '@shared/audit/*', '@shared/geometry/*', '@shared/kinematics/*', '@shared/safety/*'],
               message: 'Import shared code through its folder barrel (e.g. @shared/analysis, not @shared/analysis/reached).',
             },
             { group: ['**/../shared/*'], message: 'Use the @shared/* alias for shared code.' },

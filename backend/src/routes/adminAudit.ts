@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { allow } from '../auth/guards';
 import { parseOr400 } from '../http/validate';
 import { AuditEvent, User } from '../models';
+import { describeAuditEvents } from '../services/audit/describe';
 
 const AuditQuery = z.object({
   action: z.string().trim().max(60).optional(),
@@ -32,10 +33,12 @@ export function adminAuditRouter(): Router {
     const { rows, count } = await AuditEvent.findAndCountAll({ where, order: [['at', 'DESC'], ['id', 'DESC']], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
     const ids = [...new Set(rows.map((e) => e.actorId).filter((i): i is number => i != null))];
     const names = new Map((ids.length ? await User.findAll({ where: { id: ids }, attributes: ['id', 'name', 'email'] }) : []).map((u) => [u.id, u]));
+    const words = await describeAuditEvents(rows.map((e) => ({ action: e.action, entity: e.entity, entityId: e.entityId, details: e.details })));
+    // The stored codes stay for filtering; what people read is `words` (shared/audit).
     res.json({
-      events: rows.map((e) => {
+      events: rows.map((e, i) => {
         const u = e.actorId != null ? names.get(e.actorId) : undefined;
-        return { id: Number(e.id), at: e.at.toISOString(), action: e.action, entity: e.entity, entityId: e.entityId, actor: e.actorId != null ? { id: e.actorId, name: u?.name ?? 'Former user', email: u?.email ?? '' } : null, details: e.details };
+        return { id: Number(e.id), at: e.at.toISOString(), action: e.action, entity: e.entity, entityId: e.entityId, actor: e.actorId != null ? { id: e.actorId, name: u?.name ?? 'Former user', email: u?.email ?? '' } : null, words: words[i] };
       }),
       page: q.page,
       pageSize: q.pageSize,

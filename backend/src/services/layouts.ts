@@ -4,6 +4,7 @@ import type { SessionUser } from '../auth/passport';
 import { badRequest, conflict, notFound } from '../http/errors';
 import { ArmModel, FloorPlan, Layout } from '../models';
 import { audit } from './audit/audit';
+import { layoutChanges } from './audit/layoutChanges';
 import { canSeeProject } from './projectAccess';
 
 /** A layout as the API presents it (whitelisted fields). */
@@ -67,6 +68,10 @@ export async function updateLayout(user: SessionUser, id: number, input: LayoutU
   if (input.content !== undefined) changes.content = input.content;
   // silent: updatedAt is the one set here (the caller's clock), not the database's.
   const [, [saved]] = await Layout.update(changes, { where: { id }, transaction, silent: true, returning: true });
-  await audit(user.id, 'layout.update', 'layout', layout.id, { version: saved.version }, transaction, now);
+  const { changes: edits, more } = layoutChanges(
+    { name: layout.name, floorPlanId: layout.floorPlanId, content: layout.content },
+    { name: saved.name, floorPlanId: saved.floorPlanId, content: saved.content },
+  );
+  await audit(user.id, 'layout.update', 'layout', layout.id, { version: saved.version, changes: edits, ...(more ? { more } : {}) }, transaction, now);
   return saved;
 }

@@ -1,6 +1,8 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { AuditEventWords } from '@shared/audit';
 import { api } from './client';
 
+/** One audit event: the stored codes (for filters) and the event in words (what the page shows). */
 export interface AuditEventDto {
   id: number;
   at: string;
@@ -8,7 +10,7 @@ export interface AuditEventDto {
   entity: string;
   entityId: string | null;
   actor: { id: number; name: string; email: string } | null;
-  details: Record<string, unknown>;
+  words: AuditEventWords;
 }
 export interface AuditFilter {
   action?: string;

@@ -1,4 +1,5 @@
 import { useState, type FormEvent } from 'react';
+import { auditActionGroups, auditKindOptions } from '@shared/audit';
 import { can } from '@shared/policy';
 import { useAudit, type AuditFilter } from '../api/admin';
 import { useSessionUser } from '../api/auth';
@@ -8,12 +9,15 @@ import { NotAllowed } from '../components/NotAllowed';
 import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import { formatDateTime } from '../lib/format';
+import { usePageTitle } from '../lib/usePageTitle';
 
-const ACTIONS = ['', 'revision.', 'revision.submit', 'revision.sign_off', 'revision.return', 'revision.release', 'revision.acknowledge', 'comment.', 'invitation.', 'layout.', 'auth.login'];
+const ACTION_GROUPS = auditActionGroups();
+const KIND_OPTIONS = auditKindOptions();
 const inputCls = 'h-9 rounded-control border border-rule-strong bg-paper-raised px-2 text-sm';
 
 /** `/admin/audit` — who did what and when, filtered and paged. */
 export default function AdminAuditPage() {
+  usePageTitle('Audit log');
   const user = useSessionUser();
   if (!can(user.role, 'audit.read')) return <NotAllowed />;
   return <AuditBrowser />;
@@ -36,8 +40,11 @@ function AuditBrowser() {
         <label className="flex flex-col gap-1 text-xs font-bold">
           Action
           <select className={inputCls} value={draft.action ?? ''} onChange={(e) => setDraft({ ...draft, action: e.target.value || undefined })}>
-            {ACTIONS.map((a) => (
-              <option key={a} value={a}>{a === '' ? 'Any' : a.endsWith('.') ? `${a.slice(0, -1)} (all)` : a}</option>
+            <option value="">Any</option>
+            {ACTION_GROUPS.map((g) => (
+              <optgroup key={g.label} label={g.label}>
+                {g.options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+              </optgroup>
             ))}
           </select>
         </label>
@@ -51,7 +58,8 @@ function AuditBrowser() {
         <label className="flex flex-col gap-1 text-xs font-bold">
           Item kind
           <select className={inputCls} value={draft.entity ?? ''} onChange={(e) => setDraft({ ...draft, entity: e.target.value || undefined })}>
-            {['', 'revision', 'comment', 'invitation', 'layout', 'project', 'user', 'floorPlan', 'armModel'].map((x) => <option key={x} value={x}>{x || 'Any'}</option>)}
+            <option value="">Any</option>
+            {KIND_OPTIONS.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
           </select>
         </label>
         <label className="flex flex-col gap-1 text-xs font-bold">
@@ -85,9 +93,20 @@ function AuditBrowser() {
                 <tr key={e.id} className="border-b border-rule align-top last:border-b-0">
                   <td className="px-3 py-1.5 whitespace-nowrap text-ink-muted">{formatDateTime(e.at)}</td>
                   <td className="px-3 py-1.5">{e.actor?.name ?? '—'}</td>
-                  <td className="px-3 py-1.5 font-mono text-xs">{e.action}</td>
-                  <td className="px-3 py-1.5 text-xs">{e.entity} {e.entityId}</td>
-                  <td className="max-w-md truncate px-3 py-1.5 font-mono text-xs text-ink-muted" title={JSON.stringify(e.details)}>{JSON.stringify(e.details)}</td>
+                  <td className="px-3 py-1.5">{e.words.action}</td>
+                  <td className="px-3 py-1.5">
+                    <span className="block text-xs text-ink-muted">{e.words.kind}</span>
+                    {e.words.item && <span className="block">{e.words.item}</span>}
+                  </td>
+                  <td className="max-w-md px-3 py-1.5 text-xs text-ink-muted">
+                    {e.words.details.length > 0 ? (
+                      <ul className="flex flex-col gap-0.5" aria-label="Changes">
+                        {e.words.details.map((d, i) => <li key={i}>{d}</li>)}
+                      </ul>
+                    ) : (
+                      '—'
+                    )}
+                  </td>
                 </tr>
               ))}
             </tbody>

@@ -8,11 +8,13 @@ import { ErrorNotice, LoadingNotice, EmptyState } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import { formatDateTime } from '../lib/format';
 import { cn } from '../lib/cn';
+import { usePageTitle } from '../lib/usePageTitle';
 
 const kb = (n: number) => (n < 1024 ? `${n} B` : `${(n / 1024).toFixed(n < 10240 ? 1 : 0)} KB`);
 
 /** `/admin/mail` — what the product sent (as captured by the local mail fake), with attachments. */
 export default function AdminMailPage() {
+  usePageTitle('Mail outbox');
   const user = useSessionUser();
   if (!can(user.role, 'mail.read')) return <NotAllowed />;
   return <Outbox />;

@@ -13,11 +13,13 @@ import { RequirePermission } from '../components/RequireAuth';
 import { ROLE_LABEL } from '../components/RoleBadge';
 import { UserCreateForm } from '../components/users/UserCreateForm';
 import { cn } from '../lib/cn';
+import { usePageTitle } from '../lib/usePageTitle';
 
 const column = createColumnHelper<UserDto>();
 
 /** People with an account: create accounts, change roles, deactivate and reactivate (admin only). */
 export default function AdminUsersPage() {
+  usePageTitle('People');
   return (
     <RequirePermission action="user.manage">
       <UsersAdmin />

@@ -9,9 +9,11 @@ import { FAMILY_LABELS } from '../components/catalogue/modelCore';
 import { SelectField } from '../components/Field';
 import { NotAllowed } from '../components/NotAllowed';
 import { PageHeader } from '../components/PageHeader';
+import { usePageTitle } from '../lib/usePageTitle';
 
 /** A new arm model: choose the kinematic family, then fill in its parameters with the profile drawn live. */
 export default function ArmModelNewPage() {
+  usePageTitle('New arm model', 'Arm catalogue');
   const user = useSessionUser();
   const navigate = useNavigate();
   const create = useCreateArmModel();

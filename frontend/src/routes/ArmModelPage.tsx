@@ -13,6 +13,7 @@ import { ErrorNotice, LoadingNotice, StatusNote } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import NotFoundPage from './NotFoundPage';
 import { parseId } from '../lib/routeId';
+import { usePageTitle } from '../lib/usePageTitle';
 
 /** One arm model: its parameters, side reach profile and pose panel; editable when it is one's own. */
 export default function ArmModelPage() {
@@ -23,6 +24,7 @@ export default function ArmModelPage() {
 
 function ArmModelView({ id }: { id: number }) {
   const model = useArmModel(id);
+  usePageTitle(model.data?.name ?? 'Arm model', 'Arm catalogue');
   if (model.isPending) return <LoadingNotice label="Loading the arm model…" />;
   if (model.isError) {
     return (

@@ -11,6 +11,7 @@ import { formatMm } from '../components/catalogue/profileDrawing';
 import { DataTable } from '../components/DataTable';
 import { EmptyState, ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
+import { usePageTitle } from '../lib/usePageTitle';
 
 /** One catalogue row with the figures the table sorts on. */
 interface Row {
@@ -73,6 +74,7 @@ function toRow(m: ArmModelDto): Row {
 
 /** The arm catalogue: every model with its reach, payload and stopping time; planners add their own. */
 export default function CataloguePage() {
+  usePageTitle('Arm catalogue');
   const user = useSessionUser();
   const models = useArmModels();
   const navigate = useNavigate();

@@ -20,6 +20,7 @@ import type { PlanCanvas } from '../plan/planCanvas';
 import { PlanView } from '../plan/PlanView';
 import NotFoundPage from './NotFoundPage';
 import { parseId } from '../lib/routeId';
+import { usePageTitle } from '../lib/usePageTitle';
 
 const metreFormat = new Intl.NumberFormat('en', { maximumFractionDigits: 0 });
 const metres = (mm: number) => `${metreFormat.format(mm / 1000)} m`;
@@ -36,6 +37,7 @@ export default function FloorPlanPage() {
 function FloorPlanView({ projectId, planId }: { projectId: number; planId: number }) {
   const plan = useFloorPlan(planId);
   const project = useProject(projectId);
+  usePageTitle(plan.data?.fileName ?? 'Floor plan', project.data?.name);
 
   if (plan.isPending) return <LoadingNotice label="Loading the floor plan…" />;
   if (plan.isError || plan.data.projectId !== projectId) {

@@ -7,11 +7,13 @@ import { TextField } from '../components/Field';
 import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { RingfenceMark } from '../components/RingfenceMark';
 import { ROLE_LABEL } from '../components/RoleBadge';
+import { usePageTitle } from '../lib/usePageTitle';
 
 const MIN_PASSWORD = 10;
 
 /** `/invite/:token` — the one-time invitation link: set name and password, then signed in. Used or expired links say so. */
 export default function InvitePage() {
+  usePageTitle('Invitation');
   const { token = '' } = useParams();
   const inv = useInvitationToken(token);
   const accept = useAcceptInvitation(token);

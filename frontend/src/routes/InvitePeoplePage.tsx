@@ -10,11 +10,13 @@ import { EmptyState, ErrorNotice, LoadingNotice, StatusNote } from '../component
 import { PageHeader } from '../components/PageHeader';
 import { ROLE_LABEL, RoleBadge } from '../components/RoleBadge';
 import { formatDateTime } from '../lib/format';
+import { usePageTitle } from '../lib/usePageTitle';
 
 const inputCls = 'h-9 rounded-control border border-rule-strong bg-paper-raised px-2 text-sm';
 
 /** `/admin/invitations` — invite people by e-mail with a role (clients to a project); pending invitations; withdraw. */
 export default function InvitePeoplePage() {
+  usePageTitle('Invitations');
   const user = useSessionUser();
   if (!can(user.role, 'invite.manage')) return <NotAllowed />;
   return <Invitations />;

@@ -13,6 +13,7 @@ import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import NotFoundPage from './NotFoundPage';
 import { parseId } from '../lib/routeId';
+import { usePageTitle } from '../lib/usePageTitle';
 
 /** `/projects/:id/layouts/:layoutId` — the layout editor (read-only for reviewers). */
 export default function LayoutEditorPage() {
@@ -29,6 +30,7 @@ function LayoutEditorLoader({ projectId, layoutId }: { projectId: number; layout
   const layout = useLayout(layoutId);
   const project = useProject(projectId);
   const models = useArmModels();
+  usePageTitle(layout.data?.name ?? 'Cell layout', project.data?.name);
   const floorPlanId = layout.data?.floorPlanId ?? null;
   const plan = useQuery({ ...floorPlanDetailQuery(floorPlanId ?? 0), enabled: floorPlanId !== null });
   const back = (

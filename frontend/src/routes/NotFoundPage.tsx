@@ -1,7 +1,9 @@
 import { Link, useLocation } from 'react-router-dom';
+import { usePageTitle } from '../lib/usePageTitle';
 
 /** The page for an address that matches no route. */
 export default function NotFoundPage() {
+  usePageTitle('Page not found');
   const { pathname } = useLocation();
   return (
     <section aria-labelledby="not-found-title" className="max-w-xl py-10">

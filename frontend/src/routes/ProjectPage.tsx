@@ -12,6 +12,7 @@ import { PROJECT_SECTIONS } from './projectSections';
 import NotFoundPage from './NotFoundPage';
 import { formatDateTime } from '../lib/format';
 import { parseId } from '../lib/routeId';
+import { usePageTitle } from '../lib/usePageTitle';
 
 /** One project: its sections (details, members, and what later pages add), archiving and deletion. */
 export default function ProjectPage() {
@@ -23,6 +24,7 @@ export default function ProjectPage() {
 function ProjectView({ id }: { id: number }) {
   const user = useSessionUser();
   const project = useProject(id);
+  usePageTitle(project.data?.name ?? 'Project');
   const remove = useDeleteProject(id);
   const archive = useSetProjectArchived(id);
   const navigate = useNavigate();

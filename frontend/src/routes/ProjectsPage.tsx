@@ -13,6 +13,7 @@ import { EmptyState, ErrorNotice, LoadingNotice } from '../components/Notice';
 import { PageHeader } from '../components/PageHeader';
 import { ProjectForm } from '../components/ProjectForm';
 import { formatDateTime } from '../lib/format';
+import { usePageTitle } from '../lib/usePageTitle';
 
 const column = createColumnHelper<ProjectDto>();
 
@@ -49,6 +50,7 @@ const COLUMNS = [
 
 /** All projects the signed-in person may see, with a dialog to start a new one. */
 export default function ProjectsPage() {
+  usePageTitle('Projects');
   const user = useSessionUser();
   const [show, setShow] = useState<'active' | 'archived'>('active');
   const projects = useProjects(show);

@@ -17,6 +17,7 @@ import { RevisionDiffPanel } from '../components/review/RevisionDiffPanel';
 import { RevisionStateBadge } from '../components/review/RevisionStateBadge';
 import NotFoundPage from './NotFoundPage';
 import { parseId } from '../lib/routeId';
+import { usePageTitle } from '../lib/usePageTitle';
 
 const mm = new Intl.NumberFormat(undefined, { maximumFractionDigits: 0 });
 
@@ -33,6 +34,7 @@ function ReviewLoader({ projectId, revisionId }: { projectId: number; revisionId
   const user = useSessionUser();
   const rev = useRevision(revisionId);
   const project = useProject(projectId);
+  usePageTitle(rev.data ? `Revision ${rev.data.letter}` : 'Revision', rev.data?.layoutName, project.data?.name);
   const addComment = useAddComment(revisionId);
   const resolve = useResolveComment();
   const [selected, setSelected] = useState<Finding | null>(null);

@@ -8,6 +8,7 @@ import { ErrorNotice, LoadingNotice } from '../components/Notice';
 import { RingfenceMark } from '../components/RingfenceMark';
 import { labelledResolver } from '../lib/labelledResolver';
 import { applyServerErrors } from '../lib/serverErrors';
+import { usePageTitle } from '../lib/usePageTitle';
 
 const DEFAULT_PAGE = '/projects';
 
@@ -26,6 +27,7 @@ function returnPath(state: unknown, next: string | null): string {
 
 /** Sign-in with e-mail and password; afterwards back to where the person was sent from. */
 export default function SignInPage() {
+  usePageTitle('Sign in');
   const me = useMe();
   const login = useLogin();
   const location = useLocation();
