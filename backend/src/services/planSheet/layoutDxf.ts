@@ -45,17 +45,27 @@ function rings(d: Drawing, polygons: ReadonlyArray<Polygon2>): void {
   for (const p of polygons) for (const ring of p) if (ring.length >= 3) d.drawPolyline(ring.map(([x, y]) => [round(x), round(y)]), true);
 }
 
-/** The lowest-left corner of what the export draws (floor plan, or the layout's own elements), plan mm. */
-function lowerLeft(input: PlanSheetInput): [number, number] {
-  if (input.floorPlan) return [input.floorPlan.bounds.minX, input.floorPlan.bounds.minY];
+/**
+ * The lowest-left corner of what the export draws (the layout's own elements and the arms' maximum
+ * spaces; the floor plan's corner when the layout is empty), plan mm: the notes go below it, at
+ * its left edge.
+ */
+function lowerLeft(input: PlanSheetInput, spaces: ReadonlyArray<Polygon2>): [number, number] {
   const c = input.layout.content;
-  const xs = [...c.arms.map((a) => a.x), ...c.workPoints.map((p) => p.x), ...c.boundaries.flatMap((b) => b.points.map((q) => q[0]))];
-  const ys = [...c.arms.map((a) => a.y), ...c.workPoints.map((p) => p.y), ...c.boundaries.flatMap((b) => b.points.map((q) => q[1]))];
-  let x = 0;
-  let y = 0;
-  for (const v of xs) x = Math.min(x, v);
-  for (const v of ys) y = Math.min(y, v);
-  return [xs.length ? x : 0, ys.length ? y : 0];
+  const pts: Array<readonly [number, number]> = [
+    ...c.arms.map((a) => [a.x, a.y] as const),
+    ...c.workPoints.map((p) => [p.x, p.y] as const),
+    ...c.boundaries.flatMap((b) => b.points),
+    ...spaces.flatMap((p) => p.flat()),
+  ];
+  if (!pts.length) return input.floorPlan ? [input.floorPlan.bounds.minX, input.floorPlan.bounds.minY] : [0, 0];
+  let x = Infinity;
+  let y = Infinity;
+  for (const [px, py] of pts) {
+    x = Math.min(x, px);
+    y = Math.min(y, py);
+  }
+  return [x, y];
 }
 
 /**
@@ -118,7 +128,7 @@ export function layoutDxf(input: PlanSheetInput, opts: { createdAt: Date }): str
     at: opts.createdAt,
   }).map(dxfText);
   d.setActiveLayer(DXF_LAYERS.notes);
-  const [nx, ny] = lowerLeft(input);
+  const [nx, ny] = lowerLeft(input, arms.flatMap((a) => a.maxSpace));
   notes.forEach((n, i) => d.drawText(round(nx), round(ny - 2 * TEXT_MM * (i + 2)), TEXT_MM, 0, n));
   // back to where the building lies in its own drawing (see the floor plan's local origin)
   const o = input.floorPlan?.origin;

@@ -30,7 +30,7 @@ function checkOptions(opts: PlanSheetOptions): SheetKind[] {
  */
 export async function renderPlanSheet(input: PlanSheetInput, opts: PlanSheetOptions): Promise<Buffer> {
   const sheets = checkOptions(opts);
-  const doc = new jsPDF({ orientation: 'landscape', unit: 'mm', format: opts.size.toLowerCase(), compress: true, putOnlyUsedFonts: true });
+  const doc = new jsPDF({ orientation: 'landscape', unit: 'mm', format: opts.size.toLowerCase(), compress: true, putOnlyUsedFonts: true, floatPrecision: 3 });
   embedLato(doc);
   doc.setCreationDate(opts.createdAt);
   // File ID from what the sheet shows, so a stored sheet can be checked by its checksum.
