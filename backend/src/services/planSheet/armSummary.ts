@@ -36,21 +36,26 @@ export function armTitle(arm: Pick<ArmPlacement, 'id' | 'label'>): string {
 export function summarizeArms(input: Pick<PlanSheetInput, 'models' | 'analysis'> & { content: LayoutContent }): ArmSummary[] {
   const models = new Map(input.models.map((m) => [m.id, m]));
   const firstHeight = input.content.workHeights[0];
-  return input.content.arms.map((arm) => {
-    const model = models.get(arm.armModelId);
-    let maxSpace: Polygon2[] = [];
-    let maxSpaceRadius: number | null = null;
-    if (model) {
+  // The maximum space depends on the model alone: worked out once per model, placed per arm.
+  const spaces = new Map<number, { local: Polygon2[]; radius: number } | null>();
+  const spaceOf = (modelId: number, params: unknown) => {
+    if (!spaces.has(modelId)) {
       try {
-        const local = maximumSpacePolygons(parseArmParams(model.params));
-        maxSpaceRadius = 0;
-        for (const p of local) for (const [x, y] of p[0] ?? []) maxSpaceRadius = Math.max(maxSpaceRadius, Math.hypot(x, y));
-        maxSpace = armPose(arm).placePolygons(local);
+        const local = maximumSpacePolygons(parseArmParams(params));
+        let radius = 0;
+        for (const p of local) for (const [x, y] of p[0] ?? []) radius = Math.max(radius, Math.hypot(x, y));
+        spaces.set(modelId, { local, radius });
       } catch {
-        maxSpace = [];
-        maxSpaceRadius = null;
+        spaces.set(modelId, null);
       }
     }
+    return spaces.get(modelId)!;
+  };
+  return input.content.arms.map((arm) => {
+    const model = models.get(arm.armModelId);
+    const space = model ? spaceOf(model.id, model.params) : null;
+    const maxSpace: Polygon2[] = space ? armPose(arm).placePolygons(space.local) : [];
+    const maxSpaceRadius = space ? space.radius : null;
     const region = input.analysis.regions[arm.id];
     const bandGeom = firstHeight === undefined ? undefined : region?.bands.find((b) => b.height === firstHeight);
     const stop = model ? (model.params as { stopTimeS?: unknown }).stopTimeS : undefined;
