@@ -1,33 +1,15 @@
 // `npm start`: local PostgreSQL (unless DATABASE_URL), migrate, seed the demo when empty, build the
 // client when it is missing or stale, then serve on http://127.0.0.1:3000 (PORT overrides).
-import { existsSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { loadConfig } from '../src/config';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../src/db/seed';
 import { startServer } from '../src/server';
+import { buildClientIfNeeded } from './clientBuild';
 import { ensureDatabase, PgSetupError, resolveDataDir, startLocalPg, type LocalPg } from './pg';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const say = (m: string) => console.log(`[ringfence] ${m}`);
-
-function newestMtime(dir: string): number {
-  let newest = 0;
-  for (const entry of readdirSync(dir, { withFileTypes: true })) {
-    const p = path.join(dir, entry.name);
-    newest = Math.max(newest, entry.isDirectory() ? newestMtime(p) : statSync(p).mtimeMs);
-  }
-  return newest;
-}
-
-async function buildClientIfNeeded(): Promise<void> {
-  const index = path.join(root, 'dist/client/index.html');
-  const sources = Math.max(newestMtime(path.join(root, 'frontend')), newestMtime(path.join(root, 'shared')));
-  if (existsSync(index) && statSync(index).mtimeMs >= sources) return;
-  say('Building the web client (first start or sources changed)…');
-  const { build } = await import('vite');
-  await build({ configFile: path.join(root, 'vite.config.ts'), logLevel: 'warn', mode: 'production' });
-}
 
 let local: LocalPg | null = null;
 
@@ -63,7 +45,7 @@ async function main(): Promise<void> {
     say('Using the database at DATABASE_URL.');
   }
   if (stopping) return;
-  if (!process.argv.includes('--dev')) await buildClientIfNeeded();
+  if (!process.argv.includes('--dev')) await buildClientIfNeeded(say);
   const running = await startServer(config, databaseUrl, { say });
   closeServer = running.close;
   say(`Ringfence is ready on ${running.url}`);

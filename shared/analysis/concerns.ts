@@ -27,15 +27,31 @@ const FAILED_CHECKS = new Set(['overlap', 'structure', 'boundary', 'safeguard', 
 const named = (id: string, label: string | undefined) => (label ? `${id} (${label})` : id);
 
 /**
+ * A layout's arms, boundaries and work points by id, built once for many findings: a large layout
+ * has thousands of findings and tens of thousands of work points, and indexing them per finding
+ * costs seconds. Build it again when the content changes.
+ */
+export class ConcernLookup {
+  readonly arms: ReadonlyMap<string, ConcernContent['arms'][number]>;
+  readonly boundaries: ReadonlyMap<string, ConcernContent['boundaries'][number]>;
+  readonly points: ReadonlyMap<string, NonNullable<ConcernContent['workPoints']>[number]>;
+
+  constructor(content: ConcernContent) {
+    this.arms = new Map(content.arms.map((a) => [a.id, a]));
+    this.boundaries = new Map(content.boundaries.map((z) => [z.id, z]));
+    this.points = new Map((content.workPoints ?? []).map((p) => [p.id, p]));
+  }
+}
+
+/**
  * The elements a finding concerns, by their names in the layout: its arms, the boundaries and
  * floor-plan layers in its id, its work points. The finding id itself is for matching comments
- * across revisions and is never shown; ids the layout no longer has are left out.
+ * across revisions and is never shown; ids the layout no longer has are left out. For many findings
+ * of one layout, pass a ConcernLookup of it.
  */
-export function findingConcerns(f: Pick<Finding, 'id'> & Partial<Pick<Finding, 'arms' | 'points'>>, content: ConcernContent): FindingConcern[] {
+export function findingConcerns(f: Pick<Finding, 'id'> & Partial<Pick<Finding, 'arms' | 'points'>>, content: ConcernContent | ConcernLookup): FindingConcern[] {
   const parsed = parseFindingId(f.id);
-  const arms = new Map(content.arms.map((a) => [a.id, a]));
-  const boundaries = new Map(content.boundaries.map((z) => [z.id, z]));
-  const points = new Map((content.workPoints ?? []).map((p) => [p.id, p]));
+  const { arms, boundaries, points } = content instanceof ConcernLookup ? content : new ConcernLookup(content);
   const own = new Set(f.points ?? []);
   const out: FindingConcern[] = [];
   const seen = new Set<string>();

@@ -18,7 +18,7 @@ export {
 export { type FloorLayer, prepareFloor } from './floor';
 export { type Analyzer, createAnalyzer, FAR_MM, FENCE_CLEARANCE_MM, MIN_FENCE_HEIGHT_MM } from './analyze';
 export { type CheckedContent, type CheckedFloor, checkedFloorOf, checksRun, noFindingsSentence } from './checks';
-export { concernsText, type ConcernContent, type ConcernRole, type FindingConcern, findingConcerns } from './concerns';
+export { ConcernLookup, concernsText, type ConcernContent, type ConcernRole, type FindingConcern, findingConcerns } from './concerns';
 export { findingId, m2, m2Text, mm, parseFindingId, reasonOf, SEVERITY_OF, sortFindings } from './messages';
 export { isReached, roundMargin, shortfallText } from './reached';
 export {

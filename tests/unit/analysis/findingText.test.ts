@@ -3,7 +3,7 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { armReachFromModels, concernsText, createAnalyzer, findingConcerns, type ArmReachFactory, type Finding } from '@shared/analysis';
+import { armReachFromModels, ConcernLookup, concernsText, createAnalyzer, findingConcerns, type ArmReachFactory, type Finding } from '@shared/analysis';
 import type { ArmPlacement, LayoutContent } from '@shared/schemas/layout';
 
 const samples = path.resolve(__dirname, '../../../samples');
@@ -74,5 +74,24 @@ describe('what a finding concerns', () => {
     expect(concernsText(findingConcerns(finding('reach-beyond-fence:R7+F9'), content))).toBe('');
     const many = Array.from({ length: 9 }, (_v, i) => `P${i + 1}`);
     expect(concernsText(findingConcerns(finding('unreached-point:P1', [], many), content))).toBe('Work points P1 (infeed), P2, P3, P4, P5, P6 and 3 more');
+  });
+
+  it('answers the same through a lookup built once for the layout (as the findings lists use it)', () => {
+    const lookup = new ConcernLookup(content);
+    const many = Array.from({ length: 9 }, (_v, i) => `P${i + 1}`);
+    const cases = [
+      finding('reach-beyond-fence:R1+F1', ['R1']),
+      finding('opening-too-close:O1+R2', ['R2']),
+      finding('shared-zone:R1+R2', ['R1', 'R2'], ['P1']),
+      finding('base-on-column:R2+COLUMNS#4', ['R2']),
+      finding('computation-failed:fence+F1'),
+      finding('reach-beyond-fence:R7+F9'),
+      finding('unreached-point:P1', [], many),
+    ];
+    for (const f of cases) expect(findingConcerns(f, lookup)).toEqual(findingConcerns(f, content));
+    expect(concernsText(findingConcerns(finding('shared-zone:R1+R2', ['R1', 'R2'], ['P1']), lookup))).toBe('Arms R1 (Picker 1), R2 · Work point P1 (infeed)');
+    // A lookup is of the content it was built from: a label changed later shows with a new one.
+    const renamed = { ...content, arms: [arm({ id: 'R1', label: 'Picker 9' }), arm({ id: 'R2', label: '' })] };
+    expect(concernsText(findingConcerns(finding('fence-too-low:F1', ['R1']), new ConcernLookup(renamed)))).toBe('Arm R1 (Picker 9) · Fence F1 (Cell guard)');
   });
 });

@@ -1,4 +1,4 @@
-import { checkedFloorOf, concernsText, findingConcerns, isReached, noFindingsSentence } from '@shared/analysis';
+import { checkedFloorOf, ConcernLookup, concernsText, findingConcerns, isReached, noFindingsSentence } from '@shared/analysis';
 import type { Severity } from '@shared/analysis';
 import type { ArmSummary } from './armSummary';
 import type { SheetPages } from './sheetPages';
@@ -181,9 +181,9 @@ export function drawFindings(pages: SheetPages, input: PlanSheetInput): void {
     { title: 'Concerns', width: 82, wrap: true },
     { title: 'Work points', width: 40, wrap: true },
   ];
-  const content = input.layout.content;
+  const lookup = new ConcernLookup(input.layout.content);
   const rows: Row[] = findings.map((f) => {
-    const concerns = findingConcerns(f, content);
+    const concerns = findingConcerns(f, lookup);
     const points = f.points.length > 12 ? `${f.points.slice(0, 12).join(', ')} and ${f.points.length - 12} more` : f.points.join(', ');
     return {
       cells: [

@@ -1,4 +1,5 @@
-import { concernsText, findingConcerns, noFindingsSentence, type CheckedFloor, type ConcernContent, type Finding, type Severity } from '@shared/analysis';
+import { useMemo } from 'react';
+import { ConcernLookup, concernsText, findingConcerns, noFindingsSentence, type CheckedFloor, type ConcernContent, type Finding, type Severity } from '@shared/analysis';
 import { CAUTION_TEXT } from '@shared/safety';
 import { cn } from '../../lib/cn';
 
@@ -18,7 +19,7 @@ const SEVERITY_WASH: Record<Severity, string> = {
 export const PLANNING_CAUTION = CAUTION_TEXT;
 
 /** The sentence of a finding and, under it, the elements it concerns by their names (never the finding's id). */
-export function FindingText({ finding, content }: { finding: Finding; content: ConcernContent }) {
+export function FindingText({ finding, content }: { finding: Finding; content: ConcernContent | ConcernLookup }) {
   const concerns = concernsText(findingConcerns(finding, content));
   return (
     <span className="min-w-0 flex-1">
@@ -62,6 +63,7 @@ export interface FindingsPanelProps {
 export function FindingsPanel({ findings, content, floor, selectedId, onPick, busy, error, timingMs }: FindingsPanelProps) {
   const counts = { critical: 0, warning: 0, info: 0 } as Record<Severity, number>;
   for (const f of findings ?? []) counts[f.severity]++;
+  const lookup = useMemo(() => new ConcernLookup(content), [content]);
   return (
     <section aria-labelledby="findings-heading" className="flex min-h-0 flex-col rounded-control border border-rule bg-paper-raised">
       <header className="flex items-baseline gap-2 border-b border-rule px-3 py-2">
@@ -104,7 +106,7 @@ export function FindingsPanel({ findings, content, floor, selectedId, onPick, bu
             >
               <SeverityIcon severity={f.severity} className="mt-0.5" />
               <span className="sr-only">{SEVERITY_TEXT[f.severity]}:</span>
-              <FindingText finding={f} content={content} />
+              <FindingText finding={f} content={lookup} />
             </button>
           </li>
         ))}

@@ -1,5 +1,5 @@
-import { useId, useState, type FormEvent } from 'react';
-import { noFindingsSentence, type CheckedFloor, type ConcernContent, type Finding } from '@shared/analysis';
+import { useId, useMemo, useState, type FormEvent } from 'react';
+import { ConcernLookup, noFindingsSentence, type CheckedFloor, type ConcernContent, type Finding } from '@shared/analysis';
 import type { ReviewCommentDto } from '../../api/revisions';
 import { formatDateTime } from '../../lib/format';
 import { cn } from '../../lib/cn';
@@ -79,6 +79,7 @@ function CommentBox({ findingId, about, onComment }: { findingId: string; about:
 
 /** The revision's findings, each with its comments, a comment box, and what was said about it in earlier revisions. */
 export function FindingComments({ findings, content, floor, comments, history, selectedId, onSelect, onComment, onResolve }: FindingCommentsProps) {
+  const lookup = useMemo(() => new ConcernLookup(content), [content]);
   return (
     <section aria-labelledby="review-findings" className="flex flex-col gap-2">
       <h2 id="review-findings" className="text-sm font-bold">
@@ -98,7 +99,7 @@ export function FindingComments({ findings, content, floor, comments, history, s
             <li key={f.id} data-finding={f.id} className={cn('rounded-control border bg-paper-raised p-2.5', selectedId === f.id ? 'border-accent' : 'border-rule')}>
               <button type="button" onClick={() => onSelect(f)} className="flex w-full items-start gap-2 text-left text-sm">
                 <SeverityIcon severity={f.severity} className="mt-0.5" />
-                <FindingText finding={f} content={content} />
+                <FindingText finding={f} content={lookup} />
               </button>
               {before.length > 0 && (
                 <details className="mt-1.5" open>

@@ -1,6 +1,6 @@
-import { useId, useState } from 'react';
+import { useId, useMemo, useState } from 'react';
 import type { DiffElement, RevisionChangeGroup } from '@shared/schemas/revision';
-import { concernsText, findingConcerns, type ConcernContent } from '@shared/analysis';
+import { ConcernLookup, concernsText, findingConcerns, type ConcernContent } from '@shared/analysis';
 import type { RevisionDiffDto } from '../../api/revisions';
 import { Button } from '../Button';
 import { SEVERITY_LABEL } from '@shared/words';
@@ -67,7 +67,7 @@ function Section({ heading, groups, single }: { heading: string; groups: Revisio
 }
 
 /** What a diff finding concerns, by the names this revision's layout gives them (gone elements are left out). */
-function Concerns({ id, content }: { id: string; content: ConcernContent }) {
+function Concerns({ id, content }: { id: string; content: ConcernLookup }) {
   const text = concernsText(findingConcerns({ id }, content));
   return text ? <span className="block text-xs text-ink-muted">{text}</span> : null;
 }
@@ -78,6 +78,7 @@ function Concerns({ id, content }: { id: string; content: ConcernContent }) {
  * work points; then findings new, gone and changed.
  */
 export function RevisionDiffPanel({ diff, content }: { diff: RevisionDiffDto; content: ConcernContent }) {
+  const lookup = useMemo(() => new ConcernLookup(content), [content]);
   if (!diff.previous) return <p className="text-sm text-ink-muted">First revision of this layout: nothing to compare with.</p>;
   const { groups, findings } = diff;
   const noFindings = !findings.added.length && !findings.removed.length && !findings.changed.length;
@@ -102,19 +103,19 @@ export function RevisionDiffPanel({ diff, content }: { diff: RevisionDiffDto; co
             {findings.added.map((f) => (
               <li key={`fa${f.id}`} className="text-finding-critical">
                 New finding: {f.message}
-                <Concerns id={f.id} content={content} />
+                <Concerns id={f.id} content={lookup} />
               </li>
             ))}
             {findings.removed.map((f) => (
               <li key={`fr${f.id}`} className="text-accent">
                 Gone: {f.message}
-                <Concerns id={f.id} content={content} />
+                <Concerns id={f.id} content={lookup} />
               </li>
             ))}
             {findings.changed.map((f) => (
               <li key={`fc${f.id}`}>
                 Changed: {f.message}
-                <Concerns id={f.id} content={content} />
+                <Concerns id={f.id} content={lookup} />
                 <span className="block text-ink-muted">
                   Was{f.before.severity !== f.severity ? ` ${SEVERITY_LABEL[f.before.severity].toLowerCase()}` : ''}: {f.before.message}
                 </span>
