@@ -3,6 +3,7 @@ import type { FeatureCollection } from 'geojson';
 import type { FloorLayer } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
 import type { AnalysisView, DragPose, FromWorker, ToWorker, WorkerArmModel } from '../workers/analysisProtocol';
+import { createDeltaDecoder } from '../workers/analysisDelta';
 
 export interface LiveAnalysis {
   /** The latest result (of the content, or of the content with a drag pose); null until the first. */
@@ -45,8 +46,11 @@ export function useAnalysisWorker(input: {
   useEffect(() => {
     const w = new Worker(new URL('../workers/analysis.worker.ts', import.meta.url), { type: 'module', name: 'layout-analysis' });
     worker.current = w;
+    const decoder = createDeltaDecoder();
     w.onmessage = (event: MessageEvent<FromWorker>) => {
       const msg = event.data;
+      // Every delta is applied in the order sent, also one too old to show: the next builds on it.
+      const decoded = msg.type === 'result' ? decoder.decode(msg.delta) : null;
       if (msg.seq < shown.current) return;
       shown.current = msg.seq;
       setBusy(msg.seq < seq.current);
@@ -57,7 +61,7 @@ export function useAnalysisWorker(input: {
         return;
       }
       setError(null);
-      setView({ analysis: msg.analysis, maxSpaces: msg.maxSpaces, placed: msg.placed, section: msg.section ?? null, dragging: msg.dragging });
+      if (decoded && msg.type === 'result') setView({ ...decoded, section: decoded.section ?? null, dragging: msg.dragging });
     };
     w.onerror = (event) => {
       setError(event.message || 'The analysis could not start in this browser.');

@@ -8,9 +8,13 @@ import { armReachFor } from '@shared/analysis';
 import { readableMessage } from '@shared/schemas/errors';
 import type { FromWorker, ToWorker } from './analysisProtocol';
 import { createAnalysisSession } from './analysisSession';
+import { createDeltaEncoder } from './analysisDelta';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 const session = createAnalysisSession(armReachFor);
+// Results cross as deltas against the previous one sent: a whole result of a large layout takes
+// longer to copy between threads than to compute.
+const encoder = createDeltaEncoder();
 /** Shown for an internal failure, whose own text is no message for people. */
 const FAILED = 'the checks hit a problem with this layout; undo the last change or reload the page';
 let scheduled = false;
@@ -20,7 +24,10 @@ function runLatest(): void {
   let out: FromWorker | null = null;
   try {
     const r = session.run();
-    if (r) out = { type: 'result', ...r };
+    if (r) {
+      const { seq, dragging, ...view } = r;
+      out = { type: 'result', seq, dragging, delta: encoder.encode(view) };
+    }
   } catch (err) {
     console.error(err);
     out = { type: 'error', seq: session.currentSeq(), message: readableMessage(err, FAILED) };

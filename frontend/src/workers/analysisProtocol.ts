@@ -9,6 +9,7 @@ import type { SectionResult } from '@shared/analysis';
 import type { AnalysisResult } from '@shared/analysis';
 import type { AreaGeometry } from '@shared/geometry';
 import type { LayoutContent } from '@shared/schemas/layout';
+import type { ViewDelta } from './analysisDelta';
 
 /** An arm model as the worker needs it: its id and kinematic parameters (as the catalogue API sends them). */
 export interface WorkerArmModel {
@@ -42,6 +43,10 @@ export interface AnalysisView {
   section?: SectionResult | null;
 }
 
+/**
+ * A result crosses as a delta against the previous one sent (analysisDelta.ts); the page decodes
+ * every delta in order, also those too old to show.
+ */
 export type FromWorker =
-  | ({ type: 'result'; seq: number; dragging: boolean } & AnalysisView)
+  | { type: 'result'; seq: number; dragging: boolean; delta: ViewDelta }
   | { type: 'error'; seq: number; message: string };

@@ -1,0 +1,202 @@
+/**
+ * What crosses from the analysis worker to the page after the first result: only what changed.
+ * A structured clone of a whole result of a large cell layout (100 arms, 50 000 work points: some
+ * 11 MB of findings, margins and regions) costs hundreds of milliseconds per drag frame, while one
+ * moved arm changes a few hundred findings, the margins of the points near it and its own regions.
+ * The worker's encoder remembers what it sent; the page's decoder rebuilds the whole view from the
+ * deltas in the order they were sent. Pure; the round trip is tested against the full views.
+ */
+import type { AnalysisResult, Finding } from '@shared/analysis';
+import type { AreaGeometry } from '@shared/geometry';
+import type { AnalysisView } from './analysisProtocol';
+
+type Region = AnalysisResult['regions'][string];
+type CoverageRow = AnalysisResult['coverage'][string];
+
+/** One result as it crosses: the parts that changed since the previous one sent. */
+export interface ViewDelta {
+  /** The decoder starts afresh from this delta (it carries everything). */
+  reset: boolean;
+  /** Finding ids in the result's order; null when the order is the previous one's. */
+  findingOrder: string[] | null;
+  /** Findings new or changed since the previous result sent (all of them on a reset). */
+  findings: Finding[];
+  coverage: Record<string, CoverageRow>;
+  coverageRemoved: string[];
+  regions: Record<string, Region>;
+  regionsRemoved: string[];
+  maxSpaces: Record<string, AreaGeometry | null>;
+  maxSpacesRemoved: string[];
+  /** Small parts, always whole. */
+  sharedZones: AnalysisResult['sharedZones'];
+  safeguarding: AnalysisResult['safeguarding'];
+  timingMs: number;
+  placed: AnalysisView['placed'];
+  section: AnalysisView['section'];
+}
+
+function sameRow(a: CoverageRow, b: CoverageRow): boolean {
+  let n = 0;
+  for (const k in a) {
+    if (a[k] !== b[k]) return false;
+    n++;
+  }
+  for (const _k in b) n--;
+  return n === 0;
+}
+
+function sameRegion(a: Region, b: Region): boolean {
+  if (a === b) return true;
+  if (a.restricted !== b.restricted || a.bands.length !== b.bands.length) return false;
+  return a.bands.every((x, i) => x.height === b.bands[i].height && x.geometry === b.bands[i].geometry);
+}
+
+/**
+ * The worker side: `encode(view)` gives the delta against the previous view it encoded. Objects the
+ * analyzer keeps between runs (findings, regions and maximum spaces of arms that did not move) are
+ * recognised by identity; coverage rows, which the analyzer updates in place, by their values.
+ */
+export function createDeltaEncoder() {
+  let started = false;
+  let findings = new Map<string, Finding>();
+  let lastOrder: string[] = [];
+  const coverage = new Map<string, CoverageRow>();
+  let regions = new Map<string, Region>();
+  let maxSpaces = new Map<string, AreaGeometry | null>();
+
+  return {
+    encode(view: AnalysisView): ViewDelta {
+      const a = view.analysis;
+      const reset = !started;
+      started = true;
+      const nextFindings = new Map<string, Finding>();
+      const changed: Finding[] = [];
+      const order: string[] = [];
+      let duplicate = false;
+      for (const f of a.findings) {
+        if (nextFindings.has(f.id)) duplicate = true;
+        nextFindings.set(f.id, f);
+        order.push(f.id);
+        if (reset || findings.get(f.id) !== f) changed.push(f);
+      }
+      // Ids are unique by construction (findingId); should two ever share one, send the list whole.
+      const wholeFindings = duplicate;
+      findings = duplicate ? new Map() : nextFindings;
+      const sameOrder = !reset && !wholeFindings && order.length === lastOrder.length && order.every((id, i) => id === lastOrder[i]);
+      lastOrder = wholeFindings ? [] : order;
+
+      const cov: Record<string, CoverageRow> = {};
+      const pids = Object.keys(a.coverage);
+      const sizeBefore = coverage.size;
+      let added = 0;
+      for (const pid of pids) {
+        const row = a.coverage[pid];
+        const prev = coverage.get(pid);
+        if (prev === undefined) added++;
+        if (reset || prev === undefined || !sameRow(prev, row)) {
+          const copy = { ...row };
+          cov[pid] = copy;
+          coverage.set(pid, copy);
+        }
+      }
+      // Points gone since the last result: only looked for when the counts say there are some.
+      const coverageRemoved: string[] = [];
+      if (sizeBefore + added > pids.length) {
+        const now = new Set(pids);
+        for (const pid of coverage.keys()) if (!now.has(pid)) coverageRemoved.push(pid);
+        for (const pid of coverageRemoved) coverage.delete(pid);
+      }
+
+      const reg: Record<string, Region> = {};
+      const nextRegions = new Map<string, Region>();
+      for (const id in a.regions) {
+        const r = a.regions[id];
+        nextRegions.set(id, r);
+        const prev = regions.get(id);
+        if (reset || !prev || !sameRegion(prev, r)) reg[id] = r;
+      }
+      const regionsRemoved = [...regions.keys()].filter((id) => !nextRegions.has(id));
+      regions = nextRegions;
+
+      const spaces: Record<string, AreaGeometry | null> = {};
+      const nextSpaces = new Map<string, AreaGeometry | null>();
+      for (const id in view.maxSpaces) {
+        const g = view.maxSpaces[id];
+        nextSpaces.set(id, g);
+        if (reset || !maxSpaces.has(id) || maxSpaces.get(id) !== g) spaces[id] = g;
+      }
+      const maxSpacesRemoved = [...maxSpaces.keys()].filter((id) => !nextSpaces.has(id));
+      maxSpaces = nextSpaces;
+
+      return {
+        reset: reset || wholeFindings,
+        findingOrder: wholeFindings ? [] : sameOrder ? null : order,
+        findings: wholeFindings ? a.findings.slice() : changed,
+        coverage: cov,
+        coverageRemoved,
+        regions: reg,
+        regionsRemoved,
+        maxSpaces: spaces,
+        maxSpacesRemoved,
+        sharedZones: a.sharedZones,
+        safeguarding: a.safeguarding,
+        timingMs: a.timingMs,
+        placed: view.placed,
+        section: view.section ?? null,
+      };
+    },
+  };
+}
+
+/**
+ * The page side: `decode(delta)` applies every delta in the order sent (also those too old to show)
+ * and returns the whole view. Each part that changed is a new object, each that did not keeps its
+ * identity, so memoised drawing redoes only what changed.
+ */
+export function createDeltaDecoder() {
+  const findings = new Map<string, Finding>();
+  let order: string[] = [];
+  let coverage: AnalysisResult['coverage'] = {};
+  let regions: AnalysisResult['regions'] = {};
+  let maxSpaces: AnalysisView['maxSpaces'] = {};
+
+  const patch = <T,>(base: Record<string, T>, changed: Record<string, T>, removed: string[], reset: boolean): Record<string, T> => {
+    if (reset) return { ...changed };
+    let any = removed.length > 0;
+    for (const _k in changed) {
+      any = true;
+      break;
+    }
+    if (!any) return base;
+    const out = { ...base, ...changed };
+    for (const k of removed) delete out[k];
+    return out;
+  };
+
+  return {
+    decode(d: ViewDelta): AnalysisView {
+      let list: Finding[];
+      if (d.reset && d.findingOrder !== null && d.findingOrder.length === 0 && d.findings.length > 0) {
+        // Sent whole (ids not unique): keep no map.
+        findings.clear();
+        order = [];
+        list = d.findings;
+      } else {
+        if (d.reset) findings.clear();
+        for (const f of d.findings) findings.set(f.id, f);
+        if (d.findingOrder !== null) order = d.findingOrder;
+        list = order.map((id) => findings.get(id)!);
+        if (findings.size !== order.length) {
+          const keep = new Set(order);
+          for (const id of [...findings.keys()]) if (!keep.has(id)) findings.delete(id);
+        }
+      }
+      coverage = patch(coverage, d.coverage, d.coverageRemoved, d.reset);
+      regions = patch(regions, d.regions, d.regionsRemoved, d.reset);
+      maxSpaces = patch(maxSpaces, d.maxSpaces, d.maxSpacesRemoved, d.reset);
+      const analysis: AnalysisResult = { findings: list, sharedZones: d.sharedZones, coverage, regions, timingMs: d.timingMs };
+      if (d.safeguarding !== undefined) analysis.safeguarding = d.safeguarding;
+      return { analysis, maxSpaces, placed: d.placed, section: d.section };
+    },
+  };
+}
