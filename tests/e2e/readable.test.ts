@@ -18,16 +18,20 @@ beforeAll(async () => {
 afterAll(async () => e?.close());
 
 /** Makes a cell layout in the demo project through the page's session; returns its ids. */
-async function makeLayout(page: Page, name: string, farArms: boolean): Promise<{ projectId: number; layoutId: number }> {
+async function makeLayout(page: Page, name: string, farArms: boolean, farPoints = 0): Promise<{ projectId: number; layoutId: number }> {
   return page.evaluate(
-    async ({ projectName, layoutName, withArms }) => {
+    async ({ projectName, layoutName, withArms, far }) => {
       const { projects } = await (await fetch('/api/projects')).json();
       const project = projects.find((p: { name: string }) => p.name === projectName);
       const { armModels } = await (await fetch('/api/arm-models')).json();
       const arm = (id: string, x: number) => ({ id, armModelId: armModels[0].id, label: '', x, y: 0, yaw: 0, mountHeight: 0 });
       const content = {
         arms: withArms ? [arm('R1', 0), arm('R2', 40_000)] : [],
-        workPoints: withArms ? [{ id: 'P1', x: 300, y: 0, z: 0, approach: 'any', tag: '' }] : [],
+        workPoints: [
+          ...(withArms ? [{ id: 'P1', x: 300, y: 0, z: 0, approach: 'any', tag: '' }] : []),
+          // Points no arm reaches, each its own finding.
+          ...Array.from({ length: far }, (_, i) => ({ id: `Q${i + 1}`, x: 100_000 + i * 100, y: 50_000, z: 0, approach: 'any', tag: '' })),
+        ],
         boundaries: [],
         workHeights: [],
       };
@@ -39,7 +43,7 @@ async function makeLayout(page: Page, name: string, farArms: boolean): Promise<{
       if (!r.ok) throw new Error(`create layout: ${r.status} ${await r.text()}`);
       return { projectId: project.id, layoutId: (await r.json()).layout.id };
     },
-    { projectName: DEMO_PROJECT, layoutName: name, withArms: farArms },
+    { projectName: DEMO_PROJECT, layoutName: name, withArms: farArms, far: farPoints },
   );
 }
 
@@ -85,6 +89,15 @@ describe('readable outputs in Chromium', () => {
     const blank = await makeLayout(page, 'Nothing yet', false);
     await openEditor(page, blank.projectId, blank.layoutId);
     expect(await page.locator('[data-no-findings]').innerText()).toBe('Nothing to check yet: place an arm or add work points, and the checks run as you edit.');
+    // A long list shows a page at a time.
+    const many = await makeLayout(page, 'Many unreached points', true, 250);
+    await openEditor(page, many.projectId, many.layoutId);
+    await page.locator('[data-more-findings]').waitFor();
+    expect(await page.locator('[data-kind="unreached-point"]').count()).toBe(200);
+    expect(await page.locator('[data-more-findings]').innerText()).toBe('Show 50 more (50 not shown)');
+    await page.locator('[data-more-findings]').click();
+    await page.locator('[data-more-findings]').waitFor({ state: 'detached' });
+    expect(await page.locator('[data-kind="unreached-point"]').count()).toBe(250);
     await page.close();
   }, 120_000);
 });

@@ -1,4 +1,4 @@
-import { useMemo } from 'react';
+import { memo, useMemo, useState } from 'react';
 import { ConcernLookup, concernsText, findingConcerns, noFindingsSentence, type CheckedFloor, type ConcernContent, type Finding, type Severity } from '@shared/analysis';
 import { CAUTION_TEXT } from '@shared/safety';
 import { cn } from '../../lib/cn';
@@ -59,11 +59,39 @@ export interface FindingsPanelProps {
   timingMs: number | null;
 }
 
+/** Findings shown at first, and added per "Show more". */
+export const FINDINGS_PAGE = 200;
+
+/** One finding of the list; unchanged findings keep their identity between results, so they are not drawn again. */
+const FindingRow = memo(function FindingRow({ finding: f, lookup, selected, onPick }: { finding: Finding; lookup: ConcernLookup; selected: boolean; onPick(f: Finding): void }) {
+  return (
+    <li className="border-b border-rule last:border-b-0">
+      <button
+        type="button"
+        onClick={() => onPick(f)}
+        aria-pressed={selected}
+        data-finding={f.id}
+        data-kind={f.kind}
+        className={cn('flex w-full items-start gap-2 px-3 py-2 text-left text-sm hover:bg-paper', selected && SEVERITY_WASH[f.severity])}
+      >
+        <SeverityIcon severity={f.severity} className="mt-0.5" />
+        <span className="sr-only">{SEVERITY_TEXT[f.severity]}:</span>
+        <FindingText finding={f} content={lookup} />
+      </button>
+    </li>
+  );
+});
+
 /** The live findings: severity, message, what each concerns; a click selects the arms involved and shows the spot. */
 export function FindingsPanel({ findings, content, floor, selectedId, onPick, busy, error, timingMs }: FindingsPanelProps) {
   const counts = { critical: 0, warning: 0, info: 0 } as Record<Severity, number>;
   for (const f of findings ?? []) counts[f.severity]++;
   const lookup = useMemo(() => new ConcernLookup(content), [content]);
+  // Long lists (thousands of unreached points on a large layout) show a page at a time; the
+  // selected finding is always among those shown.
+  const [limit, setLimit] = useState(FINDINGS_PAGE);
+  const selectedAt = selectedId && findings ? findings.findIndex((f) => f.id === selectedId) : -1;
+  const upto = Math.max(limit, selectedAt + 1);
   return (
     <section aria-labelledby="findings-heading" className="flex min-h-0 flex-col rounded-control border border-rule bg-paper-raised">
       <header className="flex items-baseline gap-2 border-b border-rule px-3 py-2">
@@ -91,25 +119,16 @@ export function FindingsPanel({ findings, content, floor, selectedId, onPick, bu
             {noFindingsSentence(content, floor)}
           </li>
         )}
-        {findings?.map((f) => (
-          <li key={f.id} className="border-b border-rule last:border-b-0">
-            <button
-              type="button"
-              onClick={() => onPick(f)}
-              aria-pressed={f.id === selectedId}
-              data-finding={f.id}
-              data-kind={f.kind}
-              className={cn(
-                'flex w-full items-start gap-2 px-3 py-2 text-left text-sm hover:bg-paper',
-                f.id === selectedId && SEVERITY_WASH[f.severity],
-              )}
-            >
-              <SeverityIcon severity={f.severity} className="mt-0.5" />
-              <span className="sr-only">{SEVERITY_TEXT[f.severity]}:</span>
-              <FindingText finding={f} content={lookup} />
+        {findings?.slice(0, upto).map((f) => (
+          <FindingRow key={f.id} finding={f} lookup={lookup} selected={f.id === selectedId} onPick={onPick} />
+        ))}
+        {findings && findings.length > upto && (
+          <li className="px-3 py-2">
+            <button type="button" className="text-xs font-bold text-accent underline-offset-2 hover:underline" onClick={() => setLimit(upto + FINDINGS_PAGE)} data-more-findings>
+              Show {Math.min(FINDINGS_PAGE, findings.length - upto)} more ({findings.length - upto} not shown)
             </button>
           </li>
-        ))}
+        )}
       </ul>
       <footer className="border-t border-rule bg-paper-sunk px-3 py-2 text-[11px] leading-snug text-ink-muted" data-caution>
         {PLANNING_CAUTION}

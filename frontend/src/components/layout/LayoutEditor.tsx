@@ -297,11 +297,15 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
     return () => document.removeEventListener('keydown', onKey, true);
   }, [ed, edit, readOnly, selectedArm, selectedBoundary, tool]);
 
-  function pickFinding(f: Finding) {
-    setSelection({ kind: 'finding', id: f.id });
-    const b = findingBounds(f);
-    if (b && canvas) canvas.fit(b, { animate: true });
-  }
+  // Stable, so the findings list's rows that did not change are not drawn again.
+  const pickFinding = useCallback(
+    (f: Finding) => {
+      setSelection({ kind: 'finding', id: f.id });
+      const b = findingBounds(f);
+      if (b && canvas) canvas.fit(b, { animate: true });
+    },
+    [canvas],
+  );
 
   async function keepMineAsCopy() {
     const copy = await createLayout.mutateAsync({ name: `${layout.name} (my copy)`.slice(0, 160), floorPlanId: layout.floorPlanId, content: contentRef.current });
