@@ -12,6 +12,8 @@
 // Figures depend on the machine and what else runs on it: each line carries the 1-minute load.
 // A missed target is printed, never an exit code; only a crash exits non-zero.
 // Run: npm run bench browser
+import { mkdirSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { buildClientIfNeeded } from '../../backend/scripts/clientBuild';
 import { ensureDatabase } from '../../backend/scripts/pg';
@@ -250,7 +252,23 @@ async function benchDrag(browser: Browser, state: Parameters<typeof newEditorPag
     // Arms near the middle of the list: their bases sit inside the fitted view, away from its edges.
     const picks = Array.from({ length: drags }, (_, i) => arms[Math.floor(((i + 1) * arms.length) / (drags + 1))]);
     const runs: DragFigures[] = [];
+    // BENCH_BROWSER_PROFILE=dir: a CPU profile of the page's main thread during the drags (open it in
+    // Chromium's DevTools), one file per layout.
+    const profileDir = process.env.BENCH_BROWSER_PROFILE;
+    const cdp = profileDir ? await page.context().newCDPSession(page) : null;
+    if (cdp) {
+      await cdp.send('Profiler.enable');
+      await cdp.send('Profiler.start');
+    }
     for (let i = 0; i < picks.length; i++) runs.push(await dragArm(page, picks[i], i % 2 ? -1 : 1));
+    if (cdp && profileDir) {
+      const { profile } = await cdp.send('Profiler.stop');
+      mkdirSync(profileDir, { recursive: true });
+      const file = path.join(profileDir, `drag-${label.split(' ')[0]}-arms.cpuprofile`);
+      writeFileSync(file, JSON.stringify(profile));
+      console.log(`main-thread profile of the drags: ${file}`);
+      await cdp.detach().catch(() => {});
+    }
     const frames = runs.flatMap((r) => r.frames);
     const what = `${label}: drag (${drags} drag${drags > 1 ? 's' : ''} × ${DRAG_STEPS} moves, ${frames.length} frames)`;
     report(`${what} frame time p50`, percentile(frames, 50), 'ms', FRAME_TARGET_MS);

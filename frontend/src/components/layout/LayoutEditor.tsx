@@ -100,6 +100,11 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
   // What the last search was for, so a candidate can be placed as the search meant it.
   const [placeFor, setPlaceFor] = useState<{ armId?: string; armModelId: number; mountHeight: number; restrict?: { j1Min: number; j1Max: number } } | null>(null);
   const findings = live.view?.analysis.findings ?? null;
+  // The tables under the plan (work points, coverage, shared zones) follow the analysis once a drag
+  // ends: redrawing tens of thousands of rows for every pose of a drag would hold up the plan.
+  const liveAnalysis = live.view?.analysis ?? null;
+  const [panelAnalysis, setPanelAnalysis] = useState(liveAnalysis);
+  if (!live.view?.dragging && panelAnalysis !== liveAnalysis) setPanelAnalysis(liveAnalysis);
   const selectedFinding = selection?.kind === 'finding' ? (findings?.find((f) => f.id === selection.id) ?? null) : null;
   const highlightArms = useMemo(() => (selectedFinding ? new Set(selectedFinding.arms) : NO_HIGHLIGHT), [selectedFinding]);
 
@@ -431,7 +436,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
       <LayoutPanels
         layoutName={layout.name}
         content={content}
-        analysis={live.view?.analysis ?? null}
+        analysis={panelAnalysis}
         armModels={modelList}
         readOnly={readOnly}
         onEdit={panelEdit}
