@@ -91,3 +91,41 @@ describe('filterWorkPointRows', () => {
     expect(filterWorkPointRows(rows, '  ').length).toBe(3);
   });
 });
+
+describe('pointCoverage walks only the arms near a point', () => {
+  // Reference: the plain walk over every arm of the layout in its order (first best wins a tie).
+  function reference(row: Record<string, number> | undefined, armIds: string[]) {
+    if (!row) return { best: null, bestArm: null, reachedBy: [] as string[] };
+    let best: number | null = null;
+    let bestArm: string | null = null;
+    const reached: Array<[string, number]> = [];
+    for (const a of armIds) {
+      const m = row[a];
+      if (typeof m !== 'number' || Number.isNaN(m)) continue;
+      if (best === null || m > best) {
+        best = m;
+        bestArm = a;
+      }
+      if (m >= 0) reached.push([a, m]);
+    }
+    reached.sort((p, q) => q[1] - p[1] || (p[0] < q[0] ? -1 : 1));
+    return { best, bestArm, reachedBy: reached.map(([a]) => a) };
+  }
+
+  it('gives the same best arm, margin and reaching arms as the walk over every arm, ties and strangers included', () => {
+    let seed = 42;
+    const rand = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+    const armIds = Array.from({ length: 30 }, (_, i) => `R${i + 1}`);
+    for (let n = 0; n < 2000; n++) {
+      const row: Record<string, number> = {};
+      const k = Math.floor(rand() * 6);
+      for (let j = 0; j < k; j++) {
+        const arm = rand() < 0.1 ? `X${j}` : armIds[Math.floor(rand() * armIds.length)];
+        // Few distinct values, so ties (and the 0 mm edge) come up often.
+        row[arm] = [-20, -0.5, 0, 0, 15, 15, 120][Math.floor(rand() * 7)];
+      }
+      expect(pointCoverage(row, armIds)).toEqual(reference(row, armIds));
+    }
+    expect(pointCoverage(undefined, armIds)).toEqual(reference(undefined, armIds));
+  });
+});

@@ -19,17 +19,24 @@ export interface WorkPointRow extends PointCoverage {
 }
 
 /** Best margin and reaching arms of one coverage row (armId → margin mm); arms not in `armIds` are skipped. */
-export function pointCoverage(row: Record<string, number> | undefined, armIds: ReadonlyArray<string>): PointCoverage {
+export function pointCoverage(row: Record<string, number> | undefined, armIds: ReadonlyArray<string>, order?: ReadonlyMap<string, number>): PointCoverage {
   if (!row) return { best: null, bestArm: null, reachedBy: [] };
+  // A row names only the arms near the point: walk its own entries (a handful) rather than every
+  // arm of the layout, and break ties by the layout's arm order as before.
+  const index = order ?? new Map(armIds.map((a, i) => [a, i]));
   let best: number | null = null;
   let bestArm: string | null = null;
+  let bestAt = Infinity;
   const reached: Array<[string, number]> = [];
-  for (const a of armIds) {
+  for (const a in row) {
+    const at = index.get(a);
+    if (at === undefined) continue;
     const m = row[a];
     if (typeof m !== 'number' || Number.isNaN(m)) continue;
-    if (best === null || m > best) {
+    if (best === null || m > best || (m === best && at < bestAt)) {
       best = m;
       bestArm = a;
+      bestAt = at;
     }
     if (isReached(m)) reached.push([a, m]);
   }
@@ -39,7 +46,8 @@ export function pointCoverage(row: Record<string, number> | undefined, armIds: R
 
 /** Table rows of the layout's work points with their coverage (none when there is no analysis yet). */
 export function workPointRows(points: ReadonlyArray<WorkPoint>, armIds: ReadonlyArray<string>, analysis: AnalysisResult | null): WorkPointRow[] {
-  return points.map((point) => ({ point, ...pointCoverage(analysis?.coverage[point.id], armIds) }));
+  const order = new Map(armIds.map((a, i) => [a, i]));
+  return points.map((point) => ({ point, ...pointCoverage(analysis?.coverage[point.id], armIds, order) }));
 }
 
 /** The table columns a user may edit in place. */
