@@ -39,3 +39,18 @@ export function geometryPath(g: Geometry | null | undefined): string {
       return '';
   }
 }
+
+/** The geometry each path element was last drawn from (an element not in the map has not been drawn). */
+const drawnFrom = new WeakMap<Element, Geometry | null>();
+
+/**
+ * Sets a path element's `d` from a geometry only when the geometry object is not the one it was
+ * last drawn from: results that keep unchanged geometry by identity (the analysis worker's deltas)
+ * cost no path string and no attribute change for it.
+ */
+export function setPathGeometry(el: Element, g: Geometry | null | undefined): void {
+  const geometry = g ?? null;
+  if (drawnFrom.has(el) && drawnFrom.get(el) === geometry) return;
+  drawnFrom.set(el, geometry);
+  el.setAttribute('d', geometryPath(geometry));
+}

@@ -8,7 +8,7 @@ import { isReached } from '@shared/analysis';
 import type { AreaGeometry } from '@shared/geometry';
 import type { ArmPlacement, LayoutContent, Boundary } from '@shared/schemas/layout';
 import { BOUNDARY_STYLES, type MarkKind, type ScreenLook } from '@shared/style/boundaryStyles';
-import { geometryPath } from '../../plan/pathData';
+import { geometryPath, setPathGeometry } from '../../plan/pathData';
 import type { PlanViewState } from '../../plan/planTypes';
 import type { AnalysisView } from '../../workers/analysisProtocol';
 
@@ -119,23 +119,29 @@ export function drawReach(layer: G, data: readonly ArmRegionsDatum[]): void {
     .attr('transform', (d) => d.transform);
   const { restricted, maxSpace, band } = BOUNDARY_STYLES;
   groups
-    .select('path.reach-restricted')
-    .attr('d', (d) => geometryPath(d.restricted))
+    .select<SVGPathElement>('path.reach-restricted')
+    .each(function (d) {
+      setPathGeometry(this, d.restricted);
+    })
     .style('fill', restricted.screen.fill)
     .style('fill-opacity', (d) => (d.emphasis ? restricted.screen.fillOpacityEmphasis : restricted.screen.fillOpacity))
     .style('stroke', restricted.screen.colour)
     .style('stroke-opacity', restricted.screen.strokeOpacity)
     .style('stroke-width', restricted.screen.width);
   groups
-    .select('path.reach-max')
-    .attr('d', (d) => geometryPath(d.max))
+    .select<SVGPathElement>('path.reach-max')
+    .each(function (d) {
+      setPathGeometry(this, d.max);
+    })
     .style('stroke', maxSpace.screen.colour)
     .style('stroke-opacity', maxSpace.screen.strokeOpacity)
     .style('stroke-width', maxSpace.screen.width)
     .style('stroke-dasharray', maxSpace.screen.dash);
   groups
-    .select('path.reach-band')
-    .attr('d', (d) => geometryPath(d.band))
+    .select<SVGPathElement>('path.reach-band')
+    .each(function (d) {
+      setPathGeometry(this, d.band);
+    })
     .style('stroke', band.screen.colour)
     .style('stroke-width', (d) => (d.emphasis ? band.screen.widthEmphasis : band.screen.width))
     .style('stroke-dasharray', band.screen.dash);
