@@ -98,6 +98,9 @@ describe('readable outputs in Chromium', () => {
     await page.locator('[data-more-findings]').click();
     await page.locator('[data-more-findings]').waitFor({ state: 'detached' });
     expect(await page.locator('[data-kind="unreached-point"]').count()).toBe(250);
+    // …and the plan draws each of them as a red cross (two strokes each).
+    const red = (await page.locator('path.points-unreached').getAttribute('d')) ?? '';
+    expect(red.match(/M/g)?.length).toBe(500);
     await page.close();
   }, 120_000);
 });

@@ -187,15 +187,29 @@ export function drawLineBoundaries(layer: G, boundaries: readonly Boundary[], se
     .style('cursor', 'pointer');
 }
 
+/** What each work-point layer was last drawn from. */
+const drawnPoints = new WeakMap<Element, { points: LayoutContent['workPoints']; s: number; selected: string | null; reached: Uint8Array }>();
+
 /** Work points as small crosses (plan space, ~5 px arms); red where no arm reaches them. */
 export function drawWorkPoints(layer: G, content: LayoutContent, coverage: Record<string, Record<string, number>> | null, view: PlanViewState, selectedPoint: string | null): void {
   const s = 5 / (view.transform.k || 1);
+  // Tens of thousands of crosses: drawn again only when the points, the zoom, the selection or
+  // which points are reached changed (a drag result usually changes none of them).
+  const reachedNow = new Uint8Array(content.workPoints.length);
+  content.workPoints.forEach((p, i) => {
+    const row = coverage?.[p.id];
+    reachedNow[i] = !row || content.arms.length === 0 || Object.values(row).some(isReached) ? 1 : 0;
+  });
+  const node = layer.node();
+  const last = node ? drawnPoints.get(node) : undefined;
+  if (last && last.points === content.workPoints && last.s === s && last.selected === selectedPoint && last.reached.length === reachedNow.length && last.reached.every((v, i) => v === reachedNow[i])) return;
+  if (node) drawnPoints.set(node, { points: content.workPoints, s, selected: selectedPoint, reached: reachedNow });
   let ok = '';
   let bad = '';
   let sel = '';
-  for (const p of content.workPoints) {
-    const row = coverage?.[p.id];
-    const reached = !row || content.arms.length === 0 || Object.values(row).some(isReached);
+  for (let i = 0; i < content.workPoints.length; i++) {
+    const p = content.workPoints[i];
+    const reached = reachedNow[i] === 1;
     const d = `M${p.x - s},${p.y - s}L${p.x + s},${p.y + s}M${p.x - s},${p.y + s}L${p.x + s},${p.y - s}`;
     if (p.id === selectedPoint) sel += d;
     else if (reached) ok += d;
