@@ -487,6 +487,8 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
   };
   const { gx0: fgx0, gy0: fgy0, nx: fnx, ny: fny, invCell: fInv, ints: fInts, floats: fFloats } = fine;
   const fCell = fine.cell * (1 + 1e-12);
+  // The queries below each write out the cell pick and the edge loop: helpers handing back a
+  // second value (through a closure variable or a typed-array slot) measured 15–20 % slower.
   // The query is the hottest loop of the analysis, and kept small enough for the compiler to
   // inline it into its caller: the fine cell's record entries nearest first, stopping once
   // dist(c, e) − |p − c| cannot beat the best distance found; a point off the fine level, or a
