@@ -222,26 +222,23 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
     // other's margin.
     const gB = g.upperBoundMirrored(rho, zt);
     const ubA = Math.min(arcA, g.upperBound(rho, zt));
-    if (ubA >= gB) {
-      const mA = combine(g.signedDistance(rho, zt), arcA);
-      if (gB <= mA) return mA;
-      if (sideways) arcB = arcBack(bearing, rho);
-      if (arcB <= mA) return mA;
-      const mB = combine(g.signedDistance(-rho, zt), arcB);
-      return mA > mB ? mA : mB;
+    // With a sideways spread the way behind's arc costs two asin: worked out only when needed.
+    let arcKnown = !sideways;
+    if (!arcKnown && ubA < gB) {
+      arcB = arcBack(bearing, rho);
+      arcKnown = true;
     }
-    if (sideways) arcB = arcBack(bearing, rho);
-    const ubB = Math.min(arcB, gB);
-    if (ubA >= ubB) {
-      const mA = combine(g.signedDistance(rho, zt), arcA);
-      if (ubB <= mA) return mA;
-      const mB = combine(g.signedDistance(-rho, zt), arcB);
-      return mA > mB ? mA : mB;
+    const ubB = arcKnown ? Math.min(arcB, gB) : gB;
+    const aFirst = ubA >= ubB;
+    const first = aFirst ? rho : -rho;
+    const m1 = combine(g.signedDistance(first, zt), aFirst ? arcA : arcB);
+    if ((aFirst ? ubB : ubA) <= m1) return m1;
+    if (!arcKnown) {
+      arcB = arcBack(bearing, rho);
+      if (arcB <= m1) return m1;
     }
-    const mB = combine(g.signedDistance(-rho, zt), arcB);
-    if (ubA <= mB) return mB;
-    const mA = combine(g.signedDistance(rho, zt), arcA);
-    return mA > mB ? mA : mB;
+    const m2 = combine(g.signedDistance(-first, zt), aFirst ? arcB : arcA);
+    return m1 > m2 ? m1 : m2;
   };
 }
 
