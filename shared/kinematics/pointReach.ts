@@ -98,7 +98,9 @@ function outlineSimplifyMm(profile: ReachProfile): number {
 /** Margin region (polygons and distance grid) of each cached reach profile. */
 const regionCache = new WeakMap<ReachProfile, { polygons: Polygon2[]; grid: DistanceGrid }>();
 
-function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
+const HALF_PI = Math.PI / 2;
+
+function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, shareRegion: boolean): MarginFn {
   const drop = toolDrop(model);
   if (model.family === 'scara') {
     const s = model as ScaraParams;
@@ -124,11 +126,11 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
   const yHi = spread.max;
   const sideways = yLo !== 0 || yHi !== 0;
   // The region and its grid depend on the profile alone, not on the restricting limits: shared.
-  let region = regionCache.get(profile);
+  let region = shareRegion ? regionCache.get(profile) : undefined;
   if (!region) {
     const polys = profile.method === 'sampled' ? simplifyPolygonsOutward(profile.polygons, outlineSimplifyMm(profile)) : profile.polygons;
     region = { polygons: polys, grid: buildDistanceGrid(polys) };
-    regionCache.set(profile, region);
+    if (shareRegion) regionCache.set(profile, region);
   }
   const { polygons, grid } = region;
   const tiltable = model.family === 'articulated' || model.family === 'chain';
@@ -143,6 +145,20 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
   };
   const hasNegative = polygons.some((p) => p[0].some(([r]) => r < 0));
   const TWO_PI = 2 * Math.PI;
+  if (a1 - a0 >= TWO_PI - 1e-9) {
+    // A full J1 window (widened further by any sideways spread): no J1 edge applies, so the margin
+    // is the profile distance of the better way to the bearing, and no angle is needed.
+    return (x, y, z, approach) => {
+      const tilt = approach === 'any' && tiltable && reachTool > 0;
+      const g = tilt ? anyGridOf() : grid;
+      const zt = tilt ? z : z + drop;
+      const rho = Math.sqrt(x * x + y * y);
+      if (rho < 1e-9) return g.signedDistance(0, zt);
+      if (!hasNegative) return g.signedDistance(rho, zt);
+      // The better way to the bearing, the second looked up only when the grid's bound says it could win.
+      return g.maxMirrored(rho, zt);
+    };
+  }
   /** Arc length (mm) at radius rho from bearing b to the nearer edge of the window [lo, hi]: positive inside, negative outside. */
   const arcIn = (b: number, lo: number, hi: number, rho: number): number => {
     const span = hi - lo;
@@ -155,13 +171,15 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
     return -rho * (o < u ? o : u);
   };
   const asinClamped = (v: number) => Math.asin(v > 1 ? 1 : v < -1 ? -1 : v);
-  /** J1 arc margins of the way in front of the axis (A) and behind it (B) for a point at bearing b, plan distance rho. */
-  const arcFront = (b: number, rho: number): number =>
-    sideways ? arcIn(b, a0 + asinClamped(yLo / rho), a1 + asinClamped(yHi / rho), rho) : arcIn(b, a0, a1, rho);
-  const arcBack = (b: number, rho: number): number =>
-    sideways
-      ? arcIn(b, a0 + Math.PI - asinClamped(yHi / rho), a1 + Math.PI - asinClamped(yLo / rho), rho)
-      : arcIn(b, a0 + Math.PI, a1 + Math.PI, rho);
+  // A fixed window [a0, a1] (no sideways spread): the arc margin is ρ·(half-span − φ) with φ ∈ [0, π]
+  // the angle between the point's bearing and the window's centre line, and behind the axis
+  // (window turned by π) ρ·(half-span − (π − φ)): one atan2 serves both ways.
+  const half = (a1 - a0) / 2;
+  const cc = Math.cos(a0 + half);
+  const sc = Math.sin(a0 + half);
+  /** J1 arc margins of the way in front of the axis (A) and behind it (B) for a point at bearing b, plan distance rho (sideways spread only). */
+  const arcFront = (b: number, rho: number): number => arcIn(b, a0 + asinClamped(yLo / rho), a1 + asinClamped(yHi / rho), rho);
+  const arcBack = (b: number, rho: number): number => arcIn(b, a0 + Math.PI - asinClamped(yHi / rho), a1 + Math.PI - asinClamped(yLo / rho), rho);
   return (x, y, z, approach) => {
     const tilt = approach === 'any' && tiltable && reachTool > 0;
     const g = tilt ? anyGridOf() : grid;
@@ -170,34 +188,57 @@ function buildMargin(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
     // On the J1 axis every bearing is the same point: no J1 edge applies there.
     if (rho < 1e-9) return g.signedDistance(0, zt);
     // Profiles carry the plan distance from the J1 axis as |r|.
-    const bearing = Math.atan2(y, x);
-    const arcA = arcFront(bearing, rho);
+    let arcA: number;
+    let arcB = 0;
+    let bearing = 0;
+    if (sideways) {
+      bearing = Math.atan2(y, x);
+      arcA = arcFront(bearing, rho);
+    } else {
+      const crs = cc * y - sc * x;
+      const dot = cc * x + sc * y;
+      const ac = crs < 0 ? -crs : crs;
+      // Lower bounds of both arcs without an angle (sin φ = ac/ρ; φ ≤ π/2·sin φ in front of the
+      // centre line, φ ≤ π − sin φ behind it, and the mirror bounds for the way behind): an arc
+      // at least as large as its way's distance (and ≥ 0) leaves combine() at that distance.
+      const slack = 1e-9 * (1 + rho);
+      const lbA = (dot >= 0 ? rho * half - HALF_PI * ac : rho * (half - Math.PI) + ac) - slack;
+      if (!hasNegative) {
+        const d = g.signedDistance(rho, zt);
+        if (lbA >= (d > 0 ? d : 0)) return d;
+        return combine(d, rho * (half - Math.atan2(ac, dot)));
+      }
+      const lbB = (dot >= 0 ? rho * (half - Math.PI) + ac : rho * half - HALF_PI * ac) - slack;
+      const ubGA = g.upperBound(rho, zt);
+      const ubGB = g.upperBoundMirrored(rho, zt);
+      if (lbA >= (ubGA > 0 ? ubGA : 0) && lbB >= (ubGB > 0 ? ubGB : 0)) return g.maxMirrored(rho, zt);
+      const phi = Math.atan2(ac, dot);
+      arcA = rho * (half - phi);
+      arcB = rho * (half - Math.PI + phi);
+    }
     if (!hasNegative) return combine(g.signedDistance(rho, zt), arcA);
     // combine(d, arc) ≤ min(d, arc), and the grid bounds d from above without visiting an edge, so
     // an option is looked up (or even its arc computed) only when its upper bound can beat the
     // other's margin.
-    const gB = g.upperBound(-rho, zt);
+    const gB = g.upperBoundMirrored(rho, zt);
     const ubA = Math.min(arcA, g.upperBound(rho, zt));
-    if (ubA >= gB) {
-      const mA = combine(g.signedDistance(rho, zt), arcA);
-      if (gB <= mA) return mA;
-      const arcB = arcBack(bearing, rho);
-      if (arcB <= mA) return mA;
-      const mB = combine(g.signedDistance(-rho, zt), arcB);
-      return mA > mB ? mA : mB;
+    // With a sideways spread the way behind's arc costs two asin: worked out only when needed.
+    let arcKnown = !sideways;
+    if (!arcKnown && ubA < gB) {
+      arcB = arcBack(bearing, rho);
+      arcKnown = true;
     }
-    const arcB = arcBack(bearing, rho);
-    const ubB = Math.min(arcB, gB);
-    if (ubA >= ubB) {
-      const mA = combine(g.signedDistance(rho, zt), arcA);
-      if (ubB <= mA) return mA;
-      const mB = combine(g.signedDistance(-rho, zt), arcB);
-      return mA > mB ? mA : mB;
+    const ubB = arcKnown ? Math.min(arcB, gB) : gB;
+    const aFirst = ubA >= ubB;
+    const first = aFirst ? rho : -rho;
+    const m1 = combine(g.signedDistance(first, zt), aFirst ? arcA : arcB);
+    if ((aFirst ? ubB : ubA) <= m1) return m1;
+    if (!arcKnown) {
+      arcB = arcBack(bearing, rho);
+      if (arcB <= m1) return m1;
     }
-    const mB = combine(g.signedDistance(-rho, zt), arcB);
-    if (ubA <= mB) return mB;
-    const mA = combine(g.signedDistance(rho, zt), arcA);
-    return mA > mB ? mA : mB;
+    const m2 = combine(g.signedDistance(-first, zt), aFirst ? arcB : arcA);
+    return m1 > m2 ? m1 : m2;
   };
 }
 
@@ -213,10 +254,19 @@ export function marginFnOf(model: ArmParams, restrict?: J1Restrict | null): Marg
   const key = restrict ? `${restrict.j1Min}|${restrict.j1Max}` : '-';
   let fn = byRestrict.get(key);
   if (!fn) {
-    fn = buildMargin(model, restrict);
+    fn = buildMargin(model, restrict, true);
     byRestrict.set(key, fn);
   }
   return fn;
+}
+
+/**
+ * The margin function built afresh: the reach profile from its cache, the margin region and its
+ * distance grid built anew and kept by nobody (what the first marginFnOf call of a model costs;
+ * the kinematics benchmark times it).
+ */
+export function buildMarginFn(model: ArmParams, restrict?: J1Restrict | null): MarginFn {
+  return buildMargin(model, restrict, false);
 }
 
 /** Coverage check of an arm-frame point for the hot loop: `(point) => {reached, marginMm}` (see the file comment). */

@@ -1,19 +1,34 @@
-// Kinematics core benchmark: reach profile and whole-arm envelope time per family (target ≤ 50 ms each) and point-reach
-// throughput (target ≥ 5 million checks per second on one core). Reports figures and ratios (report.ts).
-// "region built" is the first marginFnOf call: the (cached) reach profile, for a chain the outline
-// simplified outward by half a raster cell, and the distance grid over it.
+// Kinematics core benchmark: reach profile and whole-arm envelope time per family (target ≤ 50 ms
+// each; a sampled six-axis chain's profile ≤ 20 ms), the point-reach region build per arm (≤ 50 ms)
+// and point-reach throughput (≥ 10 million checks per second on one core). Reports figures and
+// ratios (report.ts).
+// The machine may be shared: the throughput figure is CPU time of this process (process.cpuUsage,
+// which a busy neighbour does not inflate the way it does wall time), its wall figure in the note;
+// the build figure is wall time (CPU time in the note: it also counts the compiler's and the
+// collector's own threads).
+// "region build" is a cold build (buildMarginFn: nothing of the region cached; the reach profile,
+// timed on its own line above, from its cache): for a chain the outline simplified outward by half
+// a raster cell, for a scara its plan region, and the distance grid over it.
 import { readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { buildEnvelopeProfile } from '@shared/kinematics/envelope';
 import { familyOf, reachProfileOf } from '@shared/kinematics/families';
-import { makePointReach, marginFnOf } from '@shared/kinematics/pointReach';
+import { buildMarginFn, makePointReach, marginFnOf } from '@shared/kinematics/pointReach';
 import { scaraPlanRegion } from '@shared/kinematics/scara';
 import { ArmModelInput, type ArmParams, type ScaraParams } from '@shared/schemas/armModel';
 import { report } from './report';
 
 const PROFILE_TARGET_MS = 50;
-const REACH_TARGET_PER_S = 5e6;
+const CHAIN_PROFILE_TARGET_MS = 20;
+const REGION_TARGET_MS = 50;
+const REACH_TARGET_PER_S = 10e6;
+
+/** CPU time of this process, ms. */
+function cpuMs(): number {
+  const u = process.cpuUsage();
+  return (u.user + u.system) / 1000;
+}
 
 const dir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../samples/arm-models');
 const models: Array<{ name: string; params: ArmParams }> = readdirSync(dir)
@@ -40,7 +55,7 @@ for (const m of models) {
   const ms = median(times);
   const verts = profile.polygons.reduce((n, p) => n + p.reduce((k, r) => k + r.length, 0), 0);
   report({
-    what: `reach profile, ${m.params.family}, ${m.name}`, figure: ms, unit: 'ms', target: PROFILE_TARGET_MS, better: 'lower', digits: 2,
+    what: `reach profile, ${m.params.family}, ${m.name}`, figure: ms, unit: 'ms', target: m.params.family === 'chain' ? CHAIN_PROFILE_TARGET_MS : PROFILE_TARGET_MS, better: 'lower', digits: 2,
     note: `${profile.method}, ${verts} vertices, ±${profile.toleranceMm.toFixed(2)} mm`,
   });
 }
@@ -80,12 +95,33 @@ for (const m of models) {
   });
 }
 
-console.log('\npoint reach (arm-frame points in a box of ±1.2 × max reach, z over the profile heights ± 300 mm)');
+console.log('\npoint-reach region build (cold: buildMarginFn, region and grid anew; median of 7 after the first call, wall time)');
+for (const m of models) {
+  reachProfileOf(m.params);
+  const w0 = performance.now();
+  const c0 = cpuMs();
+  buildMarginFn(m.params, null);
+  const firstCpu = cpuMs() - c0;
+  const firstWall = performance.now() - w0;
+  const cpu: number[] = [];
+  const wall: number[] = [];
+  for (let i = 0; i < 7; i++) {
+    const w = performance.now();
+    const c = cpuMs();
+    buildMarginFn(m.params, null);
+    cpu.push(cpuMs() - c);
+    wall.push(performance.now() - w);
+  }
+  report({
+    what: `point-reach region build, ${m.params.family}, ${m.name}`, figure: median(wall), unit: 'ms', target: REGION_TARGET_MS, better: 'lower', digits: 1,
+    note: `CPU median ${median(cpu).toFixed(1)} ms; first call ${firstCpu.toFixed(1)} ms CPU, ${firstWall.toFixed(1)} ms wall`,
+  });
+}
+
+console.log('\npoint reach (arm-frame points in a box of ±1.2 × max reach, z over the profile heights ± 300 mm; CPU time)');
 const N = 5_000_000;
 for (const m of models) {
-  const t0 = performance.now();
   const margin = marginFnOf(m.params, null);
-  const buildMs = performance.now() - t0;
   const profile = familyOf(m.params).reachProfile(m.params);
   const R = 1.2 * profile.maxReach;
   const pts = new Float64Array(3 * 65536);
@@ -99,15 +135,16 @@ for (const m of models) {
   let reached = 0;
   for (let i = 0; i < 200_000; i++) margin(pts[3 * (i & 65535)], pts[3 * (i & 65535) + 1], pts[3 * (i & 65535) + 2]);
   const t = performance.now();
+  const c = cpuMs();
   for (let i = 0; i < N; i++) {
     const k = 3 * (i & 65535);
     if (margin(pts[k], pts[k + 1], pts[k + 2]) >= 0) reached++;
   }
-  const s = (performance.now() - t) / 1000;
-  const rate = N / s;
+  const rate = N / ((cpuMs() - c) / 1000);
+  const wallRate = N / ((performance.now() - t) / 1000);
   report({
     what: `point reach, ${m.params.family}, ${m.name}`, figure: rate / 1e6, unit: 'M checks/s', target: REACH_TARGET_PER_S / 1e6, better: 'higher', digits: 2,
-    note: `${((100 * reached) / N).toFixed(1)} % reached, region built in ${buildMs.toFixed(1)} ms`,
+    note: `${((100 * reached) / N).toFixed(1)} % reached, ${(wallRate / 1e6).toFixed(2)} M checks/s by wall time`,
   });
 }
 

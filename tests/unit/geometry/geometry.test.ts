@@ -144,6 +144,24 @@ describe('point in polygon and signed distance', () => {
     expect(grid.signedDistance(1e5, 0)).toBeCloseTo(signedDistanceToPolygons(1e5, 0, polys), 6);
   });
 
+  it('the mirrored queries: the better of a point and its mirror image in x = 0, and a bound that never undercuts it', () => {
+    // An off-centre annular sector (so a point and its mirror image see different edges) and a
+    // square; the brute-force signed distance (all edges) is the reference.
+    const ring = annularSector({ cx: 250, cy: 0, rInner: 300, rOuter: 1200, startDeg: -40, endDeg: 200 });
+    const polys = [ring, square(-1500, -200, 300)];
+    const grid = buildDistanceGrid(polys);
+    fc.assert(
+      fc.property(fc.double({ min: -6000, max: 6000, noNaN: true }), fc.double({ min: -6000, max: 6000, noNaN: true }), (x, y) => {
+        const here = signedDistanceToPolygons(x, y, polys);
+        const mirrored = signedDistanceToPolygons(-x, y, polys);
+        expect(grid.maxMirrored(x, y)).toBeCloseTo(Math.max(here, mirrored), 9);
+        expect(grid.upperBoundMirrored(x, y)).toBeGreaterThanOrEqual(mirrored - 1e-9);
+        expect(grid.upperBound(x, y)).toBeGreaterThanOrEqual(here - 1e-9);
+      }),
+      { numRuns: 3000 },
+    );
+  });
+
   it('on a jagged outline of many short edges the grid stays exact, and its edge-free upper bound never undercuts the distance', () => {
     // A raster-like staircase ring (1,600 vertices, 7 mm steps) around a wobbly circle, plus a
     // hole; the brute-force signed distance (all edges) is the reference.

@@ -218,3 +218,65 @@ describe('chain margins from the outward-simplified outline', () => {
     );
   });
 });
+
+describe('the fast margin agrees with its plain definition within 0.01 mm, every family, full and restricted J1', () => {
+  // Plain form (the file comment of pointReach.ts): the best of the ways to a bearing of
+  // combine(brute-force signed distance to the margin region, J1 edge arc length), the J1 window
+  // widened by the tool point's sideways spread; a scara's plan region with its stroke. The margin
+  // region is the profile itself, or for a sampled (chain) profile its outline simplified outward
+  // by half a raster cell, rebuilt here with the same geometry call.
+  const combine = (a: number, b: number) => (a >= 0 && b >= 0 ? Math.min(a, b) : a < 0 && b < 0 ? -Math.hypot(a, b) : Math.min(a, b));
+  const cases: Array<[string, () => Promise<ArmParams> | ArmParams]> = [
+    ['articulated', () => articulatedSets[0]],
+    ['linkage', () => linkageSets[0]],
+    ['scara', () => scaraSets[0]],
+    ['chain', async () => (await import('./chainFixtures')).demoSixAxis()],
+  ];
+  for (const [name, make] of cases) {
+    for (const restrict of [null, { j1Min: -75, j1Max: 120 }]) {
+      it(`${name}, J1 ${restrict ? 'restricted' : 'as the model'}: random points`, async () => {
+        const m = await make();
+        const { simplifyPolygonsOutward } = await import('@shared/geometry/simplify');
+        const { scaraPlanRegion } = await import('@shared/kinematics/scara');
+        const { toolLateralSpread, toolDrop } = await import('@shared/kinematics/planRegions');
+        const fast = marginFnOf(m, restrict);
+        const range = j1KinematicRange(m, restrict);
+        const drop = toolDrop(m);
+        if (m.family === 'scara') {
+          const plan = scaraPlanRegion(m, range);
+          fc.assert(
+            fc.property(fc.double({ min: -900, max: 900, noNaN: true }), fc.double({ min: -900, max: 900, noNaN: true }), fc.double({ min: -200, max: 500, noNaN: true }), (x, y, z) => {
+              const zf = z + drop;
+              const plain = combine(signedDistanceToPolygons(x, y, plan), Math.min(zf - m.strokeMin, m.strokeMax - zf));
+              expect(Math.abs(fast(x, y, z) - plain)).toBeLessThanOrEqual(0.01);
+            }),
+            { numRuns: 1500 },
+          );
+          return;
+        }
+        const prof = reachProfileOf(m) as ReturnType<typeof reachProfileOf> & { cellMm?: number };
+        const polys = prof.method === 'sampled' ? simplifyPolygonsOutward(prof.polygons, (prof.cellMm ?? prof.toleranceMm / 3) / 2) : prof.polygons;
+        const a0 = (range.min * Math.PI) / 180 - 1e-9;
+        const a1 = (range.max * Math.PI) / 180 + 1e-9;
+        const lat = toolLateralSpread(m);
+        const behind = polys.some((p) => p[0].some(([r]) => r < 0));
+        const R = prof.maxReach * 1.6;
+        fc.assert(
+          fc.property(fc.double({ min: -R, max: R, noNaN: true }), fc.double({ min: -R, max: R, noNaN: true }), fc.double({ min: prof.zMin - 800, max: prof.zMax + 800, noNaN: true }), (x, y, z) => {
+            const rho = Math.hypot(x, y);
+            if (rho < 1e-6) return; // on the J1 axis no J1 edge applies (see pointReach.ts)
+            const zt = z + drop;
+            const b = Math.atan2(y, x);
+            const as = (v: number) => Math.asin(Math.max(-1, Math.min(1, v / rho)));
+            const arcW = (ang: number, lo: number, hi: number) => (hi - lo >= 2 * Math.PI - 1e-9 ? Infinity : rho * angularMargin(ang, lo, hi));
+            const mA = combine(signedDistanceToPolygons(rho, zt, polys), arcW(b, a0 + as(lat.min), a1 + as(lat.max)));
+            const mB = combine(signedDistanceToPolygons(-rho, zt, polys), arcW(b - Math.PI, a0 - as(lat.max), a1 - as(lat.min)));
+            const plain = behind ? Math.max(mA, mB) : mA;
+            expect(Math.abs(fast(x, y, z) - plain)).toBeLessThanOrEqual(0.01);
+          }),
+          { numRuns: 1500 },
+        );
+      });
+    }
+  }
+});
