@@ -8,32 +8,13 @@
  */
 import type { AnalysisResult, Finding } from '@shared/analysis';
 import type { AreaGeometry } from '@shared/geometry';
-import type { AnalysisView } from './analysisProtocol';
+import type { AnalysisView, ViewDelta } from './analysisProtocol';
 
 type Region = AnalysisResult['regions'][string];
 type CoverageRow = AnalysisResult['coverage'][string];
 
-/** One result as it crosses: the parts that changed since the previous one sent. */
-export interface ViewDelta {
-  /** The decoder starts afresh from this delta (it carries everything). */
-  reset: boolean;
-  /** Finding ids in the result's order; null when the order is the previous one's. */
-  findingOrder: string[] | null;
-  /** Findings new or changed since the previous result sent (all of them on a reset). */
-  findings: Finding[];
-  coverage: Record<string, CoverageRow>;
-  coverageRemoved: string[];
-  regions: Record<string, Region>;
-  regionsRemoved: string[];
-  maxSpaces: Record<string, AreaGeometry | null>;
-  maxSpacesRemoved: string[];
-  /** Small parts, always whole. */
-  sharedZones: AnalysisResult['sharedZones'];
-  safeguarding: AnalysisResult['safeguarding'];
-  timingMs: number;
-  placed: AnalysisView['placed'];
-  section: AnalysisView['section'];
-}
+export type { ViewDelta };
+
 
 function sameRow(a: CoverageRow, b: CoverageRow): boolean {
   let n = 0;

@@ -9,7 +9,6 @@ import type { SectionResult } from '@shared/analysis';
 import type { AnalysisResult } from '@shared/analysis';
 import type { AreaGeometry } from '@shared/geometry';
 import type { LayoutContent } from '@shared/schemas/layout';
-import type { ViewDelta } from './analysisDelta';
 
 /** An arm model as the worker needs it: its id and kinematic parameters (as the catalogue API sends them). */
 export interface WorkerArmModel {
@@ -50,3 +49,25 @@ export interface AnalysisView {
 export type FromWorker =
   | { type: 'result'; seq: number; dragging: boolean; delta: ViewDelta }
   | { type: 'error'; seq: number; message: string };
+
+/** One analysis result as it crosses from the worker: the parts changed since the previous one sent (analysisDelta.ts). */
+export interface ViewDelta {
+  /** The decoder starts afresh from this delta (it carries everything). */
+  reset: boolean;
+  /** Finding ids in the result's order; null when the order is the previous one's. */
+  findingOrder: string[] | null;
+  /** Findings new or changed since the previous result sent (all of them on a reset). */
+  findings: AnalysisResult['findings'];
+  coverage: Record<string, AnalysisResult['coverage'][string]>;
+  coverageRemoved: string[];
+  regions: Record<string, AnalysisResult['regions'][string]>;
+  regionsRemoved: string[];
+  maxSpaces: Record<string, AreaGeometry | null>;
+  maxSpacesRemoved: string[];
+  /** Small parts, always whole. */
+  sharedZones: AnalysisResult['sharedZones'];
+  safeguarding: AnalysisResult['safeguarding'];
+  timingMs: number;
+  placed: AnalysisView['placed'];
+  section: AnalysisView['section'];
+}
