@@ -1,6 +1,6 @@
 // DXF import benchmark: a generated ~20 MB floor plan (≈200k entities, many block inserts),
-// importDxf against the bare dxf-parser parse of the same text (target ≤ 1.5×), and the peak
-// memory of an import measured in child processes (target ≤ 8× the file size).
+// importDxf against the bare dxf-parser parse of the same text (target ≤ 1.2×), and the peak
+// memory of an import measured in child processes (target ≤ 4× the file size).
 // Timing runs in a child process that alternates the two (full GC before each run); memory is
 // the peak RSS of fresh child processes, less that of one that only reads the file.
 // Run: npm run bench dxf   (or node --import tsx tests/bench/dxf.bench.ts)
@@ -14,8 +14,8 @@ import { importDxf } from '../../backend/src/services/dxf/importDxf';
 import { DxfWriter } from '../../samples/make-samples';
 import { report } from './report';
 
-const TIME_TARGET = 1.5;
-const MEMORY_TARGET = 8;
+const TIME_TARGET = 1.2;
+const MEMORY_TARGET = 4;
 const self = fileURLToPath(import.meta.url);
 
 /** A large invented hall: wall grid, racks as block arrays, machines, columns, labels. */
