@@ -1,10 +1,11 @@
 import { polygonsArea } from '../geometry/area';
 import { polygonsBounds } from '../geometry/bounds';
+import { clipIntersectShapes, clipShape, type ClipShape } from '../geometry/clipper';
 import { armPose, type ArmPose } from '../geometry/frames';
 import { polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
 import { type Polygon2 } from '../geometry/types';
 import type { ArmPlacement, WorkPoint } from '../schemas/layout';
-import { armClearance, bboxOverlap, centroidOf, fenceFindings, intersect, makeFinding, MIN_AREA_MM2, type BBox } from './clearance';
+import { armClearance, bboxOverlap, centroidOf, fenceFindings, makeFinding, MIN_AREA_MM2, type BBox } from './clearance';
 import { m2, m2Text, mm, reasonOf, sortFindings } from './messages';
 import { buildPointGrid, pointsNear, type PointGrid } from './pointGrid';
 import { isReached, roundMargin, shortfallText } from './reached';
@@ -25,6 +26,8 @@ interface PlacedArm {
   bbox: BBox | null;
   bands: Map<number, Polygon2[]>;
   bandBoxes: Map<number, BBox | null>;
+  /** The restricted space and the bands converted once for clipping against every neighbour. */
+  shapes: { restricted: ClipShape; bands: Map<number, ClipShape> };
   below: Map<number, Polygon2[] | null>;
   geo: { restricted: AreaGeometry | null; bands: Map<number, AreaGeometry | null> };
   clearance: { key: string; findings: Finding[] } | null;
@@ -114,7 +117,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       const reach = reachFor(a.armModelId, a.restrict);
       const pose = armPose(a);
       const restricted = pose.placePolygons(reach.restricted);
-      p = { arm: a, pose, sig, reach, restricted, bbox: polygonsBounds(restricted) as BBox | null, bands: new Map(), bandBoxes: new Map(), below: new Map(), geo: { restricted: restricted.length ? polygonsToGeoJSON(restricted) : null, bands: new Map() }, clearance: null, safeguard: null };
+      p = { arm: a, pose, sig, reach, restricted, bbox: polygonsBounds(restricted) as BBox | null, bands: new Map(), bandBoxes: new Map(), shapes: { restricted: clipShape(restricted), bands: new Map() }, below: new Map(), geo: { restricted: restricted.length ? polygonsToGeoJSON(restricted) : null, bands: new Map() }, clearance: null, safeguard: null };
       arms.set(sig, p);
       stats.arms++;
     }
@@ -123,6 +126,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
         const band = p.pose.placePolygons(p.reach.bandAt(p.pose.toArmZ(h)));
         p.bands.set(h, band);
         p.bandBoxes.set(h, polygonsBounds(band) as BBox | null);
+        p.shapes.bands.set(h, clipShape(band));
         p.geo.bands.set(h, band.length ? polygonsToGeoJSON(band) : null);
       }
     }
@@ -138,7 +142,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
   }
 
   function column(p: PlacedArm, points: ReadonlyArray<WorkPoint>): Column {
-    const near = pointsNear(grid!, points, p.arm.x, p.arm.y, p.reach.maxReach + FAR_MM);
+    const near = pointsNear(grid!, p.arm.x, p.arm.y, p.reach.maxReach + FAR_MM);
     const margins = new Float64Array(near.length);
     const pose = p.pose;
     for (let k = 0; k < near.length; k++) {
@@ -186,7 +190,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     const ids = [first.arm.id, second.arm.id];
     let polys: Polygon2[];
     try {
-      polys = intersect(first.restricted, second.restricted);
+      polys = clipIntersectShapes(first.shapes.restricted, second.shapes.restricted);
     } catch (err) {
       const why = reasonOf(err);
       return { sharedZone: null, findings: [makeFinding('computation-failed', ['overlap', ...ids], { arms: ids, points: [], geometry: null, at: null, message: `Could not compute the shared zone of ${ids[0]} and ${ids[1]}${why ? ` (${why})` : ''}; check it by hand.` })] };
@@ -197,22 +201,27 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       if (!bboxOverlap(first.bandBoxes.get(h) ?? null, second.bandBoxes.get(h) ?? null)) return { height: h, areaM2: 0 };
       let a: number;
       try {
-        a = polygonsArea(intersect(first.bands.get(h)!, second.bands.get(h)!));
+        a = polygonsArea(clipIntersectShapes(first.shapes.bands.get(h)!, second.shapes.bands.get(h)!));
       } catch {
         a = NaN;
       }
       return { height: h, areaM2: m2(a) };
     });
-    // Work points both arms reach (walk the shorter coverage column, look the other arm up in the row).
+    // Work points both arms reach: both coverage columns list their points in ascending order, so
+    // one merge walk finds the common ones (in work-point order).
     const ca = columns.get(first.sig)!;
     const cb = columns.get(second.sig)!;
-    const [short, otherId] = ca.near.length <= cb.near.length ? [ca, second.arm.id] : [cb, first.arm.id];
     const inside: string[] = [];
-    for (let k = 0; k < short.near.length; k++) {
-      if (!isReached(short.margins[k])) continue;
-      const pid = points[short.near[k]].id;
-      const m = coverage[pid][otherId];
-      if (m !== undefined && isReached(m)) inside.push(pid);
+    for (let i = 0, j = 0; i < ca.near.length && j < cb.near.length;) {
+      const pa = ca.near[i];
+      const pb = cb.near[j];
+      if (pa < pb) i++;
+      else if (pb < pa) j++;
+      else {
+        if (isReached(ca.margins[i]) && isReached(cb.margins[j])) inside.push(points[pa].id);
+        i++;
+        j++;
+      }
     }
     const geometry = polygonsToGeoJSON(polys);
     const sharedZone: SharedZone = { arms: [ids[0], ids[1]], areaM2: m2(area), points: inside, geometry, byHeight };

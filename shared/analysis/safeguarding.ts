@@ -124,13 +124,15 @@ function edgeGrid(region: Polygon2[]): EdgeGrid {
  * measured (null when there are none). Crossings are not detected here (the caller rules them out).
  */
 function nearestGap(g: EdgeGrid, segs: ReadonlyArray<readonly [readonly [number, number], readonly [number, number]]>, box: BBox, pad: number): { d: number; at: [number, number]; onItem: [number, number] } | null {
-  let best: { d: number; at: [number, number]; onItem: [number, number] } | null = null;
-  // (px, py) lies on the region when `fromRegion`, else on the item; the other end is its nearest point on the segment.
+  // The best pair so far, kept as numbers: (px, py) lies on the region when `fromRegion`, else on
+  // the item; its other end is the nearest point on the segment (ax, ay)–(bx, by).
+  let bestD = Infinity;
+  let bpx = 0, bpy = 0, bax = 0, bay = 0, bbx = 0, bby = 0, bFromRegion = false;
   const consider = (px: number, py: number, ax: number, ay: number, bx: number, by: number, fromRegion: boolean) => {
     const d = pointSegmentDistance(px, py, ax, ay, bx, by);
-    if (!best || d < best.d) {
-      const q = nearestPointOnSegment(px, py, ax, ay, bx, by);
-      best = { d, at: [(px + q[0]) / 2, (py + q[1]) / 2], onItem: fromRegion ? q : [px, py] };
+    if (d < bestD) {
+      bestD = d;
+      bpx = px; bpy = py; bax = ax; bay = ay; bbx = bx; bby = by; bFromRegion = fromRegion;
     }
   };
   const q = ++g.query;
@@ -146,10 +148,12 @@ function nearestGap(g: EdgeGrid, segs: ReadonlyArray<readonly [readonly [number,
         g.stamp[e / 4] = q;
         const ax = edges[e], ay = edges[e + 1], bx = edges[e + 2], by = edges[e + 3];
         // Edges farther from the box than the best gap so far cannot beat it.
-        const r = best ? Math.min(pad, (best as { d: number }).d) : pad;
+        const r = Math.min(pad, bestD);
         if (Math.max(ax, bx) < box[0] - r || Math.min(ax, bx) > box[2] + r || Math.max(ay, by) < box[1] - r || Math.min(ay, by) > box[3] + r) continue;
+        const a: readonly [number, number] = [ax, ay];
+        const b: readonly [number, number] = [bx, by];
         for (const [c, d] of segs) {
-          if (segmentsIntersect([ax, ay], [bx, by], c, d)) return { d: 0, at: [c[0], c[1]], onItem: [c[0], c[1]] };
+          if (segmentsIntersect(a, b, c, d)) return { d: 0, at: [c[0], c[1]], onItem: [c[0], c[1]] };
           consider(ax, ay, c[0], c[1], d[0], d[1], true);
           consider(bx, by, c[0], c[1], d[0], d[1], true);
           consider(c[0], c[1], ax, ay, bx, by, false);
@@ -158,7 +162,9 @@ function nearestGap(g: EdgeGrid, segs: ReadonlyArray<readonly [readonly [number,
       }
     }
   }
-  return best;
+  if (bestD === Infinity) return null;
+  const near = nearestPointOnSegment(bpx, bpy, bax, bay, bbx, bby);
+  return { d: bestD, at: [(bpx + near[0]) / 2, (bpy + near[1]) / 2], onItem: bFromRegion ? near : [bpx, bpy] };
 }
 
 /** With no edge crossing, one vertex each way tells whether the item and the region are nested. */

@@ -78,9 +78,46 @@ export function clipUnion(polygons: ReadonlyArray<Polygon2>): Polygon2[] {
   return execute(ClipperLib.ClipType.ctUnion, toPaths(polygons), []);
 }
 
-/** Intersection of two polygon sets, mm (integer Vatti clipping). */
+type Box = [number, number, number, number];
+
+function pathsBox(paths: ClipperLib.Paths): Box | null {
+  let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+  for (const path of paths) {
+    for (const { X, Y } of path) {
+      if (X < x0) x0 = X;
+      if (X > x1) x1 = X;
+      if (Y < y0) y0 = Y;
+      if (Y > y1) y1 = Y;
+    }
+  }
+  return x0 <= x1 ? [x0, y0, x1, y1] : null;
+}
+
+/** Polygons converted once for clipping (integer paths and their bounding box), to clip against many others. */
+export interface ClipShape {
+  readonly paths: ClipperLib.Paths;
+  readonly box: Box | null;
+}
+
+/** Polygons → a ClipShape; the polygons must not change while the shape is in use. */
+export function clipShape(polygons: ReadonlyArray<Polygon2>): ClipShape {
+  const paths = toPaths(polygons);
+  return { paths, box: pathsBox(paths) };
+}
+
+/**
+ * Intersection of two prepared shapes, mm: empty at once when their bounding boxes do not meet,
+ * else integer Vatti clipping of the whole paths.
+ */
+export function clipIntersectShapes(a: ClipShape, b: ClipShape): Polygon2[] {
+  if (!a.box || !b.box) return [];
+  if (a.box[0] > b.box[2] || b.box[0] > a.box[2] || a.box[1] > b.box[3] || b.box[1] > a.box[3]) return [];
+  return execute(ClipperLib.ClipType.ctIntersection, a.paths, b.paths);
+}
+
+/** Intersection of two polygon sets, mm (integer Vatti clipping; see clipIntersectShapes). */
 export function clipIntersect(a: ReadonlyArray<Polygon2>, b: ReadonlyArray<Polygon2>): Polygon2[] {
-  return execute(ClipperLib.ClipType.ctIntersection, toPaths(a), toPaths(b));
+  return clipIntersectShapes(clipShape(a), clipShape(b));
 }
 
 /** Difference a − b of two polygon sets, mm (integer Vatti clipping). */

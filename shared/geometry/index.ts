@@ -56,7 +56,7 @@ export {
   positionsToRing,
   ringToPositions,
 } from './geojson';
-export { clipDifference, clipIntersect, clipOffset, clipUnion } from './clipper';
+export { clipDifference, clipIntersect, clipIntersectShapes, clipOffset, clipShape, clipUnion, type ClipShape } from './clipper';
 export { buildDistanceGrid, type DistanceGrid } from './distanceGrid';
 export { simplifyPolygons, simplifyPolygonsOutward, simplifyRing } from './simplify';
 export { checkDrawingUnit, lengthText, PLAUSIBLE_EXTENT_MM, type UnitCheck } from './drawingScale';
