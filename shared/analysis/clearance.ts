@@ -111,7 +111,8 @@ export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, bound
   if (floor) {
     const hits = new Map<string, StructureItem[]>();
     for (const s of floor.structures) {
-      if (s.role === 'column' && s.polygons.length && pointInPolygons(p.arm.x, p.arm.y, s.polygons)) {
+      const sb = s.bbox;
+      if (s.role === 'column' && s.polygons.length && p.arm.x >= sb[0] && p.arm.x <= sb[2] && p.arm.y >= sb[1] && p.arm.y <= sb[3] && pointInPolygons(p.arm.x, p.arm.y, s.polygons)) {
         out.push(makeFinding('base-on-column', [id, s.id], { arms: [id], points: [], geometry: polygonsToGeoJSON(s.polygons), at, message: `${name}: its base stands on a column (layer ${s.layer}).` }));
         continue;
       }

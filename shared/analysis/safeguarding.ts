@@ -152,7 +152,10 @@ function nearestGap(g: EdgeGrid, segs: ReadonlyArray<readonly [readonly [number,
         if (Math.max(ax, bx) < box[0] - r || Math.min(ax, bx) > box[2] + r || Math.max(ay, by) < box[1] - r || Math.min(ay, by) > box[3] + r) continue;
         const a: readonly [number, number] = [ax, ay];
         const b: readonly [number, number] = [bx, by];
+        const eMinX = Math.min(ax, bx), eMaxX = Math.max(ax, bx), eMinY = Math.min(ay, by), eMaxY = Math.max(ay, by);
         for (const [c, d] of segs) {
+          // Boxes farther apart than the best gap so far: no crossing, and no pair of points nearer.
+          if (Math.min(c[0], d[0]) - eMaxX > bestD || eMinX - Math.max(c[0], d[0]) > bestD || Math.min(c[1], d[1]) - eMaxY > bestD || eMinY - Math.max(c[1], d[1]) > bestD) continue;
           if (segmentsIntersect(a, b, c, d)) return { d: 0, at: [c[0], c[1]], onItem: [c[0], c[1]] };
           consider(ax, ay, c[0], c[1], d[0], d[1], true);
           consider(bx, by, c[0], c[1], d[0], d[1], true);
