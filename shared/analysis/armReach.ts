@@ -1,4 +1,7 @@
 import { canonicalJson as stableKey } from '../canonicalJson';
+import { armPose } from '../geometry/frames';
+import { polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
+import type { Polygon2 } from '../geometry/types';
 import { armReach, parseArmParams } from '../kinematics';
 import { ReadableError } from '../schemas/errors';
 import type { ArmPlacement } from '../schemas/layout';
@@ -50,4 +53,20 @@ export function armReachFromModels(params: ReadonlyMap<number, unknown>): ArmRea
     if (!params.has(modelId)) throw new ReadableError(MISSING_MODEL_TEXT);
     return armReachFor(params.get(modelId), restrict);
   };
+}
+
+/**
+ * An arm's maximum space as drawn on the plan: its model's restricted space over the full J1 range
+ * (no restricting limits), placed at the arm's pose; null when the model's reach cannot be built
+ * (the analysis reports that arm as a finding) or is empty. The editor's worker and the server's
+ * first view of a layout both draw it from here.
+ */
+export function placedMaxSpace(reachFor: ArmReachFactory, arm: Pick<ArmPlacement, 'armModelId' | 'x' | 'y' | 'yaw'>): AreaGeometry | null {
+  let polys: Polygon2[];
+  try {
+    polys = reachFor(arm.armModelId, undefined).restricted;
+  } catch {
+    return null;
+  }
+  return polys.length ? polygonsToGeoJSON(armPose({ x: arm.x, y: arm.y, yaw: arm.yaw }).placePolygons(polys)) : null;
 }

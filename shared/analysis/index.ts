@@ -49,7 +49,7 @@ export {
   layoutScore,
   proposalContent,
 } from './autoLayout';
-export { armReachFor, armReachFromModels, MISSING_MODEL_TEXT } from './armReach';
+export { armReachFor, armReachFromModels, MISSING_MODEL_TEXT, placedMaxSpace } from './armReach';
 export {
   ANCHORS_PER_POST,
   bomCsv,

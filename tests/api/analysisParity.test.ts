@@ -10,7 +10,8 @@ import { analyzeLayout } from '../../backend/src/services/layoutAnalysis';
 import { createAnalysisSession } from '../../frontend/src/workers/analysisSession';
 import { prepareFloor, type FloorLayer } from '@shared/analysis/floor';
 import { sectionOf } from '@shared/analysis/section';
-import { createTestApp, type TestApp } from '../support/testApp';
+import { DEMO_PASSWORD } from '../../backend/src/db/seed';
+import { createTestApp, signedIn, type TestApp } from '../support/testApp';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -66,5 +67,27 @@ describe('server and worker analyses', () => {
     expect(view.section).toEqual(expected);
     expect(view.section!.arms.map((c) => c.id)).toContain('R3');
     expect(view.section!.dimensions.length).toBeGreaterThan(0);
+  });
+
+  it("the server's first view of the stored layout is the worker's first result, maximum spaces included", async () => {
+    const layout = (await Layout.findOne({ where: { name: 'Fernhill line 3 — cell layout' } }))!;
+    const models = await ArmModel.findAll();
+    const plan = (await FloorPlan.findByPk(layout.floorPlanId!))!;
+    const session = createAnalysisSession(armReachFor);
+    session.receive({ type: 'models', models: models.map((m) => ({ id: m.id, params: m.params })) });
+    session.receive({ type: 'floor', floor: { geometry: plan.geometry, layers: plan.layers as FloorLayer[] } });
+    session.receive({ type: 'content', seq: 1, content: layout.content as LayoutContent });
+    const worker = session.run()!;
+
+    const agent = await signedIn(t.app, 'planner@fernhill.test', DEMO_PASSWORD);
+    const res = await agent.get(`/api/layouts/${layout.id}/analysis`);
+    expect(res.status).toBe(200);
+    expect(res.body.version).toBe(layout.version);
+    const strip = (r: typeof worker.analysis) => JSON.parse(JSON.stringify({ findings: r.findings, sharedZones: r.sharedZones, coverage: r.coverage, regions: r.regions, safeguarding: r.safeguarding }));
+    expect(strip(res.body.analysis)).toEqual(strip(worker.analysis));
+    expect(res.body.maxSpaces).toEqual(JSON.parse(JSON.stringify(worker.maxSpaces)));
+    expect(Object.keys(res.body.maxSpaces).sort()).toEqual((layout.content as LayoutContent).arms.map((a) => a.id).sort());
+    // A layout this user cannot see is not analysed for them.
+    expect((await agent.get('/api/layouts/999999/analysis')).status).toBe(404);
   });
 });

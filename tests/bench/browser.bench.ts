@@ -130,13 +130,36 @@ async function api<T>(page: Page, method: string, url: string, body?: unknown): 
   ) as Promise<T>;
 }
 
-/** Opens the editor in a fresh page of the signed-in context; resolves with the time to findings (ms since navigation start). */
-async function openEditor(page: Page, url: string): Promise<number> {
+/** Where an editor load spent its time: ms since navigation start at each step. */
+interface OpenSteps {
+  findings: number;
+  document: number;
+  scripts: number;
+  data: number;
+  workerFirstMessage: number;
+  workerFirstResult: number;
+}
+
+/** Opens the editor in a fresh page of the signed-in context; resolves with the time to findings (ms since navigation start) and its steps. */
+async function openEditor(page: Page, url: string): Promise<OpenSteps> {
   await page.goto(url);
   await page.locator('[data-layout-editor]').waitFor({ timeout: OPEN_TIMEOUT_MS });
   await page.waitForFunction(() => (window as unknown as { __bench: Probes }).__bench.findingsAt !== null, null, { timeout: OPEN_TIMEOUT_MS, polling: 100 });
   await page.locator('g.arm-mark').first().waitFor({ state: 'attached' });
-  return page.evaluate(() => (window as unknown as { __bench: Probes }).__bench.findingsAt!);
+  return page.evaluate(() => {
+    const b = (window as unknown as { __bench: Probes }).__bench;
+    const nav = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming | undefined;
+    const resources = performance.getEntriesByType('resource') as PerformanceResourceTiming[];
+    const last = (xs: PerformanceResourceTiming[]) => xs.reduce((m, r) => Math.max(m, r.responseEnd), 0);
+    return {
+      findings: b.findingsAt!,
+      document: nav?.responseEnd ?? NaN,
+      scripts: last(resources.filter((r) => r.initiatorType === 'script' || r.name.endsWith('.js'))),
+      data: last(resources.filter((r) => new URL(r.name).pathname.startsWith('/api/') && r.startTime < b.findingsAt!)),
+      workerFirstMessage: b.toWorker[0]?.t ?? NaN,
+      workerFirstResult: b.fromWorker.find((m) => m.type === 'result')?.t ?? NaN,
+    };
+  });
 }
 
 interface DragFigures {
@@ -246,7 +269,7 @@ async function benchDrag(browser: Browser, state: Parameters<typeof newEditorPag
   try {
     const page = await context.newPage();
     const heap = withHeap ? await sampleHeap(page) : null;
-    const openMs = await openEditor(page, url);
+    const openMs = (await openEditor(page, url)).findings;
     report(`${label}: open until findings show`, openMs, 'ms', null);
     const arms = await page.locator('g.arm-mark').evaluateAll((gs) => gs.map((g) => g.getAttribute('data-arm')!));
     // Arms near the middle of the list: their bases sit inside the fitted view, away from its edges.
@@ -319,21 +342,26 @@ try {
   await signInContext.close();
 
   // 1. The demo cell layout: a fresh context per load (so each starts with an empty HTTP cache).
-  const opens: number[] = [];
+  const steps: OpenSteps[] = [];
   for (let i = 0; i < LOADS; i++) {
     const context = await newEditorPage(browser, state);
     try {
-      opens.push(await openEditor(await context.newPage(), `${base}/projects/${project.id}/layouts/${demo.id}`));
+      steps.push(await openEditor(await context.newPage(), `${base}/projects/${project.id}/layouts/${demo.id}`));
     } finally {
       await context.close();
     }
   }
+  const opens = steps.map((s) => s.findings);
   report(`demo cell layout: navigation start → findings show (median of ${LOADS}; each ${opens.map((t) => t.toFixed(0)).join(', ')} ms)`, median(opens), 'ms', OPEN_TARGET_MS);
+  const mid = steps.find((s) => s.findings === median(opens))!;
+  console.log(`  the median load, ms after navigation start: document ${mid.document.toFixed(0)}, scripts ${mid.scripts.toFixed(0)}, layout data ${mid.data.toFixed(0)}, first message to the worker ${mid.workerFirstMessage.toFixed(0)}, its first result ${mid.workerFirstResult.toFixed(0)}, findings shown ${mid.findings.toFixed(0)}`);
 
-  // 2 and 3. Dragging on the large layouts; the heap on the largest.
-  await benchDrag(browser, state, forty, `40 arms × 10 000 points × ${HEIGHTS.length} heights`, 3, false);
-  // One drag here: each result of this layout keeps the main thread busy for a long time.
-  await benchDrag(browser, state, hundred, `100 arms × 50 000 points × ${HEIGHTS.length} heights`, 1, true);
+  // 2 and 3. Dragging on the large layouts; the heap on the largest (BENCH_BROWSER_ONLY=open skips them).
+  if (process.env.BENCH_BROWSER_ONLY !== 'open') {
+    await benchDrag(browser, state, forty, `40 arms × 10 000 points × ${HEIGHTS.length} heights`, 3, false);
+    // One drag here: each result of this layout keeps the main thread busy for a long time.
+    await benchDrag(browser, state, hundred, `100 arms × 50 000 points × ${HEIGHTS.length} heights`, 1, true);
+  }
 } finally {
   await browser?.close().catch((err: unknown) => console.error('closing Chromium:', err));
   await server?.close().catch((err: unknown) => console.error('closing the server:', err));

@@ -6,7 +6,7 @@ import { idParam, parseOr400 } from '../http/validate';
 import { Layout } from '../models';
 import { deleteReturnedRevisions, refuseDeletingRecords } from '../services/archive';
 import { audit } from '../services/audit/audit';
-import { analyzeLayout } from '../services/layoutAnalysis';
+import { analyzeLayout, analyzeLayoutView } from '../services/layoutAnalysis';
 import { checkLayoutReferences, loadVisibleLayout, presentLayout, updateLayout } from '../services/layouts';
 import { loadVisibleProject } from '../services/projectAccess';
 
@@ -51,6 +51,14 @@ export function layoutsRouter(sequelize: Sequelize): Router {
     const input = parseOr400(LayoutUpdateInput, req.body, 'The cell layout');
     const updated = await sequelize.transaction((transaction) => updateLayout(user, id, input, transaction));
     res.json({ layout: presentLayout(updated) });
+  });
+
+  // The stored layout's analysis with each arm's maximum space: what the editor shows on opening
+  // while its own worker starts. `version` names the stored version analysed.
+  r.get('/layouts/:id/analysis', allow('layout.read'), async (req, res) => {
+    const layout = await loadVisibleLayout(currentUser(req), idParam(req.params.id, 'Layout'));
+    const view = await analyzeLayoutView(layout);
+    res.json({ version: layout.version, ...view });
   });
 
   // Analysis of the stored layout, or of unsaved content sent in the body (the editor's working state).

@@ -3,6 +3,7 @@ import type { LayoutContent } from '@shared/schemas/layout';
 import type { Transaction } from 'sequelize';
 import { HttpError } from '../http/errors';
 import { ArmModel, FloorPlan, type Layout } from '../models';
+import type { AnalysisJob, AnalysisViewResult } from '../workers/heavyTasks';
 import { runHeavy } from './workerPool';
 
 let maxChecks = 2_000_000;
@@ -37,17 +38,27 @@ export function assertAnalysisSize(content: Pick<LayoutContent, 'arms' | 'workPo
  * analysis itself runs in the heavy-work pool (services/workerPool.ts). Reads inside `transaction` when given.
  */
 export async function analyzeLayout(layout: Layout, contentOverride?: LayoutContent, transaction?: Transaction): Promise<AnalysisResult> {
+  return runHeavy({ kind: 'analysis', job: await analysisJob(layout, contentOverride, transaction) });
+}
+
+/**
+ * The stored layout's analysis with each arm's maximum space, as the editor's worker would draw
+ * them: the editor shows it on opening while its own worker starts (services/workerPool.ts keeps
+ * the arm models' reach built between requests, so a warm server answers at once).
+ */
+export async function analyzeLayoutView(layout: Layout): Promise<AnalysisViewResult> {
+  return runHeavy({ kind: 'analysisView', job: await analysisJob(layout) });
+}
+
+async function analysisJob(layout: Layout, contentOverride?: LayoutContent, transaction?: Transaction): Promise<AnalysisJob> {
   const content = contentOverride ?? (layout.content as LayoutContent);
   assertAnalysisSize(content);
   const modelIds = [...new Set(content.arms.map((a) => a.armModelId))];
   const models = await ArmModel.findAll({ where: { id: modelIds }, attributes: ['id', 'params'], transaction });
   const fp = layout.floorPlanId ? await FloorPlan.findByPk(layout.floorPlanId, { attributes: ['id', 'geometry', 'layers'], transaction }) : null;
-  return runHeavy({
-    kind: 'analysis',
-    job: {
-      models: models.map((m) => [m.id, m.params]),
-      floor: fp ? { geometry: fp.geometry, layers: fp.layers as FloorLayer[] } : null,
-      content: { arms: content.arms, workPoints: content.workPoints, boundaries: content.boundaries, workHeights: content.workHeights },
-    },
-  });
+  return {
+    models: models.map((m) => [m.id, m.params]),
+    floor: fp ? { geometry: fp.geometry, layers: fp.layers as FloorLayer[] } : null,
+    content: { arms: content.arms, workPoints: content.workPoints, boundaries: content.boundaries, workHeights: content.workHeights },
+  };
 }

@@ -79,6 +79,7 @@ const seconds = (ms: number) => (ms % 1000 === 0 ? `${ms / 1000} s` : `${(ms / 1
 /** What to tell the planner when a task of this kind runs too long. */
 const ADVICE: Record<HeavyTask['kind'], { what: string; advice: string }> = {
   analysis: { what: 'The analysis', advice: 'split the cell layout or try again' },
+  analysisView: { what: 'The analysis', advice: 'split the cell layout or try again' },
   reach: { what: 'Computing the reach', advice: 'simplify the arm model or try again' },
   armSummary: { what: 'Computing the reach', advice: 'simplify the arm model or try again' },
   planSheet: { what: 'Drawing the plan sheet', advice: 'choose fewer sheets or try again' },

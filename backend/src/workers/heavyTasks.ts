@@ -2,7 +2,7 @@
 // analysis, reach profiles and bands, arm models' reach summaries, plan-sheet rendering. Pure work on plain data: no database.
 import type { FeatureCollection } from 'geojson';
 import { createAnalyzer, prepareFloor, type AnalysisResult, type FloorLayer } from '@shared/analysis';
-import { armReachFromModels } from '@shared/analysis';
+import { armReachFromModels, placedMaxSpace } from '@shared/analysis';
 import { reachProfileOf } from '@shared/kinematics';
 import { bandAt } from '@shared/kinematics';
 import type { AreaGeometry } from '@shared/geometry';
@@ -29,14 +29,22 @@ export interface ReachSummary {
   bands: Array<{ height: number; geometry: AreaGeometry }>;
 }
 
+/** An analysis with what the editor draws beside it: each arm's maximum space placed on the plan. */
+export interface AnalysisViewResult {
+  analysis: AnalysisResult;
+  maxSpaces: Record<string, AreaGeometry | null>;
+}
+
 export type HeavyTask =
   | { kind: 'analysis'; job: AnalysisJob }
+  | { kind: 'analysisView'; job: AnalysisJob }
   | { kind: 'reach'; params: ArmParams; heights: number[] }
   | { kind: 'armSummary'; params: ArmParams }
   | { kind: 'planSheet'; input: PlanSheetInput; opts: PlanSheetOptions };
 
 export interface HeavyResults {
   analysis: AnalysisResult;
+  analysisView: AnalysisViewResult;
   reach: ReachSummary;
   armSummary: ArmReachSummary;
   planSheet: Uint8Array;
@@ -44,11 +52,20 @@ export interface HeavyResults {
 
 /** Runs the shared analysis on loaded data; the same code the editor's worker runs. */
 export function analyzeLoaded(job: AnalysisJob): AnalysisResult {
+  return analyzeLoadedView(job, false).analysis;
+}
+
+/** The analysis and, when `withSpaces`, every arm's maximum space as the editor's worker draws it. */
+export function analyzeLoadedView(job: AnalysisJob, withSpaces = true): AnalysisViewResult {
   const params = new Map(job.models);
   const floor = job.floor ? prepareFloor(job.floor.geometry, job.floor.layers) : null;
-  const analyzer = createAnalyzer(armReachFromModels(params));
+  const reachFor = armReachFromModels(params);
+  const analyzer = createAnalyzer(reachFor);
   const c = job.content;
-  return analyzer.analyze({ arms: c.arms, workPoints: c.workPoints, boundaries: c.boundaries, workHeights: c.workHeights, floor });
+  const analysis = analyzer.analyze({ arms: c.arms, workPoints: c.workPoints, boundaries: c.boundaries, workHeights: c.workHeights, floor });
+  const maxSpaces: Record<string, AreaGeometry | null> = {};
+  if (withSpaces) for (const a of c.arms) maxSpaces[a.id] = placedMaxSpace(reachFor, a);
+  return { analysis, maxSpaces };
 }
 
 /** Side profile and plan bands of a parameter set (arm frame, mm). */
@@ -68,6 +85,8 @@ export default async function runHeavyTask(task: HeavyTask): Promise<HeavyResult
   switch (task.kind) {
     case 'analysis':
       return analyzeLoaded(task.job);
+    case 'analysisView':
+      return analyzeLoadedView(task.job);
     case 'reach':
       return reachSummary(task.params, task.heights);
     case 'armSummary':

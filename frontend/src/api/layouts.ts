@@ -1,4 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { AnalysisResult } from '@shared/analysis';
+import type { AreaGeometry } from '@shared/geometry';
 import type { LayoutContent, LayoutDto } from '@shared/schemas/layout';
 import { api } from './client';
 import { layoutKeys } from './queryKeys';
@@ -21,6 +23,37 @@ export const layoutDetailQuery = (id: number) =>
     queryKey: layoutKeys.detail(id),
     queryFn: ({ signal }) => api<{ layout: LayoutDto }>(`/layouts/${id}`, { signal }).then((r) => r.layout),
   });
+
+/** The server's analysis of a stored layout with each arm's maximum space, and the version it is of. */
+export interface LayoutFirstViewDto {
+  version: number;
+  analysis: AnalysisResult;
+  maxSpaces: Record<string, AreaGeometry | null>;
+}
+
+/**
+ * Most reach checks (arms × work points × work heights) for which the editor asks the server for a
+ * first view: beyond it the answer would be megabytes and the worker's own first result as quick.
+ */
+export const FIRST_VIEW_MAX_CHECKS = 100_000;
+
+/**
+ * The server's analysis of the layout as loaded, for the editor to show while its worker starts
+ * (the same shared analysis, so the worker's first result shows the same). Off for large layouts;
+ * a failure only means waiting for the worker.
+ */
+export function useLayoutFirstView(layout: LayoutDto | undefined) {
+  const c = layout?.content;
+  const checks = c ? c.arms.length * c.workPoints.length * Math.max(1, c.workHeights.length) : Infinity;
+  return useQuery({
+    queryKey: layoutKeys.firstView(layout?.id ?? 0, layout?.version ?? 0),
+    queryFn: ({ signal }) => api<LayoutFirstViewDto>(`/layouts/${layout!.id}/analysis`, { signal }),
+    enabled: layout !== undefined && checks <= FIRST_VIEW_MAX_CHECKS,
+    staleTime: Infinity,
+    gcTime: 0,
+    retry: false,
+  });
+}
 
 export function useLayouts(projectId: number, show: 'active' | 'archived' = 'active') {
   return useQuery(layoutListQuery(projectId, show));

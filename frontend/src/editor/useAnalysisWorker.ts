@@ -1,9 +1,16 @@
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type { FeatureCollection } from 'geojson';
 import type { FloorLayer } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
 import type { AnalysisView, DragPose, FromWorker, ToWorker, WorkerArmModel } from '../workers/analysisProtocol';
 import { createDeltaDecoder } from '../workers/analysisDelta';
+
+/** The server's analysis of the content the editor opened with (GET /layouts/:id/analysis). */
+export interface FirstView {
+  content: LayoutContent;
+  analysis: AnalysisView['analysis'];
+  maxSpaces: AnalysisView['maxSpaces'];
+}
 
 export interface LiveAnalysis {
   /** The latest result (of the content, or of the content with a drag pose); null until the first. */
@@ -14,6 +21,8 @@ export interface LiveAnalysis {
   /** Tells the worker the pose of an arm being dragged; posted at most once per animation frame. */
   postDrag(pose: DragPose | null): void;
 }
+
+const placedOf = (content: LayoutContent): AnalysisView['placed'] => Object.fromEntries(content.arms.map((a) => [a.id, [a.x, a.y, a.yaw] as [number, number, number]]));
 
 /**
  * Runs the layout analysis in a Web Worker: the models and the floor are posted when they change
@@ -26,6 +35,12 @@ export function useAnalysisWorker(input: {
   content: LayoutContent;
   /** The section line drawn on the plan (A, A′ in plan mm), or null: its side view comes with every result. */
   sectionLine?: [[number, number], [number, number]] | null;
+  /**
+   * Shown until the worker's first result while the content is still the one it was computed from
+   * and no section line is drawn: the same shared analysis, run by the server, so opening a layout
+   * need not wait for the worker to build every arm model's reach.
+   */
+  firstView?: FirstView | null;
 }): LiveAnalysis {
   const worker = useRef<Worker | null>(null);
   const seq = useRef(0);
@@ -115,6 +130,14 @@ export function useAnalysisWorker(input: {
     [post],
   );
 
+  const firstView = input.firstView ?? null;
+  const first = useMemo(
+    () => (firstView ? { analysis: firstView.analysis, maxSpaces: firstView.maxSpaces, placed: placedOf(firstView.content), section: null, dragging: false } : null),
+    [firstView],
+  );
+  if (view === null && error === null && first && firstView!.content === content && sectionLine === null) {
+    return { view: first, error: null, busy: false, postDrag };
+  }
   const editPending = models !== null && (answered?.content !== content || answered.models !== models);
   return { view, error, busy: busy || editPending, postDrag };
 }

@@ -1,11 +1,13 @@
 import { useQuery } from '@tanstack/react-query';
+import { useMemo, useState } from 'react';
+import type { LayoutDto } from '@shared/schemas/layout';
 import { Link, useParams } from 'react-router-dom';
 import { can } from '@shared/policy';
 import { useArmModels } from '../api/armModels';
 import { useSessionUser } from '../api/auth';
 import { isApiError } from '../api/client';
 import { floorPlanDetailQuery } from '../api/floorPlans';
-import { useLayout } from '../api/layouts';
+import { useLayout, useLayoutFirstView } from '../api/layouts';
 import { useProject } from '../api/projects';
 import { LayoutEditor } from '../components/layout/LayoutEditor';
 import { SubmitRevisionButton } from '../components/review/SubmitRevisionButton';
@@ -30,6 +32,13 @@ function LayoutEditorLoader({ projectId, layoutId }: { projectId: number; layout
   const layout = useLayout(layoutId);
   const project = useProject(projectId);
   const models = useArmModels();
+  // The layout as first loaded: the server's analysis of that version is shown until the worker's
+  // first result (later saves update the layout query but need no server analysis).
+  const [opened, setOpened] = useState<LayoutDto | undefined>(undefined);
+  if (!opened && layout.data) setOpened(layout.data);
+  const firstQuery = useLayoutFirstView(opened);
+  const firstData = firstQuery.data;
+  const firstView = useMemo(() => (opened && firstData?.version === opened.version ? { content: opened.content, ...firstData } : null), [opened, firstData]);
   usePageTitle(layout.data?.name ?? 'Cell layout', project.data?.name);
   const floorPlanId = layout.data?.floorPlanId ?? null;
   const plan = useQuery({ ...floorPlanDetailQuery(floorPlanId ?? 0), enabled: floorPlanId !== null });
@@ -73,7 +82,13 @@ function LayoutEditorLoader({ projectId, layoutId }: { projectId: number; layout
         lead={`Cell layout · ${plan.data ? `on ${plan.data.fileName}` : 'no floor plan'} · ${l.content.arms.length} arms, ${l.content.workPoints.length} work points, ${l.content.boundaries.length} boundaries`}
         actions={can(user.role, 'revision.submit') ? <SubmitRevisionButton projectId={projectId} layoutId={l.id} /> : undefined}
       />
-      <LayoutEditor layout={l} floorPlan={floorPlanId !== null ? (plan.data ?? null) : null} armModels={models.data} readOnly={readOnly} />
+      <LayoutEditor
+        layout={l}
+        floorPlan={floorPlanId !== null ? (plan.data ?? null) : null}
+        armModels={models.data}
+        readOnly={readOnly}
+        firstView={firstView}
+      />
     </>
   );
 }

@@ -4,12 +4,12 @@
  * restricting limits), the prepared floor, the latest content and the pose being dragged. Pure
  * apart from its own caches, so it runs the same in a test as in the worker.
  */
-import { createAnalyzer, MISSING_MODEL_TEXT, type Analyzer } from '@shared/analysis';
+import { createAnalyzer, MISSING_MODEL_TEXT, placedMaxSpace, type Analyzer } from '@shared/analysis';
 import { prepareFloor } from '@shared/analysis';
 import { checkSectionLine, sectionOf, type SectionArm, type SectionLine, type SectionResult } from '@shared/analysis';
 import type { ArmReach, PreparedFloor } from '@shared/analysis';
 import { armPose } from '@shared/geometry';
-import { polygonsToGeoJSON, type AreaGeometry } from '@shared/geometry';
+import type { AreaGeometry } from '@shared/geometry';
 import type { Polygon2 } from '@shared/geometry';
 import { ReadableError } from '@shared/schemas/errors';
 import type { ArmPlacement, LayoutContent } from '@shared/schemas/layout';
@@ -76,13 +76,7 @@ export function createAnalysisSession(build: ReachBuilder): AnalysisSession {
   function maxSpaceOf(a: ArmPlacement): AreaGeometry | null {
     const key = `${a.id}|${a.armModelId}|${a.x}|${a.y}|${a.yaw}`;
     if (maxSpaces.has(key)) return maxSpaces.get(key)!;
-    let g: AreaGeometry | null;
-    try {
-      const polys = reachOf(a.armModelId, undefined).restricted;
-      g = polys.length ? polygonsToGeoJSON(placePolygons(polys, a.x, a.y, a.yaw)) : null;
-    } catch {
-      g = null; // the analysis reports the model as a finding
-    }
+    const g = placedMaxSpace(reachOf, a);
     maxSpaces.set(key, g);
     return g;
   }

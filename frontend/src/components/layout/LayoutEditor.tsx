@@ -10,7 +10,7 @@ import type { FloorPlanDto } from '../../api/floorPlans';
 import { useCreateLayout } from '../../api/layouts';
 import { commandForKey } from '../../editor/editorKeys';
 import { addArm, addWorkPoint, addBoundary, duplicateArm, moveArm, moveBoundaryVertex, nudgeArm, removeArm, removeBoundary, rotateArm, roundMm, setArmYaw } from '../../editor/layoutEdits';
-import { useAnalysisWorker } from '../../editor/useAnalysisWorker';
+import { useAnalysisWorker, type FirstView } from '../../editor/useAnalysisWorker';
 import { placeAtCandidate } from '../../editor/placementEdits';
 import { usePlacementWorker } from '../../editor/usePlacementWorker';
 import { cellReasonText } from '@shared/analysis';
@@ -42,6 +42,8 @@ export interface LayoutEditorProps {
   armModels: ArmModelDto[];
   /** Reviewers: no drag, no tools, the same findings. */
   readOnly: boolean;
+  /** The server's analysis of the content as loaded, shown until the worker's first result (null: wait for the worker). */
+  firstView?: FirstView | null;
 }
 
 const BOUNDARY_WORD = { fence: 'fence', keepout: 'keep-out', operator: 'operator area', opening: 'opening' } as const;
@@ -64,7 +66,7 @@ function findingBounds(f: Finding): PlanBounds | null {
 }
 
 /** The layout editor: plan with arms, reach and boundaries, tools, inspector, live findings from the worker. */
-export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly }: LayoutEditorProps) {
+export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly, firstView = null }: LayoutEditorProps) {
   const ed = useLayoutEditor(layout);
   const { content, edit } = ed;
   const conflict = ed.save.kind === 'conflict';
@@ -93,7 +95,7 @@ export function LayoutEditor({ layout, floorPlan, armModels, readOnly: viewOnly 
     [floorPlan],
   );
   const checkedFloor = useMemo(() => checkedFloorOf(floorPlan?.layers), [floorPlan]);
-  const live = useAnalysisWorker({ models, floor, content, sectionLine });
+  const live = useAnalysisWorker({ models, floor, content, sectionLine, firstView });
   const placing = usePlacementWorker();
   const [placeOpen, setPlaceOpen] = useState(false);
   const [placeHover, setPlaceHover] = useState<string | null>(null);

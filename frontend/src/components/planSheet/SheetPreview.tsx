@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
-import { drawPdfPage, pdfjs } from './pdfCanvas';
+import { drawPdfPage, loadPdfjs, type PdfLoadingTask } from './pdfCanvas';
 
 /** Page 1 of a PDF drawn into a canvas by pdfjs-dist (the browser's own copy of the sheet). */
 export function SheetPreview({ pdf, width = 640 }: { pdf: Blob; width?: number }) {
@@ -11,10 +11,13 @@ export function SheetPreview({ pdf, width = 640 }: { pdf: Blob; width?: number }
 
   useEffect(() => {
     let cancelled = false;
-    let task: ReturnType<typeof pdfjs.getDocument> | null = null;
+    let task: PdfLoadingTask | null = null;
     void (async () => {
       try {
-        task = pdfjs.getDocument({ data: new Uint8Array(await pdf.arrayBuffer()) });
+        const data = new Uint8Array(await pdf.arrayBuffer());
+        const pdfjs = await loadPdfjs();
+        if (cancelled) return;
+        task = pdfjs.getDocument({ data });
         const doc = await task.promise;
         const c = canvas.current;
         if (!c || cancelled) return;

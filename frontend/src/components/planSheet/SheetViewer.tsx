@@ -1,6 +1,6 @@
 import { useEffect, useRef, useState } from 'react';
 import { Button } from '../Button';
-import { drawPdfPage, pdfjs, type PdfDocument as Doc } from './pdfCanvas';
+import { drawPdfPage, loadPdfjs, type PdfDocument as Doc, type PdfLoadingTask } from './pdfCanvas';
 
 /**
  * A stored plan sheet shown in the page, sheet by sheet, drawn by pdfjs-dist (so it looks the same
@@ -20,12 +20,15 @@ export function SheetViewer({ url, label }: { url: string; label: string }) {
 
   useEffect(() => {
     let cancelled = false;
-    let task: ReturnType<typeof pdfjs.getDocument> | null = null;
+    let task: PdfLoadingTask | null = null;
     void (async () => {
       try {
         const res = await fetch(url, { credentials: 'same-origin' });
         if (!res.ok) throw new Error(`HTTP ${res.status}`);
-        task = pdfjs.getDocument({ data: new Uint8Array(await res.arrayBuffer()) });
+        const data = new Uint8Array(await res.arrayBuffer());
+        const pdfjs = await loadPdfjs();
+        if (cancelled) return;
+        task = pdfjs.getDocument({ data });
         const d = await task.promise;
         if (!cancelled) {
           setLoaded({ url, doc: d });

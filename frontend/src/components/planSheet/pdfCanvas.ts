@@ -1,10 +1,22 @@
-import * as pdfjs from 'pdfjs-dist';
-import workerUrl from 'pdfjs-dist/build/pdf.worker.min.mjs?url';
+import type { PDFDocumentLoadingTask, PDFDocumentProxy } from 'pdfjs-dist';
 
-pdfjs.GlobalWorkerOptions.workerSrc = workerUrl;
+type Pdfjs = typeof import('pdfjs-dist');
+export type PdfDocument = PDFDocumentProxy;
+export type PdfLoadingTask = PDFDocumentLoadingTask;
 
-export { pdfjs };
-export type PdfDocument = Awaited<ReturnType<typeof pdfjs.getDocument>['promise']>;
+let loading: Promise<Pdfjs> | null = null;
+
+/**
+ * pdfjs-dist, loaded the first time a sheet is shown: it is the largest part of the client, and
+ * pages that show no sheet (the layout editor among them) should not wait for it.
+ */
+export function loadPdfjs(): Promise<Pdfjs> {
+  loading ??= Promise.all([import('pdfjs-dist'), import('pdfjs-dist/build/pdf.worker.min.mjs?url')]).then(([pdfjs, worker]) => {
+    pdfjs.GlobalWorkerOptions.workerSrc = worker.default;
+    return pdfjs;
+  });
+  return loading;
+}
 
 /** Draws one page of a PDF into a canvas `width` CSS pixels wide, sharp on high-density screens. */
 export async function drawPdfPage(doc: PdfDocument, pageNumber: number, canvas: HTMLCanvasElement, width: number): Promise<void> {
