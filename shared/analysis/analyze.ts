@@ -86,6 +86,8 @@ export interface Analyzer {
    * Full analysis, cached per arm, pair and coverage column, so that moving one arm recomputes only
    * its regions, its pairs, its coverage column and the work points near it. The result's
    * `coverage` object is kept by the analyzer and updated in place by the next call.
+   * Inputs are only read; an edit passes new arrays (the same work-point array is taken to hold
+   * the same points, so it is not fingerprinted again).
    */
   analyze(input: Readonly<AnalysisInput>): AnalysisResult;
   /** How many arm regions, pairs and coverage columns the last call computed afresh (for tests and benchmarks). */
@@ -104,6 +106,9 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
   const pairs = new Map<string, PairResult>();
   const columns = new Map<string, Column>();
   let fp = '';
+  // The work-point array last fingerprinted: inputs are never changed in place (every edit makes new
+  // arrays), so the same array has the same fingerprint and a drag need not hash every point again.
+  let fpOf: ReadonlyArray<WorkPoint> | null = null;
   let grid: PointGrid | null = null;
   let coverage: Record<string, Record<string, number>> = {};
   let pointFindings: Array<Finding[] | null> = [];
@@ -269,7 +274,8 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       const placedIds = new Set(placed.map((p) => p.arm.id));
 
       // Coverage: columns per arm over the points near it; rows updated in place.
-      const nextFp = pointsFingerprint(points);
+      const nextFp = points === fpOf ? fp : pointsFingerprint(points);
+      fpOf = points;
       let dirty: Uint8Array;
       if (nextFp !== fp) {
         fp = nextFp;
@@ -353,7 +359,7 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       const findings: Finding[] = [];
       let k = 0;
       while (k < small.length && small[k].severity === 'critical') findings.push(small[k++]);
-      for (const pf of pointFindings) if (pf) findings.push(...pf);
+      for (const pf of pointFindings) if (pf) for (const f of pf) findings.push(f);
       while (k < small.length) findings.push(small[k++]);
 
       const regions: AnalysisResult['regions'] = {};
