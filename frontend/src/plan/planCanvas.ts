@@ -134,12 +134,21 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
     .style('fill', 'var(--color-ink, #1c2230)');
   created.push(defs.node()!, gridG.node()!, viewport.node()!, screenG.node()!, scaleG.node()!);
 
+  // The canvas' place on the screen, read once per gesture: reading it on every pointer move after
+  // the plan was redrawn forces the browser to lay the whole drawing out again at once. It is read
+  // afresh after the pointer enters or presses, the page scrolls or the window or canvas resizes.
+  let rect: DOMRect | null = null;
+  const svgRect = () => (rect ??= svg.getBoundingClientRect());
+  const forgetRect = () => {
+    rect = null;
+  };
+
   const viewState = (): PlanViewState => ({
     transform: { ...current },
     width,
     height,
     toPlan: (clientX, clientY) => {
-      const r = svg.getBoundingClientRect();
+      const r = svgRect();
       return screenToPlan(current, clientX - r.left, clientY - r.top);
     },
     toScreen: (p) => planToScreen(current, p),
@@ -274,7 +283,7 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
 
   function onPointerMove(event: PointerEvent): void {
     if (!options.onCursor) return;
-    const r = svg.getBoundingClientRect();
+    const r = svgRect();
     options.onCursor(screenToPlan(current, event.clientX - r.left, event.clientY - r.top));
   }
   function onPointerLeave(): void {
@@ -283,8 +292,13 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
   svg.addEventListener('keydown', onKey);
   svg.addEventListener('pointermove', onPointerMove);
   svg.addEventListener('pointerleave', onPointerLeave);
+  svg.addEventListener('pointerenter', forgetRect);
+  svg.addEventListener('pointerdown', forgetRect, { capture: true });
+  window.addEventListener('scroll', forgetRect, { capture: true, passive: true });
+  window.addEventListener('resize', forgetRect);
 
   const resize = new ResizeObserver(() => {
+    forgetRect();
     const w = svg.clientWidth;
     const h = svg.clientHeight;
     if (w === width && h === height) return;
@@ -426,6 +440,10 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
       svg.removeEventListener('keydown', onKey);
       svg.removeEventListener('pointermove', onPointerMove);
       svg.removeEventListener('pointerleave', onPointerLeave);
+      svg.removeEventListener('pointerenter', forgetRect);
+      svg.removeEventListener('pointerdown', forgetRect, { capture: true });
+      window.removeEventListener('scroll', forgetRect, { capture: true });
+      window.removeEventListener('resize', forgetRect);
       listeners.clear();
       for (const o of overlays.values()) o.g.remove();
       overlays.clear();
