@@ -7,10 +7,12 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { createBrowserRouter, RouterProvider } from 'react-router-dom';
+import { setPrefetchClient } from './api/prefetch';
 import { createQueryClient } from './api/queryClient';
 import { routes } from './routes/routeTable';
 
 const queryClient = createQueryClient();
+setPrefetchClient(queryClient);
 const router = createBrowserRouter(routes);
 
 const container = document.getElementById('root');

@@ -87,6 +87,12 @@ describe('server and worker analyses', () => {
     expect(strip(res.body.analysis)).toEqual(strip(worker.analysis));
     expect(res.body.maxSpaces).toEqual(JSON.parse(JSON.stringify(worker.maxSpaces)));
     expect(Object.keys(res.body.maxSpaces).sort()).toEqual((layout.content as LayoutContent).arms.map((a) => a.id).sort());
+    // Asked for at most N reach checks: 413 naming the counts when the layout needs more, 400 for a bad N.
+    const small = await agent.get(`/api/layouts/${layout.id}/analysis?maxChecks=10`);
+    expect(small.status).toBe(413);
+    expect(small.body.error.code).toBe('analysis_too_large');
+    expect((await agent.get(`/api/layouts/${layout.id}/analysis?maxChecks=1000000`)).status).toBe(200);
+    expect((await agent.get(`/api/layouts/${layout.id}/analysis?maxChecks=lots`)).status).toBe(400);
     // A layout this user cannot see is not analysed for them.
     expect((await agent.get('/api/layouts/999999/analysis')).status).toBe(404);
   });

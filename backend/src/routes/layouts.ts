@@ -2,6 +2,7 @@ import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { LayoutContent, LayoutCreateInput, LayoutUpdateInput } from '@shared/schemas/layout';
 import { allow, currentUser } from '../auth/guards';
+import { badRequest } from '../http/errors';
 import { idParam, parseOr400 } from '../http/validate';
 import { Layout } from '../models';
 import { deleteReturnedRevisions, refuseDeletingRecords } from '../services/archive';
@@ -57,7 +58,11 @@ export function layoutsRouter(sequelize: Sequelize): Router {
   // while its own worker starts. `version` names the stored version analysed.
   r.get('/layouts/:id/analysis', allow('layout.read'), async (req, res) => {
     const layout = await loadVisibleLayout(currentUser(req), idParam(req.params.id, 'Layout'));
-    const view = await analyzeLayoutView(layout);
+    // ?maxChecks=N: answer 413 at once when the layout needs more reach checks (the editor asks
+    // for a first view only of layouts its worker would not answer as quickly itself).
+    const cap = req.query.maxChecks === undefined ? undefined : Number(req.query.maxChecks);
+    if (cap !== undefined && !(Number.isInteger(cap) && cap >= 0)) throw badRequest('maxChecks must be a whole number of reach checks, 0 or more.', { maxChecks: 'a whole number, 0 or more' });
+    const view = await analyzeLayoutView(layout, cap);
     res.json({ version: layout.version, ...view });
   });
 

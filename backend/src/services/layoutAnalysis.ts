@@ -16,18 +16,18 @@ export function setAnalysisCap(cap: number): void {
 const n = (v: number) => v.toLocaleString('en-GB').replace(/,/g, ' ');
 
 /** 413 naming the counts and the cap when a layout asks for more reach checks than one analysis may hold. */
-export function assertAnalysisSize(content: Pick<LayoutContent, 'arms' | 'workPoints' | 'workHeights'>): void {
+export function assertAnalysisSize(content: Pick<LayoutContent, 'arms' | 'workPoints' | 'workHeights'>, cap = maxChecks): void {
   const arms = content.arms.length;
   const points = content.workPoints.length;
   const heights = Math.max(1, content.workHeights.length);
   const checks = arms * points * heights;
-  if (checks > maxChecks) {
+  if (checks > cap) {
     throw new HttpError(
       413,
       'analysis_too_large',
-      `The cell layout asks for ${n(arms)} arms × ${n(points)} work points × ${n(heights)} work heights = ${n(checks)} reach checks; one analysis may hold at most ${n(maxChecks)}. Split the cell layout into smaller ones.`,
+      `The cell layout asks for ${n(arms)} arms × ${n(points)} work points × ${n(heights)} work heights = ${n(checks)} reach checks; one analysis may hold at most ${n(cap)}. Split the cell layout into smaller ones.`,
       undefined,
-      { limits: { arms, workPoints: points, workHeights: heights, checks, maxChecks } },
+      { limits: { arms, workPoints: points, workHeights: heights, checks, maxChecks: cap } },
     );
   }
 }
@@ -44,9 +44,11 @@ export async function analyzeLayout(layout: Layout, contentOverride?: LayoutCont
 /**
  * The stored layout's analysis with each arm's maximum space, as the editor's worker would draw
  * them: the editor shows it on opening while its own worker starts (services/workerPool.ts keeps
- * the arm models' reach built between requests, so a warm server answers at once).
+ * the arm models' reach built between requests, so a warm server answers at once). `cap` lowers
+ * the most reach checks answered (413 beyond it, before any work).
  */
-export async function analyzeLayoutView(layout: Layout): Promise<AnalysisViewResult> {
+export async function analyzeLayoutView(layout: Layout, cap = maxChecks): Promise<AnalysisViewResult> {
+  assertAnalysisSize(layout.content as LayoutContent, Math.min(cap, maxChecks));
   return runHeavy({ kind: 'analysisView', job: await analysisJob(layout) });
 }
 

@@ -38,21 +38,22 @@ export interface LayoutFirstViewDto {
 export const FIRST_VIEW_MAX_CHECKS = 100_000;
 
 /**
- * The server's analysis of the layout as loaded, for the editor to show while its worker starts
- * (the same shared analysis, so the worker's first result shows the same). Off for large layouts;
- * a failure only means waiting for the worker.
+ * The server's analysis of a stored layout, for the editor to show while its worker starts (the
+ * same shared analysis, so the worker's first result shows the same); asked only for layouts of at
+ * most FIRST_VIEW_MAX_CHECKS reach checks (the server answers 413 at once beyond). A failure only
+ * means waiting for the worker.
  */
-export function useLayoutFirstView(layout: LayoutDto | undefined) {
-  const c = layout?.content;
-  const checks = c ? c.arms.length * c.workPoints.length * Math.max(1, c.workHeights.length) : Infinity;
-  return useQuery({
-    queryKey: layoutKeys.firstView(layout?.id ?? 0, layout?.version ?? 0),
-    queryFn: ({ signal }) => api<LayoutFirstViewDto>(`/layouts/${layout!.id}/analysis`, { signal }),
-    enabled: layout !== undefined && checks <= FIRST_VIEW_MAX_CHECKS,
+export const layoutFirstViewQuery = (id: number) =>
+  queryOptions({
+    queryKey: layoutKeys.firstView(id),
+    queryFn: ({ signal }) => api<LayoutFirstViewDto>(`/layouts/${id}/analysis?maxChecks=${FIRST_VIEW_MAX_CHECKS}`, { signal }),
     staleTime: Infinity,
     gcTime: 0,
     retry: false,
   });
+
+export function useLayoutFirstView(id: number) {
+  return useQuery(layoutFirstViewQuery(id));
 }
 
 export function useLayouts(projectId: number, show: 'active' | 'archived' = 'active') {

@@ -38,8 +38,8 @@ export const layoutKeys = {
   list: (projectId: number) => [...layoutKeys.lists(), projectId] as const,
   listOf: (projectId: number, show: 'active' | 'archived') => [...layoutKeys.list(projectId), show] as const,
   details: () => [...layoutKeys.all, 'detail'] as const,
-  /** The server's analysis of a stored version (the editor's first view while its worker starts). */
-  firstView: (id: number, version: number) => [...layoutKeys.all, 'firstView', id, version] as const,
+  /** The server's analysis of the stored layout (the editor's first view while its worker starts). */
+  firstView: (id: number) => [...layoutKeys.all, 'firstView', id] as const,
   detail: (id: number) => [...layoutKeys.details(), id] as const,
 };
 

@@ -36,7 +36,7 @@ function LayoutEditorLoader({ projectId, layoutId }: { projectId: number; layout
   // first result (later saves update the layout query but need no server analysis).
   const [opened, setOpened] = useState<LayoutDto | undefined>(undefined);
   if (!opened && layout.data) setOpened(layout.data);
-  const firstQuery = useLayoutFirstView(opened);
+  const firstQuery = useLayoutFirstView(layoutId);
   const firstData = firstQuery.data;
   const firstView = useMemo(() => (opened && firstData?.version === opened.version ? { content: opened.content, ...firstData } : null), [opened, firstData]);
   usePageTitle(layout.data?.name ?? 'Cell layout', project.data?.name);

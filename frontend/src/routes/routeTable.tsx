@@ -4,6 +4,8 @@ import { AppFrame } from '../components/AppFrame';
 import { LoadingNotice } from '../components/Notice';
 import { RequireAuth } from '../components/RequireAuth';
 import { RouteError } from '../components/RouteError';
+import { prefetchLayoutEditor } from '../api/prefetch';
+import { parseId } from '../lib/routeId';
 
 type PageModule = { default: ComponentType };
 
@@ -48,7 +50,16 @@ export const routes: RouteObject[] = [
           { path: 'projects', lazy: page(() => import('./ProjectsPage')) },
           { path: 'projects/:id', lazy: page(() => import('./ProjectPage')) },
           { path: 'projects/:id/floor-plans/:planId', lazy: page(() => import('./FloorPlanPage')) },
-          { path: 'projects/:id/layouts/:layoutId', lazy: page(() => import('./LayoutEditorPage')) },
+          {
+            path: 'projects/:id/layouts/:layoutId',
+            // Starts the editor's requests while its code loads (returns at once; the page reads them).
+            loader: ({ params }) => {
+              const id = parseId(params.layoutId);
+              if (id !== null) prefetchLayoutEditor(id);
+              return null;
+            },
+            lazy: page(() => import('./LayoutEditorPage')),
+          },
           { path: 'projects/:id/revisions/:revisionId', lazy: page(() => import('./ReviewPage')) },
           { path: 'admin/users', lazy: page(() => import('./AdminUsersPage')) },
           { path: 'admin/invitations', lazy: page(() => import('./InvitePeoplePage')) },
