@@ -4,7 +4,7 @@
 //     idle with the worker's first result listed), median of 5 loads — target ≤ 300 ms.
 //  2. Dragging an arm on a 40-arm × 10 000-point × 3-height layout and on a 100-arm × 50 000-point
 //     one (made through the layout API, no floor plan; the API takes both whole): frame times
-//     (requestAnimationFrame deltas, p50/p95 — target ≤ 16 ms; an idle page at 60 Hz gives 16.7),
+//     (requestAnimationFrame deltas, p50/p95 — target one 60 Hz frame, 17 ms: an idle page gives 16.7),
 //     last move → the worker's result drawn (target ≤ 16 ms, the incremental analysis' budget),
 //     long tasks (> 50 ms) on the main thread during the drag — target 0.
 //  3. Peak JS heap of the editor page with the 100-arm layout (CDP Performance.getMetrics; the
@@ -28,7 +28,14 @@ const PLANNER = 'planner@fernhill.test';
 const DEMO_PROJECT = 'Line 3 end-of-line cell';
 const DEMO_LAYOUT = 'Fernhill line 3 — cell layout';
 const OPEN_TARGET_MS = 300;
-const FRAME_TARGET_MS = 16;
+/**
+ * One frame of a 60 Hz display: requestAnimationFrame deltas cannot be shorter than the display's
+ * refresh (16.7 ms on an idle page), so the target is one frame, with 0.3 ms for the deltas'
+ * jitter, rather than 16.0 ms, which no page can meet.
+ */
+const FRAME_TARGET_MS = 17;
+/** The worker's result drawn within the incremental analysis' budget after the last move. */
+const SETTLE_TARGET_MS = 16;
 const LOADS = 5;
 const DRAG_STEPS = 60;
 const DRAG_PX = 3; // per step, so a drag covers 180 px
@@ -296,7 +303,7 @@ async function benchDrag(browser: Browser, state: Parameters<typeof newEditorPag
     const what = `${label}: drag (${drags} drag${drags > 1 ? 's' : ''} × ${DRAG_STEPS} moves, ${frames.length} frames)`;
     report(`${what} frame time p50`, percentile(frames, 50), 'ms', FRAME_TARGET_MS);
     report(`${what} frame time p95`, percentile(frames, 95), 'ms', FRAME_TARGET_MS);
-    report(`${label}: last move → worker result drawn (median of ${drags}; worker ${median(runs.map((r) => r.workerMs)).toFixed(1)} ms of it)`, median(runs.map((r) => r.settleMs)), 'ms', FRAME_TARGET_MS);
+    report(`${label}: last move → worker result drawn (median of ${drags}; worker ${median(runs.map((r) => r.workerMs)).toFixed(1)} ms of it)`, median(runs.map((r) => r.settleMs)), 'ms', SETTLE_TARGET_MS);
     const longTasks = runs.reduce((n, r) => n + r.longTasks, 0);
     report(`${label}: long tasks > 50 ms during ${drags} drag${drags > 1 ? 's' : ''} (longest ${Math.max(...runs.map((r) => r.longestTaskMs)).toFixed(0)} ms)`, longTasks, 'tasks', 0);
     if (heap) report(`${label}: peak JS heap of the editor page (open and drags; the worker's heap not included)`, await heap.stop(), 'MB', null);
@@ -346,7 +353,21 @@ try {
   for (let i = 0; i < LOADS; i++) {
     const context = await newEditorPage(browser, state);
     try {
-      steps.push(await openEditor(await context.newPage(), `${base}/projects/${project.id}/layouts/${demo.id}`));
+      const page = await context.newPage();
+      // BENCH_BROWSER_PROFILE=dir: the last load's main thread is profiled too.
+      const profileDir = process.env.BENCH_BROWSER_PROFILE;
+      const cdp = profileDir && i === LOADS - 1 ? await context.newCDPSession(page) : null;
+      if (cdp) {
+        await cdp.send('Profiler.enable');
+        await cdp.send('Profiler.start');
+      }
+      steps.push(await openEditor(page, `${base}/projects/${project.id}/layouts/${demo.id}`));
+      if (cdp && profileDir) {
+        const { profile } = await cdp.send('Profiler.stop');
+        mkdirSync(profileDir, { recursive: true });
+        writeFileSync(path.join(profileDir, 'open-demo.cpuprofile'), JSON.stringify(profile));
+        console.log(`main-thread profile of the last demo load: ${path.join(profileDir, 'open-demo.cpuprofile')}`);
+      }
     } finally {
       await context.close();
     }
