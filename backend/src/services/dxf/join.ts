@@ -19,11 +19,14 @@ export const MAX_LISTED_ENDS = 500;
 
 /** True when every position of `c` lies within `tol` of its first (a path shorter than the tolerance). */
 function isDegenerate(c: readonly Position2[], tol: number): boolean {
-  const [x0, y0] = c[0];
+  const p0 = c[0];
+  const x0 = p0[0];
+  const y0 = p0[1];
   const t2 = tol * tol;
   for (let i = 1; i < c.length; i++) {
-    const dx = c[i][0] - x0;
-    const dy = c[i][1] - y0;
+    const p = c[i];
+    const dx = p[0] - x0;
+    const dy = p[1] - y0;
     if (dx * dx + dy * dy > t2) return false;
   }
   return true;
