@@ -232,13 +232,13 @@ describe('reading the ENTITIES section off the text gives what the parser gives'
     fc.assert(fc.property(fc.oneof(decimal, fc.double().map(String)), (v) => check(v)), { numRuns: 3000 });
   });
 
-  it('damaged samples give the same result or the same error (300 runs)', () => {
-    const samples = Object.values(SAMPLE_FILES).map((f) => readSample(f).split('\n'));
+  it('damaged samples and damaged every-type files give the same result or the same error (400 runs)', () => {
+    const samples = [...Object.values(SAMPLE_FILES).map((f) => readSample(f)), everyTypeFile()].map((t) => t.split('\n'));
     fc.assert(
       fc.property(fc.nat({ max: samples.length - 1 }), fc.array(mutation, { minLength: 1, maxLength: 6 }), (which, ops) => {
         expectSame(mutate(samples[which], ops));
       }),
-      { numRuns: 300 },
+      { numRuns: 400 },
     );
   }, 120_000);
 });
