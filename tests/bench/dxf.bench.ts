@@ -2,7 +2,8 @@
 // importDxf against the bare dxf-parser parse of the same text (target ≤ 1.2×), and the peak
 // memory of an import measured in child processes (target ≤ 4× the file size).
 // Timing runs in a child process that alternates the two (full GC before each run); memory is
-// the peak RSS of fresh child processes, less that of one that only reads the file.
+// the peak RSS of fresh child processes, less that of one that only reads the file; the heap the
+// finished result holds (after a full GC) is printed beside it, as the floor of that figure.
 // Run: npm run bench dxf   (or node --import tsx tests/bench/dxf.bench.ts)
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
@@ -103,6 +104,15 @@ function child(mode: string, file: string, rounds: number): void {
     process.stdout.write(JSON.stringify(out));
     return;
   }
+  if (mode === 'result') {
+    // heap the finished result holds on its own (GeoJSON: an array per position)
+    gc();
+    const heap0 = process.memoryUsage().heapUsed;
+    const kept = importDxf(text);
+    gc();
+    process.stdout.write(JSON.stringify({ before: heap0, peak: process.memoryUsage().heapUsed, kept: kept.stats.features }));
+    return;
+  }
   const before = process.memoryUsage().rss;
   let keep: unknown;
   if (mode === 'parser') keep = new DxfParser().parseSync(text);
@@ -161,6 +171,8 @@ function main(): void {
     console.log(`peak RSS, file read only      ${mb(base.peak)}`);
     console.log(`peak RSS, dxf-parser          ${mb(parser.peak)}  (+${mb(parserDelta)}, ${(parserDelta / size).toFixed(1)}× file)`);
     console.log(`peak RSS, importDxf           ${mb(imp.peak)}  (+${mb(importDelta)}, ${(importDelta / size).toFixed(1)}× file)`);
+    const held = measure('result', file);
+    console.log(`heap the result holds         ${mb(held.peak - held.before)}  (${((held.peak - held.before) / size).toFixed(1)}× file, after GC)`);
     const memRatio = importDelta / size;
     report({ what: 'importDxf peak memory over the file size', figure: memRatio, unit: '×', target: MEMORY_TARGET, better: 'lower', digits: 1 });
   } finally {

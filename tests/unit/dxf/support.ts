@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { polygonArea } from 'd3';
+import fc from 'fast-check';
 import type { Feature, Geometry, LineString, Polygon, Position } from 'geojson';
 import type { ImportResult, PlanFeatureProps } from '@shared/schemas/floorPlan';
 
@@ -112,4 +113,72 @@ export function entitiesDxf(
     [0, 'SECTION'], [2, 'ENTITIES'], ...entities, [0, 'ENDSEC'],
     [0, 'EOF'],
   ]);
+}
+
+/** Words a damaged file may hold where another belongs (fuzzing). */
+export const WORDS = ['0', '2', '5', '8', '10', '20', '30', '42', '70', '90', 'SECTION', 'ENDSEC', 'EOF', 'ENTITIES', 'BLOCKS', 'TABLES',
+  'TABLE', 'ENDTAB', 'LAYER', 'VPORT', 'BLOCK', 'ENDBLK', 'INSERT', 'COLUMN', 'POLYLINE', 'VERTEX', 'SEQEND', 'LWPOLYLINE', 'LINE',
+  'ARC', 'CIRCLE', 'SPLINE', 'ELLIPSE', 'TEXT', 'MTEXT', 'HATCH', '\u0000', '', '  ', '1e300', 'NaN', 'Infinity', '-1'];
+
+export type Mutation =
+  | { kind: 'drop'; at: number; count: number }
+  | { kind: 'swapCodes'; a: number; b: number }
+  | { kind: 'number'; at: number; value: string }
+  | { kind: 'truncate'; at: number }
+  | { kind: 'garbage'; at: number; text: string }
+  | { kind: 'duplicate'; at: number; count: number };
+
+const numberText = fc.oneof(
+  fc.double({ noNaN: false }).map(String),
+  fc.integer({ min: -1e9, max: 1e9 }).map(String),
+  fc.constantFrom('1e300', '-1e300', 'NaN', 'Infinity', '-Infinity', '-0', '0', '99999999', '-1', '1e-300', '4', '6', '1'),
+);
+
+/** One damage done to a file's lines: drop, swap codes, change a number, cut off, insert, repeat. */
+export const mutation: fc.Arbitrary<Mutation> = fc.oneof(
+  fc.record({ kind: fc.constant('drop' as const), at: fc.nat(), count: fc.integer({ min: 1, max: 4 }) }),
+  fc.record({ kind: fc.constant('swapCodes' as const), a: fc.nat(), b: fc.nat() }),
+  fc.record({ kind: fc.constant('number' as const), at: fc.nat(), value: numberText }),
+  fc.record({ kind: fc.constant('truncate' as const), at: fc.nat() }),
+  fc.record({ kind: fc.constant('garbage' as const), at: fc.nat(), text: fc.oneof(fc.constantFrom(...WORDS), fc.string({ maxLength: 12 })) }),
+  fc.record({ kind: fc.constant('duplicate' as const), at: fc.nat(), count: fc.integer({ min: 1, max: 40 }) }),
+);
+
+/** Applies the mutations to a copy of the sample's lines. */
+export function mutate(lines: readonly string[], ops: readonly Mutation[]): string {
+  let l = [...lines];
+  for (const o of ops) {
+    const n = Math.max(l.length, 1);
+    switch (o.kind) {
+      case 'drop':
+        l.splice(o.at % n, o.count);
+        break;
+      case 'swapCodes': {
+        const a = (o.a % n) & ~1; // group code lines are the even ones
+        const b = (o.b % n) & ~1;
+        if (a < l.length && b < l.length) [l[a], l[b]] = [l[b], l[a]];
+        break;
+      }
+      case 'number': {
+        // change the value of a numeric group (an odd line holding a number), else any line
+        const start = (o.at % n) | 1;
+        let i = start;
+        while (i < l.length && !/^\s*-?[\d.]+(e-?\d+)?\s*$/i.test(l[i])) i += 2;
+        l[i < l.length ? i : o.at % n] = o.value;
+        break;
+      }
+      case 'truncate':
+        l = l.slice(0, o.at % n);
+        break;
+      case 'garbage':
+        l.splice(o.at % (n + 1), 0, o.text);
+        break;
+      case 'duplicate': {
+        const at = o.at % n;
+        l.splice(at, 0, ...l.slice(at, at + o.count));
+        break;
+      }
+    }
+  }
+  return l.join('\n');
 }

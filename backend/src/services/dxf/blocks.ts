@@ -106,31 +106,32 @@ export function drawEntities(
   b: PlanBuilder,
 ): void {
   for (const raw of entities) {
-    if (!raw || typeof raw !== 'object') continue;
-    const e = raw as Loose;
-    const type = String(e.type);
-    if (++w.instances > MAX_ENTITY_INSTANCES) {
-      throw new DxfImportError(
-        'too-complex',
-        `The drawing expands to more than ${MAX_ENTITY_INSTANCES.toLocaleString('en')} entities once its blocks are placed, more than one floor plan import may hold.`,
-      );
-    }
-    if (stack.length === 0 && e.inPaperSpace === true) {
-      b.skip(type, 'on a paper-space layout');
-      continue;
-    }
-    if (e.visible === false) {
-      b.skip(type, 'invisible');
-      continue;
-    }
-    const own = typeof e.layer === 'string' && e.layer !== '' ? e.layer : '0';
-    const layer = own === '0' && stack.length > 0 ? ctx.layer : own;
-    if (type === 'INSERT') {
-      drawInsert(e, { ...ctx, layer }, stack, w, b);
-    } else {
-      drawEntity(e, layer === ctx.layer ? ctx : { ...ctx, layer }, b);
-    }
+    if (raw && typeof raw === 'object') drawOne(raw as Loose, ctx, stack, w, b);
   }
+}
+
+/** Draws one entity in context (see drawEntities). */
+export function drawOne(e: Loose, ctx: DrawContext, stack: readonly string[], w: BlockWalk, b: PlanBuilder): void {
+  const type = String(e.type);
+  if (++w.instances > MAX_ENTITY_INSTANCES) {
+    throw new DxfImportError(
+      'too-complex',
+      `The drawing expands to more than ${MAX_ENTITY_INSTANCES.toLocaleString('en')} entities once its blocks are placed, more than one floor plan import may hold.`,
+    );
+  }
+  if (stack.length === 0 && e.inPaperSpace === true) {
+    b.skip(type, 'on a paper-space layout');
+    return;
+  }
+  if (e.visible === false) {
+    b.skip(type, 'invisible');
+    return;
+  }
+  const own = typeof e.layer === 'string' && e.layer !== '' ? e.layer : '0';
+  const layer = own === '0' && stack.length > 0 ? ctx.layer : own;
+  const here = layer === ctx.layer ? ctx : { m: ctx.m, tol: ctx.tol, layer, block: ctx.block, curves: ctx.curves };
+  if (type === 'INSERT') drawInsert(e, here, stack, w, b);
+  else drawEntity(e, here, b);
 }
 
 function drawInsert(e: Loose, ctx: DrawContext, stack: readonly string[], w: BlockWalk, b: PlanBuilder): void {

@@ -210,7 +210,7 @@ function lineDrawing(e: Loose, ctx: DrawContext, ref: EntityRef): Drawing {
   const p = pt(vs[0], ref, 'start point');
   const q = pt(vs[1], ref, 'end point');
   if (!p || !q) return skipped('incomplete');
-  return path(false, [...p, ...q], ctx.m);
+  return path(false, [p[0], p[1], p[2], q[0], q[1], q[2]], ctx.m);
 }
 
 /** LWPOLYLINE: 2-D vertices with bulges at one elevation, in the OCS of its extrusion direction. */

@@ -158,6 +158,18 @@ export function scanGroups(text: string): GroupScan {
     const valueEnd = valueEnd0 === -1 ? len : valueEnd0;
     const codeLine = line;
 
+    // most groups need no look at their value: pass them by
+    if (
+      code !== 0 && !inLw && !prevLw10 && layerRec === null && !expectSectionName && !expectTableName && !expectBlockName &&
+      section !== 'HEADER' && !(code >= 290 && code <= 299)
+    ) {
+      lastWasCode0 = false;
+      line += 2;
+      if (valueEnd0 === -1) break;
+      pos = valueEnd + 1;
+      continue;
+    }
+
     let value: string | null = null;
     const inLayerRec = layerRec !== null && (code === 2 || code === 70 || code === 62);
     const isBool = code >= 290 && code <= 299;

@@ -1,6 +1,8 @@
 import type { Feature, Geometry, Polygon } from 'geojson';
 import type { ImportGaps, ImportLayer, ImportResult, PlanFeatureProps, UnitName } from '@shared/schemas/floorPlan';
-import { drawEntities, localTolerance, newBlockWalk } from './blocks';
+import { drawEntities, drawOne, localTolerance, newBlockWalk, type BlockWalk } from './blocks';
+import type { DrawContext } from './entities';
+import { streamEntities, StreamBail } from './entityStream';
 import { DxfImportError } from './errors';
 import { checkDrawingUnit } from '@shared/geometry';
 import { scanGroups, sliceWithEdits, type GroupScan } from './groupScan';
@@ -18,7 +20,7 @@ import { localOrigin, moveToOrigin } from './origin';
 import { COUNTED_ONLY_TYPES, parseDxfText, type ParsedDxf } from './parse';
 import { PlanBuilder } from './planBuilder';
 import { decodeDxfBytes, sniffDxf } from './sniff';
-import { scaling } from './transform';
+import { scaling, type Affine } from './transform';
 import { resolveUnits, UNIT_NAMES } from './units';
 
 export interface ImportOptions {
@@ -64,6 +66,79 @@ function withoutHeader(text: string): string | null {
   const m = end.exec(text);
   if (!m) return null;
   return text.slice(0, from) + text.slice(m.index + m[0].length);
+}
+
+interface DrawnPlan {
+  builder: PlanBuilder;
+  walk: BlockWalk;
+  curves: { capped: number };
+  /** True when coordinates had to be put in x, y, z order first (see parseDxfText). */
+  reordered: boolean;
+}
+
+/**
+ * Draws the drawing's entities (blocks placed) into a new PlanBuilder. The one plain ENTITIES
+ * section is streamed when `reading` is 'stream' and no repair of scanGroups lies inside it, else
+ * (or when the stream reader stops) parsed in pieces, each drawn and dropped before the next is
+ * parsed; a file whose ENTITIES section is not plain is drawn from the whole parse.
+ */
+function drawPlan(text: string, scan: GroupScan, dxf: ParsedDxf, root: Affine, chordTol: number, reading: EntityReading): DrawnPlan {
+  const span = scan.entities;
+  const edits = scan.edits;
+  const plan = (): DrawnPlan & { ctx: DrawContext } => {
+    const curves = { capped: 0 };
+    return {
+      builder: new PlanBuilder(),
+      walk: newBlockWalk(dxf.blocks, chordTol),
+      curves,
+      reordered: dxf.pointsReordered === true,
+      ctx: { m: root, tol: localTolerance(root, chordTol), layer: '0', curves },
+    };
+  };
+  if (span && reading === 'stream' && !edits.some((e) => e.end > span.start && e.start < span.end)) {
+    const p = plan();
+    if (streamSection(text, span, (e) => drawOne(e, p.ctx, [], p.walk, p.builder))) return p;
+  }
+  const p = plan();
+  if (span) {
+    const bounds = [span.start, ...span.cuts, span.end];
+    for (let i = 0; i + 1 < bounds.length; i++) {
+      const piece = `0\nSECTION\n2\nENTITIES\n${sliceWithEdits(text, bounds[i], bounds[i + 1], edits)}0\nENDSEC\n0\nEOF\n`;
+      const part = parseDxfText(piece, scan.lastLine, text);
+      if (part.pointsReordered) p.reordered = true;
+      drawEntities(Array.isArray(part.entities) ? part.entities : [], p.ctx, [], p.walk, p.builder);
+    }
+  } else {
+    drawEntities(Array.isArray(dxf.entities) ? dxf.entities : [], p.ctx, [], p.walk, p.builder);
+  }
+  return p;
+}
+
+/**
+ * Streams the ENTITIES section through `draw`; false when the stream reader stopped (the section
+ * must then be parsed). An error of drawing is thrown only when the parser would have read the
+ * piece it lies in: the parser reads a whole piece before drawing any of it, so a piece it cannot
+ * read fails before an error of drawing within it.
+ */
+function streamSection(text: string, span: NonNullable<GroupScan['entities']>, draw: (e: Record<string, unknown>) => void): boolean {
+  let at = span.start;
+  try {
+    streamEntities(text, span.start, (e, offset) => {
+      at = offset;
+      draw(e);
+    });
+    return true;
+  } catch (err) {
+    if (err instanceof StreamBail) return false;
+    const pieceEnd = span.cuts.find((c) => c > at) ?? span.end;
+    try {
+      streamEntities(text, at, () => undefined, pieceEnd);
+    } catch (inner) {
+      if (inner instanceof StreamBail) return false;
+      throw inner;
+    }
+    throw err;
+  }
 }
 
 /** The parser's header, or one made of the raw $INSUNITS and $MEASUREMENT when it has none. */
@@ -117,6 +192,18 @@ function listNames(names: Set<string>): string {
  * roles. Throws DxfImportError for a file that cannot be read; never returns NaN.
  */
 export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}): ImportResult {
+  return importDxfReading(input, opts, 'stream');
+}
+
+/**
+ * How the ENTITIES section is read: 'stream' straight off the text, entity by entity
+ * (entityStream.ts), falling back to 'parser' where that reader stops; 'parser' by dxf-parser,
+ * in pieces of about ENTITY_CHUNK_CHARS. Both give the same result and the same errors.
+ */
+export type EntityReading = 'stream' | 'parser';
+
+/** importDxf with the way of reading the ENTITIES section chosen (importDxf streams). */
+export function importDxfReading(input: string | Uint8Array, opts: ImportOptions, reading: EntityReading): ImportResult {
   checkOptions(opts);
   const chordTol = opts.chordToleranceMm ?? DEFAULT_CHORD_TOLERANCE_MM;
   const joinTol = opts.joinToleranceMm ?? DEFAULT_JOIN_TOLERANCE_MM;
@@ -138,8 +225,8 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
     warnings.push('The file has no end marker (EOF); it was read up to its last complete section.');
   }
 
-  // Header, tables and blocks first (the ENTITIES body cut out), then the entities in pieces,
-  // each drawn and dropped before the next is parsed: the parser's objects for a large file
+  // Header, tables and blocks are parsed first (the ENTITIES body cut out), then the entities
+  // are read one by one and drawn at once (drawPlan): the objects of a large file's entities
   // never all live at once. A file whose ENTITIES section is not plain is parsed whole.
   const span = scan.entities;
   const edits = scan.edits;
@@ -158,7 +245,6 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
     dxf = parseDxfText(rest, scan.lastLine, text);
     ignored.push('The file header could not be read and was left out; the drawing unit was taken from its $INSUNITS value.');
   }
-  let reordered = dxf.pointsReordered === true;
   const units = resolveUnits(headerOf(dxf, scan), opts.units);
   if (units.warning) warnings.push(units.warning);
   if (scan.repaired.booleans > 0) {
@@ -168,23 +254,7 @@ export function importDxf(input: string | Uint8Array, opts: ImportOptions = {}):
     ignored.push(`${plural(scan.repaired.unnamedBlocks, 'block definition has', 'block definitions have')} no name, so nothing can place ${scan.repaired.unnamedBlocks === 1 ? 'it' : 'them'}; left out.`);
   }
 
-  const builder = new PlanBuilder();
-  const walk = newBlockWalk(dxf.blocks, chordTol);
-  const root = scaling(units.mmPerUnit);
-  const curves = { capped: 0 };
-  const ctx = { m: root, tol: localTolerance(root, chordTol), layer: '0', curves };
-  if (span) {
-    const bounds = [span.start, ...span.cuts, span.end];
-    for (let i = 0; i + 1 < bounds.length; i++) {
-      const piece = `0\nSECTION\n2\nENTITIES\n${sliceWithEdits(text, bounds[i], bounds[i + 1], edits)}0\nENDSEC\n0\nEOF\n`;
-      const part = parseDxfText(piece, scan.lastLine, text);
-      if (part.pointsReordered) reordered = true;
-      drawEntities(Array.isArray(part.entities) ? part.entities : [], ctx, [], walk, builder);
-    }
-  } else {
-    drawEntities(Array.isArray(dxf.entities) ? dxf.entities : [], ctx, [], walk, builder);
-  }
-
+  const { builder, walk, curves, reordered } = drawPlan(text, scan, dxf, scaling(units.mmPerUnit), chordTol, reading);
   if (reordered) ignored.push('Coordinates written in an old order (x, x, y, y) were read in their proper order.');
   const skipped = new Map(builder.skipped);
   for (const [type, n] of scan.entityTypes) {

@@ -19,11 +19,14 @@ export const MAX_LISTED_ENDS = 500;
 
 /** True when every position of `c` lies within `tol` of its first (a path shorter than the tolerance). */
 function isDegenerate(c: readonly Position2[], tol: number): boolean {
-  const [x0, y0] = c[0];
+  const p0 = c[0];
+  const x0 = p0[0];
+  const y0 = p0[1];
   const t2 = tol * tol;
   for (let i = 1; i < c.length; i++) {
-    const dx = c[i][0] - x0;
-    const dy = c[i][1] - y0;
+    const p = c[i];
+    const dx = p[0] - x0;
+    const dy = p[1] - y0;
     if (dx * dx + dy * dy > t2) return false;
   }
   return true;
@@ -35,8 +38,8 @@ function isDegenerate(c: readonly Position2[], tol: number): boolean {
  * back to where it started becomes a closed ring (Polygon); the others stay LineStrings. Chains
  * stop where more than two ends meet, so T-junctions are never guessed through. A path that lies
  * wholly within `tol` of its start is dropped, but its ends still link the ends around it, so a
- * chain runs on through it. The paths' positions are reused in the output; `stats` (when given)
- * receives the gaps closed and the ends left open.
+ * chain runs on through it. The paths' positions (and a path's own array, where it forms a chain
+ * alone) are reused in the output; `stats` (when given) receives the gaps closed and the ends left open.
  */
 export function joinPaths(paths: readonly OpenPath[], tol: number, stats?: JoinStats): Array<Feature<Geometry, PlanFeatureProps>> {
   const n = paths.length;
@@ -166,37 +169,51 @@ export function joinPaths(paths: readonly OpenPath[], tol: number, stats?: JoinS
     out.push({ type: 'Feature', properties: props, geometry: { type: 'LineString', coordinates: coords } });
   };
 
+  /**
+   * The positions of a chain of path ends (each entering its path), in one array of its exact
+   * length; a chain of one path run forwards is that path's own array.
+   */
+  const assemble = (chain: readonly number[]): Position2[] => {
+    const e0 = chain[0];
+    const c0 = paths[e0 >> 1].coords;
+    if (chain.length === 1 && (e0 & 1) === 0) return c0;
+    let total = c0.length;
+    for (let k = 1; k < chain.length; k++) total += paths[chain[k] >> 1].coords.length - 1;
+    const coords: Position2[] = total <= 65_536 ? new Array<Position2>(total) : [];
+    let at = 0;
+    for (let k = 0; k < chain.length; k++) {
+      const e = chain[k];
+      const c = paths[e >> 1].coords;
+      const skip = k === 0 ? 0 : 1; // a later path's first position is the one before it
+      if ((e & 1) === 0) for (let i = skip; i < c.length; i++) coords[at++] = c[i];
+      else for (let i = c.length - 1 - skip; i >= 0; i--) coords[at++] = c[i];
+    }
+    return coords;
+  };
+
+  const chain: number[] = [];
   /** Walks a chain leaving through end `startEnd` (of path startEnd >> 1). */
   const walk = (startEnd: number) => {
     const startNode = root[startEnd];
     const p0 = startEnd >> 1;
-    let coords: Position2[] = [];
-    let parts = 0;
+    chain.length = 0;
+    let closed = false;
     let e = startEnd;
     for (;;) {
-      const p = e >> 1;
-      used[p] = 1;
-      parts++;
-      const c = paths[p].coords;
-      if (parts === 1 && (e & 1) === 0) {
-        coords = c.slice();
-      } else if ((e & 1) === 0) {
-        for (let i = 1; i < c.length; i++) coords.push(c[i]);
-      } else {
-        for (let i = c.length - (parts === 1 ? 1 : 2); i >= 0; i--) coords.push(c[i]);
-      }
+      used[e >> 1] = 1;
+      chain.push(e);
       const other = e ^ 1;
       const node = root[other];
       if (node === startNode) {
-        emit(coords, paths[p0].layer, parts, paths[p0].entity, true);
-        return;
+        closed = true;
+        break;
       }
       if (degree[node] !== 2) break;
       const nextEnd = first[node] === other ? second[node] : first[node];
       if (used[nextEnd >> 1]) break;
       e = nextEnd;
     }
-    emit(coords, paths[p0].layer, parts, paths[p0].entity, false);
+    emit(assemble(chain), paths[p0].layer, chain.length, paths[p0].entity, closed);
   };
 
   // open chains first: they start at nodes where one or more than two ends meet

@@ -6,6 +6,12 @@ import type { Affine } from './transform';
 
 export type Position2 = [number, number];
 
+/** The limit and the rounding of limits.ts, held here for the per-point loop. */
+const MAX_MM = MAX_COORDINATE_MM;
+const round = roundMm;
+/** Longest point list made at its full size at once (longer ones grow as they fill). */
+const PRESIZED_POINTS = 4096;
+
 /** An open plan polyline waiting to be joined: positions in plan mm. */
 export interface OpenPath {
   layer: string;
@@ -40,13 +46,13 @@ export function ringSignedArea(ring: readonly Position2[]): number {
 }
 
 /**
- * Closes an open ring in place into a GeoJSON ring, counter-clockwise (RFC 7946 §3.1.6): reversed
- * when clockwise, the first position repeated (as a copy) at the end.
+ * Closes an open ring into a GeoJSON ring, counter-clockwise (RFC 7946 §3.1.6): reversed (in
+ * place) when clockwise, then a new array with the first position repeated (as a copy) at the end.
  */
 export function closeCcwRing(ring: Position2[]): Position2[] {
   if (ringSignedArea(ring) < 0) ring.reverse();
-  ring.push([ring[0][0], ring[0][1]]);
-  return ring;
+  // (concat makes an array of the exact length; a push would leave spare room in it)
+  return ring.concat([[ring[0][0], ring[0][1]]]);
 }
 
 /**
@@ -89,7 +95,10 @@ export class PlanBuilder {
   }
 
   private project(m: Affine, pts: readonly number[], ref: EntityRef): Position2[] {
-    const out: Position2[] = [];
+    // sized up front (a pushed array keeps spare room for ever), unless very long
+    const n = pts.length / 3;
+    const out: Position2[] = n <= PRESIZED_POINTS ? new Array<Position2>(n) : [];
+    let k = 0;
     let px = Number.NaN;
     let py = Number.NaN;
     const m0 = m[0];
@@ -110,11 +119,11 @@ export class PlanBuilder {
       const c = pts[i + 2];
       const X = m0 * a + m1 * b + m2 * c + m3;
       const Y = m4 * a + m5 * b + m6 * c + m7;
-      if (!(Math.abs(X) <= MAX_COORDINATE_MM) || !(Math.abs(Y) <= MAX_COORDINATE_MM)) badPoint(X, Y, ref);
-      const x = roundMm(X);
-      const y = roundMm(Y);
+      if (!(Math.abs(X) <= MAX_MM) || !(Math.abs(Y) <= MAX_MM)) badPoint(X, Y, ref);
+      const x = round(X);
+      const y = round(Y);
       if (x === px && y === py) continue;
-      out.push([x, y]);
+      out[k++] = [x, y];
       px = x;
       py = y;
       if (x < minX) minX = x;
@@ -126,6 +135,7 @@ export class PlanBuilder {
     this.minY = minY;
     this.maxX = maxX;
     this.maxY = maxY;
+    if (k < out.length) out.length = k;
     return out;
   }
 
