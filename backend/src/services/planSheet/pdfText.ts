@@ -30,7 +30,12 @@ interface DocInternals {
 const inner = (doc: jsPDF) => doc as unknown as DocInternals;
 
 /** A number as jsPDF writes it with floatPrecision 3 (fixed to 3 decimals, trailing zeros cut). */
-export const pdfNum = (v: number): string => v.toFixed(3).replace(/0+$/, '');
+export function pdfNum(v: number): string {
+  const s = v.toFixed(3);
+  let end = s.length;
+  while (s.charCodeAt(end - 1) === 48) end--; // '0'
+  return end === s.length ? s : s.slice(0, end);
+}
 
 export type FontStyle = 'normal' | 'bold';
 export type Align = 'left' | 'right' | 'center';
@@ -128,7 +133,8 @@ export class TextBatch {
     const pageH = box.topRightY - box.bottomLeftY;
     const c = cacheOf(doc);
     const out: string[] = ['BT'];
-    let font = '', colour = '';
+    let font = '';
+    let rgb: number[] = [-1, -1, -1];
     // Line start in thousandths of a point: Td after the first moves relative to the one before.
     let px = 0, py = 0;
     for (const it of items) {
@@ -141,7 +147,8 @@ export class TextBatch {
         d.internal.write(out.join('\n'));
         out.length = 0;
         out.push('BT');
-        font = colour = '';
+        font = '';
+        rgb = [-1, -1, -1];
         px = py = 0;
         doc.setFont(SHEET_FONT, it.style);
         doc.setFontSize(it.pt);
@@ -151,8 +158,11 @@ export class TextBatch {
       }
       const fk = `/${f.id} ${it.pt} Tf`;
       if (fk !== font) out.push((font = fk));
-      const ck = `${pdfNum(it.rgb[0] / 255)} ${pdfNum(it.rgb[1] / 255)} ${pdfNum(it.rgb[2] / 255)} rg`;
-      if (ck !== colour) out.push((colour = ck));
+      const [r, g, b] = it.rgb;
+      if (r !== rgb[0] || g !== rgb[1] || b !== rgb[2]) {
+        rgb = [r, g, b];
+        out.push(`${pdfNum(r / 255)} ${pdfNum(g / 255)} ${pdfNum(b / 255)} rg`);
+      }
       let x = it.x;
       if (it.align !== 'left') {
         const w = sheetTextWidth(doc, it.text, it.style, it.pt);
