@@ -143,10 +143,11 @@ export class TextBatch {
         // The font's first text in this document goes through jsPDF's text(), which marks the font
         // as used (only used fonts are written, putOnlyUsedFonts).
         c.marked.add(f.id);
-        out.push('ET');
-        d.internal.write(out.join('\n'));
-        out.length = 0;
-        out.push('BT');
+        if (out.length > 1) {
+          out.push('ET');
+          d.internal.write(out.join('\n'));
+          out.length = 1; // 'BT'
+        }
         font = '';
         rgb = [-1, -1, -1];
         px = py = 0;
@@ -173,6 +174,7 @@ export class TextBatch {
       px = ax;
       py = ay;
     }
+    if (out.length === 1) return;
     out.push('ET');
     d.internal.write(out.join('\n'));
   }
