@@ -54,11 +54,14 @@ export function latoHas(codePoint: number): boolean {
   return false;
 }
 
+const PRINTABLE_ASCII = /^[\x20-\x7e]*$/;
+
 /**
  * Text fit for the sheet font: characters Lato lacks (which jsPDF would drop without a word) become
  * "?", tabs and line breaks become spaces.
  */
 export function sheetText(s: string): string {
+  if (PRINTABLE_ASCII.test(s)) return s; // Lato has all of it: nothing to replace
   let out = '';
   for (const ch of s.replace(/[\t\r\n]+/g, ' ')) out += latoHas(ch.codePointAt(0)!) ? ch : '?';
   return out;

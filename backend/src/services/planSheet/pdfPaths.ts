@@ -1,39 +1,44 @@
 import { GState, type jsPDF } from 'jspdf';
 import { addToBounds, emptyBounds, isEmptyBounds } from '@shared/geometry';
 import type { Polygon2 } from '@shared/geometry';
+import { pathWriter } from './pdfText';
 
 export type Rgb = readonly [number, number, number];
 export type ToPaper = (x: number, y: number) => [number, number];
 
 /** Adds the rings of the polygons to the current path (paper mm), each ring closed. */
 export function addPolygonPath(doc: jsPDF, polygons: ReadonlyArray<Polygon2>, toPaper: ToPaper): number {
+  const path = pathWriter(doc);
   let rings = 0;
   for (const poly of polygons) {
     for (const ring of poly) {
       if (ring.length < 2) continue;
       const [x0, y0] = toPaper(ring[0][0], ring[0][1]);
-      doc.moveTo(x0, y0);
+      path.move(x0, y0);
       for (let i = 1; i < ring.length; i++) {
         const [x, y] = toPaper(ring[i][0], ring[i][1]);
-        doc.lineTo(x, y);
+        path.line(x, y);
       }
-      doc.close();
+      path.close();
       rings += 1;
     }
   }
+  path.flush();
   return rings;
 }
 
 /** Adds an open polyline to the current path (paper mm). */
 export function addLinePath(doc: jsPDF, points: ReadonlyArray<readonly [number, number]>, toPaper: ToPaper, closed = false): void {
   if (points.length < 2) return;
+  const path = pathWriter(doc);
   const [x0, y0] = toPaper(points[0][0], points[0][1]);
-  doc.moveTo(x0, y0);
+  path.move(x0, y0);
   for (let i = 1; i < points.length; i++) {
     const [x, y] = toPaper(points[i][0], points[i][1]);
-    doc.lineTo(x, y);
+    path.line(x, y);
   }
-  if (closed) doc.close();
+  if (closed) path.close();
+  path.flush();
 }
 
 /** Runs `draw` at an opacity (PDF ExtGState), then restores full opacity. */
@@ -85,11 +90,13 @@ export function hatchPolygons(doc: jsPDF, polygons: ReadonlyArray<Polygon2>, toP
   const nx = -dy, ny = dx;
   const cx = (minX + maxX) / 2, cy = (minY + maxY) / 2;
   const half = Math.hypot(maxX - minX, maxY - minY) / 2 + spacing;
+  const path = pathWriter(doc);
   for (let t = -half; t <= half; t += spacing) {
     const ox = cx + nx * t, oy = cy + ny * t;
-    doc.moveTo(ox - dx * half, oy - dy * half);
-    doc.lineTo(ox + dx * half, oy + dy * half);
+    path.move(ox - dx * half, oy - dy * half);
+    path.line(ox + dx * half, oy + dy * half);
   }
+  path.flush();
   doc.stroke();
   doc.restoreGraphicsState();
 }

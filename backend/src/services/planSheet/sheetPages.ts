@@ -2,6 +2,7 @@ import type { jsPDF } from 'jspdf';
 import { sheetText } from './fonts';
 import { pageFrame, type Box, type PageFrame } from './paper';
 import { withOpacity } from './pdfPaths';
+import { sheetTextWidth, TextBatch } from './pdfText';
 import type { Column } from './table';
 import type { PlanSheetInput, SheetKind, SheetSize } from './types';
 import { revisionStateLabel } from '@shared/words';
@@ -25,12 +26,15 @@ interface PageInfo {
 export class SheetPages {
   readonly frame: PageFrame;
   readonly pages: PageInfo[] = [];
+  /** The page furniture's texts, written per part of the page (frame, title block, cautions, index). */
+  private readonly texts: TextBatch;
 
   constructor(
     readonly doc: jsPDF,
     readonly size: SheetSize,
   ) {
     this.frame = pageFrame(size);
+    this.texts = new TextBatch(doc);
   }
 
   /** Starts a new page of a sheet (the document's first page is used for the first sheet). */
@@ -68,21 +72,20 @@ export class SheetPages {
   /** Draws frames, headings, the cautions, the title block and (draft) the diagonal mark on every page. */
   finish(input: PlanSheetInput, o: { createdAt: Date; draft: boolean; scale: number | null }): void {
     const n = this.pages.length;
+    const cautions = this.cautionLines();
     this.pages.forEach((p, i) => {
       this.doc.setPage(i + 1);
       this.drawFrame(p);
       const tbTop = this.drawTitleBlock(input, p, i + 1, n, o);
-      this.drawCautions(tbTop);
+      this.drawCautions(tbTop, cautions);
       if (p.kind !== 'plan') this.drawSheetIndex(i);
+      this.texts.flush();
       if (o.draft) this.drawDraftMark();
     });
   }
 
   private text(s: string, x: number, y: number, pt: number, bold = false, rgb: readonly number[] = INK, align: 'left' | 'right' | 'center' = 'left'): void {
-    this.doc.setFont('Lato', bold ? 'bold' : 'normal');
-    this.doc.setFontSize(pt);
-    this.doc.setTextColor(rgb[0], rgb[1], rgb[2]);
-    this.doc.text(sheetText(s), x, y, { align });
+    this.texts.add(sheetText(s), x, y, bold ? 'bold' : 'normal', pt, rgb, align);
   }
 
   private drawFrame(p: PageInfo): void {
@@ -97,6 +100,7 @@ export class SheetPages {
     d.setLineWidth(0.1);
     d.rect(border.x - 3, border.y - 3, border.w + 6, border.h + 6, 'S');
     if (p.kind !== 'plan') this.text(p.title, main.x + 5, main.y + 9, 12, true);
+    this.texts.flush();
   }
 
   /** Title block at the bottom of the side column; returns its top y, mm. */
@@ -143,24 +147,28 @@ export class SheetPages {
         const x = side.x + ci * w;
         if (ci > 0) d.line(x, y, x, y + rowH);
         this.text(c.label.toUpperCase(), x + 2, y + 2.9, 4.6, false, GREY);
-        d.setFont('Lato', c.bold ? 'bold' : 'normal');
-        d.setFontSize(7.6);
         let v = sheetText(c.value);
-        while (v.length > 1 && d.getTextWidth(v) > w - 4) v = v.slice(0, -2) + '…';
+        while (v.length > 1 && sheetTextWidth(d, v, c.bold ? 'bold' : 'normal', 7.6) > w - 4) v = v.slice(0, -2) + '…';
         this.text(v, x + 2, y + 6.6, 7.6, c.bold);
       });
     });
+    this.texts.flush();
     return top;
   }
 
-  private drawCautions(bottom: number): void {
-    const { side } = this.frame;
+  /** The cautions broken into lines of the cautions box (the same on every page). */
+  private cautionLines(): string[][] {
     const d = this.doc;
     d.setFont('Lato', 'normal');
     d.setFontSize(6);
+    const inner = this.frame.side.w - 8;
+    return CAUTIONS.map((c) => d.splitTextToSize(sheetText(c), inner - 3) as string[]);
+  }
+
+  private drawCautions(bottom: number, lines: string[][]): void {
+    const { side } = this.frame;
+    const d = this.doc;
     const lineH = 2.55;
-    const inner = side.w - 8;
-    const lines = CAUTIONS.map((c) => d.splitTextToSize(sheetText(c), inner - 3) as string[]);
     const h = 9 + lines.reduce((s, l) => s + l.length * lineH + 0.8, 0);
     const top = bottom - h - 2;
     d.setFillColor(255, 247, 230);
@@ -177,6 +185,7 @@ export class SheetPages {
       });
       y += 0.8;
     });
+    this.texts.flush();
   }
 
   /** On table pages: the list of this set's sheets, the current one marked. */

@@ -2,6 +2,7 @@ import type { jsPDF } from 'jspdf';
 import { sheetText } from './fonts';
 import type { Box } from './paper';
 import type { Rgb } from './pdfPaths';
+import { sheetTextWidth, TextBatch, type FontStyle } from './pdfText';
 
 export interface Column {
   title: string;
@@ -30,15 +31,20 @@ const LINE_MM = 2.9;
 const PAD_MM = 1.1;
 const HEAD_MM = 6;
 
+const INK: Rgb = [28, 34, 48];
+const WHITE: Rgb = [255, 255, 255];
+
 const asCell = (c: string | Cell): Cell => (typeof c === 'string' ? { text: c } : c);
+/** Where a cell's text starts (left), ends (right) or is centred, paper mm. */
+const textX = (c: Column, x: number) => (c.align === 'right' ? x + c.width - PAD_MM : c.align === 'center' ? x + c.width / 2 : x + PAD_MM);
 
 /** Text cut to fit a width (paper mm) at the current font, with "…" when cut. */
-function fitOneLine(doc: jsPDF, text: string, width: number): string {
-  if (doc.getTextWidth(text) <= width) return text;
+function fitOneLine(doc: jsPDF, text: string, width: number, style: FontStyle): string {
+  if (sheetTextWidth(doc, text, style, FONT_PT) <= width) return text;
   let lo = 0, hi = text.length;
   while (lo < hi) {
     const mid = Math.ceil((lo + hi) / 2);
-    if (doc.getTextWidth(text.slice(0, mid) + '…') <= width) lo = mid;
+    if (sheetTextWidth(doc, text.slice(0, mid) + '…', style, FONT_PT) <= width) lo = mid;
     else hi = mid - 1;
   }
   return text.slice(0, lo) + '…';
@@ -49,10 +55,12 @@ function layoutRow(doc: jsPDF, cols: Column[], row: Row): { lines: string[][]; h
   doc.setFontSize(FONT_PT);
   const lines = cols.map((c, i) => {
     const cell = asCell(row.cells[i] ?? '');
-    doc.setFont('Lato', cell.bold ? 'bold' : 'normal');
+    const style = cell.bold ? 'bold' : 'normal';
     const text = sheetText(cell.text);
     const inner = c.width - 2 * PAD_MM;
-    return c.wrap ? (doc.splitTextToSize(text, inner) as string[]) : [fitOneLine(doc, text, inner)];
+    if (!c.wrap) return [fitOneLine(doc, text, inner, style)];
+    doc.setFont('Lato', style);
+    return doc.splitTextToSize(text, inner) as string[];
   });
   const n = Math.max(1, ...lines.map((l) => l.length));
   return { lines, height: n * LINE_MM + 2 * PAD_MM };
@@ -62,15 +70,13 @@ function drawHeader(doc: jsPDF, cols: Column[], x: number, y: number): void {
   const w = cols.reduce((s, c) => s + c.width, 0);
   doc.setFillColor(40, 48, 64);
   doc.rect(x, y, w, HEAD_MM, 'F');
-  doc.setFont('Lato', 'bold');
-  doc.setFontSize(FONT_PT);
-  doc.setTextColor(255, 255, 255);
+  const texts = new TextBatch(doc);
   let cx = x;
   for (const c of cols) {
-    const tx = c.align === 'right' ? cx + c.width - PAD_MM : c.align === 'center' ? cx + c.width / 2 : cx + PAD_MM;
-    doc.text(sheetText(c.title), tx, y + HEAD_MM - 2, { align: c.align ?? 'left' });
+    texts.add(sheetText(c.title), textX(c, cx), y + HEAD_MM - 2, 'bold', FONT_PT, WHITE, c.align);
     cx += c.width;
   }
+  texts.flush();
 }
 
 /**
@@ -84,6 +90,7 @@ export function drawTable(doc: jsPDF, first: Box, cols: Column[], rows: Row[], n
   drawHeader(doc, cols, box.x, y);
   y += HEAD_MM;
   const w = cols.reduce((s, c) => s + c.width, 0);
+  const texts = new TextBatch(doc);
   rows.forEach((row, ri) => {
     const { lines, height } = layoutRow(doc, cols, row);
     if (y + height > box.y + box.h) {
@@ -97,6 +104,7 @@ export function drawTable(doc: jsPDF, first: Box, cols: Column[], rows: Row[], n
       doc.setFillColor(fill[0], fill[1], fill[2]);
       doc.rect(box.x, y, w, height, 'F');
     }
+    // Cell fills first, then the row's texts as one text object (a fill never covers a neighbour's text).
     let cx = box.x;
     cols.forEach((c, i) => {
       const cell = asCell(row.cells[i] ?? '');
@@ -104,14 +112,16 @@ export function drawTable(doc: jsPDF, first: Box, cols: Column[], rows: Row[], n
         doc.setFillColor(cell.fill[0], cell.fill[1], cell.fill[2]);
         doc.rect(cx, y, c.width, height, 'F');
       }
-      doc.setFont('Lato', cell.bold ? 'bold' : 'normal');
-      doc.setFontSize(FONT_PT);
-      const col = cell.colour ?? [28, 34, 48];
-      doc.setTextColor(col[0], col[1], col[2]);
-      const tx = c.align === 'right' ? cx + c.width - PAD_MM : c.align === 'center' ? cx + c.width / 2 : cx + PAD_MM;
-      lines[i].forEach((line, li) => doc.text(line, tx, y + PAD_MM + (li + 1) * LINE_MM - 0.7, { align: c.align ?? 'left' }));
       cx += c.width;
     });
+    cx = box.x;
+    cols.forEach((c, i) => {
+      const cell = asCell(row.cells[i] ?? '');
+      const tx = textX(c, cx);
+      lines[i].forEach((line, li) => texts.add(line, tx, y + PAD_MM + (li + 1) * LINE_MM - 0.7, cell.bold ? 'bold' : 'normal', FONT_PT, cell.colour ?? INK, c.align));
+      cx += c.width;
+    });
+    texts.flush();
     doc.setDrawColor(214, 217, 224);
     doc.setLineWidth(0.1);
     doc.line(box.x, y + height, box.x + w, y + height);
