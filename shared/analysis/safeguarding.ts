@@ -187,6 +187,14 @@ function segmentsOf(rings: ReadonlyArray<ReadonlyArray<readonly [number, number]
   return segs;
 }
 
+/** A structure item's outline and lines as segments, made once per item (items are shared by every arm of the floor). */
+const itemSegs = new WeakMap<StructureItem, ReturnType<typeof segmentsOf>>();
+function itemSegments(s: StructureItem): ReturnType<typeof segmentsOf> {
+  let segs = itemSegs.get(s);
+  if (!segs) itemSegs.set(s, (segs = [...segmentsOf(s.polygons.flat(), true), ...segmentsOf(s.lines, false)]));
+  return segs;
+}
+
 /**
  * One arm's measurements for the safeguarding checks (cached per arm by the analyzer while the arm,
  * the floor and the boundaries stay the same): distances to the safeguarded openings and the fences near
@@ -236,7 +244,7 @@ export function measureArmSafeguarding(p: SafeguardArm, floor: PreparedFloor | n
       const dy = Math.max(bb[1] - p.arm.y, 0, p.arm.y - bb[3]);
       if (Math.hypot(dx, dy) > p.reach.maxReach + CRUSHING_GAP_BODY_MM) continue;
       grid ??= edgeGrid(p.restricted);
-      const segs = [...segmentsOf(s.polygons.flat(), true), ...segmentsOf(s.lines, false)];
+      const segs = itemSegments(s);
       const gap = nearestGap(grid, segs, bb, CRUSHING_GAP_BODY_MM);
       if (!gap || gap.d <= 0 || gap.d >= CRUSHING_GAP_BODY_MM) continue;
       // No edge crosses (nearestGap returns 0 then): an item inside the restricted space, or the
