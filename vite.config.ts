@@ -14,6 +14,11 @@ export default defineConfig({
     outDir: fileURLToPath(new URL('./dist/client', import.meta.url)),
     emptyOutDir: true,
     chunkSizeWarningLimit: 1500,
+    rollupOptions: {
+      // shared/ is pure (no module does anything on import but declare): a page that takes one
+      // function from a barrel does not load the rest of the core (the polygon clipper among it).
+      treeshake: { moduleSideEffects: (id: string) => !id.startsWith(sharedDir) },
+    },
   },
   worker: { format: 'es' },
   server: {
