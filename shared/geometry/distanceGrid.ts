@@ -11,7 +11,9 @@ import type { Polygon2, Pt, Ring } from './types';
  * every query point p in that cell has its nearest edge among the edges within d_c + 2h of c
  * (h = half the cell diagonal), so only those are stored, nearest first. Each level is built coarse
  * to fine (a child cell scans only its parent's list), so a fine grid costs little to build. A
- * query scans its cell's list and stops once dist(c, e) − |p − c| exceeds the best distance found.
+ * query scans its cell's list and stops once a lower bound of the next edge's distance (dist(c, e)
+ * − |p − c|, or tighter, dist(c, e) + (p − c)·n − |p − c|·s with the cell's lead direction n and
+ * spread s, see toQueryLevel) exceeds the best distance found.
  * The sign comes from the nearest feature (region on the left of every edge): the side of the
  * nearest edge, or for a nearest vertex whether that vertex is convex (outside) or reflex (inside).
  * Queries outside the grid fall back to all edges, so the answer is exact everywhere; the grid
@@ -19,7 +21,8 @@ import type { Polygon2, Pt, Ring } from './types';
  * distance is 1-Lipschitz) without visiting an edge, for callers choosing between lookups.
  * Levels: 128 cells across the fine one (bounds ± half their size), 16 across the coarse one; each
  * cell is one 64-byte record (its first INLINE edges, their centre distances as float32 rounded
- * down, the centre's signed distance rounded up), so a typical query reads one record. A record
+ * down, the centre's signed distance rounded up, the lead direction and spread), so a typical
+ * query reads one record. A record
  * also bounds the mirror image in x = 0 of its points (maxMirrored, upperBoundMirrored: the two
  * ways a reach profile's (r, z) can reach a bearing, r and −r).
  */
@@ -335,8 +338,12 @@ function buildLevel(E: Edges, bounds: readonly [number, number, number, number],
 }
 
 /** Edges held in a cell's own record; a longer list continues in the level's overflow arrays. */
-const INLINE = 6;
-/** 32-bit slots per cell record: signed distance at the centre, list length, overflow start, INLINE edge ids, INLINE centre distances, signed distance at the centre mirrored in x = 0 (64 bytes). */
+const INLINE = 4;
+/**
+ * 32-bit slots per cell record (64 bytes): signed distance at the centre, list length, overflow
+ * start, INLINE edge ids, INLINE centre distances, signed distance at the centre mirrored in
+ * x = 0, the lead direction (x, y) and its spread (see toQueryLevel), one slot free.
+ */
 const SLOTS = 16;
 const R_SDC = 0;
 const R_COUNT = 1;
@@ -344,12 +351,27 @@ const R_OVERFLOW = 2;
 const R_EDGES = 3;
 const R_DIST = R_EDGES + INLINE;
 const R_MIRROR = R_DIST + INLINE;
+const R_LEADX = R_MIRROR + 1;
+const R_LEADY = R_MIRROR + 2;
+const R_SPREAD = R_MIRROR + 3;
+/** A cell whose centre lies closer than this to a listed edge (mm) bounds by |p − c| alone (its directions would be unsteady). */
+const LEAD_MIN_MM = 1;
 
 /**
  * A level laid out for queries: one 64-byte record per cell (Int32 and Float32 views of one
  * buffer), so a query whose list ends within the first INLINE edges reads one cache line; the
  * rest of a longer list follows in `overEdges` / `overDist`. The Float32 centre distances are
  * rounded down and the centre's signed distance up, so the bounds the query relies on stay bounds.
+ *
+ * The lower bound of a listed edge at a query point p: with q_e the point of edge e nearest to
+ * the cell centre c and n_e = (c − q_e)/|c − q_e|, the whole segment lies in the half-plane
+ * (x − q_e)·n_e ≤ 0 (q_e is the projection of c onto a convex set), so
+ * dist(p, e) ≥ dist(c, e) + (p − c)·n_e. Writing n_e = n + (n_e − n) for one lead direction n per
+ * cell (that of its nearest edge) and s ≥ |n_e − n| over the list (its spread),
+ * dist(p, e) ≥ dist(c, e) + (p − c)·n − |p − c|·s, and also ≥ dist(c, e) − |p − c|: the query adds
+ * the larger of the two shifts to every listed centre distance. Far from the boundary a cell's
+ * edges all lie one way (s small), so the scan stops right after the nearest edge, where
+ * |p − c| alone would take every edge within 2|p − c| of it.
  */
 interface QueryLevel {
   gx0: number;
@@ -377,7 +399,7 @@ const f32Up = (v: number): number => {
 };
 
 /** The level's CSR lists as cell records (see QueryLevel). */
-function toQueryLevel(L: Level): QueryLevel {
+function toQueryLevel(L: Level, ed: Float64Array): QueryLevel {
   const cells = L.nx * L.ny;
   const { starts, edges, dce, sdc } = L;
   const buffer = new ArrayBuffer(4 * SLOTS * cells);
@@ -390,6 +412,10 @@ function toQueryLevel(L: Level): QueryLevel {
   }
   const overEdges = new Int32Array(over);
   const overDist = new Float64Array(over);
+  let longest = 0;
+  for (let c = 0; c < cells; c++) longest = Math.max(longest, starts[c + 1] - starts[c]);
+  const dirX = new Float64Array(longest);
+  const dirY = new Float64Array(longest);
   let o = 0;
   for (let c = 0; c < cells; c++) {
     const from = starts[c];
@@ -407,8 +433,87 @@ function toQueryLevel(L: Level): QueryLevel {
       overEdges[o] = edges[from + k];
       overDist[o++] = dce[from + k];
     }
+    // Lead direction and spread (see above); none (spread 1, so the shift is −|p − c|) when an
+    // edge passes within LEAD_MIN_MM of the centre.
+    const ix = c % L.nx;
+    const cx = L.gx0 + (ix + 0.5) * L.cell;
+    const cy = L.gy0 + ((c - ix) / L.nx + 0.5) * L.cell;
+    let leadX = 0;
+    let leadY = 0;
+    let spread = 1;
+    if (n > 0 && dce[from] >= LEAD_MIN_MM) {
+      // Each edge's direction; the two extreme ones by their turn from the nearest edge's (all
+      // within a right angle of it, or no lead), and the lead between those two.
+      let ok = true;
+      let loK = 0;
+      let hiK = 0;
+      let lo = 0;
+      let hi = 0;
+      for (let k = 0; k < n; k++) {
+        const o5 = 5 * edges[from + k];
+        const px = cx - ed[o5];
+        const py = cy - ed[o5 + 1];
+        const t = nearestSegmentParamRel(px, py, ed[o5 + 2], ed[o5 + 3], ed[o5 + 4]);
+        const ux = px - t * ed[o5 + 2];
+        const uy = py - t * ed[o5 + 3];
+        const len = Math.sqrt(ux * ux + uy * uy);
+        if (!(len >= LEAD_MIN_MM)) {
+          ok = false;
+          break;
+        }
+        dirX[k] = ux / len;
+        dirY[k] = uy / len;
+        const turn = dirX[0] * dirY[k] - dirY[0] * dirX[k];
+        if (dirX[0] * dirX[k] + dirY[0] * dirY[k] <= 0) {
+          ok = false;
+          break;
+        }
+        if (turn < lo) {
+          lo = turn;
+          loK = k;
+        } else if (turn > hi) {
+          hi = turn;
+          hiK = k;
+        }
+      }
+      if (ok) {
+        const mx = dirX[loK] + dirX[hiK];
+        const my = dirY[loK] + dirY[hiK];
+        const ml = Math.sqrt(mx * mx + my * my);
+        leadX = Math.fround(mx / ml);
+        leadY = Math.fround(my / ml);
+        let maxDev2 = 0;
+        for (let k = 0; k < n; k++) {
+          const devX = dirX[k] - leadX;
+          const devY = dirY[k] - leadY;
+          const dev2 = devX * devX + devY * devY;
+          if (dev2 > maxDev2) maxDev2 = dev2;
+        }
+        const maxDev = Math.sqrt(maxDev2);
+        if (maxDev < 1) spread = f32Up(maxDev + 1e-6);
+        else {
+          leadX = 0;
+          leadY = 0;
+        }
+      }
+    }
+    floats[base + R_LEADX] = leadX;
+    floats[base + R_LEADY] = leadY;
+    floats[base + R_SPREAD] = spread;
   }
   return { gx0: L.gx0, gy0: L.gy0, nx: L.nx, ny: L.ny, cell: L.cell, invCell: L.invCell, ints, floats, overEdges, overDist };
+}
+
+/**
+ * What a query at offset (ox, oy) cells from the centre of the cell whose record starts at base
+ * adds to each listed centre distance for a lower bound of that edge's distance, mm: the larger of
+ * −|p − c| and (p − c)·lead − |p − c|·spread (toQueryLevel), each rounded the safe way.
+ */
+function shiftAt(floats: Float32Array, base: number, ox: number, oy: number, cell: number): number {
+  const scale = cell * (1 + 1e-12);
+  const off = Math.sqrt(ox * ox + oy * oy) * scale + 1e-9;
+  const lead = (ox * floats[base + R_LEADX] + oy * floats[base + R_LEADY]) * scale - off * floats[base + R_SPREAD] - 1e-9;
+  return lead > -off ? lead : -off;
 }
 
 /** Signed distance at the centre of the cell at grid coordinates (fx, fy) of L plus the distance to that centre, mm (1-Lipschitz bound). */
@@ -429,8 +534,8 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
   }
   const size = Math.max(bounds[2] - bounds[0], bounds[3] - bounds[1], 1);
   // A fine level around the polygons and a coarse one far beyond them; outside both, all edges.
-  const fine = toQueryLevel(buildLevel(E, bounds, size * 0.5 + 1, opts.maxCells ?? FINE_CELLS));
-  const coarse = toQueryLevel(buildLevel(E, bounds, size * 2.5 + 1, COARSE_CELLS));
+  const fine = toQueryLevel(buildLevel(E, bounds, size * 0.5 + 1, opts.maxCells ?? FINE_CELLS), E.packed);
+  const coarse = toQueryLevel(buildLevel(E, bounds, size * 2.5 + 1, COARSE_CELLS), E.packed);
   const ed = E.packed;
   const { ax: eAx, ay: eAy, dx: eDx, dy: eDy, startKind, endKind } = E;
   /** Signs the distance d to edge e met at parameter t (signByNearestFeature over the captured arrays). */
@@ -445,7 +550,7 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
    * best), its INLINE record entries then the overflow; the general form of the fine-level loop
    * in signedDistance, used for the coarse level and for a fine cell's overflow.
    */
-  const scanCell = (L: QueryLevel, c: number, off: number, x: number, y: number): number => {
+  const scanCell = (L: QueryLevel, c: number, shift: number, x: number, y: number): number => {
     const { ints, floats, overEdges, overDist } = L;
     const base = c * SLOTS;
     const n = ints[base + R_COUNT];
@@ -454,7 +559,7 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
     let bestEdge = -1;
     let bestT = 0;
     for (let k = 0; k < n; k++) {
-      const lb = (k < INLINE ? floats[base + R_DIST + k] : overDist[over + k]) - off;
+      const lb = (k < INLINE ? floats[base + R_DIST + k] : overDist[over + k]) + shift;
       if (lb > 0 && lb * lb >= best) break;
       const e = k < INLINE ? ints[base + R_EDGES + k] : overEdges[over + k];
       const o = 5 * e;
@@ -483,7 +588,8 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
     const iy = fy | 0;
     const ox = fx - ix - 0.5;
     const oy = fy - iy - 0.5;
-    return scanCell(coarse, iy * coarse.nx + ix, Math.sqrt(ox * ox + oy * oy) * coarse.cell * (1 + 1e-12) + 1e-9, x, y);
+    const c = iy * coarse.nx + ix;
+    return scanCell(coarse, c, shiftAt(coarse.floats, c * SLOTS, ox, oy, coarse.cell), x, y);
   };
   const { gx0: fgx0, gy0: fgy0, nx: fnx, ny: fny, invCell: fInv, ints: fInts, floats: fFloats } = fine;
   const fCell = fine.cell * (1 + 1e-12);
@@ -502,15 +608,18 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
     // Offset of p from the cell centre, mm: edge e is at least dist(c, e) − off from p.
     const ox = fx - ix - 0.5;
     const oy = fy - iy - 0.5;
-    const off = Math.sqrt(ox * ox + oy * oy) * fCell + 1e-9;
     const base = (iy * fnx + ix) * SLOTS;
     const n = fInts[base + R_COUNT];
+    // Lower bound of edge e at p: its centre distance plus this (toQueryLevel); inlined shiftAt.
+    const off = Math.sqrt(ox * ox + oy * oy) * fCell + 1e-9;
+    const lead = (ox * fFloats[base + R_LEADX] + oy * fFloats[base + R_LEADY]) * fCell - off * fFloats[base + R_SPREAD] - 1e-9;
+    const shift = lead > -off ? lead : -off;
     let best = Infinity;
     let bestEdge = -1;
     let bestT = 0;
     let k = 0;
     for (const inline = n < INLINE ? n : INLINE; k < inline; k++) {
-      const lb = fFloats[base + R_DIST + k] - off;
+      const lb = fFloats[base + R_DIST + k] + shift;
       if (lb > 0 && lb * lb >= best) break;
       // pointSegmentDistance2Rel written out, keeping t
       const e = fInts[base + R_EDGES + k];
@@ -528,7 +637,7 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
         bestT = t;
       }
     }
-    if (k === INLINE && n > INLINE) return scanCell(fine, base / SLOTS, off, x, y);
+    if (k === INLINE && n > INLINE) return scanCell(fine, base / SLOTS, shift, x, y);
     if (bestEdge < 0) return signedDistanceOver(E, x, y, null, 0, E.count);
     return best === 0 ? 0 : signOf(bestEdge, bestT, Math.sqrt(best), x, y);
   };
