@@ -599,10 +599,19 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
   // inline it into its caller: the fine cell's record entries nearest first, stopping once
   // dist(c, e) − |p − c| cannot beat the best distance found; a point off the fine level, or a
   // list that runs past its record, goes to the general scan.
-  const signedDistance = (x: number, y: number): number => {
+  // The query takes its point from io[0], io[1] and leaves its answer in io[2]: it is too large
+  // for the compiler to inline, and a call that passes or returns a number boxes each one (a
+  // heap allocation per number and query); signedDistance, small enough to inline, fills the slots.
+  const io = new Float64Array(3);
+  const fineQuery = (): void => {
+    const x = io[0];
+    const y = io[1];
     const fx = (x - fgx0) * fInv;
     const fy = (y - fgy0) * fInv;
-    if (!(fx >= 0 && fy >= 0 && fx < fnx && fy < fny)) return farDistance(x, y);
+    if (!(fx >= 0 && fy >= 0 && fx < fnx && fy < fny)) {
+      io[2] = farDistance(x, y);
+      return;
+    }
     const ix = fx | 0;
     const iy = fy | 0;
     // Offset of p from the cell centre, mm: edge e is at least dist(c, e) − off from p.
@@ -637,9 +646,15 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
         bestT = t;
       }
     }
-    if (k === INLINE && n > INLINE) return scanCell(fine, base / SLOTS, shift, x, y);
-    if (bestEdge < 0) return signedDistanceOver(E, x, y, null, 0, E.count);
-    return best === 0 ? 0 : signOf(bestEdge, bestT, Math.sqrt(best), x, y);
+    if (k === INLINE && n > INLINE) io[2] = scanCell(fine, base / SLOTS, shift, x, y);
+    else if (bestEdge < 0) io[2] = signedDistanceOver(E, x, y, null, 0, E.count);
+    else io[2] = best === 0 ? 0 : signOf(bestEdge, bestT, Math.sqrt(best), x, y);
+  };
+  const signedDistance = (x: number, y: number): number => {
+    io[0] = x;
+    io[1] = y;
+    fineQuery();
+    return io[2];
   };
   // Same level pick; no edge is visited.
   const upperBound = (x: number, y: number): number => {

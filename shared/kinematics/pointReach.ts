@@ -107,11 +107,13 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
     const grid = buildDistanceGrid(scaraPlanRegion(s, j1KinematicRange(model, restrict)));
     const zLo = s.strokeMin;
     const zHi = s.strokeMax;
-    return (x, y, z) => {
+    const io = new Float64Array(3);
+    return viaSlots(io, () => {
+      const z = io[2];
       const zf = z + drop;
       const dz = zf - zLo < zHi - zf ? zf - zLo : zHi - zf;
-      return combine(grid.signedDistance(x, y), dz);
-    };
+      return combine(grid.signedDistance(io[0], io[1]), dz);
+    });
   }
   const profile = reachProfileOf(model);
   const range = j1KinematicRange(model, restrict);
@@ -148,7 +150,11 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
   if (a1 - a0 >= TWO_PI - 1e-9) {
     // A full J1 window (widened further by any sideways spread): no J1 edge applies, so the margin
     // is the profile distance of the better way to the bearing, and no angle is needed.
-    return (x, y, z, approach) => {
+    const io = new Float64Array(3);
+    return viaSlots(io, (approach) => {
+      const x = io[0];
+      const y = io[1];
+      const z = io[2];
       const tilt = approach === 'any' && tiltable && reachTool > 0;
       const g = tilt ? anyGridOf() : grid;
       const zt = tilt ? z : z + drop;
@@ -157,7 +163,7 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
       if (!hasNegative) return g.signedDistance(rho, zt);
       // The better way to the bearing, the second looked up only when the grid's bound says it could win.
       return g.maxMirrored(rho, zt);
-    };
+    });
   }
   /** Arc length (mm) at radius rho from bearing b to the nearer edge of the window [lo, hi]: positive inside, negative outside. */
   const arcIn = (b: number, lo: number, hi: number, rho: number): number => {
@@ -180,7 +186,11 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
   /** J1 arc margins of the way in front of the axis (A) and behind it (B) for a point at bearing b, plan distance rho (sideways spread only). */
   const arcFront = (b: number, rho: number): number => arcIn(b, a0 + asinClamped(yLo / rho), a1 + asinClamped(yHi / rho), rho);
   const arcBack = (b: number, rho: number): number => arcIn(b, a0 + Math.PI - asinClamped(yHi / rho), a1 + Math.PI - asinClamped(yLo / rho), rho);
-  return (x, y, z, approach) => {
+  const io = new Float64Array(3);
+  return viaSlots(io, (approach) => {
+    const x = io[0];
+    const y = io[1];
+    const z = io[2];
     const tilt = approach === 'any' && tiltable && reachTool > 0;
     const g = tilt ? anyGridOf() : grid;
     const zt = tilt ? z : z + drop;
@@ -239,6 +249,21 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
     }
     const m2 = combine(g.signedDistance(-first, zt), aFirst ? arcB : arcA);
     return m1 > m2 ? m1 : m2;
+  });
+}
+
+/**
+ * A margin function that hands its point to `margin` through io[0..2]. Every margin function is
+ * this one small closure, which the compiler inlines into a hot caller whatever the family: a
+ * number passed to a call that is not inlined is boxed (one heap allocation each), and the
+ * margins themselves are too large to inline.
+ */
+function viaSlots(io: Float64Array, margin: (approach?: 'top' | 'any') => number): MarginFn {
+  return (x, y, z, approach) => {
+    io[0] = x;
+    io[1] = y;
+    io[2] = z;
+    return margin(approach);
   };
 }
 
