@@ -525,33 +525,57 @@ function upperBoundInCell(L: QueryLevel, fx: number, fy: number): number {
   return L.floats[(iy * L.nx + ix) * SLOTS + R_SDC] + Math.sqrt(ox * ox + oy * oy) * L.cell * (1 + 1e-12) + 1e-9;
 }
 
-/** Builds a DistanceGrid over non-overlapping polygons (outer rings and holes), mm, in the polygons' frame. */
-export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { maxCells?: number } = {}): DistanceGrid {
-  const E = collectEdges(polygons);
-  const bounds = polygonsBounds(polygons);
-  if (!bounds || E.count === 0) {
-    return { signedDistance: () => -Infinity, upperBound: () => -Infinity, maxMirrored: () => -Infinity, upperBoundMirrored: () => -Infinity, contains: () => false, edgeCount: 0 };
+/**
+ * The queries over a built grid. A class, so that every grid's methods are the same functions:
+ * a hot caller's call site then has one target the compiler inlines, whichever grid it meets
+ * (closures made anew per grid would each be a target of their own, never inlined, and every
+ * number passed to or from a call that is not inlined is boxed, one heap allocation each).
+ */
+class GridQuery implements DistanceGrid {
+  readonly edgeCount: number;
+  private readonly ed: Float64Array;
+  private readonly fgx0: number;
+  private readonly fgy0: number;
+  private readonly fnx: number;
+  private readonly fny: number;
+  private readonly fInv: number;
+  private readonly fCell: number;
+  private readonly fInts: Int32Array;
+  private readonly fFloats: Float32Array;
+  /** fineQuery's point (io[0], io[1]) and answer (io[2]). */
+  private readonly io = new Float64Array(3);
+
+  constructor(
+    private readonly E: Edges,
+    private readonly fine: QueryLevel,
+    private readonly coarse: QueryLevel,
+  ) {
+    this.edgeCount = E.count;
+    this.ed = E.packed;
+    this.fgx0 = fine.gx0;
+    this.fgy0 = fine.gy0;
+    this.fnx = fine.nx;
+    this.fny = fine.ny;
+    this.fInv = fine.invCell;
+    this.fCell = fine.cell * (1 + 1e-12);
+    this.fInts = fine.ints;
+    this.fFloats = fine.floats;
+    // Each fine cell also bounds the mirror image of its points: sd(−p) ≤ sd(−c) + |p − c|.
+    for (let c = 0; c < this.fnx * this.fny; c++) {
+      const cx = this.fgx0 + ((c % this.fnx) + 0.5) * fine.cell;
+      const cy = this.fgy0 + (Math.floor(c / this.fnx) + 0.5) * fine.cell;
+      this.fFloats[c * SLOTS + R_MIRROR] = f32Up(this.signedDistance(-cx, cy));
+    }
   }
-  const size = Math.max(bounds[2] - bounds[0], bounds[3] - bounds[1], 1);
-  // A fine level around the polygons and a coarse one far beyond them; outside both, all edges.
-  const fine = toQueryLevel(buildLevel(E, bounds, size * 0.5 + 1, opts.maxCells ?? FINE_CELLS), E.packed);
-  const coarse = toQueryLevel(buildLevel(E, bounds, size * 2.5 + 1, COARSE_CELLS), E.packed);
-  const ed = E.packed;
-  const { ax: eAx, ay: eAy, dx: eDx, dy: eDy, startKind, endKind } = E;
-  /** Signs the distance d to edge e met at parameter t (signByNearestFeature over the captured arrays). */
-  const signOf = (e: number, t: number, d: number, x: number, y: number): number => {
-    const kind = t <= 0 ? startKind[e] : t >= 1 ? endKind[e] : STRAIGHT;
-    if (kind === CONVEX) return -d;
-    if (kind === REFLEX) return d;
-    return eDx[e] * (y - eAy[e]) - eDy[e] * (x - eAx[e]) > 0 ? d : -d;
-  };
+
   /**
-   * The scan of cell c of level L (nearest first, stopping once dist(c, e) − off cannot beat the
-   * best), its INLINE record entries then the overflow; the general form of the fine-level loop
-   * in signedDistance, used for the coarse level and for a fine cell's overflow.
+   * The scan of cell c of level L (nearest first, stopping once the next edge's lower bound
+   * cannot beat the best), its INLINE record entries then the overflow; the general form of the
+   * fine-level loop in fineQuery, used for the coarse level and for a fine cell's overflow.
    */
-  const scanCell = (L: QueryLevel, c: number, shift: number, x: number, y: number): number => {
+  private scanCell(L: QueryLevel, c: number, shift: number, x: number, y: number): number {
     const { ints, floats, overEdges, overDist } = L;
+    const ed = this.ed;
     const base = c * SLOTS;
     const n = ints[base + R_COUNT];
     const over = ints[base + R_OVERFLOW] - INLINE;
@@ -576,50 +600,52 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
         bestT = t;
       }
     }
-    if (bestEdge < 0) return signedDistanceOver(E, x, y, null, 0, E.count);
-    return best === 0 ? 0 : signOf(bestEdge, bestT, Math.sqrt(best), x, y);
-  };
+    if (bestEdge < 0) return signedDistanceOver(this.E, x, y, null, 0, this.E.count);
+    return best === 0 ? 0 : signByNearestFeature(this.E, bestEdge, bestT, Math.sqrt(best), x, y);
+  }
+
   /** The query off the fine level: the coarse level, else every edge. */
-  const farDistance = (x: number, y: number): number => {
+  private farDistance(x: number, y: number): number {
+    const coarse = this.coarse;
     const fx = (x - coarse.gx0) * coarse.invCell;
     const fy = (y - coarse.gy0) * coarse.invCell;
-    if (!(fx >= 0 && fy >= 0 && fx < coarse.nx && fy < coarse.ny)) return signedDistanceOver(E, x, y, null, 0, E.count);
+    if (!(fx >= 0 && fy >= 0 && fx < coarse.nx && fy < coarse.ny)) return signedDistanceOver(this.E, x, y, null, 0, this.E.count);
     const ix = fx | 0;
     const iy = fy | 0;
-    const ox = fx - ix - 0.5;
-    const oy = fy - iy - 0.5;
     const c = iy * coarse.nx + ix;
-    return scanCell(coarse, c, shiftAt(coarse.floats, c * SLOTS, ox, oy, coarse.cell), x, y);
-  };
-  const { gx0: fgx0, gy0: fgy0, nx: fnx, ny: fny, invCell: fInv, ints: fInts, floats: fFloats } = fine;
-  const fCell = fine.cell * (1 + 1e-12);
-  // The queries below each write out the cell pick and the edge loop: helpers handing back a
-  // second value (through a closure variable or a typed-array slot) measured 15–20 % slower.
-  // The query is the hottest loop of the analysis, and kept small enough for the compiler to
-  // inline it into its caller: the fine cell's record entries nearest first, stopping once
-  // dist(c, e) − |p − c| cannot beat the best distance found; a point off the fine level, or a
-  // list that runs past its record, goes to the general scan.
-  // The query takes its point from io[0], io[1] and leaves its answer in io[2]: it is too large
-  // for the compiler to inline, and a call that passes or returns a number boxes each one (a
-  // heap allocation per number and query); signedDistance, small enough to inline, fills the slots.
-  const io = new Float64Array(3);
-  const fineQuery = (): void => {
+    return this.scanCell(coarse, c, shiftAt(coarse.floats, c * SLOTS, fx - ix - 0.5, fy - iy - 0.5, coarse.cell), x, y);
+  }
+
+  /**
+   * The hottest loop of the analysis, written out in one piece (helpers handing back a second
+   * value measured 15–20 % slower): the fine cell's record entries nearest first, stopping once
+   * the next edge's lower bound cannot beat the best distance found; a point off the fine level,
+   * or a list that runs past its record, goes to the general scan. It takes its point from io[0],
+   * io[1] and leaves its answer in io[2]: it is too large to inline, so numbers passed to it or
+   * returned would be boxed; signedDistance, small enough to inline, fills the slots.
+   */
+  private fineQuery(): void {
+    const io = this.io;
     const x = io[0];
     const y = io[1];
-    const fx = (x - fgx0) * fInv;
-    const fy = (y - fgy0) * fInv;
-    if (!(fx >= 0 && fy >= 0 && fx < fnx && fy < fny)) {
-      io[2] = farDistance(x, y);
+    const fx = (x - this.fgx0) * this.fInv;
+    const fy = (y - this.fgy0) * this.fInv;
+    if (!(fx >= 0 && fy >= 0 && fx < this.fnx && fy < this.fny)) {
+      io[2] = this.farDistance(x, y);
       return;
     }
+    const ed = this.ed;
+    const fInts = this.fInts;
+    const fFloats = this.fFloats;
+    const fCell = this.fCell;
     const ix = fx | 0;
     const iy = fy | 0;
-    // Offset of p from the cell centre, mm: edge e is at least dist(c, e) − off from p.
+    // Offset of p from the cell centre, in cells.
     const ox = fx - ix - 0.5;
     const oy = fy - iy - 0.5;
-    const base = (iy * fnx + ix) * SLOTS;
+    const base = (iy * this.fnx + ix) * SLOTS;
     const n = fInts[base + R_COUNT];
-    // Lower bound of edge e at p: its centre distance plus this (toQueryLevel); inlined shiftAt.
+    // Lower bound of edge e at p: its centre distance plus this (toQueryLevel; shiftAt written out).
     const off = Math.sqrt(ox * ox + oy * oy) * fCell + 1e-9;
     const lead = (ox * fFloats[base + R_LEADX] + oy * fFloats[base + R_LEADY]) * fCell - off * fFloats[base + R_SPREAD] - 1e-9;
     const shift = lead > -off ? lead : -off;
@@ -646,75 +672,81 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
         bestT = t;
       }
     }
-    if (k === INLINE && n > INLINE) io[2] = scanCell(fine, base / SLOTS, shift, x, y);
-    else if (bestEdge < 0) io[2] = signedDistanceOver(E, x, y, null, 0, E.count);
-    else io[2] = best === 0 ? 0 : signOf(bestEdge, bestT, Math.sqrt(best), x, y);
-  };
-  const signedDistance = (x: number, y: number): number => {
+    if (k === INLINE && n > INLINE) io[2] = this.scanCell(this.fine, base / SLOTS, shift, x, y);
+    else if (bestEdge < 0) io[2] = signedDistanceOver(this.E, x, y, null, 0, this.E.count);
+    else io[2] = best === 0 ? 0 : signByNearestFeature(this.E, bestEdge, bestT, Math.sqrt(best), x, y);
+  }
+
+  signedDistance(x: number, y: number): number {
+    const io = this.io;
     io[0] = x;
     io[1] = y;
-    fineQuery();
+    this.fineQuery();
     return io[2];
-  };
+  }
+
+  /** Offset of (x, y) from its fine cell's centre, mm, plus rounding slack (the bounds' |p − c|). */
+  private offsetMm(fx: number, fy: number): number {
+    const ox = fx - (fx | 0) - 0.5;
+    const oy = fy - (fy | 0) - 0.5;
+    return Math.sqrt(ox * ox + oy * oy) * this.fCell + 1e-9;
+  }
+
   // Same level pick; no edge is visited.
-  const upperBound = (x: number, y: number): number => {
-    const fx = (x - fgx0) * fInv;
-    const fy = (y - fgy0) * fInv;
-    if (!(fx >= 0 && fy >= 0 && fx < fnx && fy < fny)) {
+  upperBound(x: number, y: number): number {
+    const fx = (x - this.fgx0) * this.fInv;
+    const fy = (y - this.fgy0) * this.fInv;
+    if (!(fx >= 0 && fy >= 0 && fx < this.fnx && fy < this.fny)) {
+      const coarse = this.coarse;
       const cx = (x - coarse.gx0) * coarse.invCell;
       const cy = (y - coarse.gy0) * coarse.invCell;
       if (!(cx >= 0 && cy >= 0 && cx < coarse.nx && cy < coarse.ny)) return Infinity;
       return upperBoundInCell(coarse, cx, cy);
     }
-    const ix = fx | 0;
-    const iy = fy | 0;
-    const ox = fx - ix - 0.5;
-    const oy = fy - iy - 0.5;
-    return fFloats[(iy * fnx + ix) * SLOTS + R_SDC] + Math.sqrt(ox * ox + oy * oy) * fCell + 1e-9;
-  };
-  // Each fine cell also bounds the mirror image of its points: sd(−p) ≤ sd(−c) + |p − c|.
-  for (let c = 0; c < fnx * fny; c++) {
-    const cx = fgx0 + ((c % fnx) + 0.5) * fine.cell;
-    const cy = fgy0 + (Math.floor(c / fnx) + 0.5) * fine.cell;
-    fFloats[c * SLOTS + R_MIRROR] = f32Up(signedDistance(-cx, cy));
+    return this.fFloats[((fy | 0) * this.fnx + (fx | 0)) * SLOTS + R_SDC] + this.offsetMm(fx, fy);
   }
+
   /** The larger of the signed distances at (x, y) and (−x, y) given upper bounds of each: the second is looked up only when its bound can beat the first. */
-  const larger = (x: number, y: number, ubA: number, ubB: number): number => {
+  private larger(x: number, y: number, ubA: number, ubB: number): number {
     const first = ubA >= ubB ? x : -x;
-    const m1 = signedDistance(first, y);
+    const m1 = this.signedDistance(first, y);
     if ((ubA >= ubB ? ubB : ubA) <= m1) return m1;
-    const m2 = signedDistance(-first, y);
+    const m2 = this.signedDistance(-first, y);
     return m1 > m2 ? m1 : m2;
-  };
+  }
+
   // The fine cell of (x, y) holds both bounds; off the fine level, the general ones.
-  const maxMirrored = (x: number, y: number): number => {
-    const fx = (x - fgx0) * fInv;
-    const fy = (y - fgy0) * fInv;
-    if (!(fx >= 0 && fy >= 0 && fx < fnx && fy < fny)) return larger(x, y, upperBound(x, y), upperBound(-x, y));
-    const ix = fx | 0;
-    const iy = fy | 0;
-    const ox = fx - ix - 0.5;
-    const oy = fy - iy - 0.5;
-    const off = Math.sqrt(ox * ox + oy * oy) * fCell + 1e-9;
-    const base = (iy * fnx + ix) * SLOTS;
-    return larger(x, y, fFloats[base + R_SDC] + off, fFloats[base + R_MIRROR] + off);
-  };
-  const upperBoundMirrored = (x: number, y: number): number => {
-    const fx = (x - fgx0) * fInv;
-    const fy = (y - fgy0) * fInv;
-    if (!(fx >= 0 && fy >= 0 && fx < fnx && fy < fny)) return upperBound(-x, y);
-    const ix = fx | 0;
-    const iy = fy | 0;
-    const ox = fx - ix - 0.5;
-    const oy = fy - iy - 0.5;
-    return fFloats[(iy * fnx + ix) * SLOTS + R_MIRROR] + Math.sqrt(ox * ox + oy * oy) * fCell + 1e-9;
-  };
-  return {
-    signedDistance,
-    upperBound,
-    maxMirrored,
-    upperBoundMirrored,
-    contains: (x, y) => signedDistance(x, y) >= 0,
-    edgeCount: E.count,
-  };
+  maxMirrored(x: number, y: number): number {
+    const fx = (x - this.fgx0) * this.fInv;
+    const fy = (y - this.fgy0) * this.fInv;
+    if (!(fx >= 0 && fy >= 0 && fx < this.fnx && fy < this.fny)) return this.larger(x, y, this.upperBound(x, y), this.upperBound(-x, y));
+    const off = this.offsetMm(fx, fy);
+    const base = ((fy | 0) * this.fnx + (fx | 0)) * SLOTS;
+    return this.larger(x, y, this.fFloats[base + R_SDC] + off, this.fFloats[base + R_MIRROR] + off);
+  }
+
+  upperBoundMirrored(x: number, y: number): number {
+    const fx = (x - this.fgx0) * this.fInv;
+    const fy = (y - this.fgy0) * this.fInv;
+    if (!(fx >= 0 && fy >= 0 && fx < this.fnx && fy < this.fny)) return this.upperBound(-x, y);
+    return this.fFloats[((fy | 0) * this.fnx + (fx | 0)) * SLOTS + R_MIRROR] + this.offsetMm(fx, fy);
+  }
+
+  contains(x: number, y: number): boolean {
+    return this.signedDistance(x, y) >= 0;
+  }
+}
+
+/** Builds a DistanceGrid over non-overlapping polygons (outer rings and holes), mm, in the polygons' frame. */
+export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { maxCells?: number } = {}): DistanceGrid {
+  const E = collectEdges(polygons);
+  const bounds = polygonsBounds(polygons);
+  if (!bounds || E.count === 0) {
+    return { signedDistance: () => -Infinity, upperBound: () => -Infinity, maxMirrored: () => -Infinity, upperBoundMirrored: () => -Infinity, contains: () => false, edgeCount: 0 };
+  }
+  const size = Math.max(bounds[2] - bounds[0], bounds[3] - bounds[1], 1);
+  // A fine level around the polygons and a coarse one far beyond them; outside both, all edges.
+  const fine = toQueryLevel(buildLevel(E, bounds, size * 0.5 + 1, opts.maxCells ?? FINE_CELLS), E.packed);
+  const coarse = toQueryLevel(buildLevel(E, bounds, size * 2.5 + 1, COARSE_CELLS), E.packed);
+  return new GridQuery(E, fine, coarse);
 }
