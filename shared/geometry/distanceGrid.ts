@@ -35,6 +35,11 @@ export interface DistanceGrid {
   maxMirrored(x: number, y: number): number;
   /** A cheap upper bound of signedDistance(−x, y), mm (see upperBound). */
   upperBoundMirrored(x: number, y: number): number;
+  /**
+   * maxMirrored(x, y) given upper bounds ubA of signedDistance(x, y) and ubB of
+   * signedDistance(−x, y): the second is looked up only when its bound can beat the first.
+   */
+  maxMirroredWithin(x: number, y: number, ubA: number, ubB: number): number;
   /** True when the point lies inside or on the boundary. */
   contains(x: number, y: number): boolean;
   /** Number of boundary edges (for diagnostics). */
@@ -706,8 +711,7 @@ class GridQuery implements DistanceGrid {
     return this.fFloats[((fy | 0) * this.fnx + (fx | 0)) * SLOTS + R_SDC] + this.offsetMm(fx, fy);
   }
 
-  /** The larger of the signed distances at (x, y) and (−x, y) given upper bounds of each: the second is looked up only when its bound can beat the first. */
-  private larger(x: number, y: number, ubA: number, ubB: number): number {
+  maxMirroredWithin(x: number, y: number, ubA: number, ubB: number): number {
     const first = ubA >= ubB ? x : -x;
     const m1 = this.signedDistance(first, y);
     if ((ubA >= ubB ? ubB : ubA) <= m1) return m1;
@@ -719,10 +723,10 @@ class GridQuery implements DistanceGrid {
   maxMirrored(x: number, y: number): number {
     const fx = (x - this.fgx0) * this.fInv;
     const fy = (y - this.fgy0) * this.fInv;
-    if (!(fx >= 0 && fy >= 0 && fx < this.fnx && fy < this.fny)) return this.larger(x, y, this.upperBound(x, y), this.upperBound(-x, y));
+    if (!(fx >= 0 && fy >= 0 && fx < this.fnx && fy < this.fny)) return this.maxMirroredWithin(x, y, this.upperBound(x, y), this.upperBound(-x, y));
     const off = this.offsetMm(fx, fy);
     const base = ((fy | 0) * this.fnx + (fx | 0)) * SLOTS;
-    return this.larger(x, y, this.fFloats[base + R_SDC] + off, this.fFloats[base + R_MIRROR] + off);
+    return this.maxMirroredWithin(x, y, this.fFloats[base + R_SDC] + off, this.fFloats[base + R_MIRROR] + off);
   }
 
   upperBoundMirrored(x: number, y: number): number {
@@ -742,7 +746,15 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
   const E = collectEdges(polygons);
   const bounds = polygonsBounds(polygons);
   if (!bounds || E.count === 0) {
-    return { signedDistance: () => -Infinity, upperBound: () => -Infinity, maxMirrored: () => -Infinity, upperBoundMirrored: () => -Infinity, contains: () => false, edgeCount: 0 };
+    return {
+      signedDistance: () => -Infinity,
+      upperBound: () => -Infinity,
+      maxMirrored: () => -Infinity,
+      upperBoundMirrored: () => -Infinity,
+      maxMirroredWithin: () => -Infinity,
+      contains: () => false,
+      edgeCount: 0,
+    };
   }
   const size = Math.max(bounds[2] - bounds[0], bounds[3] - bounds[1], 1);
   // A fine level around the polygons and a coarse one far beyond them; outside both, all edges.

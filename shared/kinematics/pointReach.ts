@@ -201,6 +201,9 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
     let arcA: number;
     let arcB = 0;
     let bearing = 0;
+    // The grid's bounds of both ways, taken once (NaN until then).
+    let ubGA = NaN;
+    let ubGB = NaN;
     if (sideways) {
       bearing = Math.atan2(y, x);
       arcA = arcFront(bearing, rho);
@@ -219,9 +222,9 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
         return combine(d, rho * (half - Math.atan2(ac, dot)));
       }
       const lbB = (dot >= 0 ? rho * (half - Math.PI) + ac : rho * half - HALF_PI * ac) - slack;
-      const ubGA = g.upperBound(rho, zt);
-      const ubGB = g.upperBoundMirrored(rho, zt);
-      if (lbA >= (ubGA > 0 ? ubGA : 0) && lbB >= (ubGB > 0 ? ubGB : 0)) return g.maxMirrored(rho, zt);
+      ubGA = g.upperBound(rho, zt);
+      ubGB = g.upperBoundMirrored(rho, zt);
+      if (lbA >= (ubGA > 0 ? ubGA : 0) && lbB >= (ubGB > 0 ? ubGB : 0)) return g.maxMirroredWithin(rho, zt, ubGA, ubGB);
       const phi = Math.atan2(ac, dot);
       arcA = rho * (half - phi);
       arcB = rho * (half - Math.PI + phi);
@@ -230,8 +233,12 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
     // combine(d, arc) ≤ min(d, arc), and the grid bounds d from above without visiting an edge, so
     // an option is looked up (or even its arc computed) only when its upper bound can beat the
     // other's margin.
-    const gB = g.upperBoundMirrored(rho, zt);
-    const ubA = Math.min(arcA, g.upperBound(rho, zt));
+    if (ubGA !== ubGA) {
+      ubGA = g.upperBound(rho, zt);
+      ubGB = g.upperBoundMirrored(rho, zt);
+    }
+    const gB = ubGB;
+    const ubA = Math.min(arcA, ubGA);
     // With a sideways spread the way behind's arc costs two asin: worked out only when needed.
     let arcKnown = !sideways;
     if (!arcKnown && ubA < gB) {
