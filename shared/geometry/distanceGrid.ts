@@ -547,8 +547,8 @@ class GridQuery implements DistanceGrid {
   private readonly fCell: number;
   private readonly fInts: Int32Array;
   private readonly fFloats: Float32Array;
-  /** fineQuery's point (io[0], io[1]) and answer (io[2]). */
-  private readonly io = new Float64Array(3);
+  /** The point of a query (io[0], io[1]), its answer (io[2]) and the scan's shift (io[3]): see fineQuery. */
+  private readonly io = new Float64Array(4);
 
   constructor(
     private readonly E: Edges,
@@ -576,9 +576,14 @@ class GridQuery implements DistanceGrid {
   /**
    * The scan of cell c of level L (nearest first, stopping once the next edge's lower bound
    * cannot beat the best), its INLINE record entries then the overflow; the general form of the
-   * fine-level loop in fineQuery, used for the coarse level and for a fine cell's overflow.
+   * fine-level loop in fineQuery, used for the coarse level and for a fine cell's overflow. The
+   * point, the shift and the answer go through io, as for fineQuery.
    */
-  private scanCell(L: QueryLevel, c: number, shift: number, x: number, y: number): number {
+  private scanCell(L: QueryLevel, c: number): void {
+    const io = this.io;
+    const x = io[0];
+    const y = io[1];
+    const shift = io[3];
     const { ints, floats, overEdges, overDist } = L;
     const ed = this.ed;
     const base = c * SLOTS;
@@ -605,20 +610,25 @@ class GridQuery implements DistanceGrid {
         bestT = t;
       }
     }
-    if (bestEdge < 0) return signedDistanceOver(this.E, x, y, null, 0, this.E.count);
-    return best === 0 ? 0 : signByNearestFeature(this.E, bestEdge, bestT, Math.sqrt(best), x, y);
+    if (bestEdge < 0) io[2] = signedDistanceOver(this.E, x, y, null, 0, this.E.count);
+    else io[2] = best === 0 ? 0 : signByNearestFeature(this.E, bestEdge, bestT, Math.sqrt(best), x, y);
   }
 
-  /** The query off the fine level: the coarse level, else every edge. */
-  private farDistance(x: number, y: number): number {
+  /** The query off the fine level (point and answer in io): the coarse level, else every edge. */
+  private farQuery(): void {
+    const io = this.io;
     const coarse = this.coarse;
-    const fx = (x - coarse.gx0) * coarse.invCell;
-    const fy = (y - coarse.gy0) * coarse.invCell;
-    if (!(fx >= 0 && fy >= 0 && fx < coarse.nx && fy < coarse.ny)) return signedDistanceOver(this.E, x, y, null, 0, this.E.count);
+    const fx = (io[0] - coarse.gx0) * coarse.invCell;
+    const fy = (io[1] - coarse.gy0) * coarse.invCell;
+    if (!(fx >= 0 && fy >= 0 && fx < coarse.nx && fy < coarse.ny)) {
+      io[2] = signedDistanceOver(this.E, io[0], io[1], null, 0, this.E.count);
+      return;
+    }
     const ix = fx | 0;
     const iy = fy | 0;
     const c = iy * coarse.nx + ix;
-    return this.scanCell(coarse, c, shiftAt(coarse.floats, c * SLOTS, fx - ix - 0.5, fy - iy - 0.5, coarse.cell), x, y);
+    io[3] = shiftAt(coarse.floats, c * SLOTS, fx - ix - 0.5, fy - iy - 0.5, coarse.cell);
+    this.scanCell(coarse, c);
   }
 
   /**
@@ -636,7 +646,7 @@ class GridQuery implements DistanceGrid {
     const fx = (x - this.fgx0) * this.fInv;
     const fy = (y - this.fgy0) * this.fInv;
     if (!(fx >= 0 && fy >= 0 && fx < this.fnx && fy < this.fny)) {
-      io[2] = this.farDistance(x, y);
+      this.farQuery();
       return;
     }
     const ed = this.ed;
@@ -677,8 +687,10 @@ class GridQuery implements DistanceGrid {
         bestT = t;
       }
     }
-    if (k === INLINE && n > INLINE) io[2] = this.scanCell(this.fine, base / SLOTS, shift, x, y);
-    else if (bestEdge < 0) io[2] = signedDistanceOver(this.E, x, y, null, 0, this.E.count);
+    if (k === INLINE && n > INLINE) {
+      io[3] = shift;
+      this.scanCell(this.fine, base / SLOTS);
+    } else if (bestEdge < 0) io[2] = signedDistanceOver(this.E, x, y, null, 0, this.E.count);
     else io[2] = best === 0 ? 0 : signByNearestFeature(this.E, bestEdge, bestT, Math.sqrt(best), x, y);
   }
 
