@@ -260,10 +260,10 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
 }
 
 /**
- * A margin function that hands its point to `margin` through io[0..2]. Every margin function is
- * this one small closure, which the compiler inlines into a hot caller whatever the family: a
- * number passed to a call that is not inlined is boxed (one heap allocation each), and the
- * margins themselves are too large to inline.
+ * A margin function that hands its point to `margin` through io[0..2]. A number passed to a call
+ * that is not inlined is boxed (one heap allocation each) and the margins themselves are too large
+ * to inline; this small closure is inlined where a hot call site meets one margin function, and
+ * where it is not, the point is boxed once, not again on the way into the margin.
  */
 function viaSlots(io: Float64Array, margin: (approach?: 'top' | 'any') => number): MarginFn {
   return (x, y, z, approach) => {
