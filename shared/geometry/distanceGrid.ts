@@ -576,7 +576,7 @@ class GridQuery implements DistanceGrid {
   /**
    * The scan of cell c of level L (nearest first, stopping once the next edge's lower bound
    * cannot beat the best), its INLINE record entries then the overflow; the general form of the
-   * fine-level loop in fineQuery, used for the coarse level and for a fine cell's overflow. The
+   * fine-level loop in fineQuery, used for the coarse level. The
    * point, the shift and the answer go through io, as for fineQuery.
    */
   private scanCell(L: QueryLevel, c: number): void {
@@ -634,8 +634,9 @@ class GridQuery implements DistanceGrid {
   /**
    * The hottest loop of the analysis, written out in one piece (helpers handing back a second
    * value measured 15–20 % slower): the fine cell's record entries nearest first, stopping once
-   * the next edge's lower bound cannot beat the best distance found; a point off the fine level,
-   * or a list that runs past its record, goes to the general scan. It takes its point from io[0],
+   * the next edge's lower bound cannot beat the best distance found, a list longer than its record
+   * carried on in the overflow arrays (not scanned again from the start); a point off the fine
+   * level goes to the coarse level's scan. It takes its point from io[0],
    * io[1] and leaves its answer in io[2]: it is too large to inline, so numbers passed to it or
    * returned would be boxed; signedDistance, small enough to inline, fills the slots.
    */
@@ -667,12 +668,14 @@ class GridQuery implements DistanceGrid {
     let best = Infinity;
     let bestEdge = -1;
     let bestT = 0;
-    let k = 0;
-    for (const inline = n < INLINE ? n : INLINE; k < inline; k++) {
-      const lb = fFloats[base + R_DIST + k] + shift;
+    // A list longer than its record runs on in the overflow arrays, from where the record ends.
+    const { overEdges, overDist } = this.fine;
+    const over = fInts[base + R_OVERFLOW] - INLINE;
+    for (let k = 0; k < n; k++) {
+      const lb = (k < INLINE ? fFloats[base + R_DIST + k] : overDist[over + k]) + shift;
       if (lb > 0 && lb * lb >= best) break;
       // pointSegmentDistance2Rel written out, keeping t
-      const e = fInts[base + R_EDGES + k];
+      const e = k < INLINE ? fInts[base + R_EDGES + k] : overEdges[over + k];
       const o = 5 * e;
       const px = x - ed[o];
       const py = y - ed[o + 1];
@@ -687,10 +690,7 @@ class GridQuery implements DistanceGrid {
         bestT = t;
       }
     }
-    if (k === INLINE && n > INLINE) {
-      io[3] = shift;
-      this.scanCell(this.fine, base / SLOTS);
-    } else if (bestEdge < 0) io[2] = signedDistanceOver(this.E, x, y, null, 0, this.E.count);
+    if (bestEdge < 0) io[2] = signedDistanceOver(this.E, x, y, null, 0, this.E.count);
     else io[2] = best === 0 ? 0 : signByNearestFeature(this.E, bestEdge, bestT, Math.sqrt(best), x, y);
   }
 
