@@ -11,7 +11,9 @@ import type { Polygon2, Pt, Ring } from './types';
  * every query point p in that cell has its nearest edge among the edges within d_c + 2h of c
  * (h = half the cell diagonal), so only those are stored, nearest first. Each level is built coarse
  * to fine (a child cell scans only its parent's list), so a fine grid costs little to build. A
- * query scans its cell's list and stops once dist(c, e) − |p − c| exceeds the best distance found.
+ * query scans its cell's list and stops once a lower bound of the next edge's distance (dist(c, e)
+ * − |p − c|, or tighter, dist(c, e) + (p − c)·n − |p − c|·s with the cell's lead direction n and
+ * spread s, see toQueryLevel) exceeds the best distance found.
  * The sign comes from the nearest feature (region on the left of every edge): the side of the
  * nearest edge, or for a nearest vertex whether that vertex is convex (outside) or reflex (inside).
  * Queries outside the grid fall back to all edges, so the answer is exact everywhere; the grid
@@ -19,7 +21,8 @@ import type { Polygon2, Pt, Ring } from './types';
  * distance is 1-Lipschitz) without visiting an edge, for callers choosing between lookups.
  * Levels: 128 cells across the fine one (bounds ± half their size), 16 across the coarse one; each
  * cell is one 64-byte record (its first INLINE edges, their centre distances as float32 rounded
- * down, the centre's signed distance rounded up), so a typical query reads one record. A record
+ * down, the centre's signed distance rounded up, the lead direction and spread), so a typical
+ * query reads one record. A record
  * also bounds the mirror image in x = 0 of its points (maxMirrored, upperBoundMirrored: the two
  * ways a reach profile's (r, z) can reach a bearing, r and −r).
  */
@@ -32,6 +35,11 @@ export interface DistanceGrid {
   maxMirrored(x: number, y: number): number;
   /** A cheap upper bound of signedDistance(−x, y), mm (see upperBound). */
   upperBoundMirrored(x: number, y: number): number;
+  /**
+   * maxMirrored(x, y) given upper bounds ubA of signedDistance(x, y) and ubB of
+   * signedDistance(−x, y): the second is looked up only when its bound can beat the first.
+   */
+  maxMirroredWithin(x: number, y: number, ubA: number, ubB: number): number;
   /** True when the point lies inside or on the boundary. */
   contains(x: number, y: number): boolean;
   /** Number of boundary edges (for diagnostics). */
@@ -335,8 +343,12 @@ function buildLevel(E: Edges, bounds: readonly [number, number, number, number],
 }
 
 /** Edges held in a cell's own record; a longer list continues in the level's overflow arrays. */
-const INLINE = 6;
-/** 32-bit slots per cell record: signed distance at the centre, list length, overflow start, INLINE edge ids, INLINE centre distances, signed distance at the centre mirrored in x = 0 (64 bytes). */
+const INLINE = 4;
+/**
+ * 32-bit slots per cell record (64 bytes): signed distance at the centre, list length, overflow
+ * start, INLINE edge ids, INLINE centre distances, signed distance at the centre mirrored in
+ * x = 0, the lead direction (x, y) and its spread (see toQueryLevel), one slot free.
+ */
 const SLOTS = 16;
 const R_SDC = 0;
 const R_COUNT = 1;
@@ -344,12 +356,27 @@ const R_OVERFLOW = 2;
 const R_EDGES = 3;
 const R_DIST = R_EDGES + INLINE;
 const R_MIRROR = R_DIST + INLINE;
+const R_LEADX = R_MIRROR + 1;
+const R_LEADY = R_MIRROR + 2;
+const R_SPREAD = R_MIRROR + 3;
+/** A cell whose centre lies closer than this to a listed edge (mm) bounds by |p − c| alone (its directions would be unsteady). */
+const LEAD_MIN_MM = 1;
 
 /**
  * A level laid out for queries: one 64-byte record per cell (Int32 and Float32 views of one
  * buffer), so a query whose list ends within the first INLINE edges reads one cache line; the
  * rest of a longer list follows in `overEdges` / `overDist`. The Float32 centre distances are
  * rounded down and the centre's signed distance up, so the bounds the query relies on stay bounds.
+ *
+ * The lower bound of a listed edge at a query point p: with q_e the point of edge e nearest to
+ * the cell centre c and n_e = (c − q_e)/|c − q_e|, the whole segment lies in the half-plane
+ * (x − q_e)·n_e ≤ 0 (q_e is the projection of c onto a convex set), so
+ * dist(p, e) ≥ dist(c, e) + (p − c)·n_e. Writing n_e = n + (n_e − n) for one lead direction n per
+ * cell (that of its nearest edge) and s ≥ |n_e − n| over the list (its spread),
+ * dist(p, e) ≥ dist(c, e) + (p − c)·n − |p − c|·s, and also ≥ dist(c, e) − |p − c|: the query adds
+ * the larger of the two shifts to every listed centre distance. Far from the boundary a cell's
+ * edges all lie one way (s small), so the scan stops right after the nearest edge, where
+ * |p − c| alone would take every edge within 2|p − c| of it.
  */
 interface QueryLevel {
   gx0: number;
@@ -377,7 +404,7 @@ const f32Up = (v: number): number => {
 };
 
 /** The level's CSR lists as cell records (see QueryLevel). */
-function toQueryLevel(L: Level): QueryLevel {
+function toQueryLevel(L: Level, ed: Float64Array): QueryLevel {
   const cells = L.nx * L.ny;
   const { starts, edges, dce, sdc } = L;
   const buffer = new ArrayBuffer(4 * SLOTS * cells);
@@ -390,6 +417,10 @@ function toQueryLevel(L: Level): QueryLevel {
   }
   const overEdges = new Int32Array(over);
   const overDist = new Float64Array(over);
+  let longest = 0;
+  for (let c = 0; c < cells; c++) longest = Math.max(longest, starts[c + 1] - starts[c]);
+  const dirX = new Float64Array(longest);
+  const dirY = new Float64Array(longest);
   let o = 0;
   for (let c = 0; c < cells; c++) {
     const from = starts[c];
@@ -407,8 +438,87 @@ function toQueryLevel(L: Level): QueryLevel {
       overEdges[o] = edges[from + k];
       overDist[o++] = dce[from + k];
     }
+    // Lead direction and spread (see above); none (spread 1, so the shift is −|p − c|) when an
+    // edge passes within LEAD_MIN_MM of the centre.
+    const ix = c % L.nx;
+    const cx = L.gx0 + (ix + 0.5) * L.cell;
+    const cy = L.gy0 + ((c - ix) / L.nx + 0.5) * L.cell;
+    let leadX = 0;
+    let leadY = 0;
+    let spread = 1;
+    if (n > 0 && dce[from] >= LEAD_MIN_MM) {
+      // Each edge's direction; the two extreme ones by their turn from the nearest edge's (all
+      // within a right angle of it, or no lead), and the lead between those two.
+      let ok = true;
+      let loK = 0;
+      let hiK = 0;
+      let lo = 0;
+      let hi = 0;
+      for (let k = 0; k < n; k++) {
+        const o5 = 5 * edges[from + k];
+        const px = cx - ed[o5];
+        const py = cy - ed[o5 + 1];
+        const t = nearestSegmentParamRel(px, py, ed[o5 + 2], ed[o5 + 3], ed[o5 + 4]);
+        const ux = px - t * ed[o5 + 2];
+        const uy = py - t * ed[o5 + 3];
+        const len = Math.sqrt(ux * ux + uy * uy);
+        if (!(len >= LEAD_MIN_MM)) {
+          ok = false;
+          break;
+        }
+        dirX[k] = ux / len;
+        dirY[k] = uy / len;
+        const turn = dirX[0] * dirY[k] - dirY[0] * dirX[k];
+        if (dirX[0] * dirX[k] + dirY[0] * dirY[k] <= 0) {
+          ok = false;
+          break;
+        }
+        if (turn < lo) {
+          lo = turn;
+          loK = k;
+        } else if (turn > hi) {
+          hi = turn;
+          hiK = k;
+        }
+      }
+      if (ok) {
+        const mx = dirX[loK] + dirX[hiK];
+        const my = dirY[loK] + dirY[hiK];
+        const ml = Math.sqrt(mx * mx + my * my);
+        leadX = Math.fround(mx / ml);
+        leadY = Math.fround(my / ml);
+        let maxDev2 = 0;
+        for (let k = 0; k < n; k++) {
+          const devX = dirX[k] - leadX;
+          const devY = dirY[k] - leadY;
+          const dev2 = devX * devX + devY * devY;
+          if (dev2 > maxDev2) maxDev2 = dev2;
+        }
+        const maxDev = Math.sqrt(maxDev2);
+        if (maxDev < 1) spread = f32Up(maxDev + 1e-6);
+        else {
+          leadX = 0;
+          leadY = 0;
+        }
+      }
+    }
+    floats[base + R_LEADX] = leadX;
+    floats[base + R_LEADY] = leadY;
+    floats[base + R_SPREAD] = spread;
   }
   return { gx0: L.gx0, gy0: L.gy0, nx: L.nx, ny: L.ny, cell: L.cell, invCell: L.invCell, ints, floats, overEdges, overDist };
+}
+
+/**
+ * What a query at offset (ox, oy) cells from the centre of the cell whose record starts at base
+ * adds to each listed centre distance for a lower bound of that edge's distance, mm: the larger of
+ * −|p − c| and (p − c)·lead − |p − c|·spread (toQueryLevel), each rounded the safe way.
+ */
+function shiftAt(floats: Float32Array, base: number, ox: number, oy: number, cell: number): number {
+  const scale = cell * (1 + 1e-12);
+  const off = Math.sqrt(ox * ox + oy * oy) * scale + 1e-9;
+  const lead = (ox * floats[base + R_LEADX] + oy * floats[base + R_LEADY]) * scale - off * floats[base + R_SPREAD] - 1e-9;
+  return lead > -off ? lead : -off;
 }
 
 /** Signed distance at the centre of the cell at grid coordinates (fx, fy) of L plus the distance to that centre, mm (1-Lipschitz bound). */
@@ -420,33 +530,62 @@ function upperBoundInCell(L: QueryLevel, fx: number, fy: number): number {
   return L.floats[(iy * L.nx + ix) * SLOTS + R_SDC] + Math.sqrt(ox * ox + oy * oy) * L.cell * (1 + 1e-12) + 1e-9;
 }
 
-/** Builds a DistanceGrid over non-overlapping polygons (outer rings and holes), mm, in the polygons' frame. */
-export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { maxCells?: number } = {}): DistanceGrid {
-  const E = collectEdges(polygons);
-  const bounds = polygonsBounds(polygons);
-  if (!bounds || E.count === 0) {
-    return { signedDistance: () => -Infinity, upperBound: () => -Infinity, maxMirrored: () => -Infinity, upperBoundMirrored: () => -Infinity, contains: () => false, edgeCount: 0 };
+/**
+ * The queries over a built grid. A class, so that every grid's methods are the same functions:
+ * a hot caller's call site then has one target the compiler inlines, whichever grid it meets
+ * (closures made anew per grid would each be a target of their own, never inlined, and every
+ * number passed to or from a call that is not inlined is boxed, one heap allocation each).
+ */
+class GridQuery implements DistanceGrid {
+  readonly edgeCount: number;
+  private readonly ed: Float64Array;
+  private readonly fgx0: number;
+  private readonly fgy0: number;
+  private readonly fnx: number;
+  private readonly fny: number;
+  private readonly fInv: number;
+  private readonly fCell: number;
+  private readonly fInts: Int32Array;
+  private readonly fFloats: Float32Array;
+  /** The point of a query (io[0], io[1]), its answer (io[2]) and the scan's shift (io[3]): see fineQuery. */
+  private readonly io = new Float64Array(4);
+
+  constructor(
+    private readonly E: Edges,
+    private readonly fine: QueryLevel,
+    private readonly coarse: QueryLevel,
+  ) {
+    this.edgeCount = E.count;
+    this.ed = E.packed;
+    this.fgx0 = fine.gx0;
+    this.fgy0 = fine.gy0;
+    this.fnx = fine.nx;
+    this.fny = fine.ny;
+    this.fInv = fine.invCell;
+    this.fCell = fine.cell * (1 + 1e-12);
+    this.fInts = fine.ints;
+    this.fFloats = fine.floats;
+    // Each fine cell also bounds the mirror image of its points: sd(−p) ≤ sd(−c) + |p − c|.
+    for (let c = 0; c < this.fnx * this.fny; c++) {
+      const cx = this.fgx0 + ((c % this.fnx) + 0.5) * fine.cell;
+      const cy = this.fgy0 + (Math.floor(c / this.fnx) + 0.5) * fine.cell;
+      this.fFloats[c * SLOTS + R_MIRROR] = f32Up(this.signedDistance(-cx, cy));
+    }
   }
-  const size = Math.max(bounds[2] - bounds[0], bounds[3] - bounds[1], 1);
-  // A fine level around the polygons and a coarse one far beyond them; outside both, all edges.
-  const fine = toQueryLevel(buildLevel(E, bounds, size * 0.5 + 1, opts.maxCells ?? FINE_CELLS));
-  const coarse = toQueryLevel(buildLevel(E, bounds, size * 2.5 + 1, COARSE_CELLS));
-  const ed = E.packed;
-  const { ax: eAx, ay: eAy, dx: eDx, dy: eDy, startKind, endKind } = E;
-  /** Signs the distance d to edge e met at parameter t (signByNearestFeature over the captured arrays). */
-  const signOf = (e: number, t: number, d: number, x: number, y: number): number => {
-    const kind = t <= 0 ? startKind[e] : t >= 1 ? endKind[e] : STRAIGHT;
-    if (kind === CONVEX) return -d;
-    if (kind === REFLEX) return d;
-    return eDx[e] * (y - eAy[e]) - eDy[e] * (x - eAx[e]) > 0 ? d : -d;
-  };
+
   /**
-   * The scan of cell c of level L (nearest first, stopping once dist(c, e) − off cannot beat the
-   * best), its INLINE record entries then the overflow; the general form of the fine-level loop
-   * in signedDistance, used for the coarse level and for a fine cell's overflow.
+   * The scan of cell c of level L (nearest first, stopping once the next edge's lower bound
+   * cannot beat the best), its INLINE record entries then the overflow; the general form of the
+   * fine-level loop in fineQuery, used for the coarse level. The
+   * point, the shift and the answer go through io, as for fineQuery.
    */
-  const scanCell = (L: QueryLevel, c: number, off: number, x: number, y: number): number => {
+  private scanCell(L: QueryLevel, c: number): void {
+    const io = this.io;
+    const x = io[0];
+    const y = io[1];
+    const shift = io[3];
     const { ints, floats, overEdges, overDist } = L;
+    const ed = this.ed;
     const base = c * SLOTS;
     const n = ints[base + R_COUNT];
     const over = ints[base + R_OVERFLOW] - INLINE;
@@ -454,7 +593,7 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
     let bestEdge = -1;
     let bestT = 0;
     for (let k = 0; k < n; k++) {
-      const lb = (k < INLINE ? floats[base + R_DIST + k] : overDist[over + k]) - off;
+      const lb = (k < INLINE ? floats[base + R_DIST + k] : overDist[over + k]) + shift;
       if (lb > 0 && lb * lb >= best) break;
       const e = k < INLINE ? ints[base + R_EDGES + k] : overEdges[over + k];
       const o = 5 * e;
@@ -471,49 +610,72 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
         bestT = t;
       }
     }
-    if (bestEdge < 0) return signedDistanceOver(E, x, y, null, 0, E.count);
-    return best === 0 ? 0 : signOf(bestEdge, bestT, Math.sqrt(best), x, y);
-  };
-  /** The query off the fine level: the coarse level, else every edge. */
-  const farDistance = (x: number, y: number): number => {
-    const fx = (x - coarse.gx0) * coarse.invCell;
-    const fy = (y - coarse.gy0) * coarse.invCell;
-    if (!(fx >= 0 && fy >= 0 && fx < coarse.nx && fy < coarse.ny)) return signedDistanceOver(E, x, y, null, 0, E.count);
+    if (bestEdge < 0) io[2] = signedDistanceOver(this.E, x, y, null, 0, this.E.count);
+    else io[2] = best === 0 ? 0 : signByNearestFeature(this.E, bestEdge, bestT, Math.sqrt(best), x, y);
+  }
+
+  /** The query off the fine level (point and answer in io): the coarse level, else every edge. */
+  private farQuery(): void {
+    const io = this.io;
+    const coarse = this.coarse;
+    const fx = (io[0] - coarse.gx0) * coarse.invCell;
+    const fy = (io[1] - coarse.gy0) * coarse.invCell;
+    if (!(fx >= 0 && fy >= 0 && fx < coarse.nx && fy < coarse.ny)) {
+      io[2] = signedDistanceOver(this.E, io[0], io[1], null, 0, this.E.count);
+      return;
+    }
     const ix = fx | 0;
     const iy = fy | 0;
-    const ox = fx - ix - 0.5;
-    const oy = fy - iy - 0.5;
-    return scanCell(coarse, iy * coarse.nx + ix, Math.sqrt(ox * ox + oy * oy) * coarse.cell * (1 + 1e-12) + 1e-9, x, y);
-  };
-  const { gx0: fgx0, gy0: fgy0, nx: fnx, ny: fny, invCell: fInv, ints: fInts, floats: fFloats } = fine;
-  const fCell = fine.cell * (1 + 1e-12);
-  // The queries below each write out the cell pick and the edge loop: helpers handing back a
-  // second value (through a closure variable or a typed-array slot) measured 15–20 % slower.
-  // The query is the hottest loop of the analysis, and kept small enough for the compiler to
-  // inline it into its caller: the fine cell's record entries nearest first, stopping once
-  // dist(c, e) − |p − c| cannot beat the best distance found; a point off the fine level, or a
-  // list that runs past its record, goes to the general scan.
-  const signedDistance = (x: number, y: number): number => {
-    const fx = (x - fgx0) * fInv;
-    const fy = (y - fgy0) * fInv;
-    if (!(fx >= 0 && fy >= 0 && fx < fnx && fy < fny)) return farDistance(x, y);
+    const c = iy * coarse.nx + ix;
+    io[3] = shiftAt(coarse.floats, c * SLOTS, fx - ix - 0.5, fy - iy - 0.5, coarse.cell);
+    this.scanCell(coarse, c);
+  }
+
+  /**
+   * The hottest loop of the analysis, written out in one piece (helpers handing back a second
+   * value measured 15–20 % slower): the fine cell's record entries nearest first, stopping once
+   * the next edge's lower bound cannot beat the best distance found, a list longer than its record
+   * carried on in the overflow arrays (not scanned again from the start); a point off the fine
+   * level goes to the coarse level's scan. It takes its point from io[0],
+   * io[1] and leaves its answer in io[2]: it is too large to inline, so numbers passed to it or
+   * returned would be boxed; signedDistance, small enough to inline, fills the slots.
+   */
+  private fineQuery(): void {
+    const io = this.io;
+    const x = io[0];
+    const y = io[1];
+    const fx = (x - this.fgx0) * this.fInv;
+    const fy = (y - this.fgy0) * this.fInv;
+    if (!(fx >= 0 && fy >= 0 && fx < this.fnx && fy < this.fny)) {
+      this.farQuery();
+      return;
+    }
+    const ed = this.ed;
+    const fInts = this.fInts;
+    const fFloats = this.fFloats;
+    const fCell = this.fCell;
     const ix = fx | 0;
     const iy = fy | 0;
-    // Offset of p from the cell centre, mm: edge e is at least dist(c, e) − off from p.
+    // Offset of p from the cell centre, in cells.
     const ox = fx - ix - 0.5;
     const oy = fy - iy - 0.5;
-    const off = Math.sqrt(ox * ox + oy * oy) * fCell + 1e-9;
-    const base = (iy * fnx + ix) * SLOTS;
+    const base = (iy * this.fnx + ix) * SLOTS;
     const n = fInts[base + R_COUNT];
+    // Lower bound of edge e at p: its centre distance plus this (toQueryLevel; shiftAt written out).
+    const off = Math.sqrt(ox * ox + oy * oy) * fCell + 1e-9;
+    const lead = (ox * fFloats[base + R_LEADX] + oy * fFloats[base + R_LEADY]) * fCell - off * fFloats[base + R_SPREAD] - 1e-9;
+    const shift = lead > -off ? lead : -off;
     let best = Infinity;
     let bestEdge = -1;
     let bestT = 0;
-    let k = 0;
-    for (const inline = n < INLINE ? n : INLINE; k < inline; k++) {
-      const lb = fFloats[base + R_DIST + k] - off;
+    // A list longer than its record runs on in the overflow arrays, from where the record ends.
+    const { overEdges, overDist } = this.fine;
+    const over = fInts[base + R_OVERFLOW] - INLINE;
+    for (let k = 0; k < n; k++) {
+      const lb = (k < INLINE ? fFloats[base + R_DIST + k] : overDist[over + k]) + shift;
       if (lb > 0 && lb * lb >= best) break;
       // pointSegmentDistance2Rel written out, keeping t
-      const e = fInts[base + R_EDGES + k];
+      const e = k < INLINE ? fInts[base + R_EDGES + k] : overEdges[over + k];
       const o = 5 * e;
       const px = x - ed[o];
       const py = y - ed[o + 1];
@@ -528,69 +690,87 @@ export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { max
         bestT = t;
       }
     }
-    if (k === INLINE && n > INLINE) return scanCell(fine, base / SLOTS, off, x, y);
-    if (bestEdge < 0) return signedDistanceOver(E, x, y, null, 0, E.count);
-    return best === 0 ? 0 : signOf(bestEdge, bestT, Math.sqrt(best), x, y);
-  };
+    if (bestEdge < 0) io[2] = signedDistanceOver(this.E, x, y, null, 0, this.E.count);
+    else io[2] = best === 0 ? 0 : signByNearestFeature(this.E, bestEdge, bestT, Math.sqrt(best), x, y);
+  }
+
+  signedDistance(x: number, y: number): number {
+    const io = this.io;
+    io[0] = x;
+    io[1] = y;
+    this.fineQuery();
+    return io[2];
+  }
+
+  /** Offset of (x, y) from its fine cell's centre, mm, plus rounding slack (the bounds' |p − c|). */
+  private offsetMm(fx: number, fy: number): number {
+    const ox = fx - (fx | 0) - 0.5;
+    const oy = fy - (fy | 0) - 0.5;
+    return Math.sqrt(ox * ox + oy * oy) * this.fCell + 1e-9;
+  }
+
   // Same level pick; no edge is visited.
-  const upperBound = (x: number, y: number): number => {
-    const fx = (x - fgx0) * fInv;
-    const fy = (y - fgy0) * fInv;
-    if (!(fx >= 0 && fy >= 0 && fx < fnx && fy < fny)) {
+  upperBound(x: number, y: number): number {
+    const fx = (x - this.fgx0) * this.fInv;
+    const fy = (y - this.fgy0) * this.fInv;
+    if (!(fx >= 0 && fy >= 0 && fx < this.fnx && fy < this.fny)) {
+      const coarse = this.coarse;
       const cx = (x - coarse.gx0) * coarse.invCell;
       const cy = (y - coarse.gy0) * coarse.invCell;
       if (!(cx >= 0 && cy >= 0 && cx < coarse.nx && cy < coarse.ny)) return Infinity;
       return upperBoundInCell(coarse, cx, cy);
     }
-    const ix = fx | 0;
-    const iy = fy | 0;
-    const ox = fx - ix - 0.5;
-    const oy = fy - iy - 0.5;
-    return fFloats[(iy * fnx + ix) * SLOTS + R_SDC] + Math.sqrt(ox * ox + oy * oy) * fCell + 1e-9;
-  };
-  // Each fine cell also bounds the mirror image of its points: sd(−p) ≤ sd(−c) + |p − c|.
-  for (let c = 0; c < fnx * fny; c++) {
-    const cx = fgx0 + ((c % fnx) + 0.5) * fine.cell;
-    const cy = fgy0 + (Math.floor(c / fnx) + 0.5) * fine.cell;
-    fFloats[c * SLOTS + R_MIRROR] = f32Up(signedDistance(-cx, cy));
+    return this.fFloats[((fy | 0) * this.fnx + (fx | 0)) * SLOTS + R_SDC] + this.offsetMm(fx, fy);
   }
-  /** The larger of the signed distances at (x, y) and (−x, y) given upper bounds of each: the second is looked up only when its bound can beat the first. */
-  const larger = (x: number, y: number, ubA: number, ubB: number): number => {
+
+  maxMirroredWithin(x: number, y: number, ubA: number, ubB: number): number {
     const first = ubA >= ubB ? x : -x;
-    const m1 = signedDistance(first, y);
+    const m1 = this.signedDistance(first, y);
     if ((ubA >= ubB ? ubB : ubA) <= m1) return m1;
-    const m2 = signedDistance(-first, y);
+    const m2 = this.signedDistance(-first, y);
     return m1 > m2 ? m1 : m2;
-  };
+  }
+
   // The fine cell of (x, y) holds both bounds; off the fine level, the general ones.
-  const maxMirrored = (x: number, y: number): number => {
-    const fx = (x - fgx0) * fInv;
-    const fy = (y - fgy0) * fInv;
-    if (!(fx >= 0 && fy >= 0 && fx < fnx && fy < fny)) return larger(x, y, upperBound(x, y), upperBound(-x, y));
-    const ix = fx | 0;
-    const iy = fy | 0;
-    const ox = fx - ix - 0.5;
-    const oy = fy - iy - 0.5;
-    const off = Math.sqrt(ox * ox + oy * oy) * fCell + 1e-9;
-    const base = (iy * fnx + ix) * SLOTS;
-    return larger(x, y, fFloats[base + R_SDC] + off, fFloats[base + R_MIRROR] + off);
-  };
-  const upperBoundMirrored = (x: number, y: number): number => {
-    const fx = (x - fgx0) * fInv;
-    const fy = (y - fgy0) * fInv;
-    if (!(fx >= 0 && fy >= 0 && fx < fnx && fy < fny)) return upperBound(-x, y);
-    const ix = fx | 0;
-    const iy = fy | 0;
-    const ox = fx - ix - 0.5;
-    const oy = fy - iy - 0.5;
-    return fFloats[(iy * fnx + ix) * SLOTS + R_MIRROR] + Math.sqrt(ox * ox + oy * oy) * fCell + 1e-9;
-  };
-  return {
-    signedDistance,
-    upperBound,
-    maxMirrored,
-    upperBoundMirrored,
-    contains: (x, y) => signedDistance(x, y) >= 0,
-    edgeCount: E.count,
-  };
+  maxMirrored(x: number, y: number): number {
+    const fx = (x - this.fgx0) * this.fInv;
+    const fy = (y - this.fgy0) * this.fInv;
+    if (!(fx >= 0 && fy >= 0 && fx < this.fnx && fy < this.fny)) return this.maxMirroredWithin(x, y, this.upperBound(x, y), this.upperBound(-x, y));
+    const off = this.offsetMm(fx, fy);
+    const base = ((fy | 0) * this.fnx + (fx | 0)) * SLOTS;
+    return this.maxMirroredWithin(x, y, this.fFloats[base + R_SDC] + off, this.fFloats[base + R_MIRROR] + off);
+  }
+
+  upperBoundMirrored(x: number, y: number): number {
+    const fx = (x - this.fgx0) * this.fInv;
+    const fy = (y - this.fgy0) * this.fInv;
+    if (!(fx >= 0 && fy >= 0 && fx < this.fnx && fy < this.fny)) return this.upperBound(-x, y);
+    return this.fFloats[((fy | 0) * this.fnx + (fx | 0)) * SLOTS + R_MIRROR] + this.offsetMm(fx, fy);
+  }
+
+  contains(x: number, y: number): boolean {
+    return this.signedDistance(x, y) >= 0;
+  }
+}
+
+/** Builds a DistanceGrid over non-overlapping polygons (outer rings and holes), mm, in the polygons' frame. */
+export function buildDistanceGrid(polygons: ReadonlyArray<Polygon2>, opts: { maxCells?: number } = {}): DistanceGrid {
+  const E = collectEdges(polygons);
+  const bounds = polygonsBounds(polygons);
+  if (!bounds || E.count === 0) {
+    return {
+      signedDistance: () => -Infinity,
+      upperBound: () => -Infinity,
+      maxMirrored: () => -Infinity,
+      upperBoundMirrored: () => -Infinity,
+      maxMirroredWithin: () => -Infinity,
+      contains: () => false,
+      edgeCount: 0,
+    };
+  }
+  const size = Math.max(bounds[2] - bounds[0], bounds[3] - bounds[1], 1);
+  // A fine level around the polygons and a coarse one far beyond them; outside both, all edges.
+  const fine = toQueryLevel(buildLevel(E, bounds, size * 0.5 + 1, opts.maxCells ?? FINE_CELLS), E.packed);
+  const coarse = toQueryLevel(buildLevel(E, bounds, size * 2.5 + 1, COARSE_CELLS), E.packed);
+  return new GridQuery(E, fine, coarse);
 }

@@ -107,11 +107,13 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
     const grid = buildDistanceGrid(scaraPlanRegion(s, j1KinematicRange(model, restrict)));
     const zLo = s.strokeMin;
     const zHi = s.strokeMax;
-    return (x, y, z) => {
+    const io = new Float64Array(3);
+    return viaSlots(io, () => {
+      const z = io[2];
       const zf = z + drop;
       const dz = zf - zLo < zHi - zf ? zf - zLo : zHi - zf;
-      return combine(grid.signedDistance(x, y), dz);
-    };
+      return combine(grid.signedDistance(io[0], io[1]), dz);
+    });
   }
   const profile = reachProfileOf(model);
   const range = j1KinematicRange(model, restrict);
@@ -148,7 +150,11 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
   if (a1 - a0 >= TWO_PI - 1e-9) {
     // A full J1 window (widened further by any sideways spread): no J1 edge applies, so the margin
     // is the profile distance of the better way to the bearing, and no angle is needed.
-    return (x, y, z, approach) => {
+    const io = new Float64Array(3);
+    return viaSlots(io, (approach) => {
+      const x = io[0];
+      const y = io[1];
+      const z = io[2];
       const tilt = approach === 'any' && tiltable && reachTool > 0;
       const g = tilt ? anyGridOf() : grid;
       const zt = tilt ? z : z + drop;
@@ -157,7 +163,7 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
       if (!hasNegative) return g.signedDistance(rho, zt);
       // The better way to the bearing, the second looked up only when the grid's bound says it could win.
       return g.maxMirrored(rho, zt);
-    };
+    });
   }
   /** Arc length (mm) at radius rho from bearing b to the nearer edge of the window [lo, hi]: positive inside, negative outside. */
   const arcIn = (b: number, lo: number, hi: number, rho: number): number => {
@@ -180,7 +186,11 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
   /** J1 arc margins of the way in front of the axis (A) and behind it (B) for a point at bearing b, plan distance rho (sideways spread only). */
   const arcFront = (b: number, rho: number): number => arcIn(b, a0 + asinClamped(yLo / rho), a1 + asinClamped(yHi / rho), rho);
   const arcBack = (b: number, rho: number): number => arcIn(b, a0 + Math.PI - asinClamped(yHi / rho), a1 + Math.PI - asinClamped(yLo / rho), rho);
-  return (x, y, z, approach) => {
+  const io = new Float64Array(3);
+  return viaSlots(io, (approach) => {
+    const x = io[0];
+    const y = io[1];
+    const z = io[2];
     const tilt = approach === 'any' && tiltable && reachTool > 0;
     const g = tilt ? anyGridOf() : grid;
     const zt = tilt ? z : z + drop;
@@ -191,6 +201,9 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
     let arcA: number;
     let arcB = 0;
     let bearing = 0;
+    // The grid's bounds of both ways, taken once (NaN until then).
+    let ubGA = NaN;
+    let ubGB = NaN;
     if (sideways) {
       bearing = Math.atan2(y, x);
       arcA = arcFront(bearing, rho);
@@ -209,9 +222,9 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
         return combine(d, rho * (half - Math.atan2(ac, dot)));
       }
       const lbB = (dot >= 0 ? rho * (half - Math.PI) + ac : rho * half - HALF_PI * ac) - slack;
-      const ubGA = g.upperBound(rho, zt);
-      const ubGB = g.upperBoundMirrored(rho, zt);
-      if (lbA >= (ubGA > 0 ? ubGA : 0) && lbB >= (ubGB > 0 ? ubGB : 0)) return g.maxMirrored(rho, zt);
+      ubGA = g.upperBound(rho, zt);
+      ubGB = g.upperBoundMirrored(rho, zt);
+      if (lbA >= (ubGA > 0 ? ubGA : 0) && lbB >= (ubGB > 0 ? ubGB : 0)) return g.maxMirroredWithin(rho, zt, ubGA, ubGB);
       const phi = Math.atan2(ac, dot);
       arcA = rho * (half - phi);
       arcB = rho * (half - Math.PI + phi);
@@ -220,8 +233,12 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
     // combine(d, arc) ≤ min(d, arc), and the grid bounds d from above without visiting an edge, so
     // an option is looked up (or even its arc computed) only when its upper bound can beat the
     // other's margin.
-    const gB = g.upperBoundMirrored(rho, zt);
-    const ubA = Math.min(arcA, g.upperBound(rho, zt));
+    if (ubGA !== ubGA) {
+      ubGA = g.upperBound(rho, zt);
+      ubGB = g.upperBoundMirrored(rho, zt);
+    }
+    const gB = ubGB;
+    const ubA = Math.min(arcA, ubGA);
     // With a sideways spread the way behind's arc costs two asin: worked out only when needed.
     let arcKnown = !sideways;
     if (!arcKnown && ubA < gB) {
@@ -239,6 +256,21 @@ function buildMargin(model: ArmParams, restrict: J1Restrict | null | undefined, 
     }
     const m2 = combine(g.signedDistance(-first, zt), aFirst ? arcB : arcA);
     return m1 > m2 ? m1 : m2;
+  });
+}
+
+/**
+ * A margin function that hands its point to `margin` through io[0..2]. A number passed to a call
+ * that is not inlined is boxed (one heap allocation each) and the margins themselves are too large
+ * to inline; this small closure is inlined where a hot call site meets one margin function, and
+ * where it is not, the point is boxed once, not again on the way into the margin.
+ */
+function viaSlots(io: Float64Array, margin: (approach?: 'top' | 'any') => number): MarginFn {
+  return (x, y, z, approach) => {
+    io[0] = x;
+    io[1] = y;
+    io[2] = z;
+    return margin(approach);
   };
 }
 
