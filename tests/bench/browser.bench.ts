@@ -145,6 +145,8 @@ interface OpenSteps {
   data: number;
   workerFirstMessage: number;
   workerFirstResult: number;
+  /** Each API request before the findings showed: path, start and end (ms since navigation start). */
+  requests: Array<[string, number, number]>;
 }
 
 /** Opens the editor in a fresh page of the signed-in context; resolves with the time to findings (ms since navigation start) and its steps. */
@@ -165,6 +167,9 @@ async function openEditor(page: Page, url: string): Promise<OpenSteps> {
       data: last(resources.filter((r) => new URL(r.name).pathname.startsWith('/api/') && r.startTime < b.findingsAt!)),
       workerFirstMessage: b.toWorker[0]?.t ?? NaN,
       workerFirstResult: b.fromWorker.find((m) => m.type === 'result')?.t ?? NaN,
+      requests: resources
+        .filter((r) => new URL(r.name).pathname.startsWith('/api/') && r.startTime < b.findingsAt!)
+        .map((r): [string, number, number] => [new URL(r.name).pathname, Math.round(r.startTime), Math.round(r.responseEnd)]),
     };
   });
 }
@@ -376,6 +381,7 @@ try {
   report(`demo cell layout: navigation start → findings show (median of ${LOADS}; each ${opens.map((t) => t.toFixed(0)).join(', ')} ms)`, median(opens), 'ms', OPEN_TARGET_MS);
   const mid = steps.find((s) => s.findings === median(opens))!;
   console.log(`  the median load, ms after navigation start: document ${mid.document.toFixed(0)}, scripts ${mid.scripts.toFixed(0)}, layout data ${mid.data.toFixed(0)}, first message to the worker ${mid.workerFirstMessage.toFixed(0)}, its first result ${mid.workerFirstResult.toFixed(0)}, findings shown ${mid.findings.toFixed(0)}`);
+  console.log(`  its requests (start → end, ms): ${mid.requests.map(([p, a, b]) => `${p} ${a} → ${b}`).join('; ')}`);
 
   // 2 and 3. Dragging on the large layouts; the heap on the largest (BENCH_BROWSER_ONLY=open skips them).
   if (process.env.BENCH_BROWSER_ONLY !== 'open') {

@@ -45,7 +45,9 @@ export function configureHeavyWork(settings: HeavyWorkSettings): void {
     settings,
     pool: new Piscina({
       filename: workerEntry(),
-      minThreads: 0,
+      // One thread stays up, its code loaded and its arm models' reach built, so the editor's first
+      // view of a layout (GET /layouts/:id/analysis) and small analyses answer without a cold start.
+      minThreads: Math.min(1, settings.threads),
       maxThreads: settings.threads,
       maxQueue: settings.queueLimit,
       idleTimeout: 60_000,
