@@ -92,6 +92,13 @@ export interface Analyzer {
   analyze(input: Readonly<AnalysisInput>): AnalysisResult;
   /** How many arm regions, pairs and coverage columns the last call computed afresh (for tests and benchmarks). */
   lastStats(): { arms: number; pairs: number; columns: number };
+  /**
+   * Indices (into the last call's work points) of the points whose coverage row the last call
+   * changed, ascending; null when it built every row anew (first call, other work points) or the
+   * call before it threw. Rows not listed are the objects, with the values, they were after the
+   * call before.
+   */
+  lastCoverageChanges(): Int32Array | null;
 }
 
 /**
@@ -114,6 +121,9 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
   let pointFindings: Array<Finding[] | null> = [];
   let placedKey = '';
   let stats = { arms: 0, pairs: 0, columns: 0 };
+  let coverageChanges: Int32Array | null = null;
+  // False while a call runs and after one that threw: the next call then reports every row as changed.
+  let lastCompleted = true;
 
   function placedArm(a: ArmPlacement, heights: ReadonlyArray<number>): PlacedArm {
     const sig = armSignature(a);
@@ -250,9 +260,15 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
 
   return {
     lastStats: () => stats,
+    lastCoverageChanges: () => coverageChanges,
     analyze(input) {
       const t0 = typeof performance !== 'undefined' ? performance.now() : Date.now();
       stats = { arms: 0, pairs: 0, columns: 0 };
+      // Until this call completes, every row may have changed (a call that throws leaves it so,
+      // and the call after it too, since rows the failed call changed are in no list).
+      coverageChanges = null;
+      const afterCompleted = lastCompleted;
+      lastCompleted = false;
       const heights = [...new Set(input.workHeights)].sort((a, b) => a - b);
       const points = input.workPoints;
       const small: Finding[] = [];
@@ -277,7 +293,8 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       const nextFp = points === fpOf ? fp : pointsFingerprint(points);
       fpOf = points;
       let dirty: Uint8Array;
-      if (nextFp !== fp) {
+      const rowsAnew = nextFp !== fp;
+      if (rowsAnew) {
         fp = nextFp;
         grid = buildPointGrid(points);
         coverage = {};
@@ -310,8 +327,15 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
           dirty[col.near[k]] = 1;
         }
       }
+      let changedRows = 0;
       for (let i = 0; i < points.length; i++) {
+        if (dirty[i]) changedRows++;
         if (dirty[i] || idsChanged) pointFindings[i] = pointChecks(points[i], coverage[points[i].id], placedIds);
+      }
+      let changes: Int32Array | null = null;
+      if (!rowsAnew) {
+        changes = new Int32Array(changedRows);
+        for (let i = 0, k = 0; i < points.length; i++) if (dirty[i]) changes[k++] = i;
       }
 
       // Shared zones (pairs cached by both arms' signatures, the heights and the points).
@@ -367,6 +391,8 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
         regions[p.arm.id] = { restricted: p.geo.restricted, bands: heights.map((h) => ({ height: h, geometry: p.geo.bands.get(h) ?? null })) };
       }
       const t1 = typeof performance !== 'undefined' ? performance.now() : Date.now();
+      coverageChanges = afterCompleted ? changes : null;
+      lastCompleted = true;
       return { findings, sharedZones, coverage, regions, safeguarding: safeguarding.result, timingMs: Math.round((t1 - t0) * 100) / 100 };
     },
   };

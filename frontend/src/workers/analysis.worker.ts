@@ -18,6 +18,9 @@ const encoder = createDeltaEncoder();
 /** Shown for an internal failure, whose own text is no message for people. */
 const FAILED = 'the checks hit a problem with this layout; undo the last change or reload the page';
 let scheduled = false;
+// The analyzer's list of changed coverage rows is against its run before; it holds for the delta
+// only when that run's result was encoded too (not after a failed run).
+let encodedLast = true;
 
 function runLatest(): void {
   scheduled = false;
@@ -25,11 +28,13 @@ function runLatest(): void {
   try {
     const r = session.run();
     if (r) {
-      const { seq, dragging, ...view } = r;
-      out = { type: 'result', seq, dragging, delta: encoder.encode(view) };
+      const { seq, dragging, coverageChanged, ...view } = r;
+      out = { type: 'result', seq, dragging, delta: encoder.encode(view, encodedLast ? coverageChanged : null) };
+      encodedLast = true;
     }
   } catch (err) {
     console.error(err);
+    encodedLast = false;
     out = { type: 'error', seq: session.currentSeq(), message: readableMessage(err, FAILED) };
   }
   if (out) scope.postMessage(out);

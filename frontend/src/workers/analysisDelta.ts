@@ -46,28 +46,48 @@ export function createDeltaEncoder() {
   let maxSpaces = new Map<string, AreaGeometry | null>();
 
   return {
-    encode(view: AnalysisView): ViewDelta {
+    /**
+     * `coverageChanged`, when given, lists every point whose coverage row may differ from the view
+     * encoded before (the analyzer knows them); the other rows are not compared. Without it (or on
+     * the first view) every row is.
+     */
+    encode(view: AnalysisView, coverageChanged?: ReadonlyArray<string> | null): ViewDelta {
       const a = view.analysis;
       const reset = !started;
       started = true;
-      const nextFindings = new Map<string, Finding>();
+      // Findings the analyzer kept are the same objects: send those that are not. While the ids
+      // come in the order sent before (a drag, mostly), the map is patched; else built anew.
+      const list = a.findings;
       const changed: Finding[] = [];
-      const order: string[] = [];
-      let duplicate = false;
-      for (const f of a.findings) {
-        if (nextFindings.has(f.id)) duplicate = true;
-        nextFindings.set(f.id, f);
-        order.push(f.id);
+      let sameOrder = !reset && list.length === lastOrder.length;
+      for (let i = 0; i < list.length; i++) {
+        const f = list[i];
+        if (sameOrder && lastOrder[i] !== f.id) sameOrder = false;
         if (reset || findings.get(f.id) !== f) changed.push(f);
+      }
+      let duplicate = false;
+      let order: string[] = lastOrder;
+      if (sameOrder) {
+        for (const f of changed) findings.set(f.id, f);
+      } else {
+        const nextFindings = new Map<string, Finding>();
+        order = new Array<string>(list.length);
+        for (let i = 0; i < list.length; i++) {
+          const f = list[i];
+          if (nextFindings.has(f.id)) duplicate = true;
+          nextFindings.set(f.id, f);
+          order[i] = f.id;
+        }
+        findings = nextFindings;
       }
       // Ids are unique by construction (findingId); should two ever share one, send the list whole.
       const wholeFindings = duplicate;
-      findings = duplicate ? new Map() : nextFindings;
-      const sameOrder = !reset && !wholeFindings && order.length === lastOrder.length && order.every((id, i) => id === lastOrder[i]);
+      if (duplicate) findings = new Map();
       lastOrder = wholeFindings ? [] : order;
 
       const cov: Record<string, CoverageRow> = {};
-      const pids = Object.keys(a.coverage);
+      const hinted = !reset && coverageChanged != null;
+      const pids = hinted ? coverageChanged : Object.keys(a.coverage);
       const sizeBefore = coverage.size;
       let added = 0;
       for (const pid of pids) {
@@ -80,9 +100,10 @@ export function createDeltaEncoder() {
           coverage.set(pid, copy);
         }
       }
-      // Points gone since the last result: only looked for when the counts say there are some.
+      // Points gone since the last result: only looked for when the counts say there are some (a
+      // hint comes only with the same points, so none are gone then).
       const coverageRemoved: string[] = [];
-      if (sizeBefore + added > pids.length) {
+      if (!hinted && sizeBefore + added > pids.length) {
         const now = new Set(pids);
         for (const pid of coverage.keys()) if (!now.has(pid)) coverageRemoved.push(pid);
         for (const pid of coverageRemoved) coverage.delete(pid);
@@ -137,6 +158,10 @@ export function createDeltaEncoder() {
 export function createDeltaDecoder() {
   const findings = new Map<string, Finding>();
   let order: string[] = [];
+  // The findings list last returned and each id's place in it (while the order stays, a delta
+  // patches a copy of the list instead of looking every id up again).
+  let lastList: Finding[] = [];
+  let position = new Map<string, number>();
   let coverage: AnalysisResult['coverage'] = {};
   let regions: AnalysisResult['regions'] = {};
   let maxSpaces: AnalysisView['maxSpaces'] = {};
@@ -162,15 +187,28 @@ export function createDeltaDecoder() {
         findings.clear();
         order = [];
         list = d.findings;
+        // The encoder sends the order again with the next non-empty list.
+        lastList = [];
+        position = new Map();
       } else {
         if (d.reset) findings.clear();
         for (const f of d.findings) findings.set(f.id, f);
-        if (d.findingOrder !== null) order = d.findingOrder;
-        list = order.map((id) => findings.get(id)!);
-        if (findings.size !== order.length) {
-          const keep = new Set(order);
-          for (const id of [...findings.keys()]) if (!keep.has(id)) findings.delete(id);
+        if (d.findingOrder !== null || d.reset) {
+          if (d.findingOrder !== null) order = d.findingOrder;
+          list = order.map((id) => findings.get(id)!);
+          position = new Map(order.map((id, i) => [id, i]));
+          if (findings.size !== order.length) {
+            const keep = new Set(order);
+            for (const id of [...findings.keys()]) if (!keep.has(id)) findings.delete(id);
+          }
+        } else if (d.findings.length) {
+          // The same order as before (a drag, mostly): the list before with the changed ones put in.
+          list = lastList.slice();
+          for (const f of d.findings) list[position.get(f.id)!] = f;
+        } else {
+          list = lastList;
         }
+        lastList = list;
       }
       coverage = patch(coverage, d.coverage, d.coverageRemoved, d.reset);
       regions = patch(regions, d.regions, d.regionsRemoved, d.reset);

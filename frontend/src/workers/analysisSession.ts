@@ -38,8 +38,12 @@ export function contentWithPose(content: LayoutContent, pose: DragPose | null): 
 export interface AnalysisSession {
   /** Applies one message; returns true when the analysis should run again. */
   receive(msg: ToWorker): boolean;
-  /** Analyses the latest content (with the drag pose applied); null before any content arrived. */
-  run(): (AnalysisView & { seq: number; dragging: boolean }) | null;
+  /**
+   * Analyses the latest content (with the drag pose applied); null before any content arrived.
+   * `coverageChanged` lists the work points whose coverage row differs from the run before (null:
+   * any may), so the result's delta need not compare every row.
+   */
+  run(): (AnalysisView & { seq: number; dragging: boolean; coverageChanged: string[] | null }) | null;
   /** Sequence number of the latest input (content or drag pose). */
   currentSeq(): number;
   /** How many reach regions were built so far (each model × restricting limits once). */
@@ -135,7 +139,9 @@ export function createAnalysisSession(build: ReachBuilder): AnalysisSession {
         live.add(`${a.id}|${a.armModelId}|${a.x}|${a.y}|${a.yaw}`);
       }
       for (const k of maxSpaces.keys()) if (!live.has(k)) maxSpaces.delete(k);
-      return { analysis, maxSpaces: spaces, placed, section: sectionOfContent(c), seq, dragging: pose !== null };
+      const changes = analyzer.lastCoverageChanges();
+      const coverageChanged = changes ? Array.from(changes, (i) => c.workPoints[i].id) : null;
+      return { analysis, maxSpaces: spaces, placed, section: sectionOfContent(c), seq, dragging: pose !== null, coverageChanged };
     },
     currentSeq: () => seq,
     reachBuilds: () => builds,

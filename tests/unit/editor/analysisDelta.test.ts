@@ -28,12 +28,24 @@ describe('analysis results as deltas', () => {
   it('decode to the whole result after every step, and a drag sends a small part of it', () => {
     const s = createAnalysisSession(armReachFor);
     const enc = createDeltaEncoder();
+    // A second encoder told which coverage rows the analyzer changed: it must send the same deltas
+    // as the one that compares every row (so the list the analyzer keeps misses no row).
+    const hinted = createDeltaEncoder();
     const dec = createDeltaDecoder();
     let c = layout();
+    let hints = 0;
+    // Deltas whose findings changed while their order stayed: the decoder patches its list then.
+    let patchedInPlace = 0;
     const step = () => {
-      const { seq: _seq, dragging: _dragging, ...view } = s.run()!;
+      const { seq: _seq, dragging: _dragging, coverageChanged, ...view } = s.run()!;
       const whole = structuredClone(view);
       const delta = structuredClone(enc.encode(view));
+      if (coverageChanged) {
+        hints++;
+        expect(coverageChanged.length).toBeLessThan(c.workPoints.length);
+      }
+      expect(structuredClone(hinted.encode(view, coverageChanged))).toEqual(delta);
+      if (delta.findingOrder === null && delta.findings.length > 0) patchedInPlace++;
       const got = dec.decode(delta);
       expect(got.analysis).toEqual(whole.analysis);
       expect(got.maxSpaces).toEqual(whole.maxSpaces);
@@ -69,5 +81,9 @@ describe('analysis results as deltas', () => {
     step();
     s.receive({ type: 'drag', seq, pose: { armId: 'R1', x: 200, y: 200, yaw: 0 } });
     step();
+    // The drags and the drag after new models came with a list; the first result, new points and
+    // new models without.
+    expect(hints).toBe(5);
+    expect(patchedInPlace).toBeGreaterThan(0);
   }, 60_000);
 });
