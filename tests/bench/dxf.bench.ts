@@ -4,6 +4,9 @@
 // Timing runs in a child process that alternates the two (full GC before each run); memory is
 // the peak RSS of fresh child processes, less that of one that only reads the file; the heap the
 // finished result holds (after a full GC) is printed beside it, as the floor of that figure.
+// The upload path's peak is measured the same way: the bytes read in a worker thread
+// (readFloorPlan: worker, packed result, geometry JSON text) and the value that stores it made,
+// beside the GeoJSON path uploads took before (the result rebuilt as objects, JSON.stringify).
 // Run: npm run bench dxf   (or node --import tsx tests/bench/dxf.bench.ts)
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
@@ -11,7 +14,10 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import DxfParser from 'dxf-parser';
+import { Sequelize } from 'sequelize';
 import { importDxf } from '../../backend/src/services/dxf/importDxf';
+import { parseInWorker } from '../../backend/src/services/dxf/parseInWorker';
+import { readFloorPlan, storedGeometry } from '../../backend/src/services/floorPlanImport';
 import { DxfWriter } from '../../samples/make-samples';
 import { report } from './report';
 
@@ -76,7 +82,25 @@ const gc = (globalThis as { gc?: () => void }).gc ?? (() => undefined);
  * (after one warm-up of each), with a full GC before every run so neither pays for the other's
  * garbage; the others report the peak RSS of one job.
  */
-function child(mode: string, file: string, rounds: number): void {
+async function child(mode: string, file: string, rounds: number): Promise<void> {
+  if (mode === 'bytes' || mode === 'upload' || mode === 'upload-geojson') {
+    // as an upload arrives: the file's bytes (multer's buffer), then what the route stores
+    const bytes = readFileSync(file);
+    const before = process.memoryUsage().rss;
+    let kept = 0;
+    if (mode === 'upload') {
+      // never connected: only its escaping is used, as the route's INSERT does
+      const sequelize = new Sequelize('postgres://bench@127.0.0.1:1/bench', { logging: false });
+      const r = await readFloorPlan(bytes);
+      kept = storedGeometry(sequelize, r.geometryJson) ? r.stats.features : 0;
+    } else if (mode === 'upload-geojson') {
+      const r = await parseInWorker(bytes);
+      kept = JSON.stringify(r.geometry).length > 0 ? r.stats.features : 0;
+    }
+    const peakKb = process.resourceUsage().maxRSS;
+    process.stdout.write(JSON.stringify({ before, peak: peakKb * 1024, kept }));
+    return;
+  }
   const text = readFileSync(file, 'utf8');
   if (mode === 'timing') {
     const run = (f: () => unknown) => {
@@ -162,24 +186,33 @@ function main(): void {
     console.log(`importDxf              ${importMs.toFixed(0)} ms wall, ${median(runs.map((r) => r.imp.cpu)).toFixed(0)} ms CPU`);
     report({ what: 'importDxf time over the bare dxf-parser parse (wall, median of pairs)', figure: ratio, unit: '×', target: TIME_TARGET, better: 'lower', digits: 2, note: `${cpuRatio.toFixed(2)}× CPU` });
 
-    // peak memory, each in a fresh process; the baseline process only reads the file
+    // peak memory, each in a fresh process, over one that only reads the file (as text, or as bytes for uploads)
     const base = measure('baseline', file);
-    const parser = measure('parser', file);
-    const imp = measure('import', file);
-    const parserDelta = parser.peak - base.peak;
-    const importDelta = imp.peak - base.peak;
+    const bytes = measure('bytes', file);
+    /** Prints one job's peak RSS over its baseline; answers the growth over the file size. */
+    const peakOver = (label: string, mode: string, under: { peak: number }, note = ''): number => {
+      const m = measure(mode, file);
+      const delta = m.peak - under.peak;
+      console.log(`peak RSS, ${label.padEnd(20)}${mb(m.peak)}  (+${mb(delta)}, ${(delta / size).toFixed(1)}× file${note})`);
+      return delta / size;
+    };
     console.log(`peak RSS, file read only      ${mb(base.peak)}`);
-    console.log(`peak RSS, dxf-parser          ${mb(parser.peak)}  (+${mb(parserDelta)}, ${(parserDelta / size).toFixed(1)}× file)`);
-    console.log(`peak RSS, importDxf           ${mb(imp.peak)}  (+${mb(importDelta)}, ${(importDelta / size).toFixed(1)}× file)`);
+    console.log(`peak RSS, bytes read only     ${mb(bytes.peak)}`);
+    peakOver('dxf-parser', 'parser', base);
+    const memRatio = peakOver('importDxf', 'import', base);
     const held = measure('result', file);
     console.log(`heap the result holds         ${mb(held.peak - held.before)}  (${((held.peak - held.before) / size).toFixed(1)}× file, after GC)`);
-    const memRatio = importDelta / size;
     report({ what: 'importDxf peak memory over the file size', figure: memRatio, unit: '×', target: MEMORY_TARGET, better: 'lower', digits: 1 });
+
+    // the upload path: worker thread and request thread in one process, the stored value made
+    peakOver('GeoJSON upload', 'upload-geojson', bytes, ': worker result rebuilt as objects, JSON.stringify');
+    const uploadRatio = peakOver('upload path', 'upload', bytes, ': readFloorPlan, JSON text from the packed arrays');
+    report({ what: 'upload path (worker + request thread) peak memory over the file size', figure: uploadRatio, unit: '×', target: MEMORY_TARGET, better: 'lower', digits: 1 });
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
 }
 
 const at = process.argv.indexOf('--child');
-if (at !== -1) child(process.argv[at + 1], process.argv[at + 2], Number(process.argv[at + 3]));
+if (at !== -1) await child(process.argv[at + 1], process.argv[at + 2], Number(process.argv[at + 3]));
 else main();

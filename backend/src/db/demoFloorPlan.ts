@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { FloorPlan } from '../models';
-import { readFloorPlan } from '../services/floorPlanImport';
+import { readFloorPlan, storedGeometry } from '../services/floorPlanImport';
 import type { SeedStep } from './seed';
 
 export const DEMO_FLOOR_PLAN_FILE = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../../samples/floor-plans/fernhill-hall.dxf');
@@ -20,7 +20,7 @@ export const seedDemoFloorPlan: SeedStep = async ({ transaction, planner, projec
       unitsSource: result.unitsSource,
       bounds: result.bounds,
       layers: result.layers,
-      geometry: result.geometry,
+      geometry: storedGeometry(FloorPlan.sequelize!, result.geometryJson),
       warnings: result.warnings,
       stats: { ...result.stats, chordToleranceMm: result.chordToleranceMm, insunits: result.insunits },
       createdBy: planner.id,

@@ -1,8 +1,8 @@
 import { Router, type RequestHandler, type Response } from 'express';
 import multer from 'multer';
-import type { Sequelize } from 'sequelize';
+import type { InferAttributes, Sequelize } from 'sequelize';
 import { checkDrawingUnit } from '@shared/geometry';
-import { FloorPlanPatch, SavedLayerRoles, type ImportResult, type SavedLayerRole, type UnitName } from '@shared/schemas/floorPlan';
+import { FloorPlanPatch, SavedLayerRoles, type SavedLayerRole, type UnitName } from '@shared/schemas/floorPlan';
 import type { SessionUser } from '../auth/passport';
 import { allow, currentUser } from '../auth/guards';
 import { badRequest, conflict, HttpError, notFound } from '../http/errors';
@@ -10,10 +10,12 @@ import { idParam, parseOr400 } from '../http/validate';
 import { FloorPlan, Layout, ProjectLayerRoles } from '../models';
 import { audit } from '../services/audit/audit';
 import { isDxfImportError } from '../services/dxf/errors';
-import { readFloorPlan } from '../services/floorPlanImport';
+import { readFloorPlan, storedGeometry, type ReadFloorPlan } from '../services/floorPlanImport';
 import { loadVisibleProject } from '../services/projectAccess';
 
 const SUMMARY_ATTRS = ['id', 'projectId', 'fileName', 'units', 'unitsSource', 'bounds', 'layers', 'warnings', 'stats', 'origin', 'notes', 'createdAt', 'updatedAt'] as const;
+/** What an upload's INSERT returns: never the geometry (stored as text, see storedGeometry) nor the file. */
+const CREATE_RETURNING: Array<keyof InferAttributes<FloorPlan>> = [...SUMMARY_ATTRS, 'createdBy'];
 
 function summary(fp: FloorPlan) {
   return {
@@ -85,7 +87,7 @@ function importSlots(limit: number) {
 }
 
 /** Carries roles and heights the planner set over to a re-read of the same drawing. */
-function keepLayerChoices(result: ImportResult, previous: FloorPlan['layers']): ImportResult['layers'] {
+function keepLayerChoices(result: ReadFloorPlan, previous: FloorPlan['layers']): ReadFloorPlan['layers'] {
   const byName = new Map(previous.map((l) => [l.name, l]));
   return result.layers.map((l) => {
     const old = byName.get(l.name);
@@ -93,13 +95,13 @@ function keepLayerChoices(result: ImportResult, previous: FloorPlan['layers']): 
   });
 }
 
-/** What is stored of an import besides geometry and layers. */
-function storedImport(result: ImportResult) {
+/** What is stored of an import besides the layers (the geometry as its JSON text). */
+function storedImport(sequelize: Sequelize, result: ReadFloorPlan) {
   return {
     units: result.units,
     unitsSource: result.unitsSource,
     bounds: result.bounds,
-    geometry: result.geometry,
+    geometry: storedGeometry(sequelize, result.geometryJson),
     warnings: result.warnings,
     notes: result.notes,
     origin: result.origin,
@@ -108,7 +110,7 @@ function storedImport(result: ImportResult) {
 }
 
 /** Applies a project's saved layer roles (names matched ignoring case); returns how many layers took one. */
-function applySavedRoles(result: ImportResult, saved: readonly SavedLayerRole[]): number {
+function applySavedRoles(result: ReadFloorPlan, saved: readonly SavedLayerRole[]): number {
   const byName = new Map(saved.map((l) => [l.name.toLowerCase(), l]));
   let n = 0;
   result.layers = result.layers.map((l) => {
@@ -147,7 +149,7 @@ export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes:
   r.post('/projects/:id/floor-plans', allow('floorPlan.write'), async (req, res) => {
     const user = currentUser(req);
     const project = await loadVisibleProject(user, idParam(req.params.id, 'Project'));
-    let result: ImportResult;
+    let result: ReadFloorPlan;
     const release = imports.take(res);
     try {
       await new Promise<void>((resolve, reject) => singleFile(req, res, (e?: unknown) => (e ? reject(e) : resolve())));
@@ -174,11 +176,11 @@ export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes:
           projectId: project.id,
           fileName,
           originalDxf: file.buffer,
-          ...storedImport(result),
+          ...storedImport(sequelize, result),
           layers: result.layers,
           createdBy: user.id,
         },
-        { transaction },
+        { transaction, returning: CREATE_RETURNING },
       );
       await audit(user.id, 'floorPlan.create', 'floorPlan', row.id, { projectId: project.id, fileName, bytes: file.size }, transaction);
       return row;
@@ -203,7 +205,7 @@ export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes:
       let layers = fp.layers;
       if (patch.units && patch.units !== fp.units) {
         // Re-read the stored original in the chosen unit: geometry rescaled exactly, no re-upload.
-        let result: ImportResult;
+        let result: ReadFloorPlan;
         const release = imports.take(res);
         try {
           result = await readFloorPlan(fp.originalDxf, { units: patch.units });
@@ -213,7 +215,7 @@ export function floorPlansRouter(sequelize: Sequelize, opts: { uploadLimitBytes:
           release();
         }
         layers = keepLayerChoices(result, fp.layers);
-        Object.assign(changes, { ...storedImport(result), unitsSource: 'chosen' });
+        Object.assign(changes, { ...storedImport(sequelize, result), unitsSource: 'chosen' });
       }
       if (patch.layers) {
         const byName = new Map(layers.map((l) => [l.name, l]));

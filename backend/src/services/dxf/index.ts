@@ -3,7 +3,8 @@
  * never block the event loop) and `importDxf` where blocking is fine (seeding, scripts, tests).
  */
 export { importDxf, type ImportOptions } from './importDxf';
-export { parseInWorker, type WorkerOptions } from './parseInWorker';
+export { parseInWorker, parseInWorkerPacked, type WorkerOptions } from './parseInWorker';
+export { packedGeometryJson, type PackedResult } from './transfer';
 export { DxfImportError, isDxfImportError, DXF_IMPORT_ERROR_CODES, type DxfImportErrorCode } from './errors';
 export { UNIT_NAMES, unitToMm, unitFromInsunits, unitLabel, resolveUnits, type UnitName } from './units';
 export { guessLayerRole, defaultLayerHeight } from './layerRoles';

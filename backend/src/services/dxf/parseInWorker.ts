@@ -2,7 +2,7 @@ import { Worker } from 'node:worker_threads';
 import type { ImportResult } from '@shared/schemas/floorPlan';
 import { DxfImportError, DXF_IMPORT_ERROR_CODES, type DxfImportErrorCode } from './errors';
 import type { ImportOptions } from './importDxf';
-import { unpackResult } from './transfer';
+import { unpackResult, type PackedResult } from './transfer';
 import type { WorkerJob, WorkerReply } from './worker';
 
 export interface WorkerOptions {
@@ -28,9 +28,17 @@ function workerEntry(): URL {
  * the worker dies (e.g. out of memory).
  */
 export function parseInWorker(input: string | Uint8Array, opts: ImportOptions = {}, w: WorkerOptions = {}): Promise<ImportResult> {
+  return parseInWorkerPacked(input, opts, w).then(unpackResult);
+}
+
+/**
+ * parseInWorker's result as it leaves the worker (transfer.ts), for callers that only store or
+ * send on the geometry (packedGeometryJson) and so never need its GeoJSON objects.
+ */
+export function parseInWorkerPacked(input: string | Uint8Array, opts: ImportOptions = {}, w: WorkerOptions = {}): Promise<PackedResult> {
   const timeoutMs = w.timeoutMs ?? 60_000;
   const entry = workerEntry();
-  return new Promise<ImportResult>((resolve, reject) => {
+  return new Promise<PackedResult>((resolve, reject) => {
     let settled = false;
     const worker = new Worker(entry, {
       resourceLimits: { maxOldGenerationSizeMb: w.maxHeapMb ?? 2048 },
@@ -59,7 +67,7 @@ export function parseInWorker(input: string | Uint8Array, opts: ImportOptions = 
     }, timeoutMs);
     worker.once('message', (reply: WorkerReply) => {
       finish(() => {
-        if (reply.ok) return resolve(unpackResult(reply.result));
+        if (reply.ok) return resolve(reply.result);
         const { code, message, line } = reply.error;
         if (code === 'invalid-options') return reject(new RangeError(message));
         const known = (DXF_IMPORT_ERROR_CODES as readonly string[]).includes(code);

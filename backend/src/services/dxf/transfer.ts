@@ -150,3 +150,83 @@ export function unpackResult(p: PackedResult): ImportResult {
   }
   return { ...p.meta, geometry: { type: 'FeatureCollection', features } };
 }
+
+/** A number as JSON.stringify writes it (non-finite numbers become null). */
+function jsonNumber(x: number): string {
+  return Number.isFinite(x) ? String(x) : 'null';
+}
+
+/** Characters of JSON text gathered as one string before they are written out as bytes. */
+const JSON_PIECE_CHARS = 1 << 16;
+
+/**
+ * The JSON text of `unpackResult(p).geometry`, written straight from the packed arrays: exactly
+ * the characters JSON.stringify gives for that FeatureCollection, without making its objects (an
+ * array per position). Used where the geometry is only stored or sent on. Pieces of the text go
+ * into one growing byte buffer as they are made (a string grown by += keeps every small piece
+ * until it is read, more memory than the arrays it stands for), decoded once at the end.
+ */
+export function packedGeometryJson(p: PackedResult): string {
+  const n = p.kind.length;
+  const { coords, partStart, featurePart } = p;
+  const layerJson = p.layers.map((s) => JSON.stringify(s));
+  const entityJson = p.entities.map((s) => JSON.stringify(s));
+  const labelAt = new Map(p.labels.map((x) => [x.i, x]));
+  // about 20 bytes a position, 90 a feature
+  let buf = Buffer.allocUnsafe(Math.max(1024, 20 * (coords.length / 2) + 90 * n));
+  let used = 0;
+  const flush = (piece: string) => {
+    const need = used + 3 * piece.length;
+    if (need > buf.length) {
+      const bigger = Buffer.allocUnsafe(Math.max(need, Math.ceil(buf.length * 1.5)));
+      buf.copy(bigger, 0, 0, used);
+      buf = bigger;
+    }
+    used += buf.write(piece, used, 'utf8');
+  };
+  let s = '{"type":"FeatureCollection","features":[';
+  const position = (j: number) => `[${jsonNumber(coords[2 * j])},${jsonNumber(coords[2 * j + 1])}]`;
+  const list = (k: number) => {
+    s += '[';
+    for (let j = partStart[k]; j < partStart[k + 1]; j++) {
+      if (j > partStart[k]) s += ',';
+      s += position(j);
+      if (s.length >= JSON_PIECE_CHARS) {
+        flush(s);
+        s = '';
+      }
+    }
+    s += ']';
+  };
+  for (let i = 0; i < n; i++) {
+    if (i > 0) s += ',';
+    s += `{"type":"Feature","properties":{"layer":${layerJson[p.layer[i]]},"entity":${entityJson[p.entity[i]]},"closed":${p.closed[i] === 1}`;
+    const lab = labelAt.get(i);
+    if (lab) {
+      if (lab.text !== undefined) s += `,"text":${JSON.stringify(lab.text)}`;
+      if (lab.textHeight !== undefined) s += `,"textHeight":${jsonNumber(lab.textHeight)}`;
+      if (lab.rotation !== undefined) s += `,"rotation":${jsonNumber(lab.rotation)}`;
+    }
+    if (p.parts[i] > 0) s += `,"parts":${p.parts[i]}`;
+    const k0 = featurePart[i];
+    if (p.kind[i] === 0) s += `},"geometry":{"type":"Point","coordinates":${position(partStart[k0])}}}`;
+    else if (p.kind[i] === 1) {
+      s += '},"geometry":{"type":"LineString","coordinates":';
+      list(k0);
+      s += '}}';
+    } else {
+      s += '},"geometry":{"type":"Polygon","coordinates":[';
+      for (let k = k0; k < featurePart[i + 1]; k++) {
+        if (k > k0) s += ',';
+        list(k);
+      }
+      s += ']}}';
+    }
+    if (s.length >= JSON_PIECE_CHARS) {
+      flush(s);
+      s = '';
+    }
+  }
+  flush(s + ']}');
+  return buf.toString('utf8', 0, used);
+}
