@@ -91,6 +91,8 @@ describe('readable outputs in Chromium', () => {
     expect(await page.locator('[data-no-findings]').innerText()).toBe('Nothing to check yet: place an arm or add work points, and the checks run as you edit.');
     // A long list shows a page at a time.
     const many = await makeLayout(page, 'Many unreached points', true, 250);
+    // Zooms below take effect at once (no animation), so the canvas is read after them.
+    await page.emulateMedia({ reducedMotion: 'reduce' });
     await openEditor(page, many.projectId, many.layoutId);
     await page.locator('[data-more-findings]').waitFor();
     expect(await page.locator('[data-kind="unreached-point"]').count()).toBe(200);
@@ -98,9 +100,49 @@ describe('readable outputs in Chromium', () => {
     await page.locator('[data-more-findings]').click();
     await page.locator('[data-more-findings]').waitFor({ state: 'detached' });
     expect(await page.locator('[data-kind="unreached-point"]').count()).toBe(250);
-    // …and the plan draws each of them as a red cross (two strokes each).
-    const red = (await page.locator('path.points-unreached').getAttribute('d')) ?? '';
-    expect(red.match(/M/g)?.length).toBe(500);
+    // …and the plan paints each of them as a red cross on its canvas layer, P1 (reached) in ink.
+    const crosses = page.locator('[data-canvas-layer="layout-points"] canvas');
+    expect(await crosses.getAttribute('data-unreached')).toBe('250');
+    expect(await crosses.getAttribute('data-reached')).toBe('1');
+    // The far points lie outside the fitted view: zoom out (to the limit) until they show, then read
+    // the pixels at the crosses' centres.
+    await page.locator('svg[aria-label^="Layout "]').focus();
+    for (let i = 0; i < 8; i++) await page.keyboard.press('-');
+    const seen = await crosses.evaluate((canvas: HTMLCanvasElement) => {
+      const [tx, ty, k] = /translate\(([^,]+),([^)]+)\) scale\(([^)]+)\)/
+        .exec(document.querySelector('g.plan-viewport')!.getAttribute('transform')!)!
+        .slice(1)
+        .map(Number);
+      const ratio = canvas.width / canvas.clientWidth;
+      const ctx = canvas.getContext('2d')!;
+      const probe = document.createElement('span');
+      document.body.append(probe);
+      const rgb = (css: string) => {
+        probe.style.color = css;
+        return getComputedStyle(probe).color.match(/\d+/g)!.slice(0, 3).map(Number);
+      };
+      const want = { red: rgb('var(--color-finding-critical)'), ink: rgb('var(--color-ink)') };
+      probe.remove();
+      // The most opaque pixel around a plan point's screen position: [r, g, b, a], or null off the canvas.
+      const at = (x: number, y: number) => {
+        const sx = Math.round((tx + k * x) * ratio);
+        const sy = Math.round((ty - k * y) * ratio);
+        if (sx < 1 || sy < 1 || sx >= canvas.width - 1 || sy >= canvas.height - 1) return null;
+        const d = ctx.getImageData(sx - 1, sy - 1, 3, 3).data;
+        let best = 0;
+        for (let i = 4; i < d.length; i += 4) if (d[i + 3] > d[best + 3]) best = i;
+        return [...d.slice(best, best + 4)];
+      };
+      const is = (px: number[] | null, colour: number[]) => px !== null && px[3] >= 200 && colour.every((c, i) => Math.abs(px[i] - c) <= 40);
+      const far = Array.from({ length: 250 }, (_, i) => at(100_000 + i * 100, 50_000));
+      return {
+        redCentres: far.filter((px) => is(px, want.red)).length,
+        p1Ink: is(at(300, 0), want.ink),
+        // Halfway between the arms and the far points nothing is painted.
+        emptyAlpha: at(60_000, 25_000)?.[3] ?? -1,
+      };
+    });
+    expect(seen).toEqual({ redCentres: 250, p1Ink: true, emptyAlpha: 0 });
     await page.close();
   }, 120_000);
 });

@@ -19,6 +19,9 @@
  *   (`scale(1,-1)`), so everything below it is drawn in plan mm with y north:
  *   - `g.plan-static`     one group per layer (`data-layer`), one path per layer: drawn once.
  *   - plan overlays       `setOverlay(name, render)` groups, ordered by `order`.
+ * - canvas layers          `paintLayer(name, paint)`: a <canvas> the size of the svg (in a
+ *   `foreignObject`, pointer-events none), for marks too many for svg elements (work points):
+ *   an svg change (a dragged arm's reach) then no longer re-rasterises them.
  * - screen overlays        `setOverlay(name, render, {space: 'screen'})`, px, not transformed.
  * - `g.plan-scale-bar`     bottom left, metres, 1-2-5 steps.
  *
@@ -46,12 +49,13 @@ import {
   type ViewTransform,
 } from './viewTransform';
 
-import type { LayerStyle, LayerStyles, OverlayOptions, OverlayRender, PlanCanvas, PlanCanvasOptions, PlanFeature, PlanViewState } from './planTypes';
+import type { CanvasPaint, LayerStyle, LayerStyles, OverlayOptions, OverlayRender, PlanCanvas, PlanCanvasOptions, PlanFeature, PlanViewState } from './planTypes';
 
 export type { PlanBounds, PlanPoint, ViewTransform } from './viewTransform';
 export type * from './planTypes';
 
 const SVG_NS = 'http://www.w3.org/2000/svg';
+const HTML_NS = 'http://www.w3.org/1999/xhtml';
 const DEFAULT_STYLE: LayerStyle = { stroke: 'var(--color-ink)', strokeWidth: 1 };
 const KEY_ZOOM = 1.5;
 const KEY_PAN_PX = 60;
@@ -79,6 +83,7 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
   const created: Element[] = [];
   const overlays = new Map<string, { g: SVGGElement; order: number; space: 'plan' | 'screen' }>();
   const listeners = new Set<(v: PlanViewState) => void>();
+  const canvasLayers = new Map<string, { fo: SVGForeignObjectElement; canvas: HTMLCanvasElement }>();
 
   let width = svg.clientWidth || 0;
   let height = svg.clientHeight || 0;
@@ -297,6 +302,19 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
   window.addEventListener('scroll', forgetRect, { capture: true, passive: true });
   window.addEventListener('resize', forgetRect);
 
+  // A new device pixel ratio (browser zoom, another screen) is a view change: canvas layers repaint sharper.
+  let ratioQuery: MediaQueryList | null = null;
+  const onRatio = () => {
+    watchRatio();
+    applyView(current);
+  };
+  function watchRatio(): void {
+    ratioQuery?.removeEventListener('change', onRatio);
+    ratioQuery = typeof window.matchMedia === 'function' ? window.matchMedia(`(resolution: ${window.devicePixelRatio || 1}dppx)`) : null;
+    ratioQuery?.addEventListener('change', onRatio);
+  }
+  watchRatio();
+
   const resize = new ResizeObserver(() => {
     forgetRect();
     const w = svg.clientWidth;
@@ -408,9 +426,55 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
     return entry.g;
   }
 
+  function paintLayer(name: string, paint: CanvasPaint): HTMLCanvasElement {
+    if (!name) throw new RangeError('name: a canvas layer needs a name');
+    let entry = canvasLayers.get(name);
+    if (!entry) {
+      const fo = document.createElementNS(SVG_NS, 'foreignObject') as SVGForeignObjectElement;
+      fo.setAttribute('class', 'plan-canvas-layer');
+      fo.setAttribute('data-canvas-layer', name);
+      fo.setAttribute('x', '0');
+      fo.setAttribute('y', '0');
+      fo.setAttribute('pointer-events', 'none');
+      const canvas = document.createElementNS(HTML_NS, 'canvas') as HTMLCanvasElement;
+      canvas.style.display = 'block';
+      canvas.style.pointerEvents = 'none';
+      fo.appendChild(canvas);
+      svg.insertBefore(fo, screenG.node());
+      entry = { fo, canvas };
+      canvasLayers.set(name, entry);
+    }
+    const { fo, canvas } = entry;
+    const ratio = window.devicePixelRatio || 1;
+    const w = Math.max(0, width);
+    const h = Math.max(0, height);
+    if (fo.getAttribute('width') !== String(w) || fo.getAttribute('height') !== String(h)) {
+      fo.setAttribute('width', String(w));
+      fo.setAttribute('height', String(h));
+      canvas.style.width = `${w}px`;
+      canvas.style.height = `${h}px`;
+    }
+    const bw = Math.round(w * ratio);
+    const bh = Math.round(h * ratio);
+    if (canvas.width !== bw || canvas.height !== bh) {
+      canvas.width = bw;
+      canvas.height = bh;
+    }
+    const ctx = canvas.getContext('2d');
+    if (ctx) {
+      ctx.setTransform(1, 0, 0, 1, 0, 0);
+      ctx.clearRect(0, 0, bw, bh);
+      ctx.setTransform(bw / (w || 1), 0, 0, bh / (h || 1), 0, 0);
+      paint(ctx, viewState());
+    }
+    return canvas;
+  }
+
   function removeOverlay(name: string): void {
     overlays.get(name)?.g.remove();
     overlays.delete(name);
+    canvasLayers.get(name)?.fo.remove();
+    canvasLayers.delete(name);
   }
 
   applyView(current);
@@ -427,6 +491,7 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
       drawGrid();
     },
     setOverlay,
+    paintLayer,
     removeOverlay,
     onView(listener) {
       listeners.add(listener);
@@ -444,9 +509,12 @@ export function createPlanCanvas(svg: SVGSVGElement, options: PlanCanvasOptions 
       svg.removeEventListener('pointerdown', forgetRect, { capture: true });
       window.removeEventListener('scroll', forgetRect, { capture: true });
       window.removeEventListener('resize', forgetRect);
+      ratioQuery?.removeEventListener('change', onRatio);
       listeners.clear();
       for (const o of overlays.values()) o.g.remove();
       overlays.clear();
+      for (const c of canvasLayers.values()) c.fo.remove();
+      canvasLayers.clear();
       for (const el of created) el.remove();
       // d3-zoom keeps its state on the node; clear it so a new canvas on this svg starts fresh.
       delete (svg as SVGSVGElement & { __zoom?: unknown }).__zoom;

@@ -49,6 +49,12 @@ export interface PlanViewState {
 
 export type OverlayRender = (layer: Selection<SVGGElement, unknown, null, undefined>, view: PlanViewState) => void;
 
+/**
+ * Paints a canvas layer: `ctx` is cleared and scaled so one unit is one screen px (relative to the
+ * svg, as `view.toScreen` gives), whatever the device pixel ratio.
+ */
+export type CanvasPaint = (ctx: CanvasRenderingContext2D, view: PlanViewState) => void;
+
 export interface OverlayOptions {
   /** Stacking order among overlays of the same space; higher is on top. Default 0. */
   order?: number;
@@ -86,6 +92,14 @@ export interface PlanCanvas {
   setGrid(on: boolean): void;
   /** Creates (first call) and renders a named overlay group; the group persists between calls. */
   setOverlay(name: string, render: OverlayRender, opts?: OverlayOptions): SVGGElement;
+  /**
+   * Creates (first call) a named canvas layer — a bitmap the size of the svg at the device pixel
+   * ratio, above the plan-space overlays and below the screen overlays, pointer-events none — and
+   * paints it now. For marks too many for svg elements: the canvas does not repaint it by itself, so
+   * the caller paints again when what it shows or the view (`onView`: zoom, pan, resize, pixel
+   * ratio) changed. `removeOverlay(name)` removes it.
+   */
+  paintLayer(name: string, paint: CanvasPaint): HTMLCanvasElement;
   removeOverlay(name: string): void;
   /** Subscribes to view changes (zoom, pan, resize); returns the unsubscribe function. */
   onView(listener: (view: PlanViewState) => void): () => void;

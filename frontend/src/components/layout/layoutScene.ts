@@ -22,6 +22,7 @@ import {
   drawSharedZones,
   drawWorkPoints,
   drawBoundaryMarks,
+  POINTS_LAYER,
   type ArmRegionsDatum,
 } from './sceneDraw';
 import { drawArmMarks, drawDraft, drawSectionLine, drawVertexHandles } from './sceneMarks';
@@ -141,9 +142,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
   function renderZoomDependent(view: PlanViewState): void {
     if (!state) return;
     const s = state;
-    show(LAYOUT_OVERLAYS.points, (l) => {
-      drawWorkPoints(l, s.content, s.view?.analysis.coverage ?? null, view, s.selection?.kind === 'point' ? s.selection.id : null);
-    });
+    drawWorkPoints(canvas, s.content, s.view?.analysis.coverage ?? null, view, s.selection?.kind === 'point' ? s.selection.id : null);
   }
 
   // ---- screen-space marks ----
@@ -196,6 +195,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
       stopView();
       for (const [type, fn] of Object.entries(on)) svg.removeEventListener(type, fn as EventListener);
       for (const o of Object.values(LAYOUT_OVERLAYS)) canvas.removeOverlay(o.name);
+      canvas.removeOverlay(POINTS_LAYER);
       select(svg).style('cursor', null);
     },
   };

@@ -9,7 +9,7 @@ import type { AreaGeometry } from '@shared/geometry';
 import type { ArmPlacement, LayoutContent, Boundary } from '@shared/schemas/layout';
 import { BOUNDARY_STYLES, type MarkKind, type ScreenLook } from '@shared/style/boundaryStyles';
 import { geometryPath, setPathGeometry } from '../../plan/pathData';
-import type { PlanViewState } from '../../plan/planTypes';
+import type { PlanCanvas, PlanViewState } from '../../plan/planTypes';
 import type { AnalysisView } from '../../workers/analysisProtocol';
 
 type G = Selection<SVGGElement, unknown, null, undefined>;
@@ -187,49 +187,89 @@ export function drawLineBoundaries(layer: G, boundaries: readonly Boundary[], se
     .style('cursor', 'pointer');
 }
 
-/** What each work-point layer was last drawn from. */
-const drawnPoints = new WeakMap<Element, { points: LayoutContent['workPoints']; s: number; selected: string | null; reached: Uint8Array }>();
+/** Name of the canvas layer the work points are painted on. */
+export const POINTS_LAYER = 'layout-points';
+/** Half the size of a work point's cross, screen px. */
+const CROSS_PX = 5;
 
-/** Work points as small crosses (plan space, ~5 px arms); red where no arm reaches them. */
-export function drawWorkPoints(layer: G, content: LayoutContent, coverage: Record<string, Record<string, number>> | null, view: PlanViewState, selectedPoint: string | null): void {
-  const s = 5 / (view.transform.k || 1);
-  // Tens of thousands of crosses: drawn again only when the points, the zoom, the selection or
-  // which points are reached changed (a drag result usually changes none of them).
+/** What each canvas's work points were last painted from. */
+const drawnPoints = new WeakMap<
+  PlanCanvas,
+  { points: LayoutContent['workPoints']; k: number; x: number; y: number; width: number; height: number; ratio: number; selected: string | null; reached: Uint8Array }
+>();
+
+/** A CSS colour (a theme token too) as the canvas reads it: the element's computed `color`. */
+function resolvedColour(el: HTMLElement, css: string): string {
+  el.style.color = css;
+  return getComputedStyle(el).color;
+}
+
+/**
+ * Work points as small crosses (~5 px arms) on the plan's canvas layer; red where no arm reaches
+ * them. A bitmap, not svg paths, so a frame that changes the svg (a dragged arm's reach) does not
+ * paint tens of thousands of crosses again. The canvas carries what it shows: `data-reached`,
+ * `data-unreached` and `data-selected` count the work points of each kind (in view or not).
+ */
+export function drawWorkPoints(canvas: PlanCanvas, content: LayoutContent, coverage: Record<string, Record<string, number>> | null, view: PlanViewState, selectedPoint: string | null): void {
+  const { k, x, y } = view.transform;
+  const ratio = window.devicePixelRatio || 1;
+  // Painted again only when the points, the view, the selection or which points are reached
+  // changed (a drag result usually changes none of them).
   const reachedNow = new Uint8Array(content.workPoints.length);
   content.workPoints.forEach((p, i) => {
     const row = coverage?.[p.id];
     reachedNow[i] = !row || content.arms.length === 0 || Object.values(row).some(isReached) ? 1 : 0;
   });
-  const node = layer.node();
-  const last = node ? drawnPoints.get(node) : undefined;
-  if (last && last.points === content.workPoints && last.s === s && last.selected === selectedPoint && last.reached.length === reachedNow.length && last.reached.every((v, i) => v === reachedNow[i])) return;
-  if (node) drawnPoints.set(node, { points: content.workPoints, s, selected: selectedPoint, reached: reachedNow });
-  let ok = '';
-  let bad = '';
-  let sel = '';
-  for (let i = 0; i < content.workPoints.length; i++) {
-    const p = content.workPoints[i];
-    const reached = reachedNow[i] === 1;
-    const d = `M${p.x - s},${p.y - s}L${p.x + s},${p.y + s}M${p.x - s},${p.y + s}L${p.x + s},${p.y - s}`;
-    if (p.id === selectedPoint) sel += d;
-    else if (reached) ok += d;
-    else bad += d;
-  }
-  layer
-    .selectAll<SVGPathElement, { cls: string; d: string; colour: string; w: number }>('path')
-    .data([
-      { cls: 'points-reached', d: ok, colour: BOUNDARY_STYLES.pointReached.screen.colour, w: BOUNDARY_STYLES.pointReached.screen.width },
-      { cls: 'points-unreached', d: bad, colour: BOUNDARY_STYLES.pointUnreached.screen.colour, w: BOUNDARY_STYLES.pointUnreached.screen.width },
-      { cls: 'points-selected', d: sel, colour: SCENE_COLOURS.selected, w: 2.5 },
-    ])
-    .join('path')
-    .attr('class', (d) => d.cls)
-    .attr('d', (d) => d.d)
-    .attr('fill', 'none')
-    .attr('vector-effect', 'non-scaling-stroke')
-    .attr('pointer-events', 'none')
-    .style('stroke', (d) => d.colour)
-    .style('stroke-width', (d) => d.w);
+  const last = drawnPoints.get(canvas);
+  if (
+    last &&
+    last.points === content.workPoints &&
+    last.k === k &&
+    last.x === x &&
+    last.y === y &&
+    last.width === view.width &&
+    last.height === view.height &&
+    last.ratio === ratio &&
+    last.selected === selectedPoint &&
+    last.reached.length === reachedNow.length &&
+    last.reached.every((v, i) => v === reachedNow[i])
+  )
+    return;
+  drawnPoints.set(canvas, { points: content.workPoints, k, x, y, width: view.width, height: view.height, ratio, selected: selectedPoint, reached: reachedNow });
+  const counts = { reached: 0, unreached: 0, selected: 0 };
+  const el = canvas.paintLayer(POINTS_LAYER, (ctx, v) => {
+    const s = CROSS_PX;
+    // Crosses wholly off the canvas are left out (the widest stroke is 2.5 px).
+    const pad = s + 2;
+    const kinds = [
+      { key: 'reached', path: new Path2D(), colour: BOUNDARY_STYLES.pointReached.screen.colour, w: BOUNDARY_STYLES.pointReached.screen.width },
+      { key: 'unreached', path: new Path2D(), colour: BOUNDARY_STYLES.pointUnreached.screen.colour, w: BOUNDARY_STYLES.pointUnreached.screen.width },
+      { key: 'selected', path: new Path2D(), colour: SCENE_COLOURS.selected, w: 2.5 },
+    ] as const;
+    for (let i = 0; i < content.workPoints.length; i++) {
+      const p = content.workPoints[i];
+      const kind = p.id === selectedPoint ? 2 : reachedNow[i] === 1 ? 0 : 1;
+      counts[kinds[kind].key]++;
+      // Plan mm to screen px: the view's zoom and pan, y north up.
+      const sx = x + k * p.x;
+      const sy = y - k * p.y;
+      if (sx < -pad || sy < -pad || sx > v.width + pad || sy > v.height + pad) continue;
+      const path = kinds[kind].path;
+      path.moveTo(sx - s, sy - s);
+      path.lineTo(sx + s, sy + s);
+      path.moveTo(sx - s, sy + s);
+      path.lineTo(sx + s, sy - s);
+    }
+    const host = ctx.canvas as HTMLCanvasElement;
+    for (const kind of kinds) {
+      ctx.strokeStyle = resolvedColour(host, kind.colour);
+      ctx.lineWidth = kind.w;
+      ctx.stroke(kind.path);
+    }
+  });
+  el.dataset.reached = String(counts.reached);
+  el.dataset.unreached = String(counts.unreached);
+  el.dataset.selected = String(counts.selected);
 }
 
 /** The selected finding's own geometry, outlined (plan space). */
