@@ -47,8 +47,10 @@ export const layoutFirstViewQuery = (id: number) =>
   queryOptions({
     queryKey: layoutKeys.firstView(id),
     queryFn: ({ signal }) => api<LayoutFirstViewDto>(`/layouts/${id}/analysis?maxChecks=${FIRST_VIEW_MAX_CHECKS}`, { signal }),
-    staleTime: Infinity,
-    gcTime: 0,
+    // Kept long enough for the page to pick up the answer its route's loader asked for, not so
+    // long that a later opening shows an old version's (the editor checks the version too).
+    staleTime: 10_000,
+    gcTime: 10_000,
     retry: false,
   });
 
