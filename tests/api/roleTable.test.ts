@@ -113,6 +113,8 @@ const ROWS: Row[] = [
     expect: { anon: 401, client: 403, reviewer: 403, planner: 200, admin: 200 },
   },
   // The role-table layout has no arms: planners and admins get the 400 sentence, the others no access.
+  { method: 'get', path: (c) => `/api/layouts/${c.layoutId}/analysis`, expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
+  { method: 'post', path: (c) => `/api/layouts/${c.layoutId}/analysis`, body: () => ({}), expect: { anon: 401, client: 403, reviewer: 200, planner: 200, admin: 200 } },
   { method: 'post', path: (c) => `/api/layouts/${c.layoutId}/fence-proposal`, body: () => ({}), expect: { anon: 401, client: 403, reviewer: 403, planner: 400, admin: 400 } },
   // Revisions: the submitted one belongs to a layout of the client's project; clients never see it.
   { method: 'get', path: (c) => `/api/projects/${c.projectId}/revisions`, expect: { anon: 401, client: 200, reviewer: 200, planner: 200, admin: 200 } },
