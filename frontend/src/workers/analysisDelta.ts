@@ -153,7 +153,10 @@ export function createDeltaEncoder() {
 /**
  * The page side: `decode(delta)` applies every delta in the order sent (also those too old to show)
  * and returns the whole view. Each part that changed is a new object, each that did not keeps its
- * identity, so memoised drawing redoes only what changed.
+ * identity, so memoised drawing redoes only what changed — but for the coverage object itself:
+ * its changed rows are new objects put into the one object (copying tens of thousands of rows per
+ * drag result held the page up), so readers key their memos on the analysis or the rows, never on
+ * the coverage object's identity.
  */
 export function createDeltaDecoder() {
   const findings = new Map<string, Finding>();
@@ -210,7 +213,11 @@ export function createDeltaDecoder() {
         }
         lastList = list;
       }
-      coverage = patch(coverage, d.coverage, d.coverageRemoved, d.reset);
+      if (d.reset) coverage = { ...d.coverage };
+      else {
+        for (const pid in d.coverage) coverage[pid] = d.coverage[pid];
+        for (const pid of d.coverageRemoved) delete coverage[pid];
+      }
       regions = patch(regions, d.regions, d.regionsRemoved, d.reset);
       maxSpaces = patch(maxSpaces, d.maxSpaces, d.maxSpacesRemoved, d.reset);
       const analysis: AnalysisResult = { findings: list, sharedZones: d.sharedZones, coverage, regions, timingMs: d.timingMs };
