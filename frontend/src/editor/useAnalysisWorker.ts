@@ -2,7 +2,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type { FeatureCollection } from 'geojson';
 import type { FloorLayer } from '@shared/analysis';
 import type { LayoutContent } from '@shared/schemas/layout';
-import type { AnalysisView, DragPose, FromWorker, ToWorker, WorkerArmModel } from '../workers/analysisProtocol';
+import { placedOf, type AnalysisView, type DragPose, type FromWorker, type ToWorker, type WorkerArmModel } from '../workers/analysisProtocol';
 import { createDeltaDecoder } from '../workers/analysisDelta';
 
 /** The server's analysis of the content the editor opened with (GET /layouts/:id/analysis). */
@@ -21,8 +21,6 @@ export interface LiveAnalysis {
   /** Tells the worker the pose of an arm being dragged; posted at most once per animation frame. */
   postDrag(pose: DragPose | null): void;
 }
-
-const placedOf = (content: LayoutContent): AnalysisView['placed'] => Object.fromEntries(content.arms.map((a) => [a.id, [a.x, a.y, a.yaw] as [number, number, number]]));
 
 /**
  * Runs the layout analysis in a Web Worker: the models and the floor are posted when they change

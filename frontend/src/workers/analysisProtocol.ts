@@ -42,6 +42,11 @@ export interface AnalysisView {
   section?: SectionResult | null;
 }
 
+/** Each arm's pose as the drawing takes it from a view: id → [x, y mm; yaw deg]. */
+export function placedOf(content: Pick<LayoutContent, 'arms'>): AnalysisView['placed'] {
+  return Object.fromEntries(content.arms.map((a) => [a.id, [a.x, a.y, a.yaw] as [number, number, number]]));
+}
+
 /**
  * A result crosses as a delta against the previous one sent (analysisDelta.ts); the page decodes
  * every delta in order, also those too old to show.

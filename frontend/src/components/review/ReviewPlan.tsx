@@ -4,7 +4,7 @@ import { padBounds, pointsBounds } from '@shared/geometry';
 import type { ReviewCommentDto, RevisionSnapshotDto } from '../../api/revisions';
 import { PlanView } from '../../plan/PlanView';
 import type { PlanCanvas, PlanViewState } from '../../plan/planTypes';
-import type { AnalysisView } from '../../workers/analysisProtocol';
+import { placedOf, type AnalysisView } from '../../workers/analysisProtocol';
 import { layerStylesFor } from '../floorPlan/layerRoles';
 import { createLayoutScene, type LayoutScene } from '../layout/layoutScene';
 
@@ -36,7 +36,7 @@ export function ReviewPlan({ snapshot, selectedFinding, pins, draftPin, onPick }
     return b ? padBounds(b, 3000) : { minX: -5000, minY: -5000, maxX: 5000, maxY: 5000 };
   }, [fp, content]);
   const view = useMemo<AnalysisView>(
-    () => ({ analysis: snapshot.analysis, maxSpaces: {}, placed: Object.fromEntries(content.arms.map((a) => [a.id, [a.x, a.y, a.yaw] as [number, number, number]])) }),
+    () => ({ analysis: snapshot.analysis, maxSpaces: {}, placed: placedOf(content) }),
     [snapshot, content],
   );
 
