@@ -500,49 +500,88 @@ function scaraEnvelope(model: ScaraParams): EnvelopeProfile {
 /** Lattice poses at most; the allowance δ follows from it. */
 const CHAIN_LATTICE_POSES = 16_000;
 
-/** Squared Euclidean distance transform (cells²) of a binary raster (Felzenszwalb–Huttenlocher, rows then columns). */
+/**
+ * Squared Euclidean distance transform (cells²) of a binary raster: for every cell, the squared
+ * distance to the nearest marked cell (1e20 when none is marked). Rows first, by two scans for the
+ * nearest marked cell of the row; then columns, by the lower envelope of parabolas
+ * (Felzenszwalb–Huttenlocher) over the cells whose row distance is finite.
+ */
 export function squaredDistanceTransform(mask: Uint8Array, w: number, h: number): Float64Array {
-  const INF = 1e20;
   const out = new Float64Array(w * h);
-  for (let c = 0; c < w * h; c++) out[c] = mask[c] ? 0 : INF;
-  const n = Math.max(w, h);
-  const f = new Float64Array(n), d = new Float64Array(n), zz = new Float64Array(n + 1);
-  const v = new Int32Array(n);
-  /** One 1-D pass over len values starting at `start`, `stride` apart (lower envelope of parabolas). */
-  const pass = (start: number, stride: number, len: number) => {
-    let any = false;
-    for (let i = 0, c = start; i < len; i++, c += stride) {
-      f[i] = out[c];
-      if (f[i] < INF) any = true;
+  distanceTransform(mask, w, h, out, null, 0);
+  return out;
+}
+
+/** Marks in `into` every cell within `limit` cells (Euclidean) of a marked cell of `mask` (the transform above, thresholded as it is written). */
+export function markWithinDistance(mask: Uint8Array, w: number, h: number, limit: number, into: Uint8Array): void {
+  distanceTransform(mask, w, h, new Float64Array(w * h), into, limit * limit);
+}
+
+/** The transform into `out`; with `into`, the column pass marks the cells whose squared distance is ≤ lim2 instead of writing them to `out`. */
+function distanceTransform(mask: Uint8Array, w: number, h: number, out: Float64Array, into: Uint8Array | null, lim2: number): void {
+  const INF = 1e20;
+  // rows with no marked cell are left out of the column pass (their distances are all INF)
+  const marked = new Uint8Array(h);
+  for (let j = 0; j < h; j++) {
+    const row = j * w;
+    if (mask.subarray(row, row + w).indexOf(1) < 0) continue;
+    marked[j] = 1;
+    let last = -1;
+    for (let i = 0; i < w; i++) {
+      if (mask[row + i]) last = i;
+      out[row + i] = last < 0 ? INF : i - last;
     }
-    if (!any) return;
-    let k = 0;
-    v[0] = 0;
-    zz[0] = -INF;
-    zz[1] = INF;
-    for (let q = 1; q < len; q++) {
-      const fq = f[q] + q * q;
-      let s = (fq - (f[v[k]] + v[k] * v[k])) / (2 * q - 2 * v[k]);
+    last = -1;
+    for (let i = w - 1; i >= 0; i--) {
+      if (mask[row + i]) last = i;
+      let d = out[row + i];
+      if (last >= 0 && last - i < d) d = last - i;
+      out[row + i] = d * d;
+    }
+  }
+  const f = new Float64Array(h), zz = new Float64Array(h + 1);
+  const v = new Int32Array(h);
+  for (let i = 0; i < w; i++) {
+    // lower envelope of the parabolas (q − y)² + f[q] of the finite cells q of column i
+    let k = -1;
+    for (let q = 0, c = i; q < h; q++, c += w) {
+      if (!marked[q]) continue;
+      const fq = out[c];
+      f[q] = fq;
+      if (fq >= INF) continue;
+      if (k < 0) {
+        k = 0;
+        v[0] = q;
+        zz[0] = -INF;
+        zz[1] = INF;
+        continue;
+      }
+      const gq = fq + q * q;
+      let s = (gq - (f[v[k]] + v[k] * v[k])) / (2 * q - 2 * v[k]);
       while (s <= zz[k]) {
         k--;
-        s = (fq - (f[v[k]] + v[k] * v[k])) / (2 * q - 2 * v[k]);
+        s = (gq - (f[v[k]] + v[k] * v[k])) / (2 * q - 2 * v[k]);
       }
       k++;
       v[k] = q;
       zz[k] = s;
       zz[k + 1] = INF;
     }
+    if (k < 0) {
+      // no marked cell in the whole raster
+      if (!into) for (let q = 0, c = i; q < h; q++, c += w) out[c] = INF;
+      continue;
+    }
     k = 0;
-    for (let q = 0; q < len; q++) {
+    for (let q = 0, c = i; q < h; q++, c += w) {
       while (zz[k + 1] < q) k++;
       const dq = q - v[k];
-      d[q] = dq * dq + f[v[k]];
+      const d = dq * dq + f[v[k]];
+      if (into) {
+        if (d <= lim2) into[c] = 1;
+      } else out[c] = d;
     }
-    for (let i = 0, c = start; i < len; i++, c += stride) out[c] = d[i];
-  };
-  for (let j = 0; j < h; j++) pass(j * w, 1, w);
-  for (let i = 0; i < w; i++) pass(i, w, h);
-  return out;
+  }
 }
 
 function chainEnvelope(p: ChainParams): EnvelopeProfile {
@@ -684,6 +723,12 @@ function chainEnvelope(p: ChainParams): EnvelopeProfile {
   };
   const linkMirror = rLink + delta + spacing / 2 + cell;
   const tailMirror = rTail + delta + cell;
+  // link k (origin k to origin k + 1) moves only with joints 1 … k + 1: it is the same in every pose
+  // whose later free joints sit at their first node, i.e. in the first linkPoses[k] poses (the first
+  // free joint's index runs fastest), so it is stamped in those alone
+  const linkPoses = Array.from({ length: Math.max(0, w - 1) }, (_, k) =>
+    free.reduce((acc, jf, f) => (jf <= k + 1 ? acc * nodes[f] : acc), 1),
+  );
   for (let m = 0; m < poses; m++) {
     const o = 3 * w * m;
     for (let k = 0; k < w; k++) {
@@ -694,6 +739,7 @@ function chainEnvelope(p: ChainParams): EnvelopeProfile {
       if (y + rad > yHi) yHi = y + rad;
     }
     for (let k = 0; k + 1 < w; k++) {
+      if (m >= linkPoses[k]) continue;
       const ax = all[o + 3 * k], ay = all[o + 3 * k + 1], az = all[o + 3 * k + 2];
       const dx = all[o + 3 * k + 3] - ax, dy = all[o + 3 * k + 4] - ay, dz = all[o + 3 * k + 5] - az;
       const steps = Math.max(1, Math.ceil(Math.sqrt(dx * dx + dy * dy + dz * dz) / spacing));
@@ -712,10 +758,7 @@ function chainEnvelope(p: ChainParams): EnvelopeProfile {
     [tailMask, rTail],
   ] as Array<[Uint8Array, number]>) {
     if (radius < 0) continue;
-    const dt = squaredDistanceTransform(mask, W, H);
-    const lim = (radius + delta + (radius === rTail ? 0 : spacing / 2) + Math.SQRT2 * cell) / cell;
-    const lim2 = lim * lim;
-    for (let c = 0; c < W * H; c++) if (dt[c] <= lim2) grown[c] = 1;
+    markWithinDistance(mask, W, H, (radius + delta + (radius === rTail ? 0 : spacing / 2) + Math.SQRT2 * cell) / cell, grown);
   }
   // one more cell, so the traced iso-line passes outside every marked cell
   const dil = new Uint8Array(W * H);

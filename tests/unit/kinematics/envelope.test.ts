@@ -8,7 +8,7 @@ import { polygonsArea } from '@shared/geometry/area';
 import { buildDistanceGrid } from '@shared/geometry/distanceGrid';
 import { pointInPolygons } from '@shared/geometry/pointInPolygon';
 import { axisKinematicDeg } from '@shared/kinematics/articulated';
-import { bodyCapsules, envelopeProfileOf, scaraLinkSweeps, type Capsule } from '@shared/kinematics/envelope';
+import { bodyCapsules, envelopeProfileOf, markWithinDistance, scaraLinkSweeps, squaredDistanceTransform, type Capsule } from '@shared/kinematics/envelope';
 import { forwardModel, parseArmParams, reachProfileOf } from '@shared/kinematics/families';
 import { bandPolygons, restrictedBelowPolygons, restrictedSpacePolygons } from '@shared/kinematics/planRegions';
 import { armReach } from '@shared/kinematics/pointReach';
@@ -193,5 +193,52 @@ describe('scara link sweeps against closed forms', () => {
     const got = polygonsArea(restrictedSpacePolygons(m));
     expect(got).toBeGreaterThanOrEqual(Math.PI * (l1 + l2 + rho) ** 2 * (1 - 1e-6));
     expect(got).toBeLessThanOrEqual(Math.PI * (l1 + l2 + rho + 2) ** 2);
+  });
+});
+
+describe('distance transform of a raster', () => {
+  /** Squared distance to the nearest marked cell by its definition (every pair), 1e20 when none is marked. */
+  function bruteForce(mask: Uint8Array, w: number, h: number): Float64Array {
+    const out = new Float64Array(w * h).fill(1e20);
+    for (let c = 0; c < w * h; c++) {
+      for (let m = 0; m < w * h; m++) {
+        if (!mask[m]) continue;
+        const dx = (c % w) - (m % w), dy = Math.floor(c / w) - Math.floor(m / w);
+        out[c] = Math.min(out[c], dx * dx + dy * dy);
+      }
+    }
+    return out;
+  }
+  const rasters = fc.record({ w: fc.integer({ min: 1, max: 17 }), h: fc.integer({ min: 1, max: 13 }), density: fc.double({ min: 0, max: 0.3, noNaN: true }), seed: fc.integer() });
+
+  it('equals the squared distance to the nearest marked cell by definition, empty rows, columns and rasters included (property)', () => {
+    fc.assert(
+      fc.property(rasters, ({ w, h, density, seed }) => {
+        let x = seed | 0;
+        const mask = Uint8Array.from({ length: w * h }, () => {
+          x = (Math.imul(x, 1103515245) + 12345) | 0;
+          return ((x >>> 8) & 0xffff) / 0x10000 < density ? 1 : 0;
+        });
+        expect(Array.from(squaredDistanceTransform(mask, w, h))).toEqual(Array.from(bruteForce(mask, w, h)));
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it('marks exactly the cells within the limit of a marked cell (property)', () => {
+    fc.assert(
+      fc.property(rasters, fc.double({ min: 0, max: 9, noNaN: true }), ({ w, h, density, seed }, limit) => {
+        let x = seed | 0;
+        const mask = Uint8Array.from({ length: w * h }, () => {
+          x = (Math.imul(x, 1103515245) + 12345) | 0;
+          return ((x >>> 8) & 0xffff) / 0x10000 < density ? 1 : 0;
+        });
+        const into = new Uint8Array(w * h);
+        markWithinDistance(mask, w, h, limit, into);
+        const d2 = bruteForce(mask, w, h);
+        expect(Array.from(into)).toEqual(Array.from(d2, (d) => (d <= limit * limit ? 1 : 0)));
+      }),
+      { numRuns: 300 },
+    );
   });
 });
