@@ -119,6 +119,11 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
   let grid: PointGrid | null = null;
   let coverage: Record<string, Record<string, number>> = {};
   let pointFindings: Array<Finding[] | null> = [];
+  // What each point's findings were made from (nearest arm, its margin, the assigned arm's margin or
+  // Infinity when it has none): a row that changes but not in these keeps its finding objects.
+  let madeFromBest: Array<string | null> = [];
+  let madeFromBestM = new Float64Array(0);
+  let madeFromAssignedM = new Float64Array(0);
   let placedKey = '';
   let stats = { arms: 0, pairs: 0, columns: 0 };
   let coverageChanges: Int32Array | null = null;
@@ -168,18 +173,29 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     return { armId: p.arm.id, near, margins };
   }
 
-  function pointChecks(pt: WorkPoint, row: Record<string, number>, placedIds: Set<string>): Finding[] | null {
+  /**
+   * The findings of point i from its coverage row. With `reuse`, the previous findings are returned
+   * as they are when what they are made of is unchanged (only while the placed arms and the points
+   * stay the same).
+   */
+  function pointChecks(i: number, pt: WorkPoint, row: Record<string, number>, placedIds: Set<string>, reuse: boolean): Finding[] | null {
     let best: string | null = null;
     let bestM = -Infinity;
     let reached = false;
     for (const id in row) {
       const m = row[id];
       if (isReached(m)) reached = true;
-      if (m > bestM) {
+      // equal margins go to the smaller arm id, so the order of the row's entries never matters
+      if (m > bestM || (m === bestM && best !== null && id < best)) {
         bestM = m;
         best = id;
       }
     }
+    const assignedM = pt.assignedArm ? row[pt.assignedArm] ?? Infinity : Infinity;
+    if (reuse && madeFromBest[i] === best && madeFromBestM[i] === bestM && madeFromAssignedM[i] === assignedM) return pointFindings[i];
+    madeFromBest[i] = best;
+    madeFromBestM[i] = bestM;
+    madeFromAssignedM[i] = assignedM;
     let out: Finding[] | null = null;
     if (!reached && placedIds.size > 0) {
       out = [makeFinding('unreached-point', [pt.id], {
@@ -302,40 +318,57 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
         columns.clear();
         pairs.clear();
         pointFindings = new Array(points.length).fill(null);
+        madeFromBest = new Array(points.length).fill(null);
+        madeFromBestM = new Float64Array(points.length);
+        madeFromAssignedM = new Float64Array(points.length);
         dirty = new Uint8Array(points.length).fill(1);
       } else {
         dirty = new Uint8Array(points.length);
-      }
-      for (const [sig, col] of columns) {
-        if (live.has(sig)) continue;
-        for (let k = 0; k < col.near.length; k++) {
-          delete coverage[points[col.near[k]].id][col.armId];
-          dirty[col.near[k]] = 1;
-        }
-        columns.delete(sig);
       }
       // Adding or removing an arm changes which points are unreached or wrongly assigned anywhere.
       const nextPlacedKey = [...placedIds].sort().join(',');
       const idsChanged = nextPlacedKey !== placedKey;
       placedKey = nextPlacedKey;
+      // New columns are written first; then the entries of columns no longer placed are removed,
+      // except where the same arm's new column wrote them again (a moved arm keeps most of its
+      // points, and overwriting a property costs far less than deleting and adding it).
+      const freshByArm = new Map<string, Column>();
       for (const p of placed) {
         if (columns.has(p.sig)) continue;
         const col = column(p, points);
         columns.set(p.sig, col);
+        freshByArm.set(col.armId, col);
         for (let k = 0; k < col.near.length; k++) {
           coverage[points[col.near[k]].id][col.armId] = roundMargin(col.margins[k]);
           dirty[col.near[k]] = 1;
         }
       }
+      for (const [sig, col] of columns) {
+        if (live.has(sig)) continue;
+        const again = freshByArm.get(col.armId)?.near;
+        // both lists of point indices are ascending: walk them together
+        for (let k = 0, j = 0; k < col.near.length; k++) {
+          const i = col.near[k];
+          if (again) {
+            while (j < again.length && again[j] < i) j++;
+            if (j < again.length && again[j] === i) continue;
+          }
+          delete coverage[points[i].id][col.armId];
+          dirty[i] = 1;
+        }
+        columns.delete(sig);
+      }
       let changedRows = 0;
       for (let i = 0; i < points.length; i++) {
-        if (dirty[i]) changedRows++;
-        if (dirty[i] || idsChanged) pointFindings[i] = pointChecks(points[i], coverage[points[i].id], placedIds);
+        if (dirty[i]) {
+          changedRows++;
+          pointFindings[i] = pointChecks(i, points[i], coverage[points[i].id], placedIds, !idsChanged && !rowsAnew);
+        } else if (idsChanged) pointFindings[i] = pointChecks(i, points[i], coverage[points[i].id], placedIds, false);
       }
       let changes: Int32Array | null = null;
       if (!rowsAnew) {
         changes = new Int32Array(changedRows);
-        for (let i = 0, k = 0; i < points.length; i++) if (dirty[i]) changes[k++] = i;
+        for (let i = 0, k = 0; k < changedRows; i++) if (dirty[i]) changes[k++] = i;
       }
 
       // Shared zones (pairs cached by both arms' signatures, the heights and the points).
@@ -345,7 +378,8 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
         for (let j = i + 1; j < placed.length; j++) {
           const A = placed[i];
           const B = placed[j];
-          if (Math.hypot(A.arm.x - B.arm.x, A.arm.y - B.arm.y) > A.reach.maxReach + B.reach.maxReach || !bboxOverlap(A.bbox, B.bbox)) continue;
+          const dx = A.arm.x - B.arm.x, dy = A.arm.y - B.arm.y, apart = A.reach.maxReach + B.reach.maxReach;
+          if (dx * dx + dy * dy > apart * apart || !bboxOverlap(A.bbox, B.bbox)) continue;
           const [first, second] = A.arm.id < B.arm.id ? [A, B] : [B, A];
           const key = `${first.sig}&${second.sig}&${heights.join(',')}`;
           livePairs.add(key);
@@ -383,7 +417,11 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
       const findings: Finding[] = [];
       let k = 0;
       while (k < small.length && small[k].severity === 'critical') findings.push(small[k++]);
-      for (const pf of pointFindings) if (pf) for (const f of pf) findings.push(f);
+      for (let i = 0; i < pointFindings.length; i++) {
+        const pf = pointFindings[i];
+        if (pf === null) continue;
+        for (let j = 0; j < pf.length; j++) findings.push(pf[j]);
+      }
       while (k < small.length) findings.push(small[k++]);
 
       const regions: AnalysisResult['regions'] = {};

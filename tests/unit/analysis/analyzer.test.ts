@@ -1,5 +1,6 @@
 // Analyzer logic against disk-shaped reach regions (an arm that reaches every point within R of its
 // base at every height): the checks' geometry, ids and incremental caching, independent of any family.
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { createAnalyzer, prepareFloor, type AnalysisInput, type ArmReachFactory } from '@shared/analysis';
 import { diskReach } from '../../support/diskReach';
@@ -135,5 +136,49 @@ describe('analysis engine', () => {
     };
     const r = createAnalyzer(failing).analyze({ ...base(), arms: [arm('R1', 0, 0, 13), arm('R2', 0, 0)] });
     expect(r.findings.map((f) => f.id)).toContain('unknown-model:R1');
+  });
+
+  it('after any sequence of edits, an analyzer that has seen every step gives what a new one gives (property)', () => {
+    // Edits: move, add or remove an arm, change its reach, assign a point, or replace the points.
+    const edit = fc.oneof(
+      fc.record({ op: fc.constant('move' as const), k: fc.nat(), dx: fc.integer({ min: -900, max: 900 }), dy: fc.integer({ min: -900, max: 900 }) }),
+      fc.record({ op: fc.constant('add' as const), x: fc.integer({ min: 0, max: 6000 }), y: fc.integer({ min: 0, max: 3000 }), R: fc.integer({ min: 300, max: 1800 }) }),
+      fc.record({ op: fc.constant('remove' as const), k: fc.nat() }),
+      fc.record({ op: fc.constant('reach' as const), k: fc.nat(), R: fc.integer({ min: 300, max: 1800 }) }),
+      fc.record({ op: fc.constant('assign' as const), k: fc.nat(), p: fc.nat() }),
+      fc.record({ op: fc.constant('points' as const), seed: fc.nat() }),
+    );
+    const pointsOf = (seed: number) =>
+      Array.from({ length: 120 }, (_, i) => ({ id: `P${i}`, x: ((i * 7919 + seed * 31) % 6000) + 0.5, y: ((i * 104729 + seed * 17) % 3000) + 0.5, z: 900, approach: 'top' as const, tag: '' }));
+    const comparable = (r: ReturnType<ReturnType<typeof createAnalyzer>['analyze']>) => ({ findings: r.findings, sharedZones: r.sharedZones, coverage: r.coverage });
+    fc.assert(
+      fc.property(fc.array(edit, { minLength: 1, maxLength: 12 }), (edits) => {
+        const a = createAnalyzer(diskReach);
+        let input: AnalysisInput = { ...base(), workPoints: pointsOf(0), arms: [arm('R1', 1000, 1000), arm('R2', 2500, 1200), arm('R3', 4200, 900, 1500)] };
+        let next = 4;
+        a.analyze(input);
+        for (const e of edits) {
+          const arms = input.arms.slice();
+          if (e.op === 'move' && arms.length) {
+            const k = e.k % arms.length;
+            arms[k] = { ...arms[k], x: arms[k].x + e.dx, y: arms[k].y + e.dy };
+          } else if (e.op === 'add') arms.push(arm(`R${next++}`, e.x, e.y, e.R));
+          else if (e.op === 'remove' && arms.length) arms.splice(e.k % arms.length, 1);
+          else if (e.op === 'reach' && arms.length) {
+            const k = e.k % arms.length;
+            arms[k] = { ...arms[k], armModelId: e.R };
+          }
+          let workPoints = input.workPoints;
+          if (e.op === 'assign' && arms.length) {
+            workPoints = workPoints.slice();
+            const p = e.p % workPoints.length;
+            workPoints[p] = { ...workPoints[p], assignedArm: arms[e.k % arms.length].id };
+          } else if (e.op === 'points') workPoints = pointsOf(e.seed);
+          input = { ...input, arms, workPoints };
+          expect(comparable(a.analyze(input))).toEqual(comparable(createAnalyzer(diskReach).analyze(input)));
+        }
+      }),
+      { numRuns: 60 },
+    );
   });
 });
