@@ -1,6 +1,7 @@
 import { polygonsArea } from '../geometry/area';
 import { polygonsBounds } from '../geometry/bounds';
 import { clipIntersectShapes, clipShape, type ClipShape } from '../geometry/clipper';
+import { intersectionArea } from '../geometry/intersectionArea';
 import { armPose, type ArmPose } from '../geometry/frames';
 import { polygonsToGeoJSON, type AreaGeometry } from '../geometry/geojson';
 import { type Polygon2 } from '../geometry/types';
@@ -230,11 +231,15 @@ export function createAnalyzer(reachFor: ArmReachFactory): Analyzer {
     if (area < MIN_AREA_MM2) return { sharedZone: null, findings: [] };
     const byHeight = heights.map((h) => {
       if (!bboxOverlap(first.bandBoxes.get(h) ?? null, second.bandBoxes.get(h) ?? null)) return { height: h, areaM2: 0 };
-      let a: number;
-      try {
-        a = polygonsArea(clipIntersectShapes(first.shapes.bands.get(h)!, second.shapes.bands.get(h)!));
-      } catch {
-        a = NaN;
+      // the area alone, from the two boundaries; the intersection is built only when they touch
+      const sa = first.shapes.bands.get(h)!, sb = second.shapes.bands.get(h)!;
+      let a: number | null = intersectionArea(sa, sb);
+      if (a === null) {
+        try {
+          a = polygonsArea(clipIntersectShapes(sa, sb));
+        } catch {
+          a = NaN;
+        }
       }
       return { height: h, areaM2: m2(a) };
     });

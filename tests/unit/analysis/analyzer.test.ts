@@ -170,9 +170,10 @@ describe('analysis engine', () => {
           }
           let workPoints = input.workPoints;
           if (e.op === 'assign' && arms.length) {
-            workPoints = workPoints.slice();
-            const p = e.p % workPoints.length;
-            workPoints[p] = { ...workPoints[p], assignedArm: arms[e.k % arms.length].id };
+            const copy = workPoints.slice();
+            const p = e.p % copy.length;
+            copy[p] = { ...copy[p], assignedArm: arms[e.k % arms.length].id };
+            workPoints = copy;
           } else if (e.op === 'points') workPoints = pointsOf(e.seed);
           input = { ...input, arms, workPoints };
           expect(comparable(a.analyze(input))).toEqual(comparable(createAnalyzer(diskReach).analyze(input)));
