@@ -119,14 +119,15 @@ function edgeGrid(region: Polygon2[]): EdgeGrid {
 }
 
 /**
- * Shortest gap between a region's edges and a set of segments, the spot midway across it and the
- * nearest point on the segments; only edges in the grid cells within `pad` of the segments' box are
- * measured (null when there are none). Crossings are not detected here (the caller rules them out).
+ * Shortest gap under `pad` between a region's edges and a set of segments, the spot midway across
+ * it and the nearest point on the segments (null when there is none: pairs `pad` or more apart are
+ * not measured, and only edges in the grid cells within `pad` of the segments' box are read). A
+ * crossing gives a gap of 0 at once.
  */
 function nearestGap(g: EdgeGrid, segs: ReadonlyArray<readonly [readonly [number, number], readonly [number, number]]>, box: BBox, pad: number): { d: number; at: [number, number]; onItem: [number, number] } | null {
   // The best pair so far, kept as numbers: (px, py) lies on the region when `fromRegion`, else on
   // the item; its other end is the nearest point on the segment (ax, ay)–(bx, by).
-  let bestD = Infinity;
+  let bestD = pad;
   let bpx = 0, bpy = 0, bax = 0, bay = 0, bbx = 0, bby = 0, bFromRegion = false;
   const consider = (px: number, py: number, ax: number, ay: number, bx: number, by: number, fromRegion: boolean) => {
     const d = pointSegmentDistance(px, py, ax, ay, bx, by);
@@ -148,7 +149,7 @@ function nearestGap(g: EdgeGrid, segs: ReadonlyArray<readonly [readonly [number,
         g.stamp[e / 4] = q;
         const ax = edges[e], ay = edges[e + 1], bx = edges[e + 2], by = edges[e + 3];
         // Edges farther from the box than the best gap so far cannot beat it.
-        const r = Math.min(pad, bestD);
+        const r = bestD;
         if (Math.max(ax, bx) < box[0] - r || Math.min(ax, bx) > box[2] + r || Math.max(ay, by) < box[1] - r || Math.min(ay, by) > box[3] + r) continue;
         const a: readonly [number, number] = [ax, ay];
         const b: readonly [number, number] = [bx, by];
@@ -165,7 +166,7 @@ function nearestGap(g: EdgeGrid, segs: ReadonlyArray<readonly [readonly [number,
       }
     }
   }
-  if (bestD === Infinity) return null;
+  if (bestD === pad) return null;
   const near = nearestPointOnSegment(bpx, bpy, bax, bay, bbx, bby);
   return { d: bestD, at: [(bpx + near[0]) / 2, (bpy + near[1]) / 2], onItem: bFromRegion ? near : [bpx, bpy] };
 }
