@@ -125,6 +125,7 @@ describe('layout editor in Chromium', () => {
     // Drag without letting go: the worker's analysis of the drag pose draws the shared zone live.
     const [sx, sy] = centres.get(mover)!;
     const [tx, ty] = centres.get(other)!;
+    const reachAtStart = (await page.locator(`g.arm-reach[data-arm="${mover}"]`).boundingBox())!;
     await page.mouse.move(sx, sy);
     await page.mouse.down();
     const boundary = page.locator(`path.shared-zone[data-shared="${key}"]`);
@@ -137,7 +138,18 @@ describe('layout editor in Chromium', () => {
         .catch(() => false);
     }
     expect(appeared, 'shared zone drawn during the drag').toBe(true);
+    // Meanwhile the dragged arm's reach rides on a layer of its own, as far from where it started as
+    // the arm's mark (the plan's own copy is hidden until the drag ends).
+    const reachBox = async (sel: string) => (await page.locator(sel).first().boundingBox())!;
+    expect(await page.locator(`.plan-drag-layer[data-arm="${mover}"] g`).count()).toBe(1);
+    const dragged = await reachBox(`.plan-drag-layer[data-arm="${mover}"] g`);
+    const [mx, my] = await baseCentre(page, mover);
+    expect(Math.abs(dragged.x + dragged.width / 2 - (reachAtStart.x + reachAtStart.width / 2) - (mx - sx))).toBeLessThan(3);
+    expect(Math.abs(dragged.y + dragged.height / 2 - (reachAtStart.y + reachAtStart.height / 2) - (my - sy))).toBeLessThan(3);
+    expect(await page.locator(`g.arm-reach[data-arm="${mover}"]`).evaluate((g) => getComputedStyle(g).display)).toBe('none');
     await page.mouse.up();
+    await expect.poll(() => page.locator('.plan-drag-layer').count()).toBe(0);
+    expect(await page.locator(`g.arm-reach[data-arm="${mover}"]`).evaluate((g) => getComputedStyle(g).display)).not.toBe('none');
 
     // The finding is listed and the boundary is drawn with the hatch pattern.
     const finding = page.locator(`[data-finding="shared-zone:${key}"]`);

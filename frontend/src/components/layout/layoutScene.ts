@@ -10,6 +10,7 @@ import { parseFindingId } from '@shared/analysis';
 import type { ArmPlacement, LayoutContent, Boundary } from '@shared/schemas/layout';
 import { moveBoundaryVertex } from '../../editor/layoutEdits';
 import type { OverlayRender, PlanCanvas, PlanViewState } from '../../plan/planTypes';
+import { createDragLayer, type ArmPoseXY, type DragLayer } from './dragLayer';
 import { LAYOUT_OVERLAYS, type LayoutOverlay } from './layoutOverlays';
 import type { SceneCallbacks, SceneState, XY } from './sceneTypes';
 import {
@@ -48,6 +49,14 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
   let state: SceneState | null = null;
   // What a finished drag committed, shown until React hands back content that holds it (no flicker).
   let held: HeldEdit | null = null;
+  // The dragged arm's reach on a layer of its own while a move or turn lasts (dragLayer.ts), and
+  // the pose each arm's reach was last drawn at in the plan (where that layer's copy starts from).
+  let dragLayer: DragLayer | null = null;
+  const drawnAt = new Map<string, ArmPoseXY>();
+  const dropDragLayer = () => {
+    dragLayer?.remove();
+    dragLayer = null;
+  };
 
   const show = (o: LayoutOverlay, render: OverlayRender) => canvas.setOverlay(o.name, render, o);
 
@@ -58,12 +67,21 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
       held = edit;
     },
     redrawArm: () => {
-      show(LAYOUT_OVERLAYS.reach, (l) => drawReach(l, regionData(state!)));
+      const pose = tools.dragPose();
+      if (pose && !dragLayer) {
+        const from = drawnAt.get(pose.armId);
+        dragLayer = from ? createDragLayer(svg, pose.armId, from, canvas.view()) : null;
+        // the plan's own copy is hidden from now on (regionData)
+        if (dragLayer) show(LAYOUT_OVERLAYS.reach, (l) => drawReach(l, regionData(state!)));
+      }
+      if (pose && dragLayer?.armId === pose.armId) dragLayer.moveTo(pose, canvas.view());
+      else show(LAYOUT_OVERLAYS.reach, (l) => drawReach(l, regionData(state!)));
       renderMarks();
     },
     redrawMarks: () => renderMarks(),
     redrawDraft: () => show(LAYOUT_OVERLAYS.draft, (l, v) => drawDraft(l, tools.draft(), v)),
     redrawAll: () => {
+      dropDragLayer();
       renderPlan();
       renderMarks();
     },
@@ -97,8 +115,10 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
         transform = `translate(${a.x},${a.y}) rotate(${a.yaw - placed[2]}) translate(${-placed[0]},${-placed[1]})`;
       }
       const r = regions[a.id];
+      drawnAt.set(a.id, { x: a.x, y: a.y, yaw: a.yaw });
       return {
         arm: a,
+        hidden: dragLayer?.armId === a.id,
         transform,
         max: s.view?.maxSpaces[a.id] ?? null,
         restricted: r?.restricted ?? null,
@@ -173,6 +193,11 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
   };
   for (const [type, fn] of Object.entries(on)) svg.addEventListener(type, fn as EventListener);
   const stopView = canvas.onView((v) => {
+    // the layer's copy was laid out for the view it started in
+    if (dragLayer) {
+      dropDragLayer();
+      renderPlan();
+    }
     show(LAYOUT_OVERLAYS.patterns, (l) => drawPatterns(l, v));
     renderZoomDependent(v);
     renderMarks(v);
@@ -192,6 +217,7 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
     cancelDraw: () => state && tools.cancelDraw(),
     isDrawing: () => tools.isDrawing(),
     destroy() {
+      dropDragLayer();
       stopView();
       for (const [type, fn] of Object.entries(on)) svg.removeEventListener(type, fn as EventListener);
       for (const o of Object.values(LAYOUT_OVERLAYS)) canvas.removeOverlay(o.name);

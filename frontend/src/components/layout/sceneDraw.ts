@@ -97,6 +97,8 @@ export interface ArmRegionsDatum {
   restricted: AreaGeometry | null;
   band: AreaGeometry | null;
   emphasis: boolean;
+  /** Not drawn here: the arm is being dragged and its reach is on the drag layer (dragLayer.ts). */
+  hidden: boolean;
 }
 
 /**
@@ -116,7 +118,8 @@ export function drawReach(layer: G, data: readonly ArmRegionsDatum[]): void {
       return g;
     })
     .attr('data-arm', (d) => d.arm.id)
-    .attr('transform', (d) => d.transform);
+    .attr('transform', (d) => d.transform)
+    .style('display', (d) => (d.hidden ? 'none' : null));
   const { restricted, maxSpace, band } = BOUNDARY_STYLES;
   groups
     .select<SVGPathElement>('path.reach-restricted')
