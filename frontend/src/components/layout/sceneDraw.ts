@@ -219,10 +219,21 @@ export function drawWorkPoints(canvas: PlanCanvas, content: LayoutContent, cover
   // Painted again only when the points, the view, the selection or which points are reached
   // changed (a drag result usually changes none of them).
   const reachedNow = new Uint8Array(content.workPoints.length);
-  content.workPoints.forEach((p, i) => {
-    const row = coverage?.[p.id];
-    reachedNow[i] = !row || content.arms.length === 0 || Object.values(row).some(isReached) ? 1 : 0;
-  });
+  const anyArm = content.arms.length > 0;
+  for (let i = 0; i < content.workPoints.length; i++) {
+    const row = coverage?.[content.workPoints[i].id];
+    let reached = !row || !anyArm;
+    // a loop over the row's entries, not Object.values: no array per point on every result
+    if (row && !reached) {
+      for (const id in row) {
+        if (isReached(row[id])) {
+          reached = true;
+          break;
+        }
+      }
+    }
+    reachedNow[i] = reached ? 1 : 0;
+  }
   const last = drawnPoints.get(canvas);
   if (
     last &&
