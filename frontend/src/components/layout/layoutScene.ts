@@ -26,7 +26,7 @@ import {
   POINTS_LAYER,
   type ArmRegionsDatum,
 } from './sceneDraw';
-import { drawArmMarks, drawDraft, drawSectionLine, drawVertexHandles } from './sceneMarks';
+import { drawArmMarks, drawDraft, drawSectionLine, drawVertexHandles, placeArmMark } from './sceneMarks';
 import type { HeldEdit, ToolHost, ToolPointer } from './tools/tool';
 import { ToolDispatcher, boundaryUnder } from './tools/toolDispatcher';
 
@@ -74,8 +74,15 @@ export function createLayoutScene(canvas: PlanCanvas, svg: SVGSVGElement, cb: Sc
         // the plan's own copy is hidden from now on (regionData)
         if (dragLayer) show(LAYOUT_OVERLAYS.reach, (l) => drawReach(l, regionData(state!)));
       }
-      if (pose && dragLayer?.armId === pose.armId) dragLayer.moveTo(pose, canvas.view());
-      else show(LAYOUT_OVERLAYS.reach, (l) => drawReach(l, regionData(state!)));
+      const arm = pose && state!.content.arms.find((a) => a.id === pose.armId);
+      if (pose && arm && dragLayer?.armId === pose.armId) {
+        // only the layer and the arm's own mark move: nothing else on the plan changes with the pointer
+        const view = canvas.view();
+        dragLayer.moveTo(pose, view);
+        show(LAYOUT_OVERLAYS.arms, (l) => placeArmMark(l, shownArm(arm), view));
+        return;
+      }
+      show(LAYOUT_OVERLAYS.reach, (l) => drawReach(l, regionData(state!)));
       renderMarks();
     },
     redrawMarks: () => renderMarks(),

@@ -158,7 +158,10 @@ export function drawSharedZones(layer: G, sharedZones: AnalysisView['analysis'][
     .join('path')
     .attr('class', 'shared-zone')
     .attr('data-shared', (o) => o.arms.join('+'))
-    .attr('d', (o) => geometryPath(o.geometry))
+    // the path's data is rebuilt only when its geometry object changed (most results change few zones)
+    .each(function (o) {
+      setPathGeometry(this, o.geometry);
+    })
     .attr('fill-rule', 'evenodd')
     .attr('vector-effect', 'non-scaling-stroke')
     .attr('pointer-events', 'none')

@@ -38,18 +38,10 @@ export function drawArmMarks(layer: G, arms: readonly ArmPlacement[], view: Plan
     })
     .attr('data-arm', (a) => a.id)
     .attr('data-selected', (a) => (a.id === selectedArm ? 'true' : null))
-    .attr('transform', (a) => {
-      const [x, y] = view.toScreen({ x: a.x, y: a.y });
-      return `translate(${x},${y})`;
-    })
+    .attr('transform', (a) => markTransform(a, view))
     .style('cursor', o.readOnly ? 'pointer' : 'grab');
   const base = BOUNDARY_STYLES.armBase.screen;
   const colour = (a: ArmPlacement) => (a.id === selectedArm ? SCENE_COLOURS.selected : base.colour);
-  // J1 zero direction on screen (screen y grows downward, plan y upward).
-  const tip = (a: ArmPlacement): XY => {
-    const pose = armPose(a);
-    return [pose.cos * TICK_PX, -pose.sin * TICK_PX];
-  };
   marks
     .select('line.arm-tick')
     .attr('x1', 0)
@@ -84,6 +76,30 @@ export function drawArmMarks(layer: G, arms: readonly ArmPlacement[], view: Plan
   marks.on('pointerdown', function (e: PointerEvent, a) {
     onPress(e, this, a);
   });
+}
+
+/** Where an arm's mark sits on screen. */
+const markTransform = (a: ArmPlacement, view: PlanViewState): string => {
+  const [x, y] = view.toScreen({ x: a.x, y: a.y });
+  return `translate(${x},${y})`;
+};
+
+/** J1 zero direction on screen, TICK_PX long (screen y grows downward, plan y upward). */
+function tip(a: ArmPlacement): XY {
+  const pose = armPose(a);
+  return [pose.cos * TICK_PX, -pose.sin * TICK_PX];
+}
+
+/**
+ * Moves one arm's mark (drawn by drawArmMarks) to the arm's pose: its place, its J1 tick and turn
+ * handle, nothing else. What a drag changes on each pointer move.
+ */
+export function placeArmMark(layer: G, arm: ArmPlacement, view: PlanViewState): void {
+  const mark = layer.selectAll<SVGGElement, ArmPlacement>('g.arm-mark').filter((a) => a.id === arm.id);
+  const [tx, ty] = tip(arm);
+  mark.attr('transform', markTransform(arm, view));
+  mark.select('line.arm-tick').attr('x2', tx).attr('y2', ty);
+  mark.select('circle.turn-handle').attr('cx', tx).attr('cy', ty);
 }
 
 /** Square handles on the corners given (those of the selected boundary). */
