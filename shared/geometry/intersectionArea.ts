@@ -50,6 +50,8 @@ interface Packed {
   xs: Float64Array;
   ys: Float64Array;
   start: Int32Array;
+  /** Ring of every vertex. */
+  ring: Int32Array;
 }
 
 const packedOf = new WeakMap<ClipShape, Packed>();
@@ -70,7 +72,9 @@ function packed(shape: ClipShape): Packed {
     }
   });
   start[shape.paths.length] = k;
-  p = { xs, ys, start };
+  const ring = new Int32Array(n);
+  for (let r = 0; r < shape.paths.length; r++) ring.fill(r, start[r], start[r + 1]);
+  p = { xs, ys, start, ring };
   packedOf.set(shape, p);
   return p;
 }
@@ -141,7 +145,7 @@ function findCrossings(A: Packed, B: Packed, ea: Int32Array, eb: Int32Array, x0:
   ];
   // B's edges by the cells their boxes cover
   const cells: number[][] = Array.from({ length: g * g }, () => []);
-  const ringOfB = ringIndex(B);
+  const ringOfB = B.ring;
   for (let k = 0; k < eb.length; k++) {
     const i = eb[k], j = nextOf(B, ringOfB[i], i);
     const [c0, c1] = cellRange(Math.min(B.xs[i], B.xs[j]), Math.max(B.xs[i], B.xs[j]), x0, cw);
@@ -150,7 +154,7 @@ function findCrossings(A: Packed, B: Packed, ea: Int32Array, eb: Int32Array, x0:
   }
   const seen = new Int32Array(eb.length).fill(-1);
   const out: Crossings = { a: new Map(), b: new Map() };
-  const ringOfA = ringIndex(A);
+  const ringOfA = A.ring;
   for (let m = 0; m < ea.length; m++) {
     const i = ea[m], j = nextOf(A, ringOfA[i], i);
     const ax = A.xs[i], ay = A.ys[i], bx = A.xs[j], by = A.ys[j];
@@ -186,13 +190,6 @@ function push(map: Map<number, number[]>, key: number, t: number): void {
   const list = map.get(key);
   if (list) list.push(t);
   else map.set(key, [t]);
-}
-
-/** Ring of every vertex. */
-function ringIndex(p: Packed): Int32Array {
-  const out = new Int32Array(p.xs.length);
-  for (let r = 0; r + 1 < p.start.length; r++) out.fill(r, p.start[r], p.start[r + 1]);
-  return out;
 }
 
 /**
