@@ -1,12 +1,12 @@
 import { polygonsArea } from '../geometry/area';
 import { pointsBounds, polygonsBounds } from '../geometry/bounds';
-import { clipIntersect, clipUnion } from '../geometry/clipper';
+import { clipIntersect, clipIntersectShapes, clipShape, clipUnion, type ClipShape } from '../geometry/clipper';
 import { polygonsToGeoJSON } from '../geometry/geojson';
 import { pointInPolygons } from '../geometry/pointInPolygon';
 import type { Polygon2 } from '../geometry/types';
 import type { ArmPlacement, Boundary } from '../schemas/layout';
 import { findingId, m2, m2Text, mm, reasonOf, SEVERITY_OF } from './messages';
-import { polylineDistanceToPolygons, polylineHitsPolygons, segmentsIntersect, subtractOpenings } from './segments';
+import { polylineDistanceToPolygons, polylineHitsPolygons, segmentsIntersectXY, subtractOpenings } from './segments';
 import type { Finding, FindingKind, PreparedFloor, StructureItem } from './types';
 
 /** Smallest overlap area that counts, mm² (below it is boolean-op noise). */
@@ -23,6 +23,19 @@ export const bboxOverlap = (a: BBox | null, b: BBox | null) => !!a && !!b && a[0
 /** clipIntersect, with an empty side giving an empty result (clipper refuses two empty inputs). */
 export function intersect(a: Polygon2[], b: Polygon2[]): Polygon2[] {
   return a.length && b.length ? clipIntersect(a, b) : [];
+}
+
+/** Each cached arm region's clipper form, made once (regions are cached per arm and never changed). */
+const regionShapes = new WeakMap<Polygon2[], ClipShape>();
+function regionShape(region: Polygon2[]): ClipShape {
+  let s = regionShapes.get(region);
+  if (!s) regionShapes.set(region, (s = clipShape(region)));
+  return s;
+}
+
+/** intersect() of a cached arm region and other polygons, the region converted for clipping once. */
+function intersectRegion(region: Polygon2[], b: Polygon2[]): Polygon2[] {
+  return region.length && b.length ? clipIntersectShapes(regionShape(region), clipShape(b)) : [];
 }
 
 export function centroidOf(polys: Polygon2[]): [number, number] | null {
@@ -72,8 +85,8 @@ function crossesEdges(line: ReadonlyArray<readonly [number, number]>, closed: bo
     if (Math.max(ax, bx) < box[0] || Math.min(ax, bx) > box[2] || Math.max(ay, by) < box[1] || Math.min(ay, by) > box[3]) continue;
     for (let k = 0; k < n; k++) {
       const c = line[k];
-      const d = line[(k + 1) % line.length];
-      if (segmentsIntersect([ax, ay], [bx, by], c, d)) return true;
+      const d = line[k + 1 === line.length ? 0 : k + 1];
+      if (segmentsIntersectXY(ax, ay, bx, by, c[0], c[1], d[0], d[1])) return true;
     }
   }
   return false;
@@ -99,6 +112,33 @@ function itemHits(s: StructureItem, region: Polygon2[]): boolean {
   return false;
 }
 
+/**
+ * The structure items the arm's restricted space (below each item's top) enters, by layer; a
+ * column under the base goes to `onColumn` instead. (A loop of its own, indexed: it runs over
+ * every item of the floor for every arm.)
+ */
+function structureHits(p: ClearanceArm, structures: ReadonlyArray<StructureItem>, onColumn: (s: StructureItem) => void): Map<string, StructureItem[]> {
+  const hits = new Map<string, StructureItem[]>();
+  const x = p.arm.x;
+  const y = p.arm.y;
+  const box = p.bbox;
+  for (let i = 0; i < structures.length; i++) {
+    const s = structures[i];
+    const sb = s.bbox;
+    if (s.role === 'column' && s.polygons.length && x >= sb[0] && x <= sb[2] && y >= sb[1] && y <= sb[3] && pointInPolygons(x, y, s.polygons)) {
+      onColumn(s);
+      continue;
+    }
+    if (!box || sb[0] > box[2] || box[0] > sb[2] || sb[1] > box[3] || box[1] > sb[3]) continue;
+    const region = p.below(s.top);
+    if (!region || !itemHits(s, region)) continue;
+    const list = hits.get(s.layer);
+    if (list) list.push(s);
+    else hits.set(s.layer, [s]);
+  }
+  return hits;
+}
+
 /** Clearance findings of one arm: floor outline, columns under the base, structure by height, fences, openings, operator areas, keep-outs. */
 export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, boundaries: ReadonlyArray<Boundary>): Finding[] {
   const out: Finding[] = [];
@@ -109,28 +149,21 @@ export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, bound
     out.push(makeFinding('base-off-floor', [id], { arms: [id], points: [], geometry: null, at, message: `${name}: its base stands outside the floor outline.` }));
   }
   if (floor) {
-    const hits = new Map<string, StructureItem[]>();
-    for (const s of floor.structures) {
-      const sb = s.bbox;
-      if (s.role === 'column' && s.polygons.length && p.arm.x >= sb[0] && p.arm.x <= sb[2] && p.arm.y >= sb[1] && p.arm.y <= sb[3] && pointInPolygons(p.arm.x, p.arm.y, s.polygons)) {
-        out.push(makeFinding('base-on-column', [id, s.id], { arms: [id], points: [], geometry: polygonsToGeoJSON(s.polygons), at, message: `${name}: its base stands on a column (layer ${s.layer}).` }));
-        continue;
-      }
-      if (!bboxOverlap(p.bbox, s.bbox)) continue;
-      const region = p.below(s.top);
-      if (!region || !itemHits(s, region)) continue;
-      const list = hits.get(s.layer) ?? [];
-      list.push(s);
-      hits.set(s.layer, list);
-    }
+    const hits = structureHits(p, floor.structures, (s) => {
+      out.push(makeFinding('base-on-column', [id, s.id], { arms: [id], points: [], geometry: polygonsToGeoJSON(s.polygons), at, message: `${name}: its base stands on a column (layer ${s.layer}).` }));
+    });
     for (const [layer, items] of hits) {
       const { role, top } = items[0];
       let union: Polygon2[] = [];
       try {
         const byTop = new Map<number, Polygon2[]>();
-        for (const s of items) byTop.set(s.top, [...(byTop.get(s.top) ?? []), ...s.polygons]);
+        for (const s of items) {
+          let list = byTop.get(s.top);
+          if (!list) byTop.set(s.top, (list = []));
+          for (const poly of s.polygons) list.push(poly);
+        }
         const parts: Polygon2[] = [];
-        for (const [t, polys] of byTop) parts.push(...intersect(p.below(t) ?? [], polys));
+        for (const [t, polys] of byTop) for (const part of intersectRegion(p.below(t) ?? [], polys)) parts.push(part);
         // One clip per height already merges its items; only several heights need a union.
         union = byTop.size > 1 && parts.length ? clipUnion(parts) : parts;
       } catch (err) {
@@ -169,7 +202,7 @@ export function armClearance(p: ClearanceArm, floor: PreparedFloor | null, bound
     const poly: Polygon2[] = [[z.points.map(([x, y]) => [x, y] as [number, number])]];
     let inter: Polygon2[];
     try {
-      inter = intersect(p.restricted, poly);
+      inter = intersectRegion(p.restricted, poly);
     } catch (err) {
       const why = reasonOf(err);
       const what = z.kind === 'operator' ? 'operator area' : 'keep-out';

@@ -20,7 +20,7 @@ import {
 import type { ArmPlacement, Boundary } from '../schemas/layout';
 import { makeFinding, regionEdges, type BBox } from './clearance';
 import { mm, reasonOf } from './messages';
-import { polylineDistanceToPolygons, segmentsIntersect, subtractOpenings } from './segments';
+import { polylineDistanceToPolygons, segmentsIntersectXY, subtractOpenings } from './segments';
 import type { ArmReach, Finding, PreparedFloor, SafeguardFenceRow, SafeguardingResult, SafeguardOpeningRow, StructureItem } from './types';
 
 /** Fences farther than this from a restricted space need no reach-over or reach-through distance (the largest value of either table), mm. */
@@ -151,13 +151,11 @@ function nearestGap(g: EdgeGrid, segs: ReadonlyArray<readonly [readonly [number,
         // Edges farther from the box than the best gap so far cannot beat it.
         const r = bestD;
         if (Math.max(ax, bx) < box[0] - r || Math.min(ax, bx) > box[2] + r || Math.max(ay, by) < box[1] - r || Math.min(ay, by) > box[3] + r) continue;
-        const a: readonly [number, number] = [ax, ay];
-        const b: readonly [number, number] = [bx, by];
         const eMinX = Math.min(ax, bx), eMaxX = Math.max(ax, bx), eMinY = Math.min(ay, by), eMaxY = Math.max(ay, by);
         for (const [c, d] of segs) {
           // Boxes farther apart than the best gap so far: no crossing, and no pair of points nearer.
           if (Math.min(c[0], d[0]) - eMaxX > bestD || eMinX - Math.max(c[0], d[0]) > bestD || Math.min(c[1], d[1]) - eMaxY > bestD || eMinY - Math.max(c[1], d[1]) > bestD) continue;
-          if (segmentsIntersect(a, b, c, d)) return { d: 0, at: [c[0], c[1]], onItem: [c[0], c[1]] };
+          if (segmentsIntersectXY(ax, ay, bx, by, c[0], c[1], d[0], d[1])) return { d: 0, at: [c[0], c[1]], onItem: [c[0], c[1]] };
           consider(ax, ay, c[0], c[1], d[0], d[1], true);
           consider(bx, by, c[0], c[1], d[0], d[1], true);
           consider(c[0], c[1], ax, ay, bx, by, false);
@@ -244,13 +242,14 @@ export function measureArmSafeguarding(p: SafeguardArm, floor: PreparedFloor | n
       const dx = Math.max(bb[0] - p.arm.x, 0, p.arm.x - bb[2]);
       const dy = Math.max(bb[1] - p.arm.y, 0, p.arm.y - bb[3]);
       if (Math.hypot(dx, dy) > p.reach.maxReach + CRUSHING_GAP_BODY_MM) continue;
-      grid ??= edgeGrid(p.restricted);
-      const segs = itemSegments(s);
-      const gap = nearestGap(grid, segs, bb, CRUSHING_GAP_BODY_MM);
-      if (!gap || gap.d <= 0 || gap.d >= CRUSHING_GAP_BODY_MM) continue;
-      // No edge crosses (nearestGap returns 0 then): an item inside the restricted space, or the
-      // restricted space inside the item, is reach into structure (clearance.ts), not a gap.
+      // An item inside the restricted space, or the restricted space inside the item, is reach
+      // into structure (clearance.ts), not a gap; so is an item an edge crosses (nearestGap gives
+      // 0 then). The nesting test, a few point-in-polygon tests, goes first: it spares the gap
+      // search of every item a vertex of which lies inside.
       if (itemInside(s, p.restricted)) continue;
+      grid ??= edgeGrid(p.restricted);
+      const gap = nearestGap(grid, itemSegments(s), bb, CRUSHING_GAP_BODY_MM);
+      if (!gap || gap.d <= 0 || gap.d >= CRUSHING_GAP_BODY_MM) continue;
       if (guarded.length && !pointInPolygons(gap.onItem[0], gap.onItem[1], guarded)) continue;
       const prev = byLayer.get(s.layer);
       if (!prev) byLayer.set(s.layer, { d: gap.d, at: gap.at, items: 1, role: s.role });

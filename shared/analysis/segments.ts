@@ -14,19 +14,24 @@ function onSegment(px: number, py: number, qx: number, qy: number, rx: number, r
 
 /** True when segments ab and cd intersect or touch (orientation test, planar). */
 export function segmentsIntersect(a: P, b: P, c: P, d: P): boolean {
+  return segmentsIntersectXY(a[0], a[1], b[0], b[1], c[0], c[1], d[0], d[1]);
+}
+
+/** segmentsIntersect of (ax, ay)–(bx, by) and (cx, cy)–(dx, dy), taking plain numbers (no point arrays in hot loops). */
+export function segmentsIntersectXY(ax: number, ay: number, bx: number, by: number, cx: number, cy: number, dx: number, dy: number): boolean {
   // Bounding boxes first: most pairs in a clearance check are far apart.
-  if (Math.max(a[0], b[0]) < Math.min(c[0], d[0]) || Math.max(c[0], d[0]) < Math.min(a[0], b[0])) return false;
-  if (Math.max(a[1], b[1]) < Math.min(c[1], d[1]) || Math.max(c[1], d[1]) < Math.min(a[1], b[1])) return false;
-  const d1 = orient(c[0], c[1], d[0], d[1], a[0], a[1]);
-  const d2 = orient(c[0], c[1], d[0], d[1], b[0], b[1]);
-  const d3 = orient(a[0], a[1], b[0], b[1], c[0], c[1]);
-  const d4 = orient(a[0], a[1], b[0], b[1], d[0], d[1]);
+  if (Math.max(ax, bx) < Math.min(cx, dx) || Math.max(cx, dx) < Math.min(ax, bx)) return false;
+  if (Math.max(ay, by) < Math.min(cy, dy) || Math.max(cy, dy) < Math.min(ay, by)) return false;
+  const d1 = orient(cx, cy, dx, dy, ax, ay);
+  const d2 = orient(cx, cy, dx, dy, bx, by);
+  const d3 = orient(ax, ay, bx, by, cx, cy);
+  const d4 = orient(ax, ay, bx, by, dx, dy);
   if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) return true;
   return (
-    (d1 === 0 && onSegment(c[0], c[1], d[0], d[1], a[0], a[1])) ||
-    (d2 === 0 && onSegment(c[0], c[1], d[0], d[1], b[0], b[1])) ||
-    (d3 === 0 && onSegment(a[0], a[1], b[0], b[1], c[0], c[1])) ||
-    (d4 === 0 && onSegment(a[0], a[1], b[0], b[1], d[0], d[1]))
+    (d1 === 0 && onSegment(cx, cy, dx, dy, ax, ay)) ||
+    (d2 === 0 && onSegment(cx, cy, dx, dy, bx, by)) ||
+    (d3 === 0 && onSegment(ax, ay, bx, by, cx, cy)) ||
+    (d4 === 0 && onSegment(ax, ay, bx, by, dx, dy))
   );
 }
 

@@ -13,9 +13,10 @@ const SCALE = 1 / GRID_MM;
 
 function ringToPath(ring: Readonly<Ring>, ccw: boolean): ClipperLib.Path {
   const path: ClipperLib.Path = [];
-  for (const [x, y] of ring) {
-    const X = Math.round(x * SCALE);
-    const Y = Math.round(y * SCALE);
+  // (an indexed loop: destructuring each vertex goes through the iterator protocol, a heap object per vertex)
+  for (let i = 0; i < ring.length; i++) {
+    const X = Math.round(ring[i][0] * SCALE);
+    const Y = Math.round(ring[i][1] * SCALE);
     const last = path[path.length - 1];
     if (!last || last.X !== X || last.Y !== Y) path.push({ X, Y });
   }
@@ -105,14 +106,68 @@ export function clipShape(polygons: ReadonlyArray<Polygon2>): ClipShape {
   return { paths, box: pathsBox(paths) };
 }
 
+/** Which sides of the box a point lies strictly beyond: 1 left, 2 right, 4 below, 8 above (0 inside or on it). */
+function outcode(X: number, Y: number, box: Box): number {
+  return (X < box[0] ? 1 : X > box[2] ? 2 : 0) | (Y < box[1] ? 4 : Y > box[3] ? 8 : 0);
+}
+
+/**
+ * The paths with every run of vertices that lie strictly beyond one side of `box` shortened to its
+ * two ends: the chord that replaces the run lies beyond that side too, so the winding number
+ * changes only outside the box and every point inside it (with every edge that reaches it) is
+ * kept exactly — no new vertex, no rounding. A path left with fewer than three vertices lies
+ * wholly outside and is dropped. Paths with nothing to drop are handed back as they are.
+ */
+export function cropPathsToBox(paths: ClipperLib.Paths, box: Box): ClipperLib.Paths {
+  const out: ClipperLib.Paths = [];
+  for (const path of paths) {
+    const n = path.length;
+    const kept: ClipperLib.Path = [path[0]];
+    // acc: the sides every vertex of the current run (from the last kept vertex) lies beyond;
+    // pending: the run's last vertex, dropped if the next vertex still shares a side with the run.
+    let acc = outcode(path[0].X, path[0].Y, box);
+    let pending = -1;
+    for (let i = 1; i <= n; i++) {
+      const p = path[i === n ? 0 : i];
+      const c = outcode(p.X, p.Y, box);
+      if ((acc & c) !== 0) {
+        acc &= c;
+        pending = i;
+        continue;
+      }
+      if (pending >= 0) {
+        kept.push(path[pending]);
+        acc = outcode(path[pending].X, path[pending].Y, box);
+        pending = -1;
+        if ((acc & c) !== 0) {
+          acc &= c;
+          pending = i;
+          continue;
+        }
+      }
+      if (i < n) kept.push(p);
+      acc = c;
+    }
+    if (kept.length === n) out.push(path);
+    else if (kept.length >= 3) out.push(kept);
+  }
+  return out;
+}
+
 /**
  * Intersection of two prepared shapes, mm: empty at once when their bounding boxes do not meet,
- * else integer Vatti clipping of the whole paths.
+ * else integer Vatti clipping of the paths, each first cropped (exactly, cropPathsToBox) to the
+ * box both bounding boxes share — a large region against a small one then costs little more than
+ * the small one's edges.
  */
 export function clipIntersectShapes(a: ClipShape, b: ClipShape): Polygon2[] {
   if (!a.box || !b.box) return [];
   if (a.box[0] > b.box[2] || b.box[0] > a.box[2] || a.box[1] > b.box[3] || b.box[1] > a.box[3]) return [];
-  return execute(ClipperLib.ClipType.ctIntersection, a.paths, b.paths);
+  const box: Box = [Math.max(a.box[0], b.box[0]), Math.max(a.box[1], b.box[1]), Math.min(a.box[2], b.box[2]), Math.min(a.box[3], b.box[3])];
+  const pa = cropPathsToBox(a.paths, box);
+  const pb = cropPathsToBox(b.paths, box);
+  if (!pa.length || !pb.length) return [];
+  return execute(ClipperLib.ClipType.ctIntersection, pa, pb);
 }
 
 /** Intersection of two polygon sets, mm (integer Vatti clipping; see clipIntersectShapes). */

@@ -5,9 +5,12 @@ import type { Polygon2, Pt, Ring } from './types';
 /** Planar GeoJSON area geometry in mm (plan or arm frame; never longitude/latitude). */
 export type AreaGeometry = Polygon | MultiPolygon;
 
-/** Closes a ring for GeoJSON (repeats the first point at the end), counter-clockwise when `ccw`. */
+/**
+ * Closes a ring for GeoJSON (repeats the first point at the end), counter-clockwise when `ccw`.
+ * A new array of the ring's own position arrays (not copied: positions are never changed in place).
+ */
 export function ringToPositions(ring: Readonly<Ring>, ccw: boolean): Position[] {
-  const pts = ring.map(([x, y]) => [x, y]);
+  const pts: Position[] = ring.slice();
   const area = ringArea(ring);
   if ((area > 0) !== ccw && area !== 0) pts.reverse();
   if (pts.length > 0) pts.push([pts[0][0], pts[0][1]]);
